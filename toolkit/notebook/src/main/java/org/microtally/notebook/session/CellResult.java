@@ -1,0 +1,23 @@
+package org.microtally.notebook.session;
+
+import java.util.Optional;
+import org.microtally.notebook.render.MimeBundle;
+
+/**
+ * The outcome of running one cell.
+ *
+ * @param outcome whether it succeeded, failed to compile, threw, or was interrupted
+ * @param value   the rendered value of the cell's last expression, if it had one and succeeded
+ * @param raw     that value itself (the real object), if any
+ * @param error   why it failed, when {@code outcome != OK}
+ */
+public record CellResult(Outcome outcome, Optional<MimeBundle> value, Optional<Object> raw, Optional<CellError> error) {
+
+    /** How a cell ended. */
+    public enum Outcome { OK, COMPILE_ERROR, RUNTIME_ERROR, INTERRUPTED }
+
+    /** True when the cell ran to the end without error. */
+    public boolean ok() {
+        return outcome == Outcome.OK;
+    }
+}
