@@ -57,7 +57,7 @@ public final class Charts {
     private static final Color GRID = new Color(0xe1e8ea);
 
     static {
-        Headless.ensure();
+        DisplayEnvironment.prepare();
     }
 
     private Charts() { }
@@ -136,7 +136,7 @@ public final class Charts {
 
     /** The chart drawn as PNG at its own width and height (headless). */
     public static byte[] png(Chart<?, ?> chart) {
-        Headless.ensure();
+        DisplayEnvironment.prepare();
         try {
             return BitmapEncoder.getBitmapBytes(chart, BitmapEncoder.BitmapFormat.PNG);
         } catch (IOException e) {
@@ -146,7 +146,7 @@ public final class Charts {
 
     /** The chart drawn as an SVG document (UTF-8 XML text) at its own width and height. */
     public static String svg(Chart<?, ?> chart) {
-        Headless.ensure();
+        DisplayEnvironment.prepare();
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try {
             VectorGraphicsEncoder.saveVectorGraphic(chart, out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
@@ -166,7 +166,7 @@ public final class Charts {
 
     /** A PNG display bundle for an image, with a text/plain line giving its size. */
     public static MimeBundle bundle(BufferedImage image) {
-        Headless.ensure();
+        DisplayEnvironment.prepare();
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try {
             if (!ImageIO.write(image, "png", out)) {

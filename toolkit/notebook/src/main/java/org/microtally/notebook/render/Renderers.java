@@ -54,6 +54,7 @@ public final class Renderers {
     private static final Map<Class<?>, Function<Object, MimeBundle>> REGISTRY = new ConcurrentHashMap<>();
 
     static {
+        DisplayEnvironment.prepare();
         register(MimeBundle.class, b -> b);
         register(Html.class, h -> MimeBundle.builder(h.text()).put(MimeBundle.TEXT_HTML, h.markup()).build());
         register(Markdown.class, m -> MimeBundle.builder(m.source()).put(MimeBundle.TEXT_MARKDOWN, m.source()).build());

@@ -41,6 +41,10 @@ import tech.tablesaw.columns.Column;
 public final class Tables {
     private static final long DOUBLE_EXACT_LIMIT = 1L << 53;
 
+    static {
+        DisplayEnvironment.prepare();
+    }
+
     private Tables() { }
 
     /** {@code table} as a Tablesaw table named "result". */
@@ -133,7 +137,7 @@ public final class Tables {
             }
             return new BigFraction(new BigInteger(s.substring(0, slash).strip()),
                     new BigInteger(s.substring(slash + 1).strip()));
-        } catch (NumberFormatException | ArithmeticException e) {
+        } catch (IllegalArgumentException | ArithmeticException e) {
             throw InvalidInputException.of("exact fraction", "\"" + text + "\"",
                     "an integer or p/q with integers p and q != 0", "");
         }
