@@ -73,7 +73,8 @@ public final class SpectrumReader {
             table = Table.read().csv(CsvReadOptions.builder(csv).tableName(sourceName).header(true)
                     .columnTypes(name -> ColumnType.STRING));
         } catch (RuntimeException e) {
-            throw new InvalidInputException("could not read spectrum CSV " + sourceName + ": " + e.getMessage()
+            String why = String.valueOf(e.getMessage()).strip().replaceAll("\\.+$", "");
+            throw new InvalidInputException("could not read spectrum CSV " + sourceName + ": " + why
                     + ". Give a comma-separated file with a header row naming energy, degeneracy and optionally label.");
         }
         return read(table, sourceName, true, scale, cutoffEnergy, cutoffNote);

@@ -20,7 +20,7 @@ import org.apache.commons.math3.fraction.Fraction;
  *       {@code p/q}, each part abbreviated as above.</li>
  *   <li>Floating-point numbers rounded half-even to {@link TableFormat#significantDigits()}
  *       significant digits (they are approximations already; {@link #exact} gives the shortest
- *       decimal that reads back to the same double), plain between 1e-5 and 1e9, otherwise in
+ *       decimal that reads back to the same double), plain between 1e-4 and 1e9, otherwise in
  *       scientific notation {@code 1.2345e-12}.</li>
  *   <li>{@code null} (a missing value) as the empty string; anything else by {@code String.valueOf},
  *       line breaks shown as spaces.</li>
@@ -141,7 +141,7 @@ public final class CellText {
         BigDecimal d = new BigDecimal(Double.toString(v)).round(new MathContext(sig, RoundingMode.HALF_EVEN))
                 .stripTrailingZeros();
         int exp = d.precision() - d.scale() - 1;
-        if (exp >= -5 && exp < 9) {
+        if (exp >= -4 && exp < 9) {
             return d.toPlainString();
         }
         return sci(d);

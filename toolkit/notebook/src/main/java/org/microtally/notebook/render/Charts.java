@@ -118,11 +118,11 @@ public final class Charts {
         s.setChartTitleBoxVisible(false);
         s.setLegendFont(new Font(Font.SANS_SERIF, Font.PLAIN, 11));
         s.setLegendBorderColor(GRID);
-        s.setLegendPosition(Styler.LegendPosition.InsideNE);
+        s.setLegendPosition(Styler.LegendPosition.OutsideS);
+        s.setLegendLayout(Styler.LegendLayout.Horizontal);
         s.setMarkerSize(5);
         s.setSeriesMarkers(new Marker[] {SeriesMarkers.CIRCLE, SeriesMarkers.SQUARE, SeriesMarkers.DIAMOND,
             SeriesMarkers.TRIANGLE_UP, SeriesMarkers.TRIANGLE_DOWN, SeriesMarkers.CROSS});
-        s.setChartTitleVisible(chart.getTitle() != null && !chart.getTitle().isBlank());
         if (s instanceof AxesChartStyler a) {
             a.setPlotGridLinesColor(GRID);
             a.setPlotGridLinesStroke(new BasicStroke(1f));

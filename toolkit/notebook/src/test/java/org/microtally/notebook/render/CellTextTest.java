@@ -85,7 +85,8 @@ class CellTextTest {
         assertEquals("3", CellText.shown(3.0, f));
         assertEquals("1.5e-12", CellText.shown(1.5e-12, f));
         assertEquals("1.2345679e11", CellText.shown(123456789012.0, f));
-        assertEquals("0.000012345", CellText.shown(1.2345e-5, f));
+        assertEquals("0.00012345", CellText.shown(1.2345e-4, f));
+        assertEquals("1.2345e-5", CellText.shown(1.2345e-5, f));
         assertEquals("-0", CellText.shown(-0.0, f));
         assertEquals("NaN", CellText.shown(Double.NaN, f));
         // half-even at the 2nd significant digit: 0.125 (exact in binary) -> 0.12, 0.375 -> 0.38
