@@ -17,6 +17,7 @@ import javax.imageio.ImageIO;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
+import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.CategoryChart;
 import org.knowm.xchart.CategoryChartBuilder;
@@ -102,6 +103,33 @@ public final class Charts {
         chart.getStyler().setOverlapped(false);
         chart.getStyler().setLegendVisible(valueColumns.length > 1);
         chart.getStyler().setXAxisLabelRotation(xsRotation(table.rows().size()));
+        return chart;
+    }
+
+    /**
+     * The spectrum as a stick chart: one vertical line per level from 0 up to its degeneracy, at its
+     * energy; the x axis is titled with the spectrum's energy unit.
+     */
+    public static XYChart spectrum(Spectrum spectrum) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        int n = spectrum.size();
+        double[] xs = new double[3 * n];
+        double[] ys = new double[3 * n];
+        for (int i = 0; i < n; i++) {
+            double e = spectrum.energy(i);
+            xs[3 * i] = e;
+            xs[3 * i + 1] = e;
+            xs[3 * i + 2] = e;
+            ys[3 * i + 1] = spectrum.degeneracy(i);
+        }
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle("energy [" + spectrum.scale().name() + "]").yAxisTitle("degeneracy").build();
+        XYSeries s = chart.addSeries("levels", xs, ys);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        s.setMarker(SeriesMarkers.NONE);
+        style(chart);
+        chart.getStyler().setLegendVisible(false);
+        chart.getStyler().setYAxisMin(0.0);
         return chart;
     }
 

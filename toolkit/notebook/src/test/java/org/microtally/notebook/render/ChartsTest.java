@@ -18,6 +18,8 @@ import javax.xml.parsers.DocumentBuilderFactory;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.CategoryChart;
 import org.knowm.xchart.CategorySeries;
 import org.knowm.xchart.XYChart;
@@ -139,6 +141,21 @@ class ChartsTest {
         assertArrayEquals(new double[] {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1}, s.getYData());
         BufferedImage img = decode(Charts.png(chart));
         assertEquals(Charts.WIDTH, img.getWidth());
+    }
+
+    @Test
+    void spectrumSticksRiseToTheDegeneracies() throws Exception {
+        Spectrum s = Spectra.harmonicOscillator(3, 5);
+        XYChart chart = Charts.spectrum(s);
+        XYSeries levels = chart.getSeries("levels");
+        assertEquals("energy [hbar*omega]", chart.getXAxisTitle());
+        for (int n = 0; n <= 5; n++) {
+            assertEquals(n, levels.getXData()[3 * n + 1]);
+            // Source: closed form, 3D isotropic oscillator degeneracy g_n = (n+1)(n+2)/2
+            assertEquals((n + 1) * (n + 2) / 2.0, levels.getYData()[3 * n + 1]);
+            assertEquals(0.0, levels.getYData()[3 * n]);
+        }
+        assertEquals(Charts.HEIGHT, decode(Charts.png(chart)).getHeight());
     }
 
     @Test
