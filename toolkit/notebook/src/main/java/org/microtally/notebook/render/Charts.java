@@ -192,6 +192,28 @@ public final class Charts {
                 .build();
     }
 
+    /**
+     * A table bundle with a chart under it: the HTML shows the table and then the chart as an
+     * embedded PNG ({@code <img class="mt-chart" src="data:image/png;base64,...">}); the plain text
+     * is the table text followed by the chart's one-line description. Other representations of
+     * {@code table} are kept.
+     */
+    public static MimeBundle combine(MimeBundle table, Chart<?, ?> chart) {
+        String description = describe(chart);
+        MimeBundle.Builder b = MimeBundle.builder(table.plain() + "\n" + description);
+        for (var e : table.data().entrySet()) {
+            if (!e.getKey().equals(MimeBundle.TEXT_PLAIN)) {
+                b.put(e.getKey(), e.getValue());
+            }
+        }
+        String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
+                : "<pre>" + Html.escape(table.plain()) + "</pre>";
+        b.put(MimeBundle.TEXT_HTML, html + "<div class=\"mt-chart\"><img alt=\"" + Html.escape(description)
+                + "\" width=\"" + chart.getWidth() + "\" height=\"" + chart.getHeight()
+                + "\" src=\"data:image/png;base64," + Base64.getEncoder().encodeToString(png(chart)) + "\"/></div>");
+        return b.build();
+    }
+
     /** A PNG display bundle for an image, with a text/plain line giving its size. */
     public static MimeBundle bundle(BufferedImage image) {
         DisplayEnvironment.prepare();

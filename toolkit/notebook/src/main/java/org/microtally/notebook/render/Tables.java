@@ -19,6 +19,7 @@ import tech.tablesaw.api.LongColumn;
 import tech.tablesaw.api.StringColumn;
 import tech.tablesaw.api.Table;
 import tech.tablesaw.columns.Column;
+import tech.tablesaw.columns.strings.StringColumnType;
 
 /**
  * Conversions between our results and Tablesaw {@link Table}s.
@@ -238,16 +239,12 @@ public final class Tables {
                 return col;
             }
             default: {
-                StringColumn col = StringColumn.create(name);
-                for (List<Object> row : rows) {
-                    Object v = row.get(c);
-                    if (v == null) {
-                        col.appendMissing();
-                    } else {
-                        col.append(CellText.exact(v));
-                    }
+                String[] text = new String[rows.size()];
+                for (int r = 0; r < text.length; r++) {
+                    Object v = rows.get(r).get(c);
+                    text[r] = v == null ? StringColumnType.missingValueIndicator() : CellText.exact(v);
                 }
-                return col;
+                return StringColumn.create(name, text);
             }
         }
     }

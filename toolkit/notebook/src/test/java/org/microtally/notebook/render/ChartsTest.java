@@ -177,6 +177,22 @@ class ChartsTest {
     }
 
     @Test
+    void combinedBundleShowsTableThenChart() throws Exception {
+        Tabular t = twoLevel();
+        MimeBundle table = TableDisplay.bundle(t, "two-level", List.of());
+        MimeBundle both = Charts.combine(table, Charts.line(t, "kT", "C"));
+        assertTrue(both.plain().startsWith(table.plain() + "\n"), both.plain());
+        assertTrue(both.plain().endsWith("chart (640\u00d7400 px): series C"), both.plain());
+        Document d = TableDisplayTest.parse(both.get(MimeBundle.TEXT_HTML));
+        assertEquals(1, d.getElementsByTagName("table").getLength());
+        org.w3c.dom.Element img = (org.w3c.dom.Element) d.getElementsByTagName("img").item(0);
+        String src = img.getAttribute("src");
+        assertTrue(src.startsWith("data:image/png;base64,"));
+        BufferedImage decoded = decode(Base64.getDecoder().decode(src.substring("data:image/png;base64,".length())));
+        assertEquals(640, decoded.getWidth());
+    }
+
+    @Test
     void bundleCarriesPngAndSvgAndText() throws Exception {
         MimeBundle b = Charts.bundle(Charts.line(twoLevel(), "kT", "U", "C"));
         assertEquals("chart (640\u00d7400 px): series U, C", b.plain());
