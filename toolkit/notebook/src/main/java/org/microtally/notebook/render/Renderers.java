@@ -34,7 +34,8 @@ import tech.tablesaw.api.Table;
  *   <li>{@link MimeBundle}: as is; {@link Html}, {@link Markdown}, {@link Latex}: their MIME type
  *       plus a plain fallback;</li>
  *   <li>{@link Tabular} and Tablesaw {@link Table}: aligned text and an HTML table
- *       ({@link TableDisplay});</li>
+ *       ({@link TableDisplay}), captioned by the value's short {@code toString()} or class name
+ *       (Tablesaw: the table name);</li>
  *   <li>{@link Spectrum}: its levels as a table with a summary caption and the cutoff note;</li>
  *   <li>{@link Energy}: text and LaTeX; {@link BigFraction}: {@code p/q} and a LaTeX fraction;</li>
  *   <li>XChart charts: PNG and SVG; {@link BufferedImage}: PNG;</li>
@@ -59,7 +60,7 @@ public final class Renderers {
         register(Html.class, h -> MimeBundle.builder(h.text()).put(MimeBundle.TEXT_HTML, h.markup()).build());
         register(Markdown.class, m -> MimeBundle.builder(m.source()).put(MimeBundle.TEXT_MARKDOWN, m.source()).build());
         register(Latex.class, l -> MimeBundle.builder(l.source()).put(MimeBundle.TEXT_LATEX, l.source()).build());
-        register(Tabular.class, t -> TableDisplay.bundle(t, null, List.of()));
+        register(Tabular.class, t -> TableDisplay.bundle(t, caption(t), List.of()));
         register(Table.class, t -> TableDisplay.bundle(Tables.asTabular(t), t.name(), List.of()));
         register(Spectrum.class, Renderers::spectrum);
         register(Energy.class, Renderers::energy);
@@ -129,6 +130,28 @@ public final class Renderers {
             queue.addAll(List.of(i.getInterfaces()));
         }
         return null;
+    }
+
+    /** Longest {@code toString()} used as a table caption. */
+    static final int MAX_CAPTION = 160;
+
+    /**
+     * The caption of a generic table: the value's own {@code toString()} when its class defines one
+     * and it is short (at most {@value #MAX_CAPTION} characters, one line), else its class's simple
+     * name (none for anonymous classes).
+     */
+    static String caption(Object value) {
+        try {
+            if (value.getClass().getMethod("toString").getDeclaringClass() != Object.class) {
+                String s = value.toString();
+                if (s != null && s.length() <= MAX_CAPTION && s.indexOf('\n') < 0) {
+                    return s;
+                }
+            }
+        } catch (NoSuchMethodException | RuntimeException e) {
+            // fall through to the class name
+        }
+        return value.getClass().getSimpleName();
     }
 
     private static MimeBundle spectrum(Spectrum s) {

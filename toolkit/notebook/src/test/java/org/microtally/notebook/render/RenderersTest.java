@@ -191,6 +191,38 @@ class RenderersTest {
         }
     }
 
+    record Sweep(List<List<Object>> rows) implements Tabular {
+        @Override
+        public List<String> columnNames() {
+            return List.of("kT");
+        }
+
+        @Override
+        public String toString() {
+            return "Sweep[" + rows.size() + " temperatures]";
+        }
+    }
+
+    record Raw(List<List<Object>> rows) implements Tabular {
+        @Override
+        public List<String> columnNames() {
+            return List.of("x");
+        }
+    }
+
+    @Test
+    void tabularCaptionIsItsShortToStringOrClassName() {
+        List<List<Object>> rows = List.of(List.of(0.5), List.of(1.0));
+        assertEquals("Sweep[2 temperatures]", Renderers.render(new Sweep(rows)).plain().lines().findFirst().get());
+        List<List<Object>> many = new ArrayList<>();
+        for (int i = 0; i < 100; i++) {
+            many.add(List.of(i));
+        }
+        // a record's generated toString lists every row: too long, so the class name is used
+        assertEquals("Raw", Renderers.render(new Raw(many)).plain().lines().findFirst().get());
+        assertEquals("a", Renderers.render(TestTables.of(List.of("a"), new Object[] {1})).plain().lines().findFirst().get());
+    }
+
     @Test
     void failingRendererFallsBackToTextAndSaysWhy() {
         MimeBundle b = Renderers.render(new Broken());
