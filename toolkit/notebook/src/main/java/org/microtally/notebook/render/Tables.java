@@ -144,7 +144,13 @@ public final class Tables {
         }
     }
 
-    private static Tabular tabular(List<String> names, List<List<Object>> rows) {
+    /**
+     * A {@link Tabular} over the given column names and rows (not copied): the quickest way to show
+     * or export numbers computed in a notebook cell.
+     */
+    public static Tabular tabular(List<String> names, List<List<Object>> rows) {
+        Objects.requireNonNull(names, "names");
+        Objects.requireNonNull(rows, "rows");
         return new Tabular() {
             @Override
             public List<String> columnNames() {
