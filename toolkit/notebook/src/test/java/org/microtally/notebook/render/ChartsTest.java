@@ -2,6 +2,7 @@ package org.microtally.notebook.render;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -103,6 +104,20 @@ class ChartsTest {
         String width = d.getDocumentElement().getAttribute("width");
         assertTrue(width.startsWith("640") || d.getDocumentElement().getAttribute("viewBox").contains("640"),
                 "width=" + width + " viewBox=" + d.getDocumentElement().getAttribute("viewBox"));
+    }
+
+    @Test
+    void markupInNamesCannotGetIntoTheSvg() throws Exception {
+        String evil = "y <script>alert(1)</script>";
+        Tabular t = TestTables.of(List.of("x <&>", evil), new Object[] {1, 2.0}, new Object[] {2, 3.0});
+        XYChart chart = Charts.line(t, "x <&>", evil);
+        chart.setTitle("T \"q\" <i>");
+        String svg = Charts.svg(chart);
+        assertFalse(svg.contains("<script"), "script element in SVG");
+        DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
+        f.setFeature("http://apache.org/xml/features/nonvalidating/load-external-dtd", false);
+        Document d = f.newDocumentBuilder().parse(new InputSource(new StringReader(svg)));
+        assertEquals(0, d.getElementsByTagName("script").getLength());
     }
 
     @Test
