@@ -124,7 +124,7 @@ public final class CellText {
     private static String decimal(BigDecimal d, TableFormat format) {
         if (d.precision() <= format.maxDigits()) {
             int exp = d.precision() - d.scale() - 1;
-            return (exp >= -5 && exp < format.maxDigits()) ? d.toPlainString() : d.toString();
+            return (exp >= -4 && exp < format.maxDigits()) ? d.toPlainString() : d.toString();
         }
         BigDecimal lead = d.round(new MathContext(format.leadingDigits(), RoundingMode.DOWN));
         return sci(lead) + ELLIPSIS + "(" + d.precision() + " digits)";

@@ -100,6 +100,8 @@ class TableDisplayTest {
         assertEquals(0, d.getElementsByTagName("p").getLength());
         Document d8 = parse(TableDisplay.html(numbered(8), null, List.of(), f));
         assertEquals(1 + 4 + 1 + 2, d8.getElementsByTagName("tr").getLength());
+        Document all = parse(TableDisplay.html(numbered(5000), null, List.of(), f.allRows()));
+        assertEquals(5001, all.getElementsByTagName("tr").getLength());
     }
 
     @Test
