@@ -67,7 +67,7 @@ public final class FermiDirac {
                     "small enough that F_j(eta) ~ eta^(j+1)/Gamma(j+2) fits in a double (< 1.8e308)",
                     "Work with ln F_j or rescale the problem.");
         }
-        return value;
+        return value + 0.0; // no negative zero after underflow
     }
 
     static double asymptoticThreshold(double j) {
