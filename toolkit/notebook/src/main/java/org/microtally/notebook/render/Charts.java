@@ -299,7 +299,7 @@ public final class Charts {
     static double toDouble(Object v, int row, String column) {
         double d;
         if (v instanceof BigFraction f) {
-            d = f.doubleValue();
+            d = CellText.decimalValue(f.getNumerator(), f.getDenominator());
         } else if (v instanceof Number n) {
             d = n.doubleValue();
         } else if (v instanceof Boolean b) {
@@ -307,7 +307,8 @@ public final class Charts {
         } else if (v instanceof CharSequence cs) {
             String s = cs.toString().strip();
             try {
-                d = s.indexOf('/') > 0 ? Tables.exactFraction(s).doubleValue()
+                BigFraction f = s.indexOf('/') > 0 ? Tables.exactFraction(s) : null;
+                d = f != null ? CellText.decimalValue(f.getNumerator(), f.getDenominator())
                         : s.matches("-?[0-9]+") ? new BigInteger(s).doubleValue() : Double.parseDouble(s);
             } catch (NumberFormatException e) {
                 throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",

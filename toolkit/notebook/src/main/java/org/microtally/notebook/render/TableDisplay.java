@@ -204,7 +204,7 @@ public final class TableDisplay {
             sb.append("<tr>");
             for (int c = 0; c < n; c++) {
                 boolean differs = !r.shown()[c].equals(r.exact()[c]);
-                boolean cut = differs && r.shown()[c].indexOf('\u2026') >= 0;
+                boolean cut = differs && (r.shown()[c].indexOf('\u2026') >= 0 || r.shown()[c].startsWith("\u2248"));
                 sb.append("<td class=\"").append(s.numeric()[c] ? "mt-num" : "mt-text").append(cut ? " mt-cut\"" : "\"");
                 if (differs) {
                     sb.append(" title=\"").append(Html.escape(r.exact()[c])).append('"');
