@@ -226,6 +226,11 @@ public final class Charts {
             a.setAxisTitleFont(new Font(Font.SANS_SERIF, Font.PLAIN, 12));
             a.setAxisTickMarksColor(new Color(0x8a989c));
             a.setAxisTickLabelsColor(INK);
+            if (a instanceof org.knowm.xchart.style.XYStyler) {
+                // our number format (0.05, 1.5e-12) instead of the default pattern (.05)
+                a.setXAxisTickLabelsFormattingFunction(v -> CellText.floating(v, 6));
+                a.setYAxisTickLabelsFormattingFunction(v -> CellText.floating(v, 6));
+            }
         }
         return chart;
     }

@@ -63,7 +63,7 @@ class ResultDisplaysTest {
         for (int k = 0; k < ns.length; k++) {
             String expected = ns[k] == 0 ? "0"
                     // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
-                    : CellText.shown(binomial(30 + ns[k] - 1, 30), TableFormat.DEFAULT);
+                    : CellText.shown(binomial(30 + ns[k] - 1, 30), ResultDisplays.GRID_FORMAT);
             assertEquals(expected, row.get(k + 1), "n = " + ns[k]);
         }
         assertEquals(1, d.getElementsByTagName("img").getLength());
