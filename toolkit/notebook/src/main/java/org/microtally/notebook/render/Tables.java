@@ -10,6 +10,7 @@ import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.fraction.Fraction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
+import org.microtally.count.CountTable;
 import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectrum;
 import tech.tablesaw.api.BooleanColumn;
@@ -78,6 +79,20 @@ public final class Tables {
      */
     public static Table of(Spectrum spectrum) {
         return of(levels(spectrum), "spectrum (" + spectrum.scale().name() + ")");
+    }
+
+    /**
+     * A count table as a grid: column {@code E} (0..E_max) and one exact column {@code n=k} per
+     * particle number k = 0..N (digits as text, see the class description), the layout to export
+     * with {@link org.microtally.notebook.data.Csv}.
+     */
+    public static Table grid(CountTable counts) {
+        Objects.requireNonNull(counts, "counts");
+        int[] all = new int[counts.maxParticles() + 1];
+        for (int n = 0; n < all.length; n++) {
+            all[n] = n;
+        }
+        return of(ResultDisplays.grid(counts, all), "Omega(n, E)");
     }
 
     /** The levels of {@code spectrum} as rows: energy, degeneracy and, when labelled, label. */

@@ -83,6 +83,20 @@ class ResultDisplaysTest {
     }
 
     @Test
+    void gridTableHoldsEveryExactCount() {
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 40), Statistics.DISTINGUISHABLE, 60, 40);
+        tech.tablesaw.api.Table grid = Tables.grid(t);
+        assertEquals(62, grid.columnCount());
+        assertEquals(41, grid.rowCount());
+        for (int n = 1; n <= 60; n += 7) {
+            for (int q = 0; q <= 40; q += 5) {
+                // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
+                assertEquals(binomial(q + n - 1, q), new BigInteger(grid.stringColumn("n=" + n).get(q)));
+            }
+        }
+    }
+
+    @Test
     void countChartPlotsLnOmegaOfTheExactCounts() {
         CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 20), Statistics.DISTINGUISHABLE, 10, 20);
         XYChart chart = Charts.counts(t, 10);
