@@ -77,6 +77,50 @@ public final class Charts {
     }
 
     /**
+     * One line per distinct value of {@code groupColumn} (in order of first appearance), each
+     * plotting {@code yColumn} against {@code xColumn} over that group's rows: for example
+     * U against kT with one series per ensemble. Rows with a missing x or y are left out.
+     */
+    public static XYChart grouped(Tabular table, String groupColumn, String xColumn, String yColumn) {
+        Objects.requireNonNull(table, "table");
+        int gc = columnIndex(table, groupColumn);
+        int xc = columnIndex(table, xColumn);
+        int yc = columnIndex(table, yColumn);
+        java.util.Map<String, List<double[]>> groups = new java.util.LinkedHashMap<>();
+        List<List<Object>> rows = table.rows();
+        for (int r = 0; r < rows.size(); r++) {
+            List<Object> row = rows.get(r);
+            Object x = row.get(xc);
+            Object y = row.get(yc);
+            if (x == null || y == null) {
+                continue;
+            }
+            String g = CellText.shown(row.get(gc), TableFormat.DEFAULT);
+            groups.computeIfAbsent(g, k -> new ArrayList<>())
+                    .add(new double[] {toDouble(x, r, xColumn), toDouble(y, r, yColumn)});
+        }
+        if (groups.isEmpty()) {
+            throw InvalidInputException.of("number of points", 0, ">= 1 (rows with both '" + xColumn + "' and '"
+                    + yColumn + "' present)", "");
+        }
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle(xColumn).yAxisTitle(yColumn).build();
+        for (var e : groups.entrySet()) {
+            double[] xs = new double[e.getValue().size()];
+            double[] ys = new double[xs.length];
+            for (int i = 0; i < xs.length; i++) {
+                xs[i] = e.getValue().get(i)[0];
+                ys[i] = e.getValue().get(i)[1];
+            }
+            chart.addSeries(e.getKey().isEmpty() ? "(none)" : e.getKey(), xs, ys)
+                    .setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        }
+        style(chart);
+        chart.getStyler().setLegendVisible(groups.size() > 1);
+        return chart;
+    }
+
+    /**
      * A bar chart: one bar group per row, labelled by the category column (shown as text), one
      * series per value column. For histograms: the bin column as category, the counts as values.
      */
@@ -266,25 +310,31 @@ public final class Charts {
     }
 
     /**
-     * A table bundle with a chart under it: the HTML shows the table and then the chart as an
+     * A table bundle with charts under it: the HTML shows the table and then each chart as an
      * embedded PNG ({@code <img class="mt-chart" src="data:image/png;base64,...">}); the plain text
-     * is the table text followed by the chart's one-line description. Other representations of
+     * is the table text followed by each chart's one-line description. Other representations of
      * {@code table} are kept.
      */
-    public static MimeBundle combine(MimeBundle table, Chart<?, ?> chart) {
-        String description = describe(chart);
-        MimeBundle.Builder b = MimeBundle.builder(table.plain() + "\n" + description);
+    public static MimeBundle combine(MimeBundle table, Chart<?, ?>... charts) {
+        StringBuilder plain = new StringBuilder(table.plain());
+        String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
+                : "<pre>" + Html.escape(table.plain()) + "</pre>";
+        StringBuilder figures = new StringBuilder(html);
+        for (Chart<?, ?> chart : charts) {
+            String description = describe(chart);
+            plain.append('\n').append(description);
+            figures.append("<div class=\"mt-chart\"><img alt=\"").append(Html.escape(description))
+                    .append("\" width=\"").append(chart.getWidth()).append("\" height=\"").append(chart.getHeight())
+                    .append("\" src=\"data:image/png;base64,").append(Base64.getEncoder().encodeToString(png(chart)))
+                    .append("\"/></div>");
+        }
+        MimeBundle.Builder b = MimeBundle.builder(plain.toString());
         for (var e : table.data().entrySet()) {
             if (!e.getKey().equals(MimeBundle.TEXT_PLAIN)) {
                 b.put(e.getKey(), e.getValue());
             }
         }
-        String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
-                : "<pre>" + Html.escape(table.plain()) + "</pre>";
-        b.put(MimeBundle.TEXT_HTML, html + "<div class=\"mt-chart\"><img alt=\"" + Html.escape(description)
-                + "\" width=\"" + chart.getWidth() + "\" height=\"" + chart.getHeight()
-                + "\" src=\"data:image/png;base64," + Base64.getEncoder().encodeToString(png(chart)) + "\"/></div>");
-        return b.build();
+        return b.put(MimeBundle.TEXT_HTML, figures.toString()).build();
     }
 
     /** A PNG display bundle for an image, with a text/plain line giving its size. */
