@@ -40,8 +40,8 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
  *
  * <p>Columns are chosen by name. Cells are converted to double for plotting only (a chart is a
  * picture): exact integers and fractions beyond the double range are refused with a message that
- * names the row and column and suggests plotting the logarithm; missing cells leave a gap in their
- * series (the point is omitted).
+ * names the row and column and suggests plotting the logarithm; missing cells ({@code null} or
+ * {@code "n/a"}) are left out of their series (bar charts draw them as 0).
  *
  * <p>The charts returned are ordinary mutable XChart objects: titles, ranges and sizes can be
  * adjusted before display. {@link #style(Chart)} applies our look to a chart built elsewhere.
@@ -92,7 +92,7 @@ public final class Charts {
             List<Object> row = rows.get(r);
             Object x = row.get(xc);
             Object y = row.get(yc);
-            if (x == null || y == null) {
+            if (CellText.isMissing(x) || CellText.isMissing(y)) {
                 continue;
             }
             String g = CellText.shown(row.get(gc), TableFormat.DEFAULT);
@@ -139,7 +139,7 @@ public final class Charts {
                 Object x = rows.get(r).get(cat);
                 Object y = rows.get(r).get(c);
                 xs.add(x == null ? "" : CellText.shown(x, TableFormat.DEFAULT));
-                ys.add(y == null ? 0.0 : toDouble(y, r, name));
+                ys.add(CellText.isMissing(y) ? 0.0 : toDouble(y, r, name));
             }
             if (xs.isEmpty()) {
                 throw InvalidInputException.of("number of rows", 0, ">= 1 to draw a bar chart", "");
@@ -377,7 +377,7 @@ public final class Charts {
             for (int r = 0; r < rows.size(); r++) {
                 Object x = rows.get(r).get(xc);
                 Object y = rows.get(r).get(yc);
-                if (x == null || y == null) {
+                if (CellText.isMissing(x) || CellText.isMissing(y)) {
                     continue;
                 }
                 xs[k] = toDouble(x, r, xColumn);

@@ -100,7 +100,7 @@ public final class TableDisplay {
                     Object v = cells.get(c);
                     shown[c] = CellText.shown(v, format);
                     exact[c] = CellText.exact(v);
-                    if (v != null) {
+                    if (!CellText.isMissing(v)) {
                         numeric[c] = seen[c] ? numeric[c] && CellText.isNumeric(v) : CellText.isNumeric(v);
                         seen[c] = true;
                     }

@@ -37,7 +37,7 @@ import tech.tablesaw.columns.strings.StringColumnType;
  *       text of each value (all digits; {@code p/q} for fractions), so nothing is rounded. Read a
  *       value back with {@code new BigInteger(s)} or {@link #exactFraction(String)}.</li>
  * </ul>
- * {@code null} cells become missing values. Tablesaw has no arbitrary-precision column type; keeping
+ * {@code null} cells and the marker {@code "n/a"} ({@link CellText#isMissing}) become missing values. Tablesaw has no arbitrary-precision column type; keeping
  * exact values as their digits is our documented choice.
  */
 public final class Tables {
@@ -186,7 +186,7 @@ public final class Tables {
         boolean bigLong = false;
         for (List<Object> row : rows) {
             Object v = row.get(c);
-            if (v == null) {
+            if (CellText.isMissing(v)) {
                 continue;
             }
             Kind k;
@@ -215,7 +215,7 @@ public final class Tables {
                 IntColumn col = IntColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append(((Number) v).intValue());
@@ -227,7 +227,7 @@ public final class Tables {
                 LongColumn col = LongColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append(((Number) v).longValue());
@@ -239,7 +239,7 @@ public final class Tables {
                 DoubleColumn col = DoubleColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append(((Number) v).doubleValue());
@@ -251,7 +251,7 @@ public final class Tables {
                 BooleanColumn col = BooleanColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append((Boolean) v);
@@ -263,7 +263,7 @@ public final class Tables {
                 String[] text = new String[rows.size()];
                 for (int r = 0; r < text.length; r++) {
                     Object v = rows.get(r).get(c);
-                    text[r] = v == null ? StringColumnType.missingValueIndicator() : CellText.exact(v);
+                    text[r] = CellText.isMissing(v) ? StringColumnType.missingValueIndicator() : CellText.exact(v);
                 }
                 return StringColumn.create(name, text);
             }
