@@ -110,7 +110,7 @@ final class CountBound {
         double fc = f.at(c);
         double fd = f.at(d);
         double seen = Math.min(Math.min(fc, fd), f.at(0.0));
-        for (int it = 0; it < 48; it++) {
+        for (int it = 0; it < 32; it++) {
             if (fc < fd) {
                 b = d;
                 d = c;

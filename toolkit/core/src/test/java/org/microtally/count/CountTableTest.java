@@ -46,8 +46,8 @@ class CountTableTest {
 
     @Test
     void einsteinSolidMatchesClosedFormForManySizes() {
-        int maxN = 40;
-        int maxQ = 120;
+        int maxN = 30;
+        int maxQ = 80;
         CountTable t = CountTable.of(Spectra.harmonicOscillator(1, maxQ), Statistics.DISTINGUISHABLE, maxN, maxQ);
         for (int n = 1; n <= maxN; n++) {
             for (int q = 0; q <= maxQ; q++) {
@@ -211,19 +211,19 @@ class CountTableTest {
 
     @Test
     void multiModularNeedsSeveralPrimesForLargeCounts() {
-        Spectrum s = Spectra.harmonicOscillator(3, 150);
+        Spectrum s = Spectra.harmonicOscillator(3, 100);
         int[] en = s.integerEnergies();
         int[] g = s.degeneracies();
-        int primes = CountBound.primesFor(CountBound.log2Bound(en, g, Statistics.BOSE, 40, 150));
+        int primes = CountBound.primesFor(CountBound.log2Bound(en, g, Statistics.BOSE, 30, 100));
         assertTrue(primes >= 2, "primes = " + primes);
-        BigInteger[] ref = CountEngine.bigInteger(en, g, Statistics.BOSE, 40, 150, ProgressListener.NONE);
-        BigInteger[] mm = CountEngine.multiModular(en, g, Statistics.BOSE, 40, 150, Moduli.primes(primes),
+        BigInteger[] ref = CountEngine.bigInteger(en, g, Statistics.BOSE, 30, 100, ProgressListener.NONE);
+        BigInteger[] mm = CountEngine.multiModular(en, g, Statistics.BOSE, 30, 100, Moduli.primes(primes),
                 ProgressListener.NONE);
         // Source: independent arithmetic (exact BigInteger recursion)
         assertEquals(java.util.Arrays.asList(ref), java.util.Arrays.asList(mm));
         assertTrue(ref[ref.length - 1].bitLength() > 61, "needs more than one prime");
-        CountTable t = CountTable.of(s, Statistics.BOSE, 40, 150);
-        assertEquals(ref[ref.length - 1], t.count(40, 150));
+        CountTable t = CountTable.of(s, Statistics.BOSE, 30, 100);
+        assertEquals(ref[ref.length - 1], t.count(30, 100));
     }
 
     @Test
@@ -297,6 +297,24 @@ class CountTableTest {
         // Source: OEIS A001399 (partitions into at most 3 parts): a(9) = 12; the truncated spectrum misses some
         assertEquals(BigInteger.valueOf(12), full.count(3, 9));
         assertTrue(t.count(3, 9).compareTo(BigInteger.valueOf(12)) < 0);
+    }
+
+    @Test
+    void progressIsReportedInOrderAndThrottled() {
+        List<long[]> calls = new ArrayList<>();
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(3, 80), Statistics.BOSE, 30, 80,
+                (done, total, stage) -> calls.add(new long[] {done, total}));
+        assertTrue(t.primesUsed() >= 1, "multi-modular path expected");
+        assertTrue(calls.size() >= 2 && calls.size() <= 210, "calls: " + calls.size());
+        for (int i = 1; i < calls.size(); i++) {
+            assertTrue(calls.get(i)[0] > calls.get(i - 1)[0]);
+        }
+        long[] last = calls.get(calls.size() - 1);
+        assertEquals(last[1], last[0]);
+        // Source: independent BigInteger recursion (reference path) for the same table
+        BigInteger[] ref = CountEngine.bigInteger(Spectra.harmonicOscillator(3, 80).integerEnergies(),
+                Spectra.harmonicOscillator(3, 80).degeneracies(), Statistics.BOSE, 30, 80, ProgressListener.NONE);
+        assertEquals(ref[ref.length - 1], t.count(30, 80));
     }
 
     @Test
