@@ -114,6 +114,7 @@ final class CountEngine {
         t[0] = 1;
         BigInteger bp = BigInteger.valueOf(p);
         if (stats.indistinguishable()) {
+            int[] lo = groundEnergies(energy, deg, stats, maxN, maxE, levels);
             for (int l = 0; l < levels; l++) {
                 BigInteger[] c = coef[l];
                 long[] cm = new long[c.length];
@@ -122,7 +123,7 @@ final class CountEngine {
                     cm[j] = c[j].mod(bp).longValue();
                     cs[j] = Moduli.shoup(cm[j], p);
                 }
-                applyLevel(t, w, maxN, maxE, energy[l], cm, cs, p);
+                applyLevel(t, w, maxN, maxE, energy[l], l == 0 ? -1 : energy[l - 1], lo, cm, cs, p);
                 tick.run();
             }
         } else {
@@ -156,8 +157,13 @@ final class CountEngine {
         return t;
     }
 
-    /** One level, in place, modulo p: T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending. */
-    private static void applyLevel(long[] t, int w, int maxN, int maxE, int el, long[] cm, long[] cs, long p) {
+    /**
+     * One level, in place, modulo p: T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending. Source
+     * row m = n - j can be non-zero only for lo[m] &lt;= e' &lt;= m * prevTop (prevTop = energy of the
+     * last level already applied, -1 before the first), so only that window is swept.
+     */
+    private static void applyLevel(long[] t, int w, int maxN, int maxE, int el, int prevTop, int[] lo,
+                                   long[] cm, long[] cs, long p) {
         for (int n = maxN; n >= 1; n--) {
             int jTop = Math.min(n, cm.length - 1);
             int dst = n * w;
@@ -171,19 +177,61 @@ final class CountEngine {
                 if (c == 0) {
                     continue;
                 }
-                int src = (n - j) * w - off;
-                for (int e = off; e <= maxE; e++) {
+                int m = n - j;
+                int from = lo[m];
+                int to = (int) Math.min(maxE - off, sourceTop(m, prevTop));
+                int src = m * w;
+                int d = dst + off;
+                for (int e = from; e <= to; e++) {
                     long x = t[src + e];
                     long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
                     long r = c * x - q * p;
                     if (r >= p) {
                         r -= p;
                     }
-                    long s = t[dst + e] + r;
-                    t[dst + e] = s >= p ? s - p : s;
+                    long s = t[d + e] + r;
+                    t[d + e] = s >= p ? s - p : s;
                 }
             }
         }
+    }
+
+    /** Largest energy m particles can have using only levels up to energy prevTop (-1: none applied yet). */
+    private static long sourceTop(int m, int prevTop) {
+        if (m == 0) {
+            return 0;
+        }
+        return prevTop < 0 ? -1 : (long) m * prevTop;
+    }
+
+    /**
+     * lo[n] = lowest total energy of n particles on these levels (at most k per state), or maxE + 1
+     * if n particles do not fit below maxE; every entry T[n][e] with e &lt; lo[n] is zero at every
+     * stage of the recursion.
+     */
+    static int[] groundEnergies(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels) {
+        int[] lo = new int[maxN + 1];
+        long e = 0;
+        int l = 0;
+        long slotsLeft = levels > 0 ? slots(deg[0], stats) : 0;
+        for (int n = 1; n <= maxN; n++) {
+            while (l < levels && slotsLeft == 0) {
+                l++;
+                slotsLeft = l < levels ? slots(deg[l], stats) : 0;
+            }
+            if (l >= levels || e > maxE) {
+                lo[n] = maxE + 1;
+                continue;
+            }
+            e += energy[l];
+            slotsLeft--;
+            lo[n] = (int) Math.min(e, maxE + 1L);
+        }
+        return lo;
+    }
+
+    private static long slots(int g, Statistics stats) {
+        return stats.capped() ? (long) g * stats.maxOccupancy() : Long.MAX_VALUE;
     }
 
     /** Number of leading levels (sorted by energy) with energy &lt;= maxE. */

@@ -120,7 +120,7 @@ class LabelledCountTableTest {
         Spectrum spin = Spectra.spinInField(0.5);
         LabelledCountTable t = LabelledCountTable.ignoringEnergy(spin, Statistics.DISTINGUISHABLE, 12);
         for (int k = 0; k <= 12; k++) {
-            // Source: closed form C(N, N_up) (Schroeder, eq. 2.6)
+            // Source: closed form C(N, N_up) (Schroeder, Sec. 2.1)
             assertEquals(CountTableTest.binomial(12, k), t.countAtLabel(12, 2 * k - 12));
         }
         // spin-1 moments: the number of states with total M is the trinomial coefficient (OEIS A027907 row 4: 1,4,10,16,19,...)
