@@ -37,6 +37,53 @@ public final class Polylog {
     private static final int MAX_TERMS = 5000;
 
     /**
+     * Per-thread memo of the series coefficients zeta(s-k) and eta(s-k) for the last order s used,
+     * filled on demand: root solves and sweeps call Li_s at one s and many z. Values are the same
+     * with or without the memo.
+     */
+    private static final class Coefficients {
+        final double s;
+        final boolean dirichletEta;
+        final double[] values;
+
+        Coefficients(double s, boolean dirichletEta) {
+            this.s = s;
+            this.dirichletEta = dirichletEta;
+            this.values = new double[Math.max(0, (int) Math.ceil(s + 1.0)) + 64];
+            java.util.Arrays.fill(values, Double.NaN);
+        }
+
+        double get(int k) {
+            if (k >= values.length) {
+                return compute(k);
+            }
+            double v = values[k];
+            if (Double.isNaN(v)) {
+                v = compute(k);
+                values[k] = v;
+            }
+            return v;
+        }
+
+        private double compute(int k) {
+            return dirichletEta ? Zeta.eta(s - k) : Zeta.zetaAnyReal(s - k);
+        }
+    }
+
+    private static final ThreadLocal<Coefficients[]> MEMO = ThreadLocal.withInitial(() -> new Coefficients[2]);
+
+    private static Coefficients coefficients(double s, boolean dirichletEta) {
+        Coefficients[] memo = MEMO.get();
+        int slot = dirichletEta ? 1 : 0;
+        Coefficients c = memo[slot];
+        if (c == null || Double.compare(c.s, s) != 0) {
+            c = new Coefficients(s, dirichletEta);
+            memo[slot] = c;
+        }
+        return c;
+    }
+
+    /**
      * The polylogarithm Li_s(z) for real s and real z &lt;= 1.
      *
      * @param s order, a finite real number
@@ -115,6 +162,7 @@ public final class Polylog {
         } else {
             sum += SpecialMath.gamma(1.0 - s) * Math.pow(-mu, s - 1.0);
         }
+        Coefficients zetas = coefficients(s, false);
         double power = 1.0; // mu^k / k!
         int small = 0;
         for (int k = 0; k <= MAX_TERMS; k++) {
@@ -124,7 +172,7 @@ public final class Polylog {
             if (k == singularK) {
                 continue;
             }
-            double term = Zeta.zetaAnyReal(s - k) * power;
+            double term = zetas.get(k) * power;
             sum += term;
             if (k > s + 1 && Math.abs(term) <= SERIES_TOLERANCE * Math.abs(sum)) {
                 if (++small >= 2) {
@@ -198,6 +246,7 @@ public final class Polylog {
 
     /** Li_s(-e^mu) = -sum_k eta(s-k) mu^k / k!, for |mu| &lt;= 1 (Taylor series about z = -1). */
     static double aboutMinusOne(double s, double mu) {
+        Coefficients etas = coefficients(s, true);
         double sum = 0.0;
         double power = 1.0;
         int small = 0;
@@ -208,7 +257,7 @@ public final class Polylog {
             if (power == 0.0) {
                 break;
             }
-            double term = Zeta.eta(s - k) * power;
+            double term = etas.get(k) * power;
             sum += term;
             if (k > s + 1 && Math.abs(term) <= SERIES_TOLERANCE * Math.abs(sum)) {
                 if (++small >= 2) {
