@@ -18,7 +18,7 @@ import org.microtally.units.EnergyUnit;
  *
  * <p><b>Formulas.</b> Fermi energy from C E_F^alpha / alpha = N: in a box
  * E_F = hbar^2/(2m) (6 pi^2 n / g_s)^(2/3) (free electrons, g_s = 2: (3 pi^2 n)^(2/3); N. W. Ashcroft and
- * N. D. Mermin, Solid State Physics (1976), eq. 2.21 and Table 2.1), in a 3D harmonic trap
+ * N. D. Mermin, Solid State Physics (1976), ch. 2 and Table 2.1), in a 3D harmonic trap
  * E_F = hbar omega_g (6N/g_s)^(1/3), in a 2D oscillator E_F = hbar omega (2N/g_s)^(1/2); T_F = E_F/k.
  * At temperature T with eta = mu/kT and F_j the complete Fermi-Dirac integral
  * ({@link FermiDirac#integral}):

@@ -12,12 +12,12 @@ import org.microtally.InvalidInputException;
  * <ul>
  *   <li>|z| &lt;= 1/2, or s &gt;= 25: the defining power series.</li>
  *   <li>1/2 &lt; z &lt; 1: the series in mu = ln z about z = 1 (D. C. Wood, "The computation of
- *       polylogarithms", Univ. of Kent Computing Laboratory Tech. Report 15-92 (1992), eq. 9;
+ *       polylogarithms", Univ. of Kent Computing Laboratory Tech. Report 15-92 (1992);
  *       DLMF 25.12.12): Li_s(e^mu) = Gamma(1-s) (-mu)^(s-1) + sum_k zeta(s-k) mu^k / k!, with zeta
  *       continued analytically. When s is within 0.05 of a positive integer n, the two terms that
  *       are singular at s = n (Gamma(1-s) and zeta(s-n+1)) are combined analytically with the
  *       Stieltjes-constant expansion of zeta about 1 (DLMF 25.2.4) and the Taylor series of
- *       ln Gamma, which gives Wood's eq. 11 at s = n exactly and no cancellation nearby.</li>
+ *       ln Gamma, which gives Wood's formula for integer order at s = n exactly and no cancellation nearby.</li>
  *   <li>-e &lt;= z &lt; -1/2: the Taylor series about z = -1 in mu = ln(-z), Li_s(-e^mu) =
  *       -sum_k eta(s-k) mu^k / k! with the Dirichlet eta function (radius pi; here |mu| &lt;= 1).</li>
  *   <li>z &lt; -e (s &gt; 0 only): Li_s(z) = -F_{s-1}(ln(-z)), see {@link FermiDirac#integral}.</li>

@@ -23,17 +23,17 @@ class SweepAndDensityOfStatesTest {
         assertEquals(3, table.rows().size());
         List<Object> cold = table.rows().get(0);
         assertEquals(1e-3, (Double) cold.get(1), 1e-15);
-        // Source: mu/E_F = 1 - (pi^2/12) t^2 - (pi^4/80) t^4 (Pathria and Beale eq. 8.1.35, from memory) at t = 1e-3
+        // Source: mu/E_F = 1 - (pi^2/12) t^2 - (pi^4/80) t^4 (Pathria and Beale sec. 8.1, from memory) at t = 1e-3
         double t = 1e-3;
         assertEquals(1 - Math.PI * Math.PI / 12 * t * t - Math.pow(Math.PI, 4) / 80 * Math.pow(t, 4), (Double) cold.get(2), 1e-15);
-        // Source: ground state U/N = (3/5) E_F (Ashcroft and Mermin eq. 2.31) plus (pi^2/4) t^2 E_F
+        // Source: ground state U/N = (3/5) E_F (Ashcroft and Mermin ch. 2, from memory) plus (pi^2/4) t^2 E_F
         assertEquals(0.6 + Math.PI * Math.PI / 4 * t * t, (Double) cold.get(4), 1e-11);
         // at T = 2 T_F the exact heat capacity is near, and below, the classical 3/2 (Source: virial correction
-        // -(3/2) n lambda^3 / 2^(7/2) g, Huang sec. 8.x, from memory), while the linear Sommerfeld law is far off
+        // -(3/2) n lambda^3 / 2^(7/2) g, Huang ch. 8, from memory), while the linear Sommerfeld law is far off
         List<Object> hot = table.rows().get(2);
         double exactC = (Double) hot.get(6);
         assertTrue(exactC > 1.3 && exactC < 1.5, hot.toString());
-        // Source: Sommerfeld C/(N k) = (pi^2/2) T/T_F (Ashcroft and Mermin eq. 2.80), the table's formula column
+        // Source: Sommerfeld C/(N k) = (pi^2/2) T/T_F (Ashcroft and Mermin ch. 2, from memory), the table's formula column
         assertEquals(Math.PI * Math.PI / 2 * 2.0, (Double) hot.get(7), 1e-12);
     }
 
@@ -65,7 +65,7 @@ class SweepAndDensityOfStatesTest {
         assertEquals(1.0, dos.statesBelow(cu.fermiEnergy().in(EnergyUnit.JOULE)) / n, 1e-14);
         assertTrue(dos.perVolume());
         assertEquals(1.5, dos.exponent());
-        // Source: free-electron density of states per volume g(E_F) = 3n/(2 E_F) (Ashcroft and Mermin eq. 2.65)
+        // Source: free-electron density of states per volume g(E_F) = 3n/(2 E_F) (Ashcroft and Mermin ch. 2, from memory)
         double ef = cu.fermiEnergy().in(EnergyUnit.JOULE);
         assertEquals(1.5 * n / ef, dos.coefficient() * Math.sqrt(ef), 1e-14 * 1.5 * n / ef);
     }
