@@ -71,6 +71,26 @@ class SweepAndDensityOfStatesTest {
     }
 
     @Test
+    void powerLawTrapReducesToTheHarmonicTrap() {
+        double m = 87 * 1.66053906660e-27;
+        double[] omega = {2 * Math.PI * 96, 2 * Math.PI * 96, 2 * Math.PI * 24};
+        double[] c = {m * omega[0] * omega[0] / 2, m * omega[1] * omega[1] / 2, m * omega[2] * omega[2] / 2};
+        DensityOfStates general = DensityOfStates.powerLawTrap(m, c, new double[] {2, 2, 2}, 1);
+        DensityOfStates harmonic = DensityOfStates.harmonic(DEMO_TRAP, 1);
+        // Source: harmonic-trap density of states e^2 / (2 (hbar omega_g)^3) (Bagnato, Pritchard, Kleppner,
+        // PRA 35, 4354 (1987)), the p_i = 2 case of the power-law formula
+        assertEquals(3.0, general.exponent(), 1e-15);
+        assertEquals(1.0, general.coefficient() / harmonic.coefficient(), 1e-13);
+        // Source: same paper, alpha = 3/2 + sum 1/p_i: 9/2 for a spherical quadrupole trap (p_i = 1)
+        DensityOfStates quadrupole = DensityOfStates.powerLawTrap(m, new double[] {1e-25, 1e-25, 2e-25},
+                new double[] {1, 1, 1}, 1);
+        assertEquals(4.5, quadrupole.exponent(), 1e-15);
+        BoseGas gas = BoseGas.of(quadrupole, 2000);
+        // Source: condensate fraction 1 - (T/T_c)^alpha for a power-law density of states (same paper)
+        assertEquals(1 - Math.pow(0.5, 4.5), gas.condensateFraction(0.5 * gas.criticalTemperature()), 1e-15);
+    }
+
+    @Test
     void trappedGasesBecomeClassicalAtHighTemperature() {
         BoseGas bose = BoseGas.inHarmonicTrap(DEMO_TRAP, 2000);
         FermiGas fermi = FermiGas.inHarmonicTrap(DEMO_TRAP, 2000);
