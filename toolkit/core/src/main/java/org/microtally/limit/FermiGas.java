@@ -253,14 +253,22 @@ public final class FermiGas {
         return alpha * eta * numerator / (sB * sC);
     }
 
+    /** Dirichlet eta(2k) = (1 - 2^(1-2k)) zeta(2k), k = 1 .. 24 (index 0 unused). */
+    private static final double[] ETA_EVEN = new double[25];
+
+    static {
+        for (int k = 1; k < ETA_EVEN.length; k++) {
+            ETA_EVEN[k] = -Math.expm1((1.0 - 2.0 * k) * Math.log(2.0)) * Zeta.zeta(2.0 * k);
+        }
+    }
+
     private static double[] sommerfeldCoefficients(double j, int terms) {
         double[] c = new double[terms];
         c[0] = 1.0;
         double product = 1.0;
         for (int k = 1; k < terms; k++) {
             product *= (j + 1.0 - (2 * k - 2)) * (j + 1.0 - (2 * k - 1));
-            double etaDirichlet = -Math.expm1((1.0 - 2.0 * k) * Math.log(2.0)) * Zeta.zeta(2.0 * k);
-            c[k] = 2.0 * etaDirichlet * product;
+            c[k] = 2.0 * ETA_EVEN[k] * product;
         }
         return c;
     }
