@@ -1,0 +1,194 @@
+package org.microtally.count;
+
+import java.math.BigInteger;
+import org.microtally.ProgressListener;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * The counting recursions behind {@link CountTable}, in two arithmetics that share one algorithm:
+ * exact BigInteger (reference path, used for small tables and to test the other) and multi-modular
+ * (word-size primes + Chinese remaindering, the production path).
+ *
+ * <p>Indistinguishable particles: the table T[n][e] holds the coefficients of x^n q^e of the
+ * bivariate generating function prod_l F_l(x q^(e_l)), with F_l the level factor of
+ * {@link LevelSeries}. A level is applied once, in place, as the truncated series
+ * T'[n][e] = sum_{j=0..J} c_j T[n-j][e - j e_l], J = min(N, E / e_l) (J = N for e_l = 0), sweeping n
+ * downwards so every read sees the old row. Cost per level O(J N E), independent of the degeneracy.
+ *
+ * <p>Distinguishable particles: row n is the polynomial Z1(q)^n truncated at q^E, Z1 = sum_l g_l q^(e_l),
+ * obtained as row n = row (n-1) * Z1. Cost O(N E L) for L levels below E.
+ */
+final class CountEngine {
+    private CountEngine() { }
+
+    /** Exact table, row-major (N+1) x (E+1), by BigInteger arithmetic. */
+    static BigInteger[] bigInteger(int[] energy, int[] deg, Statistics stats, int maxN, int maxE,
+                                   ProgressListener progress) {
+        int w = maxE + 1;
+        BigInteger[] t = new BigInteger[(maxN + 1) * w];
+        java.util.Arrays.fill(t, BigInteger.ZERO);
+        int levels = relevantLevels(energy, maxE);
+        if (stats.indistinguishable()) {
+            t[0] = BigInteger.ONE;
+            for (int l = 0; l < levels; l++) {
+                int el = energy[l];
+                BigInteger[] c = LevelSeries.coefficients(stats, deg[l], maxJ(el, maxN, maxE));
+                for (int n = maxN; n >= 1; n--) {
+                    int jTop = Math.min(n, c.length - 1);
+                    for (int j = 1; j <= jTop; j++) {
+                        int off = j * el;
+                        if (off > maxE) {
+                            break;
+                        }
+                        int dst = n * w;
+                        int src = (n - j) * w - off;
+                        for (int e = off; e <= maxE; e++) {
+                            BigInteger s = t[src + e];
+                            if (s.signum() != 0) {
+                                t[dst + e] = t[dst + e].add(c[j].multiply(s));
+                            }
+                        }
+                    }
+                }
+                progress.progress(l + 1, levels, "levels");
+            }
+        } else {
+            t[0] = BigInteger.ONE;
+            for (int n = 1; n <= maxN; n++) {
+                int dst = n * w;
+                int src = (n - 1) * w;
+                for (int l = 0; l < levels; l++) {
+                    BigInteger g = BigInteger.valueOf(deg[l]);
+                    int el = energy[l];
+                    for (int e = el; e <= maxE; e++) {
+                        BigInteger s = t[src + e - el];
+                        if (s.signum() != 0) {
+                            t[dst + e] = t[dst + e].add(g.multiply(s));
+                        }
+                    }
+                }
+                progress.progress(n, maxN, "particles");
+            }
+        }
+        return t;
+    }
+
+    /**
+     * The same table modulo each prime, then reconstructed by Garner's algorithm. Exact provided every
+     * entry is below the product of the primes (the caller guarantees it with {@link CountBound}).
+     */
+    static BigInteger[] multiModular(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long[] primes,
+                                     ProgressListener progress) {
+        int w = maxE + 1;
+        int size = (maxN + 1) * w;
+        int levels = relevantLevels(energy, maxE);
+        long[][] res = new long[primes.length][];
+        BigInteger[][] coef = new BigInteger[levels][];
+        if (stats.indistinguishable()) {
+            for (int l = 0; l < levels; l++) {
+                coef[l] = LevelSeries.coefficients(stats, deg[l], maxJ(energy[l], maxN, maxE));
+            }
+        }
+        long steps = (long) primes.length * (stats.indistinguishable() ? levels : maxN);
+        long done = 0;
+        for (int pi = 0; pi < primes.length; pi++) {
+            long p = primes[pi];
+            BigInteger bp = BigInteger.valueOf(p);
+            long[] t = new long[size];
+            t[0] = 1;
+            if (stats.indistinguishable()) {
+                for (int l = 0; l < levels; l++) {
+                    int el = energy[l];
+                    BigInteger[] c = coef[l];
+                    long[] cm = new long[c.length];
+                    long[] cs = new long[c.length];
+                    for (int j = 0; j < c.length; j++) {
+                        cm[j] = c[j].mod(bp).longValue();
+                        cs[j] = Moduli.shoup(cm[j], p);
+                    }
+                    applyLevel(t, w, maxN, maxE, el, cm, cs, p);
+                    progress.progress(++done, steps, "levels x primes");
+                }
+            } else {
+                long[] gm = new long[levels];
+                long[] gs = new long[levels];
+                for (int l = 0; l < levels; l++) {
+                    gm[l] = deg[l] % p;
+                    gs[l] = Moduli.shoup(gm[l], p);
+                }
+                for (int n = 1; n <= maxN; n++) {
+                    int dst = n * w;
+                    int src = (n - 1) * w;
+                    for (int l = 0; l < levels; l++) {
+                        int el = energy[l];
+                        long g = gm[l];
+                        long gsh = gs[l];
+                        for (int e = el; e <= maxE; e++) {
+                            long x = t[src + e - el];
+                            long q = (Math.multiplyHigh(gsh, x) << 1) | ((gsh * x) >>> 63);
+                            long r = g * x - q * p;
+                            if (r >= p) {
+                                r -= p;
+                            }
+                            long s = t[dst + e] + r;
+                            t[dst + e] = s >= p ? s - p : s;
+                        }
+                    }
+                    progress.progress(++done, steps, "particles x primes");
+                }
+            }
+            res[pi] = t;
+        }
+        Moduli.Crt crt = new Moduli.Crt(primes);
+        long[] scratch = new long[primes.length];
+        BigInteger[] out = new BigInteger[size];
+        for (int i = 0; i < size; i++) {
+            out[i] = crt.reconstruct(res, i, scratch);
+        }
+        return out;
+    }
+
+    /** One level, in place, modulo p: T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending. */
+    private static void applyLevel(long[] t, int w, int maxN, int maxE, int el, long[] cm, long[] cs, long p) {
+        for (int n = maxN; n >= 1; n--) {
+            int jTop = Math.min(n, cm.length - 1);
+            int dst = n * w;
+            for (int j = 1; j <= jTop; j++) {
+                int off = j * el;
+                if (off > maxE) {
+                    break;
+                }
+                long c = cm[j];
+                long csh = cs[j];
+                if (c == 0) {
+                    continue;
+                }
+                int src = (n - j) * w - off;
+                for (int e = off; e <= maxE; e++) {
+                    long x = t[src + e];
+                    long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
+                    long r = c * x - q * p;
+                    if (r >= p) {
+                        r -= p;
+                    }
+                    long s = t[dst + e] + r;
+                    t[dst + e] = s >= p ? s - p : s;
+                }
+            }
+        }
+    }
+
+    /** Number of leading levels (sorted by energy) with energy &lt;= maxE. */
+    static int relevantLevels(int[] energy, int maxE) {
+        int l = 0;
+        while (l < energy.length && energy[l] <= maxE) {
+            l++;
+        }
+        return l;
+    }
+
+    /** Largest number of particles a level of energy el can hold within the table. */
+    static int maxJ(int el, int maxN, int maxE) {
+        return el == 0 ? maxN : Math.min(maxN, maxE / el);
+    }
+}
