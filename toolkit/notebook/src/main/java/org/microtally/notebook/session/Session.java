@@ -181,6 +181,7 @@ public final class Session implements AutoCloseable {
             if (running) {
                 throw new IllegalStateException("a cell is already running in this session; wait for it or interrupt it");
             }
+            control.clearStop();
             running = true;
         }
         int cell;
@@ -188,7 +189,6 @@ public final class Session implements AutoCloseable {
             cell = ++cellCount;
         }
         CellContext context = new CellContext(group, output);
-        control.clearStop();
         loader.mark();
         OutputRouter.begin(context);
         try {
