@@ -44,8 +44,18 @@ interface CellEngine extends AutoCloseable {
         }
     }
 
-    /** How complete a cell's source is; INCOMPLETE asks the front end for another line. */
-    enum Completeness { COMPLETE, INCOMPLETE, INVALID, UNKNOWN }
+    /**
+     * How complete a cell's source is; INCOMPLETE asks the front end for another line.
+     *
+     * @param kind   the answer
+     * @param indent for INCOMPLETE, the indentation suggested for the next line
+     */
+    record Completeness(Kind kind, String indent) {
+        /** The four answers of the protocol's is_complete_reply. */
+        enum Kind { COMPLETE, INCOMPLETE, INVALID, UNKNOWN }
+
+        static final Completeness UNKNOWN = new Completeness(Kind.UNKNOWN, "");
+    }
 
     /** Makes fresh engines: one at start, another after a reset. */
     interface Factory {

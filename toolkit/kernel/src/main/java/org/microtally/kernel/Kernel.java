@@ -274,8 +274,12 @@ final class Kernel {
     }
 
     private <T> void reply(ZMQ.Socket socket, Message<?> request, MessageType<T> type, T content) {
+        reply(socket, request, type, content, new LinkedHashMap<>());
+    }
+
+    private <T> void reply(ZMQ.Socket socket, Message<?> request, MessageType<T> type, T content, Map<String, Object> metadata) {
         send(socket, new Message<>(request.getIdentities(), new Header<>(request, type), request.getHeader(),
-                new LinkedHashMap<>(), content, null));
+                metadata, content, null));
     }
 
     private <T> void publish(Message<?> parent, MessageType<T> type, T content) {
@@ -376,6 +380,8 @@ final class Kernel {
         runningCell = m;
         java.util.concurrent.ScheduledFuture<?> ticker = flusher.scheduleAtFixedRate(out::flushIfDue, 100, 100,
                 java.util.concurrent.TimeUnit.MILLISECONDS);
+        long t0 = System.nanoTime();
+        long evalNanos;
         try {
             result = engine.run(code, out);
         } catch (RuntimeException | StackOverflowError e) {
@@ -387,16 +393,21 @@ final class Kernel {
                     Optional.of(new CellError(e.getClass().getName(), String.valueOf(e.getMessage()),
                             List.of(e.toString()), 0, 0)));
         } finally {
+            evalNanos = System.nanoTime() - t0;
             executing = false;
             runningCell = null;
             ticker.cancel(false);
             out.flush();
         }
+        // execute_reply metadata: the engine's own time for the cell, so a client can tell the
+        // kernel's overhead from the evaluation time (toolkit/bench/kernel-latency.py uses it).
+        Map<String, Object> metadata = new LinkedHashMap<>();
+        metadata.put("microtally_eval_seconds", evalNanos / 1e9);
         if (result.ok()) {
             if (!req.isSilent() && result.value().isPresent()) {
                 publish(m, MessageType.PUBLISH_EXECUTION_RESULT, new PublishExecuteResult(n, displayData(result.value().get(), null)));
             }
-            reply(socket, m, executeReplyType(), new ExecuteOk(n));
+            reply(socket, m, executeReplyType(), new ExecuteOk(n), metadata);
             return;
         }
         CellResult failed = result;
@@ -407,7 +418,7 @@ final class Kernel {
         }
         ErrorReply reply = new ErrorReply(err.type(), err.message(), traceback);
         reply.setExecutionCount(n);
-        reply(socket, m, MessageType.EXECUTE_REPLY.error(), reply);
+        reply(socket, m, MessageType.EXECUTE_REPLY.error(), reply, metadata);
         if (err.type().contains("OutOfMemoryError")) {
             recoverHeap(m);
         }
@@ -543,9 +554,9 @@ final class Kernel {
         } catch (RuntimeException e) {
             k = CellEngine.Completeness.UNKNOWN;
         }
-        IsCompleteReply r = switch (k) {
+        IsCompleteReply r = switch (k.kind()) {
             case COMPLETE -> IsCompleteReply.VALID_CODE;
-            case INCOMPLETE -> IsCompleteReply.getIncompleteReplyWithIndent("    ");
+            case INCOMPLETE -> IsCompleteReply.getIncompleteReplyWithIndent(k.indent() == null ? "" : k.indent());
             case INVALID -> IsCompleteReply.INVALID_CODE;
             case UNKNOWN -> IsCompleteReply.UNKNOWN;
         };

@@ -85,7 +85,7 @@ class KernelProtocolTest {
 
         @Override
         public Completeness completeness(String code) {
-            return code.endsWith("{") ? Completeness.INCOMPLETE : Completeness.COMPLETE;
+            return new Completeness(code.endsWith("{") ? Completeness.Kind.INCOMPLETE : Completeness.Kind.COMPLETE, "    ");
         }
 
         @Override
@@ -193,7 +193,8 @@ class KernelProtocolTest {
         return new JsonObject[] {
             JsonParser.parseString(frames.get(d + 2)).getAsJsonObject(),
             JsonParser.parseString(frames.get(d + 3)).getAsJsonObject(),
-            JsonParser.parseString(frames.get(d + 5)).getAsJsonObject()};
+            JsonParser.parseString(frames.get(d + 5)).getAsJsonObject(),
+            JsonParser.parseString(frames.get(d + 4)).getAsJsonObject()};
     }
 
     /** IOPub messages for {@code parentId} up to and including its idle status. */
@@ -263,6 +264,7 @@ class KernelProtocolTest {
         assertEquals("execute_reply", reply[0].get("msg_type").getAsString());
         assertEquals("ok", reply[2].get("status").getAsString());
         assertEquals(1, reply[2].get("execution_count").getAsInt());
+        assertTrue(reply[3].get("microtally_eval_seconds").getAsDouble() >= 0, reply[3].toString());
         List<JsonObject[]> pub = iopubUntilIdle(id);
         // Source: Jupyter messaging protocol 5.3, "Execution results" and "Kernel status" message order
         assertEquals(List.of("status", "execute_input", "stream", "display_data", "execute_result", "status"), types(pub));
@@ -326,6 +328,7 @@ class KernelProtocolTest {
         send(shell, KEY, "is_complete_request", "{\"code\":\"for (;;) {\"}");
         JsonObject[] k = receive(shell);
         assertEquals("incomplete", k[2].get("status").getAsString());
+        assertEquals("    ", k[2].get("indent").getAsString());
     }
 
     @Test
