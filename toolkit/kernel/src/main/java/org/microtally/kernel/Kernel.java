@@ -70,6 +70,7 @@ final class Kernel {
     private final ZContext zmq = new ZContext(1);
     private final AtomicBoolean running = new AtomicBoolean(true);
     private final CountDownLatch stopped = new CountDownLatch(1);
+    private final CountDownLatch firstKernelInfo = new CountDownLatch(1);
     private final Object iopubLock = new Object();
     private final String kernelSession = java.util.UUID.randomUUID().toString();
     private final List<Thread> threads = new ArrayList<>();
@@ -79,7 +80,8 @@ final class Kernel {
                 t.setDaemon(true);
                 return t;
             });
-    private volatile CellEngine engine;
+    /** The engine; opened in the background so kernel_info is answered while JShell starts. */
+    private volatile java.util.concurrent.CompletableFuture<CellEngine> engine;
     private volatile boolean executing;
     private volatile Message<?> runningCell;
     private volatile int droppedBadSignature;
@@ -103,9 +105,12 @@ final class Kernel {
         return this;
     }
 
-    /** Binds the sockets, opens the engine and starts answering. */
+    /**
+     * Binds the sockets and starts answering at once; the engine opens on a background thread
+     * (JShell takes a few seconds to start), and requests that need it wait for it.
+     */
     void start() {
-        engine = engines.open();
+        engine = new java.util.concurrent.CompletableFuture<>();
         Runtime.getRuntime().addShutdownHook(new Thread(this::reportUnexpectedExit, "microtally-exit-report"));
         shell = bind(SocketType.ROUTER, props.getShellPort());
         control = bind(SocketType.ROUTER, props.getControlPort());
@@ -115,8 +120,50 @@ final class Kernel {
         thread("microtally-shell", () -> serve(shell, "shell"));
         thread("microtally-control", () -> serve(control, "control"));
         thread("microtally-heartbeat", this::echoHeartbeats);
+ // The engine opens once the first kernel_info reply is out (clients always ask first), or after
+        // 300 ms: starting JShell at once would compete for the CPU with answering that request.
+        Thread opener = new Thread(() -> {
+            try {
+                firstKernelInfo.await(300, java.util.concurrent.TimeUnit.MILLISECONDS);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+            openInto(engine);
+        }, "microtally-engine-open");
+        opener.setDaemon(true);
+        opener.start();
         KernelLog.LOG.info(() -> "kernel listening on " + props.getTransport() + "://" + props.getIp()
-                + " shell=" + props.getShellPort() + " control=" + props.getControlPort());
+                + " shell=" + props.getShellPort() + " control=" + props.getControlPort() + ", "
+                + (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()) + " ms after JVM start");
+    }
+
+    private void openInto(java.util.concurrent.CompletableFuture<CellEngine> f) {
+        try {
+            long t0 = System.nanoTime();
+            f.complete(engines.open());
+            KernelLog.LOG.info(() -> String.format(java.util.Locale.ROOT, "engine open in %.0f ms", (System.nanoTime() - t0) / 1e6));
+        } catch (RuntimeException | Error e) {
+            KernelLog.LOG.log(Level.SEVERE, "the evaluation engine failed to start", e);
+            f.completeExceptionally(e);
+        }
+    }
+
+    /** The engine, waiting for it to finish opening. */
+    private CellEngine engine() {
+        try {
+            return engine.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted while the evaluation engine was starting", e);
+        } catch (java.util.concurrent.ExecutionException e) {
+            throw new IllegalStateException("the evaluation engine failed to start: " + e.getCause(), e.getCause());
+        }
+    }
+
+    /** The engine if it is open, else null (for interrupts, which must not wait). */
+    private CellEngine engineIfOpen() {
+        java.util.concurrent.CompletableFuture<CellEngine> f = engine;
+        return f != null && f.isDone() && !f.isCompletedExceptionally() ? f.join() : null;
     }
 
     /** Blocks until the kernel has stopped. */
@@ -161,7 +208,7 @@ final class Kernel {
             }
         }
         try {
-            CellEngine e = engine;
+            CellEngine e = engineIfOpen();
             if (e != null) {
                 e.close();
             }
@@ -304,8 +351,9 @@ final class Kernel {
         String type = WireCodec.typeName(m);
         if (type.equals(MessageType.INTERRUPT_REQUEST.getName())) {
             status(m, PublishStatus.State.BUSY);
-            if (executing) {
-                engine.interrupt();
+            CellEngine e = engineIfOpen();
+            if (executing && e != null) {
+                e.interrupt();
             }
             reply(socket, m, MessageType.INTERRUPT_REPLY, new InterruptReply());
             status(m, PublishStatus.State.IDLE);
@@ -318,7 +366,14 @@ final class Kernel {
         status(m, PublishStatus.State.BUSY);
         try {
             switch (type) {
-                case "kernel_info_request" -> reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo());
+                case "kernel_info_request" -> {
+                    reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo());
+                    if (firstKernelInfo.getCount() > 0) {
+                        firstKernelInfo.countDown();
+                        KernelLog.LOG.info(() -> "first kernel_info answered "
+                                + (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()) + " ms after JVM start");
+                    }
+                }
                 case "execute_request" -> execute(socket, m);
                 case "complete_request" -> complete(socket, m);
                 case "inspect_request" -> inspect(socket, m);
@@ -349,8 +404,9 @@ final class Kernel {
         Object content = m.getContent();
         boolean restart = content instanceof ShutdownRequest r && r.isRestart();
         status(m, PublishStatus.State.BUSY);
-        if (executing) {
-            engine.interrupt();
+        CellEngine running = engineIfOpen();
+        if (executing && running != null) {
+            running.interrupt();
         }
         reply(socket, m, MessageType.SHUTDOWN_REPLY, restart ? ShutdownReply.SHUTDOWN_AND_RESTART : ShutdownReply.SHUTDOWN);
         status(m, PublishStatus.State.IDLE);
@@ -383,7 +439,7 @@ final class Kernel {
         long t0 = System.nanoTime();
         long evalNanos;
         try {
-            result = engine.run(code, out);
+            result = engine().run(code, out);
         } catch (RuntimeException | StackOverflowError e) {
             result = new CellResult(CellResult.Outcome.RUNTIME_ERROR, Optional.empty(), Optional.empty(),
                     Optional.of(new CellError(e.getClass().getName(), String.valueOf(e.getMessage()),
@@ -439,20 +495,22 @@ final class Kernel {
         String mib = String.format(java.util.Locale.ROOT, "%.0f of %.0f MiB", heap.getUsed() / 1048576.0, max / 1048576.0);
         if (used < RESET_AFTER_OOM_FRACTION) {
             publish(parent, MessageType.PUBLISH_STREAM, new PublishStream(PublishStream.StreamType.ERR,
-                    "[microtally] the cell ran out of heap; memory was recovered (" + mib
-                            + " in use), the session and its variables are intact.\n"));
+                    "[microtally] heap recovered after the OutOfMemoryError (" + mib
+                            + " in use after a collection); the kernel session goes on.\n"));
             return;
         }
         KernelLog.LOG.warning(() -> "heap still full after OutOfMemoryError (" + mib + "): resetting the engine");
-        CellEngine old = engine;
+        CellEngine old = engineIfOpen();
         try {
-            old.close();
+            if (old != null) {
+                old.close();
+            }
         } catch (RuntimeException e) {
             KernelLog.LOG.log(Level.WARNING, "closing the exhausted engine failed", e);
         }
-        engine = null;
+        engine = new java.util.concurrent.CompletableFuture<>();
         System.gc();
-        engine = engines.open();
+        openInto(engine);
         MemoryUsage after = ManagementFactory.getMemoryMXBean().getHeapMemoryUsage();
         publish(parent, MessageType.PUBLISH_STREAM, new PublishStream(PublishStream.StreamType.ERR,
                 "[microtally] the cell ran out of heap and the session still held " + mib
@@ -521,7 +579,7 @@ final class Kernel {
         int cursor = CodePoints.toCharIndex(code, req.getCursorPos());
         CellEngine.Completion c;
         try {
-            c = engine.complete(code, cursor);
+            c = engine().complete(code, cursor);
         } catch (RuntimeException e) {
             KernelLog.LOG.log(Level.WARNING, "completion failed", e);
             c = new CellEngine.Completion(List.of(), cursor, cursor);
@@ -536,7 +594,7 @@ final class Kernel {
         int cursor = CodePoints.toCharIndex(code, req.getCursorPos());
         Optional<String> doc;
         try {
-            doc = engine.inspect(code, cursor);
+            doc = engine().inspect(code, cursor);
         } catch (RuntimeException e) {
             KernelLog.LOG.log(Level.WARNING, "inspection failed", e);
             doc = Optional.empty();
@@ -550,7 +608,7 @@ final class Kernel {
         IsCompleteRequest req = (IsCompleteRequest) m.getContent();
         CellEngine.Completeness k;
         try {
-            k = engine.completeness(req.getCode() == null ? "" : req.getCode());
+            k = engine().completeness(req.getCode() == null ? "" : req.getCode());
         } catch (RuntimeException e) {
             k = CellEngine.Completeness.UNKNOWN;
         }

@@ -13,8 +13,8 @@ import java.util.logging.SimpleFormatter;
 /**
  * Kernel diagnostics go to a log file, never to the notebook and never to stderr (Jupyter shows a
  * kernel's stderr in its own console, and java.util.logging's default console handler would send
- * every library message there). The file is {@code microtally-kernel.log} in the directory of the
- * connection file (Jupyter's runtime directory), rotated at 1 MiB, two generations.
+ * every library message there). The file is {@code microtally-kernel.0.log} in the directory of the
+ * connection file (Jupyter's runtime directory), rotated at 1 MiB into {@code microtally-kernel.1.log}.
  */
 final class KernelLog {
     static final Logger LOG = Logger.getLogger("org.microtally.kernel");
@@ -34,8 +34,8 @@ final class KernelLog {
         }
         try {
             Files.createDirectories(dir);
-            Path target = dir.resolve("microtally-kernel.log");
-            Handler h = new FileHandler(target.toString().replace("%", "%%"), 1 << 20, 2, true);
+            Path target = dir.resolve("microtally-kernel.0.log");
+            Handler h = new FileHandler(dir.resolve("microtally-kernel.%g.log").toString(), 1 << 20, 2, true);
             h.setFormatter(new SimpleFormatter());
             root.addHandler(h);
             file = target;
