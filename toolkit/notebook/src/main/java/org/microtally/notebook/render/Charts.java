@@ -20,6 +20,7 @@ import org.microtally.Tabular;
 import org.microtally.count.CountTable;
 import org.microtally.count.MacrostateHistogram;
 import org.microtally.count.SharedTotal;
+import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.CategoryChart;
@@ -242,6 +243,31 @@ public final class Charts {
     public static XYChart split(SharedTotal shared) {
         XYChart chart = line(Objects.requireNonNull(shared, "shared"), "q_A", "probability");
         chart.setTitle("q = " + shared.total() + " shared: P(q_A)");
+        return chart;
+    }
+
+    /**
+     * Mean occupation of one state of each level against the level energy, one series per entry
+     * (for example the same spectrum under several statistics, or canonical next to grand
+     * canonical), in the map's iteration order.
+     */
+    public static XYChart occupations(java.util.Map<String, LevelOccupations> byName) {
+        Objects.requireNonNull(byName, "byName");
+        if (byName.isEmpty()) {
+            throw InvalidInputException.of("number of occupation profiles", 0, ">= 1", "");
+        }
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle("level energy").yAxisTitle("<n> per state").build();
+        for (var e : byName.entrySet()) {
+            LevelOccupations o = e.getValue();
+            double[] xs = new double[o.size()];
+            for (int i = 0; i < xs.length; i++) {
+                xs[i] = o.energy(i);
+            }
+            chart.addSeries(e.getKey(), xs, o.perStateArray()).setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        }
+        style(chart);
+        chart.getStyler().setLegendVisible(byName.size() > 1);
         return chart;
     }
 

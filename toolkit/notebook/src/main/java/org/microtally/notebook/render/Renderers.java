@@ -71,6 +71,7 @@ public final class Renderers {
         register(Collection.class, c -> MimeBundle.text(collection(c)));
         register(Map.class, m -> MimeBundle.text(map(m)));
         ResultDisplays.registerAll();
+        EnsembleDisplays.registerAll();
     }
 
     private Renderers() { }
