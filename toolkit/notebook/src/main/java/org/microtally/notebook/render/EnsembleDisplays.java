@@ -5,6 +5,7 @@ import java.util.List;
 import org.microtally.ensemble.Canonical;
 import org.microtally.ensemble.EnsembleComparison;
 import org.microtally.ensemble.GrandCanonical;
+import org.microtally.ensemble.GroundState;
 import org.microtally.ensemble.Microcanonical;
 import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;
@@ -29,6 +30,7 @@ final class EnsembleDisplays {
                         CellText.floating(o.total(), 8)), List.of()),
                 Charts.occupations(java.util.Map.of("<n> per state", o))));
         Renderers.register(CondensateDistribution.class, EnsembleDisplays::condensate);
+        Renderers.register(GroundState.class, EnsembleDisplays::groundState);
     }
 
     static MimeBundle canonical(Canonical c) {
@@ -82,6 +84,14 @@ final class EnsembleDisplays {
     static MimeBundle convergence(EnsembleComparison.ConvergenceSweep s) {
         MimeBundle table = TableDisplay.bundle(s, "Canonical vs grand canonical as N grows", List.of());
         return Charts.combine(table, Charts.line(s, "N", "rel. diff U", "rel. diff C"));
+    }
+
+    static MimeBundle groundState(GroundState g) {
+        String caption = String.format("Ground state (T -> 0): E = %s, %s microstates (exact), S/k = %s",
+                CellText.floating(g.energy(), 12), CellText.shown(g.degeneracy(), TableFormat.DEFAULT),
+                CellText.floating(g.entropy(), 12));
+        return TableDisplay.bundle(g.occupations(), caption,
+                List.of("Limiting mean occupations per level; degeneracy in full: " + g.degeneracy()));
     }
 
     static MimeBundle condensate(CondensateDistribution d) {

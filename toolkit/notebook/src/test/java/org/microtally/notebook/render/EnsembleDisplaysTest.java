@@ -123,6 +123,16 @@ class EnsembleDisplaysTest {
     }
 
     @Test
+    void groundStateShowsItsExactDegeneracy() {
+        // 3 fermions on the 2D oscillator with spin: shell n = 0 holds 2, the third goes into shell n = 1 (4 states)
+        Spectrum dot = Spectra.harmonicOscillator(2, 6).withInternalMultiplicity(2);
+        MimeBundle b = Renderers.render(Canonical.groundState(dot, Statistics.FERMI, 3));
+        // Source: closed form, ground energy 1 hbar omega with C(4, 1) = 4 microstates, S/k = ln 4
+        assertTrue(b.plain().startsWith("Ground state (T -> 0): E = 1, 4 microstates (exact), S/k = "
+                + CellText.floating(Math.log(4), 12)), b.plain());
+    }
+
+    @Test
     void condensateDistributionShowsMeanAndVariance() {
         Canonical c = Canonical.of(Spectra.harmonicOscillator(3, 20), Statistics.BOSE, 40, 0.8);
         MimeBundle b = Renderers.render(c.condensate());
