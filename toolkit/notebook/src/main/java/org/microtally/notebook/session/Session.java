@@ -104,7 +104,6 @@ public final class Session implements AutoCloseable {
         OutputRouter.install();
         int n = SESSIONS.incrementAndGet();
         group = new ThreadGroup("microtally-session-" + n);
-        group.setDaemon(false);
         Set<String> classPath = classPath();
         loader = new SnippetLoader(Session.class.getClassLoader(), classPath);
         control = new EngineControl(loader, group);
@@ -410,10 +409,9 @@ public final class Session implements AutoCloseable {
         int firstLine = 0;
         int firstCol = 0;
         String firstMsg = null;
-        String cleanedSourceLimit = piece.source;
         for (Diag d : diags) {
             long p = d.getPosition() >= 0 ? d.getPosition() : d.getStartPosition();
-            int rel = (int) Math.max(0, Math.min(p, cleanedSourceLimit.length()));
+            int rel = (int) Math.max(0, Math.min(p, piece.source.length()));
             int abs = Math.min(piece.start + rel, code.length());
             int line = lineOf(code, abs);
             int col = columnOf(code, abs);

@@ -160,6 +160,7 @@ class SessionTest {
         CellResult r = run("org.microtally.notebook.session.Display.class");
         assertSame(Display.class, r.raw().orElseThrow());
         assertSame(Session.class.getClassLoader(), session.cellClassLoader().getParent());
+        assertSame(session.cellClassLoader(), run("Thread.currentThread().getContextClassLoader()").raw().orElseThrow());
         Collector c = new Collector();
         assertTrue(session.run("show(\"shared\");\nhtml(\"<b>bold</b>\");", c).ok());
         List<Collector.Event> d = c.displays();
