@@ -21,6 +21,8 @@ final class OutputRouter {
 
     private static final CopyOnWriteArrayList<CellContext> ACTIVE = new CopyOnWriteArrayList<>();
     private static boolean installed;
+    private static PrintStream routedOut;
+    private static PrintStream routedErr;
     private static ScheduledExecutorService flusher;
 
     private OutputRouter() { }
@@ -29,8 +31,10 @@ final class OutputRouter {
         if (installed) {
             return;
         }
-        System.setOut(new PrintStream(new Routed(false), true, StandardCharsets.UTF_8));
-        System.setErr(new PrintStream(new Routed(true), true, StandardCharsets.UTF_8));
+        routedOut = new PrintStream(new Routed(false), true, StandardCharsets.UTF_8);
+        routedErr = new PrintStream(new Routed(true), true, StandardCharsets.UTF_8);
+        System.setOut(routedOut);
+        System.setErr(routedErr);
         flusher = Executors.newSingleThreadScheduledExecutor(r -> {
             Thread t = new Thread(r, "microtally-output-flusher");
             t.setDaemon(true);
@@ -45,6 +49,15 @@ final class OutputRouter {
     }
 
     static void begin(CellContext c) {
+        synchronized (OutputRouter.class) {
+            // an earlier cell may have replaced the streams with System.setOut/setErr: route again
+            if (System.out != routedOut) {
+                System.setOut(routedOut);
+            }
+            if (System.err != routedErr) {
+                System.setErr(routedErr);
+            }
+        }
         ACTIVE.add(c);
     }
 

@@ -262,6 +262,32 @@ class SessionTest {
     }
 
     @Test
+    void outputIsRoutedAgainAfterACellReplacedSystemOut() {
+        assertTrue(run("System.setOut(new PrintStream(OutputStream.nullOutputStream()));").ok());
+        Collector c = new Collector();
+        assertTrue(session.run("System.out.println(\"visible again\");", c).ok());
+        assertEquals("visible again\n", c.text(false));
+    }
+
+    @Test
+    void aFailingOutputSinkDoesNotBreakTheCell() {
+        CellOutput broken = new CellOutput() {
+            @Override
+            public void stream(boolean stderr, String text) {
+                throw new IllegalStateException("channel closed");
+            }
+
+            @Override
+            public void display(MimeBundle bundle, String displayId, boolean update) {
+                throw new IllegalStateException("channel closed");
+            }
+        };
+        CellResult r = session.run("System.out.println(\"lost\");\nshow(\"lost too\");\n5 * 5", broken);
+        assertTrue(r.ok(), () -> r.error().toString());
+        assertEquals(25, r.raw().orElseThrow());
+    }
+
+    @Test
     void interruptWithoutRunningCellDoesNothing() {
         session.interrupt();
         assertTrue(run("int afterIdleInterrupt = 1;").ok());
