@@ -48,8 +48,16 @@ final class OutputRouter {
         installed = true;
     }
 
+    /** Cells read an empty standard input: a notebook has no console to type into. */
+    private static final java.io.InputStream NO_INPUT = java.io.InputStream.nullInputStream();
+    private static java.io.InputStream savedIn;
+
     static void begin(CellContext c) {
         synchronized (OutputRouter.class) {
+            if (ACTIVE.isEmpty() && System.in != NO_INPUT) {
+                savedIn = System.in;
+                System.setIn(NO_INPUT);
+            }
             // an earlier cell may have replaced the streams with System.setOut/setErr: route again
             if (System.out != routedOut) {
                 System.setOut(routedOut);
@@ -64,6 +72,12 @@ final class OutputRouter {
     static void end(CellContext c) {
         ACTIVE.remove(c);
         c.flush(true);
+        synchronized (OutputRouter.class) {
+            if (ACTIVE.isEmpty() && savedIn != null) {
+                System.setIn(savedIn);
+                savedIn = null;
+            }
+        }
     }
 
     /** The cell the current thread writes to, or null. */

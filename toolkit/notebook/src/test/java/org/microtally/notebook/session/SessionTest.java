@@ -288,6 +288,14 @@ class SessionTest {
     }
 
     @Test
+    void standardInputIsEmptyInACell() {
+        java.io.InputStream before = System.in;
+        // Source: JDK 17 API, InputStream.read() returns -1 at end of stream
+        assertEquals(-1, run("System.in.read()").raw().orElseThrow());
+        assertSame(before, System.in);
+    }
+
+    @Test
     void interruptWithoutRunningCellDoesNothing() {
         session.interrupt();
         assertTrue(run("int afterIdleInterrupt = 1;").ok());
