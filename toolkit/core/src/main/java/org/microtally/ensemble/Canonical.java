@@ -82,14 +82,15 @@ public final class Canonical implements Tabular {
     private final double lnZ;
     private final double energy;
     private final double[] perState;
+    private final double[] vacancies;
     private final CondensateDistribution condensate;
     private final List<String> warnings;
     private final Object momentLock = new Object();
     private double[] moments;
 
     private Canonical(Spectrum spectrum, Statistics statistics, int n, double kT, double muStar, double lnZ,
-                      double[] perState, CondensateDistribution condensate, List<String> extraWarnings,
-                      double[] knownMoments) {
+                      double[] perState, double[] vacancies, CondensateDistribution condensate,
+                      List<String> extraWarnings, double[] knownMoments) {
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.n = n;
@@ -98,6 +99,7 @@ public final class Canonical implements Tabular {
         this.muStar = muStar;
         this.lnZ = lnZ;
         this.perState = perState;
+        this.vacancies = vacancies;
         this.condensate = condensate;
         double e0 = spectrum.groundEnergy();
         double u = 0;
@@ -214,7 +216,7 @@ public final class Canonical implements Tabular {
             occ[i] = n * Math.exp(-beta * (s.energy(i) - e0)) / z1;
         }
         double mu = ChemicalPotential.forMeanNumber(s, Statistics.DISTINGUISHABLE, kT, n);
-        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null, List.of(),
+        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null, null, List.of(),
                 new double[] {n * var1});
     }
 
@@ -269,7 +271,7 @@ public final class Canonical implements Tabular {
         if (Math.abs(sum - 1) > 1e-9) {
             extra.add("internal consistency: condensate probabilities summed to " + sum + " before normalisation");
         }
-        return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ,
+        return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ, null,
                 new CondensateDistribution(p), extra, null);
     }
 
@@ -302,6 +304,7 @@ public final class Canonical implements Tabular {
         }
         double lnZn = z.logCoefficient(n);
         double[] occ = new double[m];
+        double[] vac = new double[m];
         double worstMismatch = 0;
         ScaledSeries suffix = new ScaledSeries(n, false);
         double[] lp = new double[cap + 1];
@@ -328,12 +331,15 @@ public final class Canonical implements Tabular {
                 }
                 double s0 = 0;
                 double s1 = 0;
+                double sv = 0;
                 for (int j = 0; j <= cap; j++) {
                     double w = lp[j] == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lp[j] - max);
                     s0 += w;
                     s1 += j * w;
+                    sv += (cap - j) * w;
                 }
                 occ[i] = s1 / s0;
+                vac[i] = sv / s0;
                 worstMismatch = Math.max(worstMismatch, Math.abs(max + Math.log(s0) - lnZn));
                 q[storeAll ? i : i - from] = null;
                 suffix.multiplyStates(s.degeneracy(i), ly, cap, 0);
@@ -349,7 +355,7 @@ public final class Canonical implements Tabular {
             extra.add("internal consistency: a prefix x suffix product differed from Z_N by " + worstMismatch
                     + " in ln; occupations may be inaccurate");
         }
-        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, null, extra, null);
+        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, vac, null, extra, null);
     }
 
     private static void flushCheck(Spectrum s, Statistics st, double kT, double muStar, int n, double lnZnScaled,
@@ -443,6 +449,21 @@ public final class Canonical implements Tabular {
     /** Exact mean occupation of every level. */
     public LevelOccupations occupations() {
         return new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), perState);
+    }
+
+    /**
+     * Fermi and Gentile: the mean number of vacancies k - &lt;n_s&gt; in one state of each level, computed
+     * from the probabilities P(n_s = j) directly (sum (k - j) P_j), not as k minus the occupation, so
+     * deep levels keep full relative accuracy in their tiny hole numbers.
+     *
+     * @throws InvalidInputException for Bose and distinguishable particles (no cap)
+     */
+    public LevelOccupations vacancies() {
+        if (vacancies == null) {
+            throw InvalidInputException.of("statistics for vacancies", statistics, "FERMI or maxOccupancy(k)",
+                    "Uncapped statistics have no vacancies.");
+        }
+        return new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), vacancies);
     }
 
     /** Whether {@link #condensate()} is available (bosons). */

@@ -30,7 +30,7 @@ import org.microtally.spectrum.Statistics;
  * outward steps of kT, 4 kT, 16 kT, ... (each sign verified by evaluation, so the narrowed bracket is
  * as valid as the original); for Fermi the Boltzmann factors within 24 kT (plus the window below) of
  * that energy are computed once, so each residual evaluation there costs one exponential in total.
- * Only levels whose contribution can matter are visited (see {@link Solver}).</p>
+ * Only levels whose contribution can matter are visited (see {@link Solver}).
  * Accuracy: the root is located to 1e-15 relative in u (Bose) or about 4 ulp of the bracket end
  * magnitudes in mu (Fermi, Gentile), i.e. &lt;N&gt; is reproduced to about 1e-14 relative.
  */
