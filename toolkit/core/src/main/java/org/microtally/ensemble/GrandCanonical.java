@@ -183,7 +183,7 @@ public final class GrandCanonical implements Tabular {
 
     /** Heat capacity at fixed &lt;N&gt;, C/k = (Var E - Cov(E,N)^2/Var N)/(kT)^2. */
     public double heatCapacity() {
-        double c = (varE - covEN * covEN / varN) / (kT * kT);
+        double c = varN > 0 ? (varE - covEN * covEN / varN) / (kT * kT) : varE / (kT * kT);
         return Math.max(c, 0.0);
     }
 

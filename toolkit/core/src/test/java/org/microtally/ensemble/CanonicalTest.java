@@ -87,7 +87,7 @@ class CanonicalTest {
         Spectrum s = Spectrum.of(new double[] {0, 0.7, 1.9}, new int[] {1, 2, 1});
         double kT = 0.8;
         int n = 4;
-        // Source: independent brute force over all 4^... assignments of labelled particles to states;
+        // Source: independent brute force over all 4^4 assignments of 4 labelled particles to the 4 states;
         // closed form Z_N = Z_1^N for independent labelled particles
         BruteForce ref = new BruteForce(s, Statistics.DISTINGUISHABLE, n, kT);
         double z1 = 1 + 2 * Math.exp(-0.7 / kT) + Math.exp(-1.9 / kT);
