@@ -28,7 +28,7 @@ import org.microtally.spectrum.Statistics;
  * </ul>
  * Speed (Fermi and Gentile): the proven bracket is first narrowed around the T = 0 filling energy by
  * outward steps of kT, 4 kT, 16 kT, ... (each sign verified by evaluation, so the narrowed bracket is
- * as valid as the original); for Fermi the Boltzmann factors within 24 kT (plus the window below) of
+ * as valid as the original); for Fermi the Boltzmann factors within 12 kT (plus the window below) of
  * that energy are computed once, so each residual evaluation there costs one exponential in total.
  * Only levels whose contribution can matter are visited (see {@link Solver}).
  * Accuracy: the root is located to 1e-15 relative in u (Bose) or about 4 ulp of the bracket end
@@ -61,10 +61,10 @@ public final class ChemicalPotential {
 
     /**
      * The chemical potential for one spectrum and statistics at any (kT, &lt;N&gt;). Each evaluation of
-     * N(mu) skips the levels whose total contribution is provably below e^-50 of the target (sorted
-     * energies, binary search for the window |e - mu| &lt;= kT (50 + ln(S / min(1, N)))): the
-     * neglected particles above plus holes below are at most k S e^{-X} for the window half-width X,
-     * far below the double rounding of the sum. Immutable and thread-safe.
+     * N(mu) skips the levels whose total contribution is provably below e^-45 of the target (sorted
+     * energies, binary search for the window |e - mu| &lt;= X kT, X = 45 + ln(k S / N), at least 45):
+     * the neglected particles above plus holes below are at most k S e^{-X} = e^{-45} N, below the
+     * double rounding of the sum (bosons: k = 1 and the bound gains a factor 1/(1 - e^{-X})). Immutable and thread-safe.
      */
     public static final class Solver {
         private final Spectrum spectrum;
@@ -92,7 +92,8 @@ public final class ChemicalPotential {
                         "An empty system has mu = -infinity; give <N> > 0.");
             }
             double beta = 1.0 / kT;
-            double window = 50 + Math.log(spectrum.stateCount() / Math.min(1.0, targetN));
+            double cap = statistics.capped() ? statistics.maxOccupancy() : 1.0;
+            double window = Math.max(45.0, 45.0 + Math.log(cap * spectrum.stateCount() / targetN));
             return switch (statistics.kind()) {
                 case BOSE -> bose(beta, targetN, window);
                 case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, targetN);
@@ -152,9 +153,9 @@ public final class ChemicalPotential {
             double guess = Math.min(hi, Math.max(lo, fillingEnergy(target / k)));
             java.util.function.DoubleUnaryOperator exact = mu -> residual(mu, beta, half, k, target);
             java.util.function.DoubleUnaryOperator f = exact;
-            double reach = 24 / beta;
+            double reach = 12 / beta;
             if (statistics.kind() == Statistics.Kind.FERMI) {
-                // Boltzmann factors about the T = 0 guess, computed once for |mu - guess| <= 24 kT: evaluations there
+                // Boltzmann factors about the T = 0 guess, computed once for |mu - guess| <= 12 kT: evaluations there
                 // are then exp-free (one exp for the fugacity); outside, the direct evaluation is used
                 int from = upper(guess - reach - half);
                 int to = upper(guess + reach + half);
