@@ -546,4 +546,11 @@ public final class Canonical implements Tabular {
         }
         return w[r];
     }
+
+    /** A one-line summary (statistics, N, kT, ln Z, U, number of warnings); does not trigger the C_V pass. */
+    @Override
+    public String toString() {
+        return "Canonical[" + statistics + ", N=" + n + ", kT=" + kT + ", lnZ=" + lnZ + ", U=" + energy
+                + (warnings.isEmpty() ? "" : ", " + warnings.size() + " warning(s)") + "]";
+    }
 }

@@ -231,4 +231,11 @@ public final class GrandCanonical implements Tabular {
         }
         return r;
     }
+
+    /** A one-line summary (statistics, kT, mu, ln Xi, &lt;N&gt;, U, number of warnings). */
+    @Override
+    public String toString() {
+        return "GrandCanonical[" + statistics + ", kT=" + kT + ", mu=" + mu + ", lnXi=" + lnXi + ", <N>=" + meanN
+                + ", U=" + energy + (warnings.isEmpty() ? "" : ", " + warnings.size() + " warning(s)") + "]";
+    }
 }
