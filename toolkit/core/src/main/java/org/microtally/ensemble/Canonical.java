@@ -216,7 +216,26 @@ public final class Canonical implements Tabular {
             occ[i] = n * Math.exp(-beta * (s.energy(i) - e0)) / z1;
         }
         double mu = ChemicalPotential.forMeanNumber(s, Statistics.DISTINGUISHABLE, kT, n);
-        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null, null, List.of(),
+        // each labelled particle is in the lowest level independently with p = g_0 / Z_1: binomial N_0
+        double excited = z1 - s.degeneracy(0);
+        double lnP = Math.log(s.degeneracy(0) / z1);
+        double lnQ = excited > 0 ? Math.log(excited / z1) : Double.NEGATIVE_INFINITY;
+        double[] dist = new double[n + 1];
+        double lnBinom = 0;
+        double total = 0;
+        for (int j = 0; j <= n; j++) {
+            if (j > 0) {
+                lnBinom += Math.log((n - j + 1.0) / j);
+            }
+            double lq = n - j == 0 ? 0.0 : (n - j) * lnQ;
+            dist[j] = lq == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lnBinom + j * lnP + lq);
+            total += dist[j];
+        }
+        for (int j = 0; j <= n; j++) {
+            dist[j] /= total;
+        }
+        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null,
+                new CondensateDistribution(dist), List.of(),
                 new double[] {n * var1});
     }
 
@@ -308,6 +327,7 @@ public final class Canonical implements Tabular {
         double worstMismatch = 0;
         ScaledSeries suffix = new ScaledSeries(n, false);
         double[] lp = new double[cap + 1];
+        double[] groundDistribution = null;
         for (int b = blocks - 1; b >= 0; b--) {
             int from = b * block;
             int to = Math.min(m, from + block);
@@ -342,6 +362,9 @@ public final class Canonical implements Tabular {
                 vac[i] = sv / s0;
                 worstMismatch = Math.max(worstMismatch, Math.abs(max + Math.log(s0) - lnZn));
                 q[storeAll ? i : i - from] = null;
+                if (i == 0) {
+                    groundDistribution = levelDistribution(s.degeneracy(0), ly, cap, n, suffix, lnZn);
+                }
                 suffix.multiplyStates(s.degeneracy(i), ly, cap, 0);
                 long done = m + (m - i);
                 if ((m - i) % every == 0) {
@@ -355,7 +378,29 @@ public final class Canonical implements Tabular {
             extra.add("internal consistency: a prefix x suffix product differed from Z_N by " + worstMismatch
                     + " in ln; occupations may be inaccurate");
         }
-        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, vac, null, extra, null);
+        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, vac,
+                new CondensateDistribution(groundDistribution), extra, null);
+    }
+
+    /**
+     * P(N_0 = j) for the lowest level: (level factor series of its g states)[j] x (series of all other
+     * levels)[N - j] / Z_N, positive terms only; normalised (the raw sum is Z_N / Z_N = 1 to rounding).
+     */
+    private static double[] levelDistribution(int g, double lnY, int cap, int n, ScaledSeries others, double lnZn) {
+        ScaledSeries level = new ScaledSeries(n, false);
+        level.multiplyStates(g, lnY, cap, 0);
+        double[] p = new double[n + 1];
+        double sum = 0;
+        for (int j = 0; j <= n; j++) {
+            double a = level.logCoefficient(j);
+            double b = others.logCoefficient(n - j);
+            p[j] = a == Double.NEGATIVE_INFINITY || b == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(a + b - lnZn);
+            sum += p[j];
+        }
+        for (int j = 0; j <= n; j++) {
+            p[j] /= sum;
+        }
+        return p;
     }
 
     private static void flushCheck(Spectrum s, Statistics st, double kT, double muStar, int n, double lnZnScaled,
@@ -468,19 +513,30 @@ public final class Canonical implements Tabular {
 
     /** Whether {@link #condensate()} is available (bosons). */
     public boolean hasCondensate() {
-        return condensate != null;
+        return statistics.kind() == Statistics.Kind.BOSE;
     }
 
     /**
-     * The exact canonical distribution of the number of particles in the lowest level (bosons).
+     * The exact canonical distribution of the number of particles in the lowest level (bosons: the
+     * condensate number distribution).
      *
-     * @throws InvalidInputException for other statistics
+     * @throws InvalidInputException for other statistics (use {@link #groundLevelDistribution()})
      */
     public CondensateDistribution condensate() {
-        if (condensate == null) {
+        if (!hasCondensate()) {
             throw InvalidInputException.of("statistics for the condensate distribution", statistics, "BOSE",
-                    "Use occupations() for the mean occupation of the lowest level.");
+                    "Use groundLevelDistribution() for the number distribution of the lowest level.");
         }
+        return condensate;
+    }
+
+    /**
+     * The exact canonical distribution P(N_0 = j), j = 0..N, of the number of particles in the lowest
+     * level (all its states together), for every statistics: bosons from the series of the other
+     * levels (see the class notes); Fermi and Gentile as (level factor series)[j] x (suffix series of
+     * the other levels)[N - j] / Z_N; distinguishable particles binomial with p = g_0 e^{-e_0/kT}/Z_1.
+     */
+    public CondensateDistribution groundLevelDistribution() {
         return condensate;
     }
 
@@ -512,10 +568,8 @@ public final class Canonical implements Tabular {
         r.add(List.of("S/k", entropy()));
         r.add(List.of("C/k", heatCapacity()));
         r.add(List.of("Var E", energyVariance()));
-        if (condensate != null) {
-            r.add(List.of("<N_0>", condensate.mean()));
-            r.add(List.of("Var N_0", condensate.variance()));
-        }
+        r.add(List.of("<N_0>", condensate.mean()));
+        r.add(List.of("Var N_0", condensate.variance()));
         for (String w : warnings) {
             r.add(List.of("warning", w));
         }
