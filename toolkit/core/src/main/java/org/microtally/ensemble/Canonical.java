@@ -31,7 +31,7 @@ import org.microtally.spectrum.Statistics;
  * at a time, level by level with degeneracy grouping, truncated at t^N: multiplying by (1 + y t)
  * gives the elementary symmetric polynomials of the Boltzmann factors, by 1/(1 - y t) the complete
  * homogeneous ones (the standard positive recurrences for these functions, e.g. Macdonald,
- * <i>Symmetric Functions and Hall Polynomials</i>, ch. I.2). Every term added is a product of
+ * <i>Symmetric Functions and Hall Polynomials</i>, ch. I.2, cited from memory). Every term added is a product of
  * non-negative numbers. To keep magnitudes representable the Boltzmann factors are fugacity-scaled,
  * y_s = e^{-beta(e_s - mu*)} with mu* the grand canonical chemical potential for mean number N
  * (so the coefficients peak near t^N), and the mantissas share one exponent that is renormalised by
@@ -44,8 +44,10 @@ import org.microtally.spectrum.Statistics;
  * series (all states before s, kept from the forward pass) and a suffix series (all states after,
  * built in a backward pass): again positive terms only, so deep levels keep full relative accuracy
  * in their hole probability P(n_s = 0) and no deflation (division by 1 + y t, which is unstable on
- * one side of mu) is used. The ground-level number distribution of bosons, P(N_0 = j) =
- * C(g_0 + j - 1, j) y_0^j Z^{(-0)}_{N-j} / Z_N, comes from the series of all other levels.
+ * one side of mu) is used. The ground-level number distribution, P(N_0 = j) =
+ * L_0[j] Z^{(-0)}_{N-j} / Z_N with L_0 the series of the lowest level's own g_0 states (bosons:
+ * C(g_0 + j - 1, j) y_0^j), comes from the series of all other levels (bosons: kept before the last
+ * level of the forward pass; Fermi and Gentile: the suffix series at the end of the backward pass).
  * When M levels x (N+1) exceeds 2^23 numbers the prefix series are kept at sqrt(M) checkpoints
  * and recomputed block-wise (one extra forward pass).
  *
@@ -65,8 +67,9 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Cost: forward pass at most S N multiply-adds; each step runs only over the non-zero support of
  * the series (entries that were never reached or were flushed to zero are skipped, which changes no
- * result), so series whose particle-number distribution is narrow cost far less than N per state; Fermi and Gentile occupations add the backward pass (a second S N); Bose occupations
- * add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
+ * result), so series whose particle-number distribution is narrow cost far less than N per state;
+ * Fermi and Gentile occupations add the backward pass (a second pass of the same kind); Bose
+ * occupations add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
  */
 public final class Canonical implements Tabular {
     private static final int MAX_N = 10_000_000;
@@ -139,8 +142,15 @@ public final class Canonical implements Tabular {
                 : Double.POSITIVE_INFINITY;
         double target = Math.min(n, capacity - 0.5);
         double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, target);
-        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress)
+        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress, STORE_ALL_LIMIT)
                 : bose(spectrum, n, kT, muStar, progress);
+    }
+
+    /** Test hook: Fermi/Gentile with a given prefix-memory limit (0 forces the checkpoint path). */
+    static Canonical cappedWithPrefixLimit(Spectrum spectrum, Statistics statistics, int n, double kT, long limit) {
+        double capacity = (double) statistics.maxOccupancy() * spectrum.stateCount();
+        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, Math.min(n, capacity - 0.5));
+        return capped(spectrum, statistics, n, kT, muStar, ProgressListener.NONE, limit);
     }
 
     /**
@@ -295,11 +305,11 @@ public final class Canonical implements Tabular {
     }
 
     private static Canonical capped(Spectrum s, Statistics st, int n, double kT, double muStar,
-                                    ProgressListener progress) {
+                                    ProgressListener progress, long storeAllLimit) {
         double beta = 1.0 / kT;
         int m = s.size();
         int cap = st.maxOccupancy();
-        boolean storeAll = (long) m * (n + 1) <= STORE_ALL_LIMIT;
+        boolean storeAll = (long) m * (n + 1) <= storeAllLimit;
         int block = storeAll ? m : (int) Math.ceil(Math.sqrt(m));
         int blocks = (m + block - 1) / block;
         ScaledSeries[] checkpoints = new ScaledSeries[blocks];

@@ -82,6 +82,26 @@ class CanonicalTest {
     }
 
     @Test
+    void checkpointedPrefixesGiveTheSameOccupations() {
+        Random rnd = new Random(99);
+        Spectrum s = randomSpectrum(rnd, 45, 3);
+        for (Statistics st : List.of(Statistics.FERMI, Statistics.maxOccupancy(2))) {
+            Canonical stored = Canonical.of(s, st, 30, 0.7);
+            Canonical checkpointed = Canonical.cappedWithPrefixLimit(s, st, 30, 0.7, 0);
+            // Source: common practice, no source (the same exact computation with prefixes recomputed block-wise
+            // from sqrt(M) checkpoints must reproduce the stored-prefix result)
+            for (int i = 0; i < s.size(); i++) {
+                assertEquals(stored.occupations().perState(i), checkpointed.occupations().perState(i),
+                        1e-13 * stored.occupations().perState(i) + 1e-300, st + " level " + i);
+                assertEquals(stored.vacancies().perState(i), checkpointed.vacancies().perState(i),
+                        1e-13 * stored.vacancies().perState(i) + 1e-300, st + " level " + i);
+            }
+            assertEquals(stored.groundLevelDistribution().variance(), checkpointed.groundLevelDistribution().variance(),
+                    1e-12 * stored.groundLevelDistribution().variance());
+        }
+    }
+
+    @Test
     void distinguishablePartitionFunctionIsSingleParticleToThePowerN() {
         Spectrum s = Spectrum.of(new double[] {0, 0.7, 1.9}, new int[] {1, 2, 1});
         double kT = 0.8;
