@@ -31,14 +31,23 @@ LAUNCHER = os.path.join(ROOT, "toolkit", "bin", "microtally")
 
 
 def install(prefix):
+    """Installs 'microtally' (with its class data archive) and 'microtally-plain' (the same without)."""
     subprocess.run(["java", "-jar", JAR, "install-kernel", "--prefix", prefix], check=True,
                    stdout=subprocess.DEVNULL)
+    kernels = os.path.join(prefix, "share", "jupyter", "kernels")
+    with open(os.path.join(kernels, "microtally", "kernel.json")) as f:
+        spec = json.load(f)
+    spec["argv"] = [a for a in spec["argv"] if not a.startswith("-XX:SharedArchiveFile=") and a != "-Xlog:cds*=off"]
+    spec["display_name"] += " without class data archive"
+    os.makedirs(os.path.join(kernels, "microtally-plain"))
+    with open(os.path.join(kernels, "microtally-plain", "kernel.json"), "w") as f:
+        json.dump(spec, f)
     os.environ["JUPYTER_PATH"] = os.path.join(prefix, "share", "jupyter")
 
 
-def start_once():
+def start_once(name="microtally"):
     """Seconds from launching the kernel process to receiving its kernel_info_reply."""
-    km = KernelManager(kernel_name="microtally")
+    km = KernelManager(kernel_name=name)
     t0 = time.perf_counter()
     km.start_kernel()  # returns once the process is launched (it picks the ports itself)
     kc = km.client()
@@ -101,7 +110,10 @@ def main():
         sys.exit("missing %s: build it with toolkit/bin/microtally --version" % JAR)
     with tempfile.TemporaryDirectory() as prefix:
         install(prefix)
-        starts = [start_once() for _ in range(args.starts)]
+        starts, plain = [], []
+        for _ in range(args.starts):  # interleaved, so both see the same machine load
+            starts.append(start_once())
+            plain.append(start_once("microtally-plain"))
         rows = round_trips(args.cells)
     rt = [r for r, _ in rows]
     ev = [e for _, e in rows]
@@ -109,6 +121,8 @@ def main():
     overhead = [r - e for r, e in rows]
     print("kernel start -> kernel_info_reply: median %.3f s, max %.3f s over %d starts (target <= 1.5 s)"
           % (statistics.median(starts), max(starts), len(starts)))
+    print("  same without the class data archive: median %.3f s, max %.3f s" % (statistics.median(plain), max(plain)))
+    print("  machine load average (1 min) at the end: %.2f on %d cores" % (os.getloadavg()[0], os.cpu_count()))
     print("trivial cell '1 + 1' over %d cells: round trip median %.2f ms, bare engine eval median %.2f ms,"
           % (len(rows), med_rt * 1e3, med_ev * 1e3))
     print("  kernel+client overhead median %.2f ms; ratio round trip / eval = %.3f (target <= 1.2)"
@@ -121,6 +135,7 @@ def main():
     else:
         print("headless run of %d notebooks (toolkit/bin/microtally run): %.1f s (target <= 30 s)" % (count, seconds))
     print(json.dumps({"start_median_s": statistics.median(starts), "start_max_s": max(starts),
+                      "start_plain_median_s": statistics.median(plain), "load1": os.getloadavg()[0],
                       "roundtrip_median_ms": med_rt * 1e3, "eval_median_ms": med_ev * 1e3,
                       "ratio": med_rt / med_ev, "headless_s": seconds, "notebooks": count}))
 

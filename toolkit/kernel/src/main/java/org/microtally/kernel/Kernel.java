@@ -71,6 +71,7 @@ final class Kernel {
     private final AtomicBoolean running = new AtomicBoolean(true);
     private final CountDownLatch stopped = new CountDownLatch(1);
     private final CountDownLatch firstKernelInfo = new CountDownLatch(1);
+    private volatile long firstKernelInfoAt;
     private final Object iopubLock = new Object();
     private final String kernelSession = java.util.UUID.randomUUID().toString();
     private final List<Thread> threads = new ArrayList<>();
@@ -120,21 +121,25 @@ final class Kernel {
         thread("microtally-shell", () -> serve(shell, "shell"));
         thread("microtally-control", () -> serve(control, "control"));
         thread("microtally-heartbeat", this::echoHeartbeats);
- // The engine opens once the first kernel_info reply is out (clients always ask first), or after
-        // 300 ms: starting JShell at once would compete for the CPU with answering that request.
+        // The engine opens once the first kernel_info reply is out (clients always ask first), or after
+        // 2 s: starting JShell at once would compete for the CPU with answering that request. The
+        // startup log line is written then too, so formatting it is not on the critical path.
+        long listening = System.currentTimeMillis();
         Thread opener = new Thread(() -> {
             try {
-                firstKernelInfo.await(300, java.util.concurrent.TimeUnit.MILLISECONDS);
+                firstKernelInfo.await(2, java.util.concurrent.TimeUnit.SECONDS);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
             }
+            long jvmStart = ManagementFactory.getRuntimeMXBean().getStartTime();
+            KernelLog.LOG.info(() -> "kernel listening on " + props.getTransport() + "://" + props.getIp()
+                    + " shell=" + props.getShellPort() + " control=" + props.getControlPort() + ", "
+                    + (listening - jvmStart) + " ms after JVM start; first kernel_info answered "
+                    + (firstKernelInfoAt > 0 ? (firstKernelInfoAt - jvmStart) + " ms after JVM start" : "not yet"));
             openInto(engine);
         }, "microtally-engine-open");
         opener.setDaemon(true);
         opener.start();
-        KernelLog.LOG.info(() -> "kernel listening on " + props.getTransport() + "://" + props.getIp()
-                + " shell=" + props.getShellPort() + " control=" + props.getControlPort() + ", "
-                + (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()) + " ms after JVM start");
     }
 
     private void openInto(java.util.concurrent.CompletableFuture<CellEngine> f) {
@@ -369,9 +374,8 @@ final class Kernel {
                 case "kernel_info_request" -> {
                     reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo());
                     if (firstKernelInfo.getCount() > 0) {
+                        firstKernelInfoAt = System.currentTimeMillis();
                         firstKernelInfo.countDown();
-                        KernelLog.LOG.info(() -> "first kernel_info answered "
-                                + (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()) + " ms after JVM start");
                     }
                 }
                 case "execute_request" -> execute(socket, m);
