@@ -69,8 +69,12 @@ public final class Spectrum {
         }
         List<Level> sorted = new ArrayList<>(levels);
         for (int i = 0; i < sorted.size(); i++) {
-            if (sorted.get(i) == null) {
+            Level l = sorted.get(i);
+            if (l == null) {
                 throw InvalidInputException.of("level " + i, "null", "a Level", "");
+            }
+            if (!labelled && l.label() != 0) {
+                sorted.set(i, new Level(l.energy(), l.degeneracy(), 0)); // drop labels before merging
             }
         }
         sorted.sort(Comparator.comparingDouble(Level::energy).thenComparingInt(Level::label));
@@ -85,7 +89,7 @@ public final class Spectrum {
                 }
                 merged.set(merged.size() - 1, new Level(l.energy(), (int) g, l.label()));
             } else {
-                merged.add(labelled ? l : new Level(l.energy(), l.degeneracy(), 0));
+                merged.add(l);
             }
         }
         return new Spectrum(Collections.unmodifiableList(merged), scale, labelled, cutoffEnergy,
@@ -116,6 +120,24 @@ public final class Spectrum {
             list.add(new Level(energies[i], degeneracies[i]));
         }
         return of(list);
+    }
+
+    /**
+     * An unlabelled, complete spectrum from columns read as numbers (for example from a table): each
+     * degeneracy must be a whole number &gt;= 1 (2.0 is accepted, 2.5 is refused, naming the level).
+     */
+    public static Spectrum of(double[] energies, double[] degeneracies) {
+        Objects.requireNonNull(degeneracies, "degeneracies");
+        int[] g = new int[degeneracies.length];
+        for (int i = 0; i < g.length; i++) {
+            double d = degeneracies[i];
+            if (!(d >= 1) || d != Math.rint(d) || d > Integer.MAX_VALUE) {
+                throw InvalidInputException.of("degeneracy of level " + i, d, "a whole number >= 1 (at most 2^31 - 1)",
+                        "Degeneracies count states; round or fix the input column.");
+            }
+            g[i] = (int) d;
+        }
+        return of(energies, g);
     }
 
     /** An unlabelled, complete spectrum of non-degenerate levels. */

@@ -229,6 +229,11 @@ class NotebookRunnerTest {
         Path dir = tmp.resolve("w");
         NotebookRunner.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
         assertEquals(List.of("a.html", "a.ipynb"), listing(dir));
+        if (dir.getFileSystem().supportedFileAttributeViews().contains("posix")) {
+            // outputs get the permissions of any new file in that directory (not a temp file's owner-only mode)
+            Path plain = Files.createFile(tmp.resolve("plain.txt"));
+            assertEquals(Files.getPosixFilePermissions(plain), Files.getPosixFilePermissions(dir.resolve("a.ipynb")));
+        }
         // a target that cannot be replaced (a non-empty directory) makes the write fail: nothing else changes
         Files.createDirectories(dir.resolve("b.html").resolve("blocker"));
         List<String> beforeFail = listing(dir);

@@ -213,7 +213,51 @@ class SessionTest {
         stopper.join();
         assertEquals(CellResult.Outcome.INTERRUPTED, r.outcome());
         assertEquals("Interrupted", r.error().orElseThrow().type());
-        assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(10));
+        assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(20), "interrupt took too long");
+    }
+
+    @Test
+    void interruptStopsARenderingThatNeverEnds() throws Exception {
+        // the value's text form is computed on a stoppable thread too
+        assertInterrupted("new Object() { public String toString() { while (true) { } } }");
+        assertEquals(3, run("1 + 2").raw().orElseThrow());
+    }
+
+    @Test
+    void heavyPrintingArrivesWholeInFewChunks() {
+        Collector c = new Collector();
+        CellResult r = session.run("for (int i = 0; i < 100_000; i++) System.out.println(i);", c);
+        assertTrue(r.ok());
+        StringBuilder expected = new StringBuilder();
+        for (int i = 0; i < 100_000; i++) {
+            expected.append(i).append('\n');
+        }
+        assertEquals(expected.toString(), c.text(false));
+        // 589 KB of text: chunks of up to 8 KB or 50 ms, never one event per line
+        assertTrue(c.events.size() < 1_000, "output flooded: " + c.events.size() + " chunks");
+    }
+
+    @Test
+    void outputOfThreadsStartedByTheCellIsCaptured() {
+        Collector c = new Collector();
+        CellResult r = session.run("Thread t = new Thread(() -> System.out.println(\"from a worker\"));\nt.start(); t.join();\n"
+                + "java.util.stream.IntStream.range(0, 4).parallel().forEach(i -> System.out.print(\"\"));\n"
+                + "java.util.concurrent.ForkJoinPool.commonPool().submit(() -> System.out.println(\"from the pool\")).get();", c);
+        assertTrue(r.ok(), () -> r.error().toString());
+        assertEquals("from a worker\nfrom the pool\n", c.text(false));
+    }
+
+    @Test
+    void classesAndRedefinitionsAcrossCells() {
+        assertTrue(run("record Trap(int atoms, double slowHz) { double ratio() { return 4.0; } }").ok());
+        CellResult r = run("new Trap(2000, 24.0).atoms()");
+        assertEquals(2000, r.raw().orElseThrow());
+        assertTrue(run("int atomsNow = 1;").ok());
+        assertTrue(run("String atomsNow = \"redefined\";").ok());
+        assertEquals("redefined", run("atomsNow").raw().orElseThrow());
+        CellResult empty = run("// only a comment\n");
+        assertTrue(empty.ok() && empty.value().isEmpty());
+        assertEquals(12, run("10 + 2 // trailing comment").raw().orElseThrow());
     }
 
     @Test

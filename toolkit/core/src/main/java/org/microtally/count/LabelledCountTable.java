@@ -1,0 +1,255 @@
+package org.microtally.count;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.List;
+import java.util.Objects;
+import org.microtally.InvalidInputException;
+import org.microtally.ProgressListener;
+import org.microtally.Tabular;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * Exact counts resolved by a second conserved quantity: Omega(n, e, L), the number of microstates of
+ * n particles with total energy e and total label L = sum of the occupied states' labels (for
+ * example L = 2M, twice the total angular-momentum projection, with {@link
+ * org.microtally.spectrum.Spectra#spinInField} or a shell of j-orbitals labelled by 2m). Immutable.
+ *
+ * <p>Two modes: {@link #of} constrains the energy to 0..E exactly like {@link CountTable};
+ * {@link #ignoringEnergy} counts by (n, L) alone, every level of the spectrum taking part whatever
+ * its energy (which may then be any real number), as needed to size many-body bases. Labels of an
+ * unlabelled spectrum are all 0.
+ *
+ * <p>Method: the trivariate generating function prod_l F_l(x q^(e_l) z^(m_l)) with the level
+ * factors of {@link CountTable}, each level applied once as a truncated binomial series in exact
+ * BigInteger arithmetic (for distinguishable particles row n = row (n-1) * sum_l g_l q^(e_l) z^(m_l)).
+ * Cost O(N E W sum_l J_l) for a label window of width W = N (max label - min label) + 1. Exact.
+ */
+public final class LabelledCountTable implements Tabular {
+    private final Spectrum spectrum;
+    private final Statistics statistics;
+    private final int maxN;
+    private final int maxE;
+    private final boolean energyIgnored;
+    private final int labelLo;
+    private final int width;
+    private final BigInteger[] counts;
+
+    private LabelledCountTable(Spectrum spectrum, Statistics statistics, int maxN, int maxE, boolean energyIgnored,
+                               int labelLo, int width, BigInteger[] counts) {
+        this.spectrum = spectrum;
+        this.statistics = statistics;
+        this.maxN = maxN;
+        this.maxE = maxE;
+        this.energyIgnored = energyIgnored;
+        this.labelLo = labelLo;
+        this.width = width;
+        this.counts = counts;
+    }
+
+    /** Counts by (n, e, L) for n &lt;= N, e &lt;= E; energies must be integers &gt;= 0 (as for {@link CountTable}). */
+    public static LabelledCountTable of(Spectrum spectrum, Statistics statistics, int maxParticles, int maxEnergy) {
+        return of(spectrum, statistics, maxParticles, maxEnergy, ProgressListener.NONE);
+    }
+
+    /** As {@link #of(Spectrum, Statistics, int, int)}, reporting progress per level. */
+    public static LabelledCountTable of(Spectrum spectrum, Statistics statistics, int maxParticles, int maxEnergy,
+                                        ProgressListener progress) {
+        CountTable.Input in = CountTable.Input.validate(spectrum, statistics, maxParticles, maxEnergy, progress);
+        return build(spectrum, statistics, maxParticles, maxEnergy, in.energy, false, progress);
+    }
+
+    /** Counts by (n, L) alone, for n &lt;= N, every level taking part; energies are not used. */
+    public static LabelledCountTable ignoringEnergy(Spectrum spectrum, Statistics statistics, int maxParticles) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        Objects.requireNonNull(statistics, "statistics");
+        if (maxParticles < 0) {
+            throw InvalidInputException.of("maximum particle number N", maxParticles, "an integer >= 0", "");
+        }
+        return build(spectrum, statistics, maxParticles, 0, new int[spectrum.size()], true, ProgressListener.NONE);
+    }
+
+    private static LabelledCountTable build(Spectrum spectrum, Statistics stats, int maxN, int maxE, int[] energy,
+                                            boolean energyIgnored, ProgressListener progress) {
+        int[] deg = spectrum.degeneracies();
+        int levels = CountEngine.relevantLevels(energy, maxE);
+        long lo = 0;
+        long hi = 0;
+        for (int l = 0; l < levels; l++) {
+            lo = Math.min(lo, spectrum.label(l));
+            hi = Math.max(hi, spectrum.label(l));
+        }
+        long labelLo = lo * maxN;
+        long labelHi = hi * maxN;
+        double cells = (double) (maxN + 1) * (maxE + 1) * (labelHi - labelLo + 1);
+        double limit = Runtime.getRuntime().maxMemory() * 0.5;
+        if (cells * 64 > limit || cells > Integer.MAX_VALUE - 16) {
+            throw InvalidInputException.of("labelled table size (N+1) x (E+1) x (label range)",
+                    String.format("%d x %d x %d = %.3g entries, about %.3g MiB", maxN + 1, maxE + 1,
+                            labelHi - labelLo + 1, cells, cells * 64 / (1 << 20)),
+                    String.format("at most %.3g MiB (half the maximum heap)", limit / (1 << 20)),
+                    "Lower N or E, or count without the label (CountTable).");
+        }
+        int w = (int) (labelHi - labelLo + 1);
+        int we = (maxE + 1) * w;
+        BigInteger[] t = new BigInteger[(maxN + 1) * we];
+        Arrays.fill(t, BigInteger.ZERO);
+        int zero = (int) -labelLo;
+        t[zero] = BigInteger.ONE;
+        Ticker ticker = new Ticker(progress, stats.indistinguishable() ? levels : maxN,
+                stats.indistinguishable() ? "levels" : "particles");
+        if (stats.indistinguishable()) {
+            for (int l = 0; l < levels; l++) {
+                int el = energy[l];
+                int ml = spectrum.label(l);
+                BigInteger[] c = LevelSeries.coefficients(stats, deg[l], CountEngine.maxJ(el, maxN, maxE));
+                for (int n = maxN; n >= 1; n--) {
+                    int jTop = Math.min(n, c.length - 1);
+                    for (int j = 1; j <= jTop; j++) {
+                        int off = j * el;
+                        if (off > maxE) {
+                            break;
+                        }
+                        addShifted(t, n * we, (n - j) * we, c[j], off, j * ml, maxE, w);
+                    }
+                }
+                ticker.step();
+            }
+        } else {
+            for (int n = 1; n <= maxN; n++) {
+                for (int l = 0; l < levels; l++) {
+                    addShifted(t, n * we, (n - 1) * we, BigInteger.valueOf(deg[l]), energy[l], spectrum.label(l),
+                            maxE, w);
+                }
+                ticker.step();
+            }
+        }
+        return new LabelledCountTable(spectrum, stats, maxN, maxE, energyIgnored, (int) labelLo, w, t);
+    }
+
+    /** t[dst][e][L] += c * t[src][e - de][L - dl] over every valid (e, L). */
+    private static void addShifted(BigInteger[] t, int dst, int src, BigInteger c, int de, int dl, int maxE, int w) {
+        int lFrom = Math.max(0, dl);
+        int lTo = Math.min(w - 1, w - 1 + dl);
+        for (int e = de; e <= maxE; e++) {
+            int d = dst + e * w;
+            int s = src + (e - de) * w - dl;
+            for (int li = lFrom; li <= lTo; li++) {
+                BigInteger v = t[s + li];
+                if (v.signum() != 0) {
+                    t[d + li] = t[d + li].add(c.multiply(v));
+                }
+            }
+        }
+    }
+
+    /** Omega(n, e, L) (0 for a label total outside the table's window). */
+    public BigInteger count(int n, int e, int labelTotal) {
+        checkN(n);
+        if (e < 0 || e > maxE) {
+            throw InvalidInputException.of("total energy e", e, "in [0, " + maxE + "]",
+                    energyIgnored ? "This table ignores energy: use countAtLabel(n, L)." : "Build a larger table.");
+        }
+        long li = (long) labelTotal - labelLo;
+        if (li < 0 || li >= width) {
+            return BigInteger.ZERO;
+        }
+        return counts[(n * (maxE + 1) + e) * width + (int) li];
+    }
+
+    /** sum over e &lt;= E of Omega(n, e, L); for a table that ignores energy, the count by (n, L). */
+    public BigInteger countAtLabel(int n, int labelTotal) {
+        BigInteger s = BigInteger.ZERO;
+        for (int e = 0; e <= maxE; e++) {
+            s = s.add(count(n, e, labelTotal));
+        }
+        return s;
+    }
+
+    /** sum over L of Omega(n, e, L): the unlabelled count. */
+    public BigInteger countAllLabels(int n, int e) {
+        BigInteger s = BigInteger.ZERO;
+        for (int li = 0; li < width; li++) {
+            s = s.add(count(n, e, labelLo + li));
+        }
+        return s;
+    }
+
+    /** Smallest label total in the table's window (N times the smallest label, or 0). */
+    public int minLabelTotal() {
+        return labelLo;
+    }
+
+    /** Largest label total in the table's window. */
+    public int maxLabelTotal() {
+        return labelLo + width - 1;
+    }
+
+    /** N. */
+    public int maxParticles() {
+        return maxN;
+    }
+
+    /** E (0 for a table that ignores energy). */
+    public int maxEnergy() {
+        return maxE;
+    }
+
+    /** Whether energies were ignored ({@link #ignoringEnergy}). */
+    public boolean energyIgnored() {
+        return energyIgnored;
+    }
+
+    /** The statistics counted. */
+    public Statistics statistics() {
+        return statistics;
+    }
+
+    /** The spectrum counted. */
+    public Spectrum spectrum() {
+        return spectrum;
+    }
+
+    /** The slice at n particles as [e][L - minLabelTotal] (copies). */
+    BigInteger[][] slice(int n) {
+        checkN(n);
+        BigInteger[][] out = new BigInteger[maxE + 1][];
+        for (int e = 0; e <= maxE; e++) {
+            int from = (n * (maxE + 1) + e) * width;
+            out[e] = Arrays.copyOfRange(counts, from, from + width);
+        }
+        return out;
+    }
+
+    private void checkN(int n) {
+        if (n < 0 || n > maxN) {
+            throw InvalidInputException.of("particle number n", n, "in [0, " + maxN + "]", "Build a larger table.");
+        }
+    }
+
+    /** Columns n, E, label total, Omega (E omitted when energy is ignored). */
+    @Override
+    public List<String> columnNames() {
+        return energyIgnored ? List.of("n", "label total", "Omega") : List.of("n", "E", "label total", "Omega");
+    }
+
+    /** One row per non-zero entry. */
+    @Override
+    public List<List<Object>> rows() {
+        List<List<Object>> out = new ArrayList<>();
+        for (int n = 0; n <= maxN; n++) {
+            for (int e = 0; e <= maxE; e++) {
+                for (int li = 0; li < width; li++) {
+                    BigInteger v = counts[(n * (maxE + 1) + e) * width + li];
+                    if (v.signum() != 0) {
+                        out.add(energyIgnored ? List.of(n, labelLo + li, v) : List.of(n, e, labelLo + li, v));
+                    }
+                }
+            }
+        }
+        return Collections.unmodifiableList(out);
+    }
+}

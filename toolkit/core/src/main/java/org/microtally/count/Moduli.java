@@ -1,0 +1,152 @@
+package org.microtally.count;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Word-size modular arithmetic for the multi-modular counting path.
+ *
+ * <p>Moduli are the largest primes below 2^62 (all &gt; 2^61), proven prime by deterministic
+ * Miller-Rabin with the first twelve prime bases, which is exact for every n &lt; 3.18e23
+ * (J. Sorenson, J. Webster, "Strong pseudoprimes to twelve prime bases", Math. Comp. 86 (2017) 985-1003). Products by a fixed multiplier use
+ * V. Shoup's precomputed-quotient method (as described in D. Harvey, "Faster arithmetic for
+ * number-theoretic transforms", J. Symb. Comp. 60 (2014), Sec. 2): with w' = floor(w 2^63 / p) and
+ * x &lt; p &lt; 2^62, q = floor(w' x / 2^63) is the true quotient or one less, so w x - q p lies in
+ * [0, 2p) and one conditional subtraction finishes. Chinese remaindering uses Garner's mixed-radix
+ * algorithm (Knuth, TAOCP Vol. 2, Sec. 4.3.2).
+ */
+final class Moduli {
+    private Moduli() { }
+
+    private static final List<Long> PRIMES = new ArrayList<>();
+    private static final long[] MR_BASES = {2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37};
+
+    /** Every modulus exceeds 2^61, so k of them cover any value below 2^(61 k). */
+    static final int BITS_PER_PRIME = 61;
+
+    /** The first {@code k} primes below 2^62, descending. */
+    static synchronized long[] primes(int k) {
+        long candidate = PRIMES.isEmpty() ? (1L << 62) - 1 : PRIMES.get(PRIMES.size() - 1) - 2;
+        while (PRIMES.size() < k) {
+            if (isPrime(candidate)) {
+                PRIMES.add(candidate);
+            }
+            candidate -= 2;
+        }
+        long[] out = new long[k];
+        for (int i = 0; i < k; i++) {
+            out[i] = PRIMES.get(i);
+        }
+        return out;
+    }
+
+    static boolean isPrime(long n) {
+        if (n < 2) {
+            return false;
+        }
+        for (long b : MR_BASES) {
+            if (n % b == 0) {
+                return n == b;
+            }
+        }
+        BigInteger bn = BigInteger.valueOf(n);
+        BigInteger nm1 = bn.subtract(BigInteger.ONE);
+        int s = nm1.getLowestSetBit();
+        BigInteger d = nm1.shiftRight(s);
+        outer:
+        for (long b : MR_BASES) {
+            BigInteger x = BigInteger.valueOf(b).modPow(d, bn);
+            if (x.equals(BigInteger.ONE) || x.equals(nm1)) {
+                continue;
+            }
+            for (int r = 1; r < s; r++) {
+                x = x.multiply(x).mod(bn);
+                if (x.equals(nm1)) {
+                    continue outer;
+                }
+            }
+            return false;
+        }
+        return true;
+    }
+
+    /** Shoup's precomputed quotient floor(w 2^63 / p) for a multiplier 0 &lt;= w &lt; p. */
+    static long shoup(long w, long p) {
+        return BigInteger.valueOf(w).shiftLeft(63).divide(BigInteger.valueOf(p)).longValueExact();
+    }
+
+    /** w x mod p for x, w in [0, p), given ws = shoup(w, p). */
+    static long mulShoup(long w, long ws, long x, long p) {
+        long q = (Math.multiplyHigh(ws, x) << 1) | ((ws * x) >>> 63);
+        long r = w * x - q * p;
+        return r >= p ? r - p : r;
+    }
+
+    /** (a + b) mod p for a, b in [0, p). */
+    static long add(long a, long b, long p) {
+        long s = a + b;
+        return s >= p ? s - p : s;
+    }
+
+    /**
+     * Garner reconstruction: the unique v in [0, p_0 ... p_{k-1}) with v = r_i mod p_i, from residues
+     * laid out as {@code residues[i][index]}.
+     */
+    static final class Crt {
+        private final long[] p;
+        private final long[][] inv;       // inv[i][j] = p_j^-1 mod p_i, j < i
+        private final long[][] invShoup;
+        private final BigInteger[] bigP;
+
+        Crt(long[] primes) {
+            this.p = primes.clone();
+            int k = p.length;
+            inv = new long[k][];
+            invShoup = new long[k][];
+            bigP = new BigInteger[k];
+            for (int i = 0; i < k; i++) {
+                bigP[i] = BigInteger.valueOf(p[i]);
+                inv[i] = new long[i];
+                invShoup[i] = new long[i];
+                for (int j = 0; j < i; j++) {
+                    inv[i][j] = BigInteger.valueOf(p[j]).modInverse(bigP[i]).longValueExact();
+                    invShoup[i][j] = shoup(inv[i][j], p[i]);
+                }
+            }
+        }
+
+        BigInteger reconstruct(long[][] residues, int index, long[] scratch) {
+            int k = p.length;
+            if (k == 1) {
+                return BigInteger.valueOf(residues[0][index]);
+            }
+            boolean allZero = true;
+            for (int i = 0; i < k; i++) {
+                long t = residues[i][index];
+                for (int j = 0; j < i; j++) {
+                    long aj = scratch[j] >= p[i] ? scratch[j] - p[i] : scratch[j];
+                    long diff = t - aj;
+                    if (diff < 0) {
+                        diff += p[i];
+                    }
+                    t = mulShoup(inv[i][j], invShoup[i][j], diff, p[i]);
+                }
+                scratch[i] = t;
+                allZero &= t == 0;
+            }
+            if (allZero) {
+                return BigInteger.ZERO;
+            }
+            int top = k - 1;
+            while (top > 0 && scratch[top] == 0) {
+                top--;
+            }
+            BigInteger v = BigInteger.valueOf(scratch[top]);
+            for (int i = top - 1; i >= 0; i--) {
+                v = v.multiply(bigP[i]).add(BigInteger.valueOf(scratch[i]));
+            }
+            return v;
+        }
+    }
+}

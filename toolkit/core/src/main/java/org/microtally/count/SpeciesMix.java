@@ -1,0 +1,169 @@
+package org.microtally.count;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Objects;
+import org.microtally.InvalidInputException;
+import org.microtally.Tabular;
+
+/**
+ * Several species of particles, each with its own spectrum, statistics and fixed particle number,
+ * counted together: Omega(e, L), the number of microstates of the whole system with total energy e
+ * and total label L (for example L = 2M for spin-up and spin-down electrons, or protons and neutrons
+ * in a shell). Immutable.
+ *
+ * <p>Method: a {@link LabelledCountTable} per species, sliced at its particle number, then exact 2-D
+ * convolution over (e, L), truncated at e &lt;= E. Particles of different species are distinguishable
+ * from each other, so the joint count is the product summed over the ways to share e and L. Exact.
+ */
+public final class SpeciesMix implements Tabular {
+    private final List<Species> species;
+    private final int maxE;
+    private final boolean energyIgnored;
+    private final int labelLo;
+    private final BigInteger[][] counts; // [e][L - labelLo]
+
+    private SpeciesMix(List<Species> species, int maxE, boolean energyIgnored, int labelLo, BigInteger[][] counts) {
+        this.species = species;
+        this.maxE = maxE;
+        this.energyIgnored = energyIgnored;
+        this.labelLo = labelLo;
+        this.counts = counts;
+    }
+
+    /** Counts by (e, L) for total energies e = 0..E (integer energies &gt;= 0 in every spectrum). */
+    public static SpeciesMix of(List<Species> species, int maxEnergy) {
+        if (maxEnergy < 0) {
+            throw InvalidInputException.of("maximum total energy E", maxEnergy, "an integer >= 0", "");
+        }
+        return combine(species, maxEnergy, false);
+    }
+
+    /** Counts by L alone, every level of every species taking part (energies are not used). */
+    public static SpeciesMix ignoringEnergy(List<Species> species) {
+        return combine(species, 0, true);
+    }
+
+    private static SpeciesMix combine(List<Species> species, int maxE, boolean ignore) {
+        Objects.requireNonNull(species, "species");
+        if (species.isEmpty()) {
+            throw InvalidInputException.of("number of species", 0, ">= 1", "");
+        }
+        List<Species> copy = List.copyOf(species);
+        BigInteger[][] cur = {{BigInteger.ONE}};
+        int curLo = 0;
+        cur = extend(cur, maxE);
+        for (Species s : copy) {
+            LabelledCountTable t = ignore
+                    ? LabelledCountTable.ignoringEnergy(s.spectrum(), s.statistics(), s.particles())
+                    : LabelledCountTable.of(s.spectrum(), s.statistics(), s.particles(), maxE);
+            BigInteger[][] sl = t.slice(s.particles());
+            int w1 = cur[0].length;
+            int w2 = sl[0].length;
+            BigInteger[][] next = new BigInteger[maxE + 1][w1 + w2 - 1];
+            for (BigInteger[] row : next) {
+                java.util.Arrays.fill(row, BigInteger.ZERO);
+            }
+            for (int e1 = 0; e1 <= maxE; e1++) {
+                for (int l1 = 0; l1 < w1; l1++) {
+                    BigInteger a = cur[e1][l1];
+                    if (a.signum() == 0) {
+                        continue;
+                    }
+                    for (int e2 = 0; e1 + e2 <= maxE; e2++) {
+                        for (int l2 = 0; l2 < w2; l2++) {
+                            BigInteger b = sl[e2][l2];
+                            if (b.signum() != 0) {
+                                next[e1 + e2][l1 + l2] = next[e1 + e2][l1 + l2].add(a.multiply(b));
+                            }
+                        }
+                    }
+                }
+            }
+            cur = next;
+            curLo += t.minLabelTotal();
+        }
+        return new SpeciesMix(copy, maxE, ignore, curLo, cur);
+    }
+
+    private static BigInteger[][] extend(BigInteger[][] cur, int maxE) {
+        BigInteger[][] out = new BigInteger[maxE + 1][];
+        for (int e = 0; e <= maxE; e++) {
+            out[e] = e < cur.length ? cur[e] : new BigInteger[] {BigInteger.ZERO};
+        }
+        return out;
+    }
+
+    /** Omega(e, L): microstates of the whole system with energy e and label total L. */
+    public BigInteger count(int e, int labelTotal) {
+        if (e < 0 || e > maxE) {
+            throw InvalidInputException.of("total energy e", e, "in [0, " + maxE + "]",
+                    energyIgnored ? "This mix ignores energy: use countAtLabel(L)." : "Build with a larger E.");
+        }
+        long li = (long) labelTotal - labelLo;
+        return li < 0 || li >= counts[e].length ? BigInteger.ZERO : counts[e][(int) li];
+    }
+
+    /** sum over e &lt;= E of Omega(e, L); for a mix that ignores energy, the number of states with label total L. */
+    public BigInteger countAtLabel(int labelTotal) {
+        BigInteger s = BigInteger.ZERO;
+        for (int e = 0; e <= maxE; e++) {
+            s = s.add(count(e, labelTotal));
+        }
+        return s;
+    }
+
+    /** Every microstate counted (all e &lt;= E, all labels). */
+    public BigInteger total() {
+        BigInteger s = BigInteger.ZERO;
+        for (BigInteger[] row : counts) {
+            for (BigInteger v : row) {
+                s = s.add(v);
+            }
+        }
+        return s;
+    }
+
+    /** Smallest label total in the window. */
+    public int minLabelTotal() {
+        return labelLo;
+    }
+
+    /** Largest label total in the window. */
+    public int maxLabelTotal() {
+        return labelLo + counts[0].length - 1;
+    }
+
+    /** E (0 when energy is ignored). */
+    public int maxEnergy() {
+        return maxE;
+    }
+
+    /** The species, in the order given. */
+    public List<Species> species() {
+        return species;
+    }
+
+    /** Columns E, label total, Omega (E omitted when energy is ignored). */
+    @Override
+    public List<String> columnNames() {
+        return energyIgnored ? List.of("label total", "Omega") : List.of("E", "label total", "Omega");
+    }
+
+    /** One row per non-zero entry. */
+    @Override
+    public List<List<Object>> rows() {
+        List<List<Object>> out = new ArrayList<>();
+        for (int e = 0; e <= maxE; e++) {
+            for (int li = 0; li < counts[e].length; li++) {
+                BigInteger v = counts[e][li];
+                if (v.signum() != 0) {
+                    out.add(energyIgnored ? List.of(labelLo + li, v) : List.of(e, labelLo + li, v));
+                }
+            }
+        }
+        return Collections.unmodifiableList(out);
+    }
+}

@@ -1,0 +1,146 @@
+package org.microtally.special;
+
+import java.math.BigDecimal;
+import java.math.BigInteger;
+import java.math.MathContext;
+import org.microtally.InvalidInputException;
+
+/**
+ * The Riemann zeta function zeta(s) = sum_{k>=1} k^-s for real s &gt; 1 (DLMF 25.2.1).
+ *
+ * <p><b>Method.</b> zeta(s) = eta(s) / (1 - 2^(1-s)), with the Dirichlet eta function
+ * eta(s) = sum_{k>=1} (-1)^(k-1) k^-s summed by P. Borwein's Chebyshev-weighted acceleration
+ * ("An efficient algorithm for the Riemann zeta function", Constructive, Experimental and Nonlinear
+ * Analysis, CMS Conf. Proc. 27 (2000) 29-34, Algorithm 2) with n = {@value #TERMS} terms, whose
+ * truncation error is below 3 / (3 + sqrt 8)^n &lt; 1e-24 for real s &gt;= 1/2. The weights
+ * (d_n - d_k)/d_n are computed once in 50-digit decimal arithmetic. The factor 1 - 2^(1-s) is
+ * evaluated as -expm1((1-s) ln 2), so the pole at s = 1 costs no relative accuracy.
+ *
+ * <p><b>Accuracy.</b> About 1e-15 relative for all s &gt; 1 (tested to 1e-13 against a 30-digit
+ * mpmath table, {@code special/reference-mpmath.csv} in the test resources).
+ *
+ * <p>Inside this package the same code gives zeta on the whole real line (Riemann's functional
+ * equation, DLMF 25.4.1, for s &lt; 1/2) and eta everywhere; the public entry point only accepts
+ * s &gt; 1, where the defining series converges.
+ */
+public final class Zeta {
+    private Zeta() { }
+
+    /** Number of terms n of Borwein's algorithm. */
+    static final int TERMS = 32;
+
+    /** Borwein weights w_k = (d_n - d_k) / d_n, k = 0 .. n-1. */
+    private static final double[] WEIGHTS = borweinWeights(TERMS);
+
+    private static final double LN2 = Math.log(2.0);
+
+    /** From this argument on, zeta is summed directly (16 terms bound the tail by 17^-16 &lt; 1e-19). */
+    private static final double DIRECT_FROM = 16.0;
+
+    /**
+     * The Riemann zeta function for real s &gt; 1.
+     *
+     * @param s real argument, finite and &gt; 1
+     * @return zeta(s), about 1e-15 relative accuracy (see the class documentation)
+     * @throws InvalidInputException for s &lt;= 1 (s = 1 is the pole), NaN or infinite s
+     */
+    public static double zeta(double s) {
+        if (Double.isNaN(s) || Double.isInfinite(s)) {
+            throw InvalidInputException.of("zeta argument s", s, "a finite real number > 1", "");
+        }
+        if (s == 1.0) {
+            throw InvalidInputException.of("zeta argument s", s, "a real number > 1",
+                    "s = 1 is the pole of zeta (zeta(s) ~ 1/(s-1)); there is no finite value there.");
+        }
+        if (s < 1.0) {
+            throw InvalidInputException.of("zeta argument s", s, "a real number > 1",
+                    "For s < 1 the series sum k^-s diverges; this routine does not offer the analytic continuation.");
+        }
+        return zetaAnyReal(s);
+    }
+
+    /** zeta(x) for every real x != 1 (package-private: analytic continuation used by Polylog). */
+    static double zetaAnyReal(double x) {
+        if (x >= DIRECT_FROM) {
+            // direct sum: n^-x < 1e-17 for n > 10^(17/x) <= 12; the tail is below 1e-17 relative
+            double sum = 1.0;
+            for (int n = 2; n <= 16; n++) {
+                double term = Math.pow(n, -x);
+                sum += term;
+                if (term < 1e-18) {
+                    break;
+                }
+            }
+            return sum;
+        }
+        if (x >= 0.5) {
+            // 1 - 2^(1-x) = -expm1((1-x) ln 2), accurate near the pole x = 1.
+            return eta(x) / -Math.expm1((1.0 - x) * LN2);
+        }
+        if (x == 0.0) {
+            return -0.5; // DLMF 25.6.1
+        }
+        // Functional equation, DLMF 25.4.1: zeta(x) = 2^x pi^(x-1) sin(pi x / 2) Gamma(1-x) zeta(1-x).
+        double sin = SpecialMath.sinPi(0.5 * x);
+        if (sin == 0.0) {
+            return 0.0; // trivial zeros at the negative even integers
+        }
+        double oneMinusX = 1.0 - x;
+        double zetaReflected = zetaAnyReal(oneMinusX);
+        if (oneMinusX <= 170.0) {
+            return Math.pow(2.0, x) * Math.pow(Math.PI, x - 1.0) * sin * SpecialMath.gamma(oneMinusX) * zetaReflected;
+        }
+        double logMagnitude = x * LN2 + (x - 1.0) * Math.log(Math.PI) + SpecialMath.logGamma(oneMinusX);
+        return Math.signum(sin) * Math.exp(logMagnitude) * zetaReflected;
+    }
+
+    /**
+     * Dirichlet eta(x) = (1 - 2^(1-x)) zeta(x) for every real x (an entire function; eta(1) = ln 2).
+     * Borwein's algorithm for x &gt;= 1/2, the functional equation of zeta below.
+     */
+    static double eta(double x) {
+        if (x >= DIRECT_FROM) {
+            return -Math.expm1((1.0 - x) * LN2) * zetaAnyReal(x);
+        }
+        if (x >= 0.5) {
+            double sum = 0.0;
+            // Sum from the smallest terms up, alternating signs.
+            for (int k = TERMS - 1; k >= 0; k--) {
+                double term = WEIGHTS[k] * Math.pow(k + 1.0, -x);
+                sum += (k % 2 == 0) ? term : -term;
+            }
+            return sum;
+        }
+        return -Math.expm1((1.0 - x) * LN2) * zetaAnyReal(x);
+    }
+
+    /** w_k = (d_n - d_k)/d_n with d_k = n sum_{i=0}^{k} (n+i-1)! 4^i / ((n-i)! (2i)!) (Borwein 2000). */
+    private static double[] borweinWeights(int n) {
+        MathContext mc = new MathContext(50);
+        BigDecimal[] t = new BigDecimal[n + 1];
+        for (int i = 0; i <= n; i++) {
+            BigInteger num = BigInteger.valueOf(n).multiply(factorial(n + i - 1)).multiply(BigInteger.valueOf(4).pow(i));
+            BigInteger den = factorial(n - i).multiply(factorial(2 * i));
+            t[i] = new BigDecimal(num).divide(new BigDecimal(den), mc);
+        }
+        BigDecimal dn = BigDecimal.ZERO;
+        for (BigDecimal ti : t) {
+            dn = dn.add(ti, mc);
+        }
+        double[] w = new double[n];
+        BigDecimal tail = BigDecimal.ZERO; // d_n - d_k = sum_{i>k} t_i
+        for (int k = n - 1; k >= 0; k--) {
+            tail = tail.add(t[k + 1], mc);
+            w[k] = tail.divide(dn, mc).doubleValue();
+        }
+        return w;
+    }
+
+    private static BigInteger factorial(int m) {
+        BigInteger f = BigInteger.ONE;
+        for (int i = 2; i <= m; i++) {
+            f = f.multiply(BigInteger.valueOf(i));
+        }
+        return f;
+    }
+}

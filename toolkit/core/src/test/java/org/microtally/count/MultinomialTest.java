@@ -1,0 +1,127 @@
+package org.microtally.count;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.math.BigInteger;
+import java.util.Random;
+import org.apache.commons.math3.fraction.BigFraction;
+import org.junit.jupiter.api.Test;
+import org.microtally.InvalidInputException;
+
+class MultinomialTest {
+
+    @Test
+    void smallCountsAndProbabilities() {
+        // Source: closed form 4! / (2! 1! 1!) = 12 (common practice, no source)
+        assertEquals(BigInteger.valueOf(12), Multinomial.count(2, 1, 1));
+        // Source: 12 of the 3^4 = 81 assignments
+        assertEquals(new BigFraction(12, 81), Multinomial.probability(2, 1, 1));
+        // Source: central binomial coefficient C(10, 5) = 252 (OEIS A000984)
+        assertEquals(BigInteger.valueOf(252), Multinomial.count(5, 5));
+    }
+
+    @Test
+    void multinomialIdentities() {
+        // Source: multinomial theorem, sum over occupancies of N!/prod n_i! = M^N (DLMF Sec. 26.4); and the
+        // Pascal-type recurrence C(n_1..n_M) = sum_i C(.., n_i - 1, ..) (common practice, no source)
+        int m = 3;
+        int n = 9;
+        BigInteger sum = BigInteger.ZERO;
+        for (int a = 0; a <= n; a++) {
+            for (int b = 0; a + b <= n; b++) {
+                int c = n - a - b;
+                BigInteger v = Multinomial.count(a, b, c);
+                sum = sum.add(v);
+                BigInteger rec = BigInteger.ZERO;
+                if (a > 0) {
+                    rec = rec.add(Multinomial.count(a - 1, b, c));
+                }
+                if (b > 0) {
+                    rec = rec.add(Multinomial.count(a, b - 1, c));
+                }
+                if (c > 0) {
+                    rec = rec.add(Multinomial.count(a, b, c - 1));
+                }
+                assertEquals(v, rec);
+            }
+        }
+        assertEquals(BigInteger.valueOf(m).pow(n), sum);
+    }
+
+    @Test
+    void mostProbableOccupancyIsAsEvenAsPossibleAndIsMaximal() {
+        assertArrayEquals(new int[] {3, 3, 2, 2}, Multinomial.mostProbableOccupancy(4, 10));
+        // Source: independent brute force over all occupancies of 4 boxes by 10 objects
+        BigInteger best = BigInteger.ZERO;
+        for (int a = 0; a <= 10; a++) {
+            for (int b = 0; a + b <= 10; b++) {
+                for (int c = 0; a + b + c <= 10; c++) {
+                    best = best.max(Multinomial.count(a, b, c, 10 - a - b - c));
+                }
+            }
+        }
+        assertEquals(best, Multinomial.count(Multinomial.mostProbableOccupancy(4, 10)));
+    }
+
+    @Test
+    void logarithmsMatchExactValuesToTwelveDigits() {
+        Random rnd = new Random(31L);
+        for (int trial = 0; trial < 200; trial++) {
+            int m = 1 + rnd.nextInt(6);
+            int[] occ = new int[m];
+            double[] d = new double[m];
+            int n = 0;
+            for (int i = 0; i < m; i++) {
+                occ[i] = rnd.nextInt(trial < 100 ? 25 : 800);
+                d[i] = occ[i];
+                n += occ[i];
+            }
+            BigInteger c = Multinomial.count(occ);
+            // Source: exact BigInteger multinomial coefficient, logarithm from the exact integer
+            double exactLnC = ExactLog.ln(c);
+            assertEquals(exactLnC, Multinomial.lnCount(d), 1e-12 * Math.max(1, Math.abs(exactLnC)));
+            // ln P = ln(C 2^k / M^N) - k ln 2 with the ratio formed exactly, k making it ~100 bits
+            BigInteger den = BigInteger.valueOf(m).pow(n);
+            int k = Math.max(0, den.bitLength() - c.bitLength() + 100);
+            double exactLnP = ExactLog.ln(c.shiftLeft(k).divide(den)) - k * Math.log(2);
+            assertEquals(exactLnP, Multinomial.lnProbability(d), 1e-12 * Math.max(1, Math.abs(exactLnP)),
+                    java.util.Arrays.toString(occ));
+            if (n < 2000) {
+                // Source: Commons Math Gamma.logGamma (Lanczos approximation), fine at moderate N
+                assertEquals(Multinomial.lnCountByLogGamma(d), Multinomial.lnCount(d), 1e-9 * Math.max(1, exactLnC));
+            }
+        }
+    }
+
+    @Test
+    void hugeNMatchesCentralBinomialAsymptotics() {
+        double n = Math.scalb(1.0, 90); // about 1.24e27
+        double d = Math.scalb(1.0, 43);
+        // Source: de Moivre-Laplace / Stirling (DLMF 5.11.1): ln[C(N, N/2 + d) / 2^N] = 0.5 ln(2/(pi N)) - 2 d^2/N
+        // with corrections of order d^4/N^3 and 1/N, here below 1e-26
+        double expected = 0.5 * Math.log(2 / (Math.PI * n)) - 2 * d * d / n;
+        double got = Multinomial.lnProbability(n / 2 + d, n / 2 - d);
+        assertEquals(expected, got, 1e-12 * Math.abs(expected));
+        double even = 0.5 * Math.log(2 / (Math.PI * n));
+        assertEquals(even, Multinomial.lnProbability(n / 2, n / 2), 1e-12 * Math.abs(even));
+        // Source: Stirling closed form for M = 3 equal boxes: ln P = ln(3 sqrt 3 / (2 pi N)) (leading terms, DLMF 5.11.1)
+        double n3 = 3e27;
+        double expected3 = Math.log(3 * Math.sqrt(3) / (2 * Math.PI * n3));
+        assertEquals(expected3, Multinomial.lnProbability(1e27, 1e27, 1e27), 1e-12 * Math.abs(expected3));
+        // ln C ~ N ln 2 - 0.5 ln(pi N / 2): relative accuracy on a number ~8.6e26
+        double lnC = Multinomial.lnCount(n / 2, n / 2);
+        assertEquals(n * Math.log(2) + 0.5 * Math.log(2 / (Math.PI * n)), lnC, 1e-12 * lnC);
+    }
+
+    @Test
+    void badOccupanciesAreRefused() {
+        assertTrue(assertThrows(InvalidInputException.class, () -> Multinomial.count(2, -1)).getMessage().contains("-1"));
+        assertTrue(assertThrows(InvalidInputException.class, () -> Multinomial.lnCount(2.5, 1))
+                .getMessage().contains("2.5"));
+        assertThrows(InvalidInputException.class, () -> Multinomial.lnProbability(Double.NaN));
+        assertThrows(InvalidInputException.class, () -> Multinomial.mostProbableOccupancy(0, 3));
+    }
+}
