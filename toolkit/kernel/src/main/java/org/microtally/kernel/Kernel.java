@@ -85,7 +85,7 @@ final class Kernel {
     private volatile java.util.concurrent.CompletableFuture<CellEngine> engine;
     private volatile boolean executing;
     private volatile Message<?> runningCell;
-    private volatile int droppedBadSignature;
+    private final java.util.concurrent.atomic.AtomicInteger droppedBadSignature = new java.util.concurrent.atomic.AtomicInteger();
     private int executionCount;
     private ZMQ.Socket shell;
     private ZMQ.Socket control;
@@ -227,7 +227,7 @@ final class Kernel {
 
     /** Messages dropped so far because their signature was wrong. */
     int droppedBadSignature() {
-        return droppedBadSignature;
+        return droppedBadSignature.get();
     }
 
     private ZMQ.Socket bind(SocketType type, int port) {
@@ -309,7 +309,7 @@ final class Kernel {
         try {
             return Optional.of(codec.decode(frames));
         } catch (WireCodec.BadSignatureException e) {
-            droppedBadSignature++;
+            droppedBadSignature.incrementAndGet();
             KernelLog.LOG.warning(() -> "dropped a message on " + channel + " with a bad signature ("
                     + frames.size() + " frames): not handled");
         } catch (WireCodec.MalformedMessageException e) {
@@ -356,10 +356,7 @@ final class Kernel {
         String type = WireCodec.typeName(m);
         if (type.equals(MessageType.INTERRUPT_REQUEST.getName())) {
             status(m, PublishStatus.State.BUSY);
-            CellEngine e = engineIfOpen();
-            if (executing && e != null) {
-                e.interrupt();
-            }
+            interruptRunningCell();
             reply(socket, m, MessageType.INTERRUPT_REPLY, new InterruptReply());
             status(m, PublishStatus.State.IDLE);
             return;
@@ -388,6 +385,27 @@ final class Kernel {
             }
         } finally {
             status(m, PublishStatus.State.IDLE);
+        }
+    }
+
+    /**
+     * Stops the running cell. An interrupt that lands while the engine is still compiling the cell
+     * may find nothing to stop yet, so it is repeated every 200 ms (at most 10 times) while that
+     * same cell is still running.
+     */
+    private void interruptRunningCell() {
+        Message<?> cell = runningCell;
+        CellEngine e = engineIfOpen();
+        if (cell == null || e == null) {
+            return;
+        }
+        e.interrupt();
+        for (int i = 1; i <= 10; i++) {
+            flusher.schedule(() -> {
+                if (runningCell == cell) {
+                    e.interrupt();
+                }
+            }, 200L * i, java.util.concurrent.TimeUnit.MILLISECONDS);
         }
     }
 
