@@ -85,6 +85,8 @@ final class Kernel {
     private volatile java.util.concurrent.CompletableFuture<CellEngine> engine;
     private volatile boolean executing;
     private volatile Message<?> runningCell;
+    /** System.nanoTime() when the shell request being handled was received (shell thread only). */
+    private long shellReceivedAt;
     private final java.util.concurrent.atomic.AtomicInteger droppedBadSignature = new java.util.concurrent.atomic.AtomicInteger();
     private int executionCount;
     private ZMQ.Socket shell;
@@ -283,9 +285,13 @@ final class Kernel {
             if (poller.poll(250) <= 0 || !poller.pollin(0)) {
                 continue;
             }
+            long received = System.nanoTime();
             Optional<Message<?>> m = receive(socket, channel);
             if (m.isEmpty()) {
                 continue;
+            }
+            if (socket == shell) {
+                shellReceivedAt = received;
             }
             try {
                 handle(socket, channel, m.get());
@@ -481,10 +487,11 @@ final class Kernel {
         // kernel's overhead from the evaluation time (toolkit/bench/kernel-latency.py uses it).
         Map<String, Object> metadata = new LinkedHashMap<>();
         metadata.put("microtally_eval_seconds", evalNanos / 1e9);
+        if (!req.isSilent() && result.ok() && result.value().isPresent()) {
+            publish(m, MessageType.PUBLISH_EXECUTION_RESULT, new PublishExecuteResult(n, displayData(result.value().get(), null)));
+        }
+        metadata.put("microtally_kernel_seconds", (System.nanoTime() - shellReceivedAt) / 1e9);
         if (result.ok()) {
-            if (!req.isSilent() && result.value().isPresent()) {
-                publish(m, MessageType.PUBLISH_EXECUTION_RESULT, new PublishExecuteResult(n, displayData(result.value().get(), null)));
-            }
             reply(socket, m, executeReplyType(), new ExecuteOk(n), metadata);
             return;
         }
