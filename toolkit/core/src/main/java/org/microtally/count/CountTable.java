@@ -151,14 +151,14 @@ public final class CountTable implements Tabular {
         }
     }
 
-    /** Word operations per prime of the counting recursion (used to pick the arithmetic). */
-    static long work(int[] energy, Statistics stats, int maxN, int maxE) {
-        long cells = (long) (maxN + 1) * (maxE + 1);
+    /** Word operations per prime of the counting recursion, an upper estimate (used to pick the arithmetic). */
+    static double work(int[] energy, Statistics stats, int maxN, int maxE) {
+        double cells = (double) (maxN + 1) * (maxE + 1);
         int levels = CountEngine.relevantLevels(energy, maxE);
         if (!stats.indistinguishable()) {
             return cells * levels;
         }
-        long w = 0;
+        double w = 0;
         for (int l = 0; l < levels; l++) {
             w += cells * CountEngine.maxJ(energy[l], maxN, maxE);
         }

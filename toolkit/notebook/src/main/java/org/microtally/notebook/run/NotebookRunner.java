@@ -228,7 +228,9 @@ public final class NotebookRunner {
                 count++;
                 cell.addProperty("execution_count", count);
                 progress.cellStarted(file, count, codeCells, i + 1);
-                OutputCollector collector = new OutputCollector(outputs, displays);
+                int cellNumber = i + 1;
+                OutputCollector collector = new OutputCollector(outputs, displays,
+                        text -> progress.computation(file, cellNumber, text));
                 ScheduledFuture<?> alarm = timer == null ? null
                         : timer.schedule(session::interrupt, cellTimeoutMillis, TimeUnit.MILLISECONDS);
                 long t0 = System.nanoTime();

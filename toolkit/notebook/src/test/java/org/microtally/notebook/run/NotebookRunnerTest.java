@@ -216,6 +216,17 @@ class NotebookRunnerTest {
     }
 
     @Test
+    void terminalProgressShowsComputationsInPlace() throws IOException {
+        Path nbFile = input("dot-shells.ipynb");
+        assertEquals(0, NotebookRunner.main(List.of(nbFile.toString(), "--out", tmp.resolve("out").toString()), log, true));
+        String text = log();
+        assertTrue(text.contains("\rdot-shells.ipynb  cell 4  sweep (kT) [##############################] 100% 50/50"), text);
+        assertTrue(text.contains("\r[########################] 3/3 dot-shells.ipynb  cell 4 ok"), text);
+        // String.lines() would also split at \r: split at \n only
+        assertFalse(java.util.Arrays.stream(text.split("\n")).anyMatch(l -> l.startsWith("[#")), "terminal mode printed a line per cell");
+    }
+
+    @Test
     void usageErrors() {
         assertEquals(2, run());
         assertEquals(2, run("--bogus", "x.ipynb"));

@@ -160,6 +160,7 @@ class SessionTest {
         CellResult r = run("org.microtally.notebook.session.Display.class");
         assertSame(Display.class, r.raw().orElseThrow());
         assertSame(Session.class.getClassLoader(), session.cellClassLoader().getParent());
+        assertSame(session.cellClassLoader(), run("Thread.currentThread().getContextClassLoader()").raw().orElseThrow());
         Collector c = new Collector();
         assertTrue(session.run("show(\"shared\");\nhtml(\"<b>bold</b>\");", c).ok());
         List<Collector.Event> d = c.displays();
@@ -258,6 +259,40 @@ class SessionTest {
         CellResult empty = run("// only a comment\n");
         assertTrue(empty.ok() && empty.value().isEmpty());
         assertEquals(12, run("10 + 2 // trailing comment").raw().orElseThrow());
+    }
+
+    @Test
+    void outputIsRoutedAgainAfterACellReplacedSystemOut() {
+        assertTrue(run("System.setOut(new PrintStream(OutputStream.nullOutputStream()));").ok());
+        Collector c = new Collector();
+        assertTrue(session.run("System.out.println(\"visible again\");", c).ok());
+        assertEquals("visible again\n", c.text(false));
+    }
+
+    @Test
+    void aFailingOutputSinkDoesNotBreakTheCell() {
+        CellOutput broken = new CellOutput() {
+            @Override
+            public void stream(boolean stderr, String text) {
+                throw new IllegalStateException("channel closed");
+            }
+
+            @Override
+            public void display(MimeBundle bundle, String displayId, boolean update) {
+                throw new IllegalStateException("channel closed");
+            }
+        };
+        CellResult r = session.run("System.out.println(\"lost\");\nshow(\"lost too\");\n5 * 5", broken);
+        assertTrue(r.ok(), () -> r.error().toString());
+        assertEquals(25, r.raw().orElseThrow());
+    }
+
+    @Test
+    void standardInputIsEmptyInACell() {
+        java.io.InputStream before = System.in;
+        // Source: JDK 17 API, InputStream.read() returns -1 at end of stream
+        assertEquals(-1, run("System.in.read()").raw().orElseThrow());
+        assertSame(before, System.in);
     }
 
     @Test
