@@ -155,18 +155,34 @@ class ResultDisplaysTest {
     }
 
     @Test
-    void histogramOfTwoDiceHasBarsOfTheExactProbabilities() {
-        // Source: common practice, no source: two six-sided dice totals 2..12 occur 1,2,3,4,5,6,5,4,3,2,1 times in 36
-        MacrostateHistogram h = MacrostateHistogram.ofIdenticalUnits(2, 1, 2, 3, 4, 5, 6);
+    void histogramOfSpinHalfMomentsHasBarsOfTheExactProbabilities() {
+        // Source: closed form C(10, k) / 2^10 for the total 2*S_z of ten spin-1/2 moments (outcomes -1 and +1 each)
+        MacrostateHistogram h = MacrostateHistogram.ofIdenticalUnits(10, -1, 1);
         MimeBundle b = Renderers.render(h);
-        assertTrue(b.plain().startsWith("Macrostate histogram: totals 2..12, 36 microstates in all, most probable [7]"),
+        assertTrue(b.plain().startsWith("Macrostate histogram: totals -10..10, 1024 microstates in all, most probable [0]"),
                 b.plain());
         var chart = (org.knowm.xchart.CategoryChart) Charts.histogram(h);
         double[] ys = chart.getSeries("probability").getYData();
-        int[] ways = {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1};
-        for (int i = 0; i < 11; i++) {
-            assertEquals(ways[i] / 36.0, ys[i], 1e-16);
+        int shown = 0;
+        for (int i = 0; i < ys.length; i++) {
+            if (ys[i] != 0.0) {
+                shown++;
+            }
         }
+        assertEquals(11, shown, "bars with non-zero probability (totals -10, -8, ..., 10)");
+        double sum = 0;
+        long binom = 1;
+        for (int k = 0; k <= 10; k++) {
+            double p = binom / 1024.0;
+            boolean found = false;
+            for (double y : ys) {
+                found |= Math.abs(y - p) < 1e-16;
+            }
+            assertTrue(found, "a bar of height C(10," + k + ")/1024 = " + p);
+            sum += p;
+            binom = binom * (10 - k) / (k + 1);
+        }
+        assertEquals(1.0, sum, 1e-15);
     }
 
     @Test
