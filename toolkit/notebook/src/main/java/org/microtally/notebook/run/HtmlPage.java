@@ -1,0 +1,132 @@
+package org.microtally.notebook.run;
+
+import com.google.gson.JsonElement;
+import com.google.gson.JsonObject;
+import org.microtally.notebook.render.MimeBundle;
+
+/**
+ * A standalone HTML page of an executed notebook: no scripts, no external files, a small own
+ * stylesheet; images are embedded as {@code data:} URIs, HTML outputs are placed inline, all
+ * text is escaped.
+ */
+final class HtmlPage {
+    private static final String STYLE = """
+            body { margin: 0; background: #f7f7f4; color: #1d232a; font: 16px/1.5 Georgia, 'Times New Roman', serif; }
+            main { max-width: 62rem; margin: 0 auto; padding: 1.5rem 1rem 4rem; }
+            header.page { border-bottom: 2px solid #2f5d62; margin-bottom: 1.5rem; }
+            header.page h1 { font-size: 1.3rem; margin: 0.4rem 0; color: #2f5d62; }
+            header.page p { margin: 0 0 0.6rem; font-size: 0.85rem; color: #5b6770; }
+            section.cell { margin: 0.9rem 0; }
+            .code .input { display: flex; gap: 0.6rem; }
+            .count { flex: 0 0 3.2rem; text-align: right; font: 0.8rem/1.9 monospace; color: #8a5a44; }
+            pre { margin: 0; padding: 0.5rem 0.7rem; overflow-x: auto; font: 0.85rem/1.45 'DejaVu Sans Mono', monospace; }
+            .input pre { flex: 1; background: #eef1ee; border-left: 3px solid #2f5d62; }
+            .outputs { margin-left: 3.8rem; }
+            .output { margin: 0.35rem 0; overflow-x: auto; }
+            .stream.stderr pre { background: #fbeeee; }
+            .error pre { background: #fbe4e1; color: #7a1f12; border-left: 3px solid #b23a26; }
+            .output img { max-width: 100%; }
+            .output table { border-collapse: collapse; font: 0.85rem monospace; }
+            .output th, .output td { border: 1px solid #c9cfc9; padding: 0.15rem 0.5rem; text-align: right; }
+            .markdown code { background: #eef1ee; padding: 0 0.2rem; font-size: 0.9em; }
+            .markdown pre code { padding: 0; background: none; }
+            .markdown pre { background: #eef1ee; }
+            blockquote { margin: 0.5rem 0; padding-left: 0.8rem; border-left: 3px solid #c9cfc9; color: #4b5660; }
+            """;
+
+    private HtmlPage() { }
+
+    static String of(Notebook nb, String title) {
+        StringBuilder sb = new StringBuilder();
+        sb.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+                .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+                .append("<title>").append(Markdown.escape(title)).append("</title>\n<style>\n").append(STYLE)
+                .append("</style>\n</head>\n<body>\n<main>\n<header class=\"page\"><h1>").append(Markdown.escape(title))
+                .append("</h1><p>Executed by the microtally runner</p></header>\n");
+        for (JsonObject cell : nb.cells()) {
+            String type = Notebook.type(cell);
+            String source = Notebook.text(cell.get("source"));
+            switch (type) {
+                case "markdown" -> sb.append("<section class=\"cell markdown\">\n").append(Markdown.toHtml(source))
+                        .append("</section>\n");
+                case "raw" -> sb.append("<section class=\"cell raw\"><pre>").append(Markdown.escape(source))
+                        .append("</pre></section>\n");
+                default -> code(sb, cell, source);
+            }
+        }
+        sb.append("</main>\n</body>\n</html>\n");
+        return sb.toString();
+    }
+
+    private static void code(StringBuilder sb, JsonObject cell, String source) {
+        JsonElement count = cell.get("execution_count");
+        String label = count == null || count.isJsonNull() ? "[ ]" : "[" + count.getAsInt() + "]";
+        sb.append("<section class=\"cell code\">\n<div class=\"input\"><div class=\"count\">").append(label)
+                .append("</div><pre><code>").append(Markdown.escape(source)).append("</code></pre></div>\n");
+        JsonElement outputs = cell.get("outputs");
+        if (outputs != null && outputs.isJsonArray() && outputs.getAsJsonArray().size() > 0) {
+            sb.append("<div class=\"outputs\">\n");
+            for (JsonElement e : outputs.getAsJsonArray()) {
+                output(sb, e.getAsJsonObject());
+            }
+            sb.append("</div>\n");
+        }
+        sb.append("</section>\n");
+    }
+
+    private static void output(StringBuilder sb, JsonObject o) {
+        String type = o.get("output_type").getAsString();
+        switch (type) {
+            case "stream" -> sb.append("<div class=\"output stream ").append(Markdown.escape(o.get("name").getAsString()))
+                    .append("\"><pre>").append(Markdown.escape(Notebook.text(o.get("text")))).append("</pre></div>\n");
+            case "error" -> {
+                StringBuilder tb = new StringBuilder();
+                JsonElement lines = o.get("traceback");
+                if (lines != null && lines.isJsonArray() && lines.getAsJsonArray().size() > 0) {
+                    for (JsonElement l : lines.getAsJsonArray()) {
+                        tb.append(stripAnsi(l.getAsString())).append('\n');
+                    }
+                } else {
+                    tb.append(o.get("ename").getAsString()).append(": ").append(o.get("evalue").getAsString());
+                }
+                sb.append("<div class=\"output error\"><pre>").append(Markdown.escape(tb.toString())).append("</pre></div>\n");
+            }
+            default -> {
+                JsonElement d = o.get("data");
+                if (d != null && d.isJsonObject()) {
+                    sb.append("<div class=\"output ").append(type.equals("execute_result") ? "result" : "display")
+                            .append("\">").append(bestOf(d.getAsJsonObject())).append("</div>\n");
+                }
+            }
+        }
+    }
+
+    /** The richest representation a page without scripts can show. */
+    static String bestOf(JsonObject data) {
+        if (data.has(MimeBundle.TEXT_HTML)) {
+            return Notebook.text(data.get(MimeBundle.TEXT_HTML));
+        }
+        if (data.has(MimeBundle.IMAGE_SVG)) {
+            String svg = Notebook.text(data.get(MimeBundle.IMAGE_SVG));
+            String b64 = java.util.Base64.getEncoder().encodeToString(svg.getBytes(java.nio.charset.StandardCharsets.UTF_8));
+            return "<img alt=\"chart\" src=\"data:image/svg+xml;base64," + b64 + "\">";
+        }
+        for (String img : new String[] {MimeBundle.IMAGE_PNG, "image/jpeg", "image/gif"}) {
+            if (data.has(img)) {
+                String b64 = Notebook.text(data.get(img)).replaceAll("\\s+", "");
+                return "<img alt=\"image\" src=\"data:" + img + ";base64," + b64 + "\">";
+            }
+        }
+        if (data.has(MimeBundle.TEXT_MARKDOWN)) {
+            return "<div class=\"markdown\">" + Markdown.toHtml(Notebook.text(data.get(MimeBundle.TEXT_MARKDOWN))) + "</div>";
+        }
+        if (data.has(MimeBundle.TEXT_LATEX)) {
+            return "<pre class=\"latex\">" + Markdown.escape(Notebook.text(data.get(MimeBundle.TEXT_LATEX))) + "</pre>";
+        }
+        return "<pre>" + Markdown.escape(Notebook.text(data.get(MimeBundle.TEXT_PLAIN))) + "</pre>";
+    }
+
+    private static String stripAnsi(String s) {
+        return s.replaceAll("\u001B\\[[0-9;]*m", "");
+    }
+}

@@ -1,0 +1,80 @@
+package org.microtally.notebook.session;
+
+import java.util.Objects;
+import java.util.concurrent.atomic.AtomicLong;
+import org.microtally.ProgressListener;
+import org.microtally.notebook.render.MimeBundle;
+import org.microtally.notebook.render.Renderers;
+
+/**
+ * Display helpers for cell code; every session imports them statically, so a cell writes
+ * {@code show(result)}, {@code html("<b>...</b>")} or {@code progress("levels")}.
+ *
+ * <p>The output goes to the cell that is running on the calling thread (or, from threads a cell
+ * did not start, to the only running cell). Outside any running cell the plain-text form is
+ * printed on the process's standard output.
+ */
+public final class Display {
+    private static final AtomicLong IDS = new AtomicLong();
+
+    private Display() { }
+
+    /** Shows {@code value} as rendered by {@link Renderers#render(Object)} (table, chart, text...). */
+    public static void show(Object value) {
+        emit(Renderers.render(value), null, false);
+    }
+
+    /** Shows a ready-made MIME bundle. */
+    public static void show(MimeBundle bundle) {
+        emit(Objects.requireNonNull(bundle, "bundle"), null, false);
+    }
+
+    /** Shows an HTML fragment (plain-text fallback: the fragment with its tags removed). */
+    public static void html(String html) {
+        Objects.requireNonNull(html, "html");
+        emit(MimeBundle.builder(stripTags(html)).put(MimeBundle.TEXT_HTML, html).build(), null, false);
+    }
+
+    /** Shows Markdown text (plain-text fallback: the source itself). */
+    public static void markdown(String markdown) {
+        Objects.requireNonNull(markdown, "markdown");
+        emit(MimeBundle.builder(markdown).put(MimeBundle.TEXT_MARKDOWN, markdown).build(), null, false);
+    }
+
+    /** Shows a LaTeX formula, e.g. {@code latex("$Z = \\sum_i g_i e^{-\\beta E_i}$")}. */
+    public static void latex(String latex) {
+        Objects.requireNonNull(latex, "latex");
+        emit(MimeBundle.builder(latex).put(MimeBundle.TEXT_LATEX, latex).build(), null, false);
+    }
+
+    /**
+     * A progress listener for a long computation: shows a display now and updates it in place,
+     * at most {@value ProgressDisplay#MIN_INTERVAL_MS} ms apart and at most
+     * {@value ProgressDisplay#MAX_UPDATES} times, always including the final report (done == total).
+     */
+    public static ProgressListener progress(String label) {
+        Objects.requireNonNull(label, "label");
+        ProgressDisplay p = new ProgressDisplay(label, "microtally-progress-" + IDS.incrementAndGet(), OutputRouter.current());
+        p.start();
+        return p;
+    }
+
+    static void emit(MimeBundle bundle, String id, boolean update) {
+        emitTo(OutputRouter.current(), bundle, id, update);
+    }
+
+    static void emitTo(CellContext context, MimeBundle bundle, String id, boolean update) {
+        if (context != null) {
+            context.display(bundle, id, update);
+        } else {
+            OutputRouter.CONSOLE_OUT.println(bundle.plain());
+        }
+    }
+
+    static String stripTags(String html) {
+        String text = html.replaceAll("(?s)<[^>]*>", "")
+                .replace("&lt;", "<").replace("&gt;", ">").replace("&quot;", "\"").replace("&#39;", "'")
+                .replace("&amp;", "&");
+        return text.isBlank() ? html : text;
+    }
+}

@@ -1,0 +1,184 @@
+package org.microtally.notebook.session;
+
+import java.lang.reflect.Field;
+import java.lang.reflect.InvocationTargetException;
+import java.lang.reflect.Method;
+import java.util.concurrent.Callable;
+import java.util.concurrent.atomic.AtomicInteger;
+import jdk.jshell.execution.DirectExecutionControl;
+import jdk.jshell.spi.ExecutionControl;
+import jdk.jshell.spi.ExecutionControlProvider;
+import jdk.jshell.spi.ExecutionEnv;
+
+/**
+ * JShell's execution control for the engine: runs each snippet on a fresh thread of the
+ * session's thread group (so it can be stopped), and keeps the real value and the real
+ * exception of the last invocation instead of only their strings.
+ */
+final class EngineControl extends DirectExecutionControl {
+    /** Marker for "no value captured". */
+    static final Object NO_VALUE = new Object();
+    private static final long STACK_SIZE = 64L << 20;
+    private static final AtomicInteger THREADS = new AtomicInteger();
+
+    private final ThreadGroup group;
+    private volatile Thread running;
+    private volatile boolean stopRequested;
+    private volatile Object lastValue = NO_VALUE;
+    private volatile Throwable lastThrown;
+
+    EngineControl(SnippetLoader loader, ThreadGroup group) {
+        super(loader);
+        this.group = group;
+    }
+
+    /** A provider that hands JShell the given, already built control. */
+    static ExecutionControlProvider provider(EngineControl control) {
+        return new ExecutionControlProvider() {
+            @Override
+            public String name() {
+                return "microtally-local";
+            }
+
+            @Override
+            public ExecutionControl generate(ExecutionEnv env, java.util.Map<String, String> parameters) {
+                return control;
+            }
+        };
+    }
+
+    void resetCapture() {
+        lastValue = NO_VALUE;
+        lastThrown = null;
+    }
+
+    Object lastValue() {
+        return lastValue;
+    }
+
+    Throwable lastThrown() {
+        return lastThrown;
+    }
+
+    boolean stopRequested() {
+        return stopRequested;
+    }
+
+    void clearStop() {
+        stopRequested = false;
+    }
+
+    @Override
+    protected String invoke(Method doitMethod) throws Exception {
+        Object value;
+        try {
+            value = callAsUser(() -> {
+                try {
+                    return doitMethod.invoke(null);
+                } catch (InvocationTargetException e) {
+                    throw new UserFailure(e.getCause());
+                }
+            });
+        } catch (UserFailure f) {
+            lastThrown = f.getCause();
+            if (stopRequested) {
+                throw new ExecutionControl.StoppedException();
+            }
+            throw new InvocationTargetException(f.getCause());
+        }
+        lastValue = value;
+        return "";   // the engine renders the real object itself
+    }
+
+    @Override
+    public String varValue(String className, String varName) throws ExecutionControl.RunException,
+            ExecutionControl.EngineTerminationException, ExecutionControl.InternalException {
+        try {
+            Class<?> c = findClass(className);
+            Field f = c.getDeclaredField(varName);
+            f.setAccessible(true);
+            lastValue = f.get(null);
+            return "";
+        } catch (ReflectiveOperationException | RuntimeException e) {
+            throw new ExecutionControl.InternalException("cannot read " + varName + ": " + e);
+        }
+    }
+
+    /**
+     * Runs {@code task} on a new thread of the session's group and waits for it; a throwable of the
+     * task is rethrown wrapped in {@link UserFailure}. Stoppable with {@link #stop()}.
+     */
+    <T> T callAsUser(Callable<T> task) throws UserFailure, InterruptedException {
+        Object[] result = new Object[1];
+        Throwable[] failure = new Throwable[1];
+        Thread t = new Thread(group, () -> {
+            try {
+                result[0] = task.call();
+            } catch (UserFailure f) {
+                failure[0] = f.getCause();
+            } catch (Throwable e) {
+                failure[0] = e;
+            }
+        }, "microtally-cell-" + THREADS.incrementAndGet(), STACK_SIZE);
+        t.setDaemon(true);
+        t.setContextClassLoader(Thread.currentThread().getContextClassLoader());
+        running = t;
+        try {
+            t.start();
+            t.join();
+        } finally {
+            running = null;
+        }
+        if (failure[0] != null) {
+            throw new UserFailure(failure[0]);
+        }
+        @SuppressWarnings("unchecked")
+        T r = (T) result[0];
+        return r;
+    }
+
+    /**
+     * Stops the running snippet: first a thread interrupt (lets blocking calls end cleanly), then,
+     * if it is still running after a grace period, {@link Thread#stop()} on it and on the other
+     * threads it started in the session's group.
+     */
+    @Override
+    @SuppressWarnings({"deprecation", "removal"})
+    public void stop() {
+        stopRequested = true;
+        Thread t = running;
+        if (t == null) {
+            return;
+        }
+        t.interrupt();
+        try {
+            t.join(300);
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+        }
+        if (t.isAlive()) {
+            Thread[] all = new Thread[group.activeCount() + 8];
+            int n = group.enumerate(all);
+            for (int i = 0; i < n; i++) {
+                if (all[i] != Thread.currentThread()) {
+                    all[i].stop();
+                }
+            }
+        }
+    }
+
+    /** Carries a throwable of user code through the engine without confusing it with engine errors. */
+    static final class UserFailure extends Exception {
+        private static final long serialVersionUID = 1L;
+
+        UserFailure(Throwable cause) {
+            super(cause);
+        }
+    }
+
+    /** Used by the engine to read a static field. */
+    @Override
+    protected Class<?> findClass(String name) throws ClassNotFoundException {
+        return super.findClass(name);
+    }
+}

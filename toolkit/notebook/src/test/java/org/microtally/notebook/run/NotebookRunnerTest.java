@@ -1,0 +1,284 @@
+package org.microtally.notebook.run;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.google.gson.JsonArray;
+import com.google.gson.JsonObject;
+import com.google.gson.JsonParser;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.io.UncheckedIOException;
+import java.net.URISyntaxException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
+import org.microtally.notebook.render.Renderers;
+
+@Timeout(value = 120, unit = TimeUnit.SECONDS)
+class NotebookRunnerTest {
+    @TempDir
+    Path tmp;
+
+    final ByteArrayOutputStream logBytes = new ByteArrayOutputStream();
+    final PrintStream log = new PrintStream(logBytes, true, StandardCharsets.UTF_8);
+
+    static Path resource(String name) {
+        try {
+            return Path.of(NotebookRunnerTest.class.getResource("/notebooks/" + name).toURI());
+        } catch (URISyntaxException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** Copies a test notebook into the temp dir so that "input untouched" can be checked byte for byte. */
+    Path input(String name) throws IOException {
+        Path in = tmp.resolve("in");
+        Files.createDirectories(in);
+        return Files.copy(resource(name), in.resolve(name));
+    }
+
+    int run(String... args) {
+        return NotebookRunner.main(List.of(args), log, false);
+    }
+
+    String log() {
+        return logBytes.toString(StandardCharsets.UTF_8);
+    }
+
+    static JsonObject readJson(Path p) throws IOException {
+        return JsonParser.parseString(Files.readString(p)).getAsJsonObject();
+    }
+
+    static JsonArray outputs(JsonObject nb, int cell) {
+        return nb.getAsJsonArray("cells").get(cell).getAsJsonObject().getAsJsonArray("outputs");
+    }
+
+    static JsonObject output(JsonObject nb, int cell, int index) {
+        return outputs(nb, cell).get(index).getAsJsonObject();
+    }
+
+    static List<String> listing(Path dir) {
+        if (!Files.exists(dir)) {
+            return List.of();
+        }
+        try (Stream<Path> s = Files.list(dir)) {
+            return s.map(p -> p.getFileName().toString()).sorted().toList();
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
+    @Test
+    void executesNotebookAndWritesNotebookAndPage() throws IOException {
+        Path nbFile = input("dot-shells.ipynb");
+        byte[] before = Files.readAllBytes(nbFile);
+        Path out = tmp.resolve("out");
+        assertEquals(0, run(nbFile.toString(), "--out", out.toString()), log());
+        assertTrue(java.util.Arrays.equals(before, Files.readAllBytes(nbFile)), "the input was modified");
+        assertEquals(List.of("dot-shells.html", "dot-shells.ipynb"), listing(out));
+
+        JsonObject nb = readJson(out.resolve("dot-shells.ipynb"));
+        NbformatShape.check(nb);
+        assertEquals("microtally", nb.getAsJsonObject("metadata").getAsJsonObject("kernelspec").get("name").getAsString());
+        assertEquals("java", nb.getAsJsonObject("metadata").getAsJsonObject("language_info").get("name").getAsString());
+
+        // cell 1: stdout then the value
+        JsonObject code1 = nb.getAsJsonArray("cells").get(1).getAsJsonObject();
+        assertEquals(1, code1.get("execution_count").getAsInt());
+        assertEquals("stream", output(nb, 1, 0).get("output_type").getAsString());
+        assertEquals("levels: 5\n", Notebook.text(output(nb, 1, 0).get("text")));
+        JsonObject result = output(nb, 1, 1);
+        assertEquals("execute_result", result.get("output_type").getAsString());
+        assertEquals(1, result.get("execution_count").getAsInt());
+        // Source: the 2D isotropic oscillator level with k quanta has orbital degeneracy k + 1 (from memory)
+        assertEquals("4", Notebook.text(result.getAsJsonObject("data").get("text/plain")));
+
+        // cell 2: merged stdout, stderr, three displays in order
+        JsonArray o2 = outputs(nb, 2);
+        // Source: closed shells of a 2D parabolic dot at 2, 6, 12 electrons (the 2D oscillator magic
+        // numbers 2, 6, 12, 20, ...; from memory)
+        assertEquals("closed shell at 2\nclosed shell at 6\nclosed shell at 12\n", Notebook.text(o2.get(0).getAsJsonObject().get("text")));
+        assertEquals("stderr", o2.get(1).getAsJsonObject().get("name").getAsString());
+        assertEquals(5, o2.size(), o2.toString());
+        assertEquals("display_data", o2.get(2).getAsJsonObject().get("output_type").getAsString());
+        assertTrue(o2.get(3).getAsJsonObject().getAsJsonObject("data").has("text/html"));
+        assertTrue(o2.get(4).getAsJsonObject().getAsJsonObject("data").has("text/markdown"));
+
+        // cell 3: the progress display was updated in place: one output, at 100 %
+        JsonArray o3 = outputs(nb, 3);
+        assertEquals(1, o3.size(), o3.toString());
+        assertTrue(Notebook.text(o3.get(0).getAsJsonObject().getAsJsonObject("data").get("text/plain")).contains("100% 50/50"));
+
+        String html = Files.readString(out.resolve("dot-shells.html"));
+        assertTrue(html.startsWith("<!DOCTYPE html>"));
+        assertTrue(html.contains("<h1>Halyard Bay quantum dot</h1>"), html);
+        assertTrue(html.contains("<em>2D isotropic oscillator</em>"));
+        assertTrue(html.contains("<strong>hbar omega = 3 meV</strong>"));
+        assertTrue(html.contains("<code>Spectra</code>"));
+        assertTrue(html.contains("<a href=\"https://nbformat.readthedocs.io\">the nbformat docs</a>"));
+        assertTrue(html.contains("$E_k = (k+1)\\hbar\\omega$"));
+        assertTrue(html.contains("<li>closed shells at &lt;2, 6, 12&gt; electrons</li>"));
+        assertTrue(html.contains("<table><tr><th>k</th>"), "html output not inline");
+        assertTrue(html.contains("System.out.println(&quot;levels: &quot; + dot.size());"), "source not escaped");
+        assertFalse(html.contains("<script"));
+        assertTrue(log().contains("[########################] 3/3 dot-shells.ipynb  cell 4 ok"), log());
+    }
+
+    @Test
+    void expectedFailuresAreRecordedAndTheSessionSurvives() throws IOException {
+        Path nbFile = input("expected-faults.ipynb");
+        Path out = tmp.resolve("out");
+        assertEquals(0, run(nbFile.toString(), "--out", out.toString()), log());
+        JsonObject nb = readJson(out.resolve("expected-faults.ipynb"));
+        NbformatShape.check(nb);
+        assertEquals("CompileError", output(nb, 0, 0).get("ename").getAsString());
+        // Source: JLS 17 §15.17.2, integer division by zero throws ArithmeticException
+        assertEquals("java.lang.ArithmeticException", output(nb, 1, 0).get("ename").getAsString());
+        assertEquals("org.microtally.notebook.session.ExitBlockedException", output(nb, 2, 0).get("ename").getAsString());
+        assertEquals("java.lang.OutOfMemoryError", output(nb, 3, 0).get("ename").getAsString());
+        JsonObject last = output(nb, 4, 0);
+        assertEquals(Renderers.render("survived: true").plain(), Notebook.text(last.getAsJsonObject("data").get("text/plain")));
+        String html = Files.readString(out.resolve("expected-faults.html"));
+        assertTrue(html.contains("class=\"output error\""));
+    }
+
+    @Test
+    void failingCellStopsTheRunAndWritesNothing() throws IOException {
+        Path nbFile = input("stops-at-failure.ipynb");
+        Path out = tmp.resolve("out");
+        Files.createDirectories(out);
+        Files.writeString(out.resolve("stops-at-failure.ipynb"), "earlier result");
+        assertEquals(1, run(nbFile.toString(), "--out", out.toString()));
+        // Source: JLS 17 §15.10.4, an index outside the array throws ArrayIndexOutOfBoundsException
+        assertTrue(log().contains("FAILED " + nbFile + ", cell 2 (In [2]): java.lang.ArrayIndexOutOfBoundsException: "
+                + "Index 3 out of bounds for length 3"), log());
+        assertEquals(List.of("stops-at-failure.ipynb"), listing(out), "output dir changed");
+        assertEquals("earlier result", Files.readString(out.resolve("stops-at-failure.ipynb")));
+        assertFalse(log().contains("third cell"));
+    }
+
+    @Test
+    void keepGoingRunsEveryCellAndStillFails() throws IOException {
+        Path nbFile = input("stops-at-failure.ipynb");
+        Path out = tmp.resolve("out");
+        assertEquals(1, run("--keep-going", nbFile.toString(), "--out", out.toString()));
+        JsonObject nb = readJson(out.resolve("stops-at-failure.ipynb"));
+        NbformatShape.check(nb);
+        assertEquals("error", output(nb, 1, 0).get("output_type").getAsString());
+        assertEquals("third cell ran\n", Notebook.text(output(nb, 2, 0).get("text")));
+        assertEquals(3, nb.getAsJsonArray("cells").get(2).getAsJsonObject().get("execution_count").getAsInt());
+    }
+
+    @Test
+    void cellTimeoutInterruptsARunawayCell() throws IOException {
+        Path nbFile = input("runaway.ipynb");
+        Path out = tmp.resolve("out");
+        long t0 = System.nanoTime();
+        assertEquals(1, run(nbFile.toString(), "--out", out.toString(), "--cell-timeout", "0.5", "--keep-going"));
+        assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(30));
+        assertTrue(log().contains("cell 1 (In [1]): Interrupted: the cell ran longer than the time limit of 0.5 s"), log());
+        JsonObject nb = readJson(out.resolve("runaway.ipynb"));
+        assertEquals("Interrupted", output(nb, 0, 0).get("ename").getAsString());
+        assertEquals(Renderers.render("after the runaway").plain(), Notebook.text(output(nb, 1, 0).getAsJsonObject("data").get("text/plain")));
+    }
+
+    @Test
+    void malformedJsonNamesFileAndPosition() throws IOException {
+        Path nbFile = input("malformed.ipynb");
+        Path out = tmp.resolve("out");
+        assertEquals(2, run(nbFile.toString(), "--out", out.toString()));
+        // the object opened on line 3 is closed by "]" on line 6 instead of "}"
+        assertTrue(log().contains(nbFile + " is not valid JSON at line 6, column 2"), log());
+        assertEquals(List.of(), listing(out));
+    }
+
+    @Test
+    void wrongShapeNamesTheJsonPath() throws IOException {
+        Path f = tmp.resolve("old.ipynb");
+        Files.writeString(f, "{\"nbformat\": 3, \"worksheets\": []}");
+        assertEquals(2, run(f.toString(), "--out", tmp.resolve("o").toString()));
+        assertTrue(log().contains("old.ipynb is not an nbformat 4 notebook: $.nbformat is 3"), log());
+        Path g = tmp.resolve("badcell.ipynb");
+        Files.writeString(g, "{\"nbformat\": 4, \"nbformat_minor\": 4, \"metadata\": {}, \"cells\": [{\"cell_type\": \"code\", \"source\": 7}]}");
+        assertEquals(2, run(g.toString(), "--out", tmp.resolve("o").toString()));
+        assertTrue(log().contains("$.cells[0].source must be a string or an array of strings"), log());
+    }
+
+    @Test
+    void usageErrors() {
+        assertEquals(2, run());
+        assertEquals(2, run("--bogus", "x.ipynb"));
+        assertEquals(2, run("x.ipynb", "--cell-timeout", "-1"));
+        assertEquals(0, run("--help"));
+        assertTrue(log().contains("usage: microtally run"));
+    }
+
+    @Test
+    void atomicWriteLeavesNoPartialFiles() throws IOException {
+        Path dir = tmp.resolve("w");
+        NotebookRunner.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
+        assertEquals(List.of("a.html", "a.ipynb"), listing(dir));
+        // a target that cannot be replaced (a non-empty directory) makes the write fail: nothing else changes
+        Files.createDirectories(dir.resolve("b.html").resolve("blocker"));
+        List<String> beforeFail = listing(dir);
+        boolean failed = false;
+        try {
+            NotebookRunner.writeAtomically(List.of(dir.resolve("b.html"), dir.resolve("c.ipynb")), List.of("x", "y"));
+        } catch (IOException e) {
+            failed = true;
+        }
+        assertTrue(failed);
+        assertEquals(beforeFail, listing(dir));
+    }
+
+    /** Validates with the reference implementation when a Python with nbformat is installed. */
+    @Test
+    void executedNotebookValidatesWithNbformat() throws IOException, InterruptedException {
+        String python = findPythonWithNbformat();
+        if (python == null) {
+            System.err.println("\n*** SKIPPED nbformat validation: no python3 with the nbformat module "
+                    + "(install Debian's python3-nbformat to run it) ***\n");
+            Assumptions.abort("nbformat not installed");
+        }
+        Path out = tmp.resolve("out");
+        List<String> files = new ArrayList<>();
+        assertEquals(0, run(input("dot-shells.ipynb").toString(), "--out", out.toString()), log());
+        files.add(out.resolve("dot-shells.ipynb").toString());
+        // error, stream and result outputs, a cell left unexecuted is not possible with --keep-going: all ran
+        assertEquals(1, run("--keep-going", input("stops-at-failure.ipynb").toString(), "--out", out.toString()), log());
+        files.add(out.resolve("stops-at-failure.ipynb").toString());
+        List<String> cmd = new ArrayList<>(List.of(python, "-c",
+                "import sys, nbformat\nfor f in sys.argv[1:]:\n    nbformat.validate(nbformat.read(f, as_version=4))\n    print('valid', f)"));
+        cmd.addAll(files);
+        Process p = new ProcessBuilder(cmd).redirectErrorStream(true).start();
+        String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertEquals(0, p.waitFor(), text);
+        assertEquals(2, text.lines().filter(l -> l.startsWith("valid ")).count(), text);
+    }
+
+    static String findPythonWithNbformat() throws InterruptedException {
+        for (String py : List.of("/usr/bin/python3", "python3")) {
+            try {
+                Process p = new ProcessBuilder(py, "-c", "import nbformat").redirectErrorStream(true).start();
+                p.getInputStream().readAllBytes();
+                if (p.waitFor() == 0) {
+                    return py;
+                }
+            } catch (IOException e) {
+                // not there
+            }
+        }
+        return null;
+    }
+}

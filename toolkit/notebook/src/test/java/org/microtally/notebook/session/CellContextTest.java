@@ -1,0 +1,33 @@
+package org.microtally.notebook.session;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import java.nio.charset.StandardCharsets;
+import org.junit.jupiter.api.Test;
+
+class CellContextTest {
+    @Test
+    void utf8PrefixNeverEndsInsideACharacter() {
+        // Source: RFC 3629 §3, byte sequences: é = C3 A9, € = E2 82 AC, U+1F600 = F0 9F 98 80
+        byte[] e = "aé".getBytes(StandardCharsets.UTF_8);
+        assertEquals(3, CellContext.completeUtf8Prefix(e));
+        assertEquals(1, CellContext.completeUtf8Prefix(new byte[] {'a', (byte) 0xC3}));
+        assertEquals(1, CellContext.completeUtf8Prefix(new byte[] {'a', (byte) 0xE2, (byte) 0x82}));
+        assertEquals(4, CellContext.completeUtf8Prefix(new byte[] {'a', (byte) 0xE2, (byte) 0x82, (byte) 0xAC}));
+        assertEquals(0, CellContext.completeUtf8Prefix(new byte[] {(byte) 0xF0, (byte) 0x9F, (byte) 0x98}));
+        assertEquals(4, CellContext.completeUtf8Prefix(new byte[] {(byte) 0xF0, (byte) 0x9F, (byte) 0x98, (byte) 0x80}));
+    }
+
+    @Test
+    void splitCharacterIsDeliveredWhole() {
+        Collector c = new Collector();
+        CellContext ctx = new CellContext(new ThreadGroup("t"), c);
+        byte[] euro = "€".getBytes(StandardCharsets.UTF_8);
+        ctx.write(false, euro, 0, 1);
+        ctx.flush(false);
+        ctx.write(false, euro, 1, 2);
+        ctx.flush(true);
+        assertEquals("€", c.text(false));
+        assertEquals(1, c.events.size());
+    }
+}
