@@ -1,0 +1,6 @@
+/**
+ * Moving data in and out of notebooks: CSV export of any result or Tablesaw table ({@link
+ * org.microtally.notebook.data.Csv}) and single-particle spectra read from CSV files or Tablesaw
+ * tables ({@link org.microtally.notebook.data.SpectrumReader}).
+ */
+package org.microtally.notebook.data;

@@ -1,0 +1,327 @@
+package org.microtally.notebook.render;
+
+import java.awt.BasicStroke;
+import java.awt.Color;
+import java.awt.Font;
+import java.awt.image.BufferedImage;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.math.BigInteger;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.Base64;
+import java.util.List;
+import java.util.Objects;
+import javax.imageio.ImageIO;
+import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.InvalidInputException;
+import org.microtally.Tabular;
+import org.microtally.spectrum.Spectrum;
+import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.CategoryChart;
+import org.knowm.xchart.CategoryChartBuilder;
+import org.knowm.xchart.VectorGraphicsEncoder;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYChartBuilder;
+import org.knowm.xchart.XYSeries;
+import org.knowm.xchart.internal.chartpart.Chart;
+import org.knowm.xchart.style.AxesChartStyler;
+import org.knowm.xchart.style.Styler;
+import org.knowm.xchart.style.markers.Marker;
+import org.knowm.xchart.style.markers.SeriesMarkers;
+
+/**
+ * Charts of tabular results (XChart), in one consistent look of our own, and their encodings for
+ * notebooks: PNG (drawn off-screen, headless) and SVG (drawn by VectorGraphics2D), both in memory.
+ *
+ * <p>Columns are chosen by name. Cells are converted to double for plotting only (a chart is a
+ * picture): exact integers and fractions beyond the double range are refused with a message that
+ * names the row and column and suggests plotting the logarithm; missing cells leave a gap in their
+ * series (the point is omitted).
+ *
+ * <p>The charts returned are ordinary mutable XChart objects: titles, ranges and sizes can be
+ * adjusted before display. {@link #style(Chart)} applies our look to a chart built elsewhere.
+ */
+public final class Charts {
+    /** Default chart size in pixels. */
+    public static final int WIDTH = 640;
+    /** Default chart size in pixels. */
+    public static final int HEIGHT = 400;
+
+    /** Our series colours, in order: harbour teal, amber, brick, slate blue, moss, plum, sand, slate grey. */
+    public static final List<Color> PALETTE = List.of(
+            new Color(0x1f5f6b), new Color(0xd08c2b), new Color(0xa8433a), new Color(0x4a5a9a),
+            new Color(0x6b8e3d), new Color(0x7d4a86), new Color(0xb59a62), new Color(0x5c6b70));
+
+    private static final Color INK = new Color(0x23343a);
+    private static final Color GRID = new Color(0xe1e8ea);
+
+    static {
+        DisplayEnvironment.prepare();
+    }
+
+    private Charts() { }
+
+    /** Lines with small markers, one series per y column, against the x column. */
+    public static XYChart line(Tabular table, String xColumn, String... yColumns) {
+        return xy(table, XYSeries.XYSeriesRenderStyle.Line, xColumn, yColumns);
+    }
+
+    /** Markers only, one series per y column, against the x column. */
+    public static XYChart scatter(Tabular table, String xColumn, String... yColumns) {
+        return xy(table, XYSeries.XYSeriesRenderStyle.Scatter, xColumn, yColumns);
+    }
+
+    /**
+     * A bar chart: one bar group per row, labelled by the category column (shown as text), one
+     * series per value column. For histograms: the bin column as category, the counts as values.
+     */
+    public static CategoryChart bars(Tabular table, String categoryColumn, String... valueColumns) {
+        Objects.requireNonNull(table, "table");
+        requireSeries(valueColumns);
+        int cat = columnIndex(table, categoryColumn);
+        CategoryChart chart = new CategoryChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle(categoryColumn).yAxisTitle(axisTitle(valueColumns)).build();
+        for (String name : valueColumns) {
+            int c = columnIndex(table, name);
+            List<String> xs = new ArrayList<>();
+            List<Double> ys = new ArrayList<>();
+            List<List<Object>> rows = table.rows();
+            for (int r = 0; r < rows.size(); r++) {
+                Object x = rows.get(r).get(cat);
+                Object y = rows.get(r).get(c);
+                xs.add(x == null ? "" : CellText.shown(x, TableFormat.DEFAULT));
+                ys.add(y == null ? 0.0 : toDouble(y, r, name));
+            }
+            if (xs.isEmpty()) {
+                throw InvalidInputException.of("number of rows", 0, ">= 1 to draw a bar chart", "");
+            }
+            chart.addSeries(name, xs, ys);
+        }
+        style(chart);
+        chart.getStyler().setOverlapped(false);
+        chart.getStyler().setLegendVisible(valueColumns.length > 1);
+        chart.getStyler().setXAxisLabelRotation(xsRotation(table.rows().size()));
+        return chart;
+    }
+
+    /**
+     * The spectrum as a stick chart: one vertical line per level from 0 up to its degeneracy, at its
+     * energy; the x axis is titled with the spectrum's energy unit.
+     */
+    public static XYChart spectrum(Spectrum spectrum) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        int n = spectrum.size();
+        double[] xs = new double[3 * n];
+        double[] ys = new double[3 * n];
+        for (int i = 0; i < n; i++) {
+            double e = spectrum.energy(i);
+            xs[3 * i] = e;
+            xs[3 * i + 1] = e;
+            xs[3 * i + 2] = e;
+            ys[3 * i + 1] = spectrum.degeneracy(i);
+        }
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle("energy [" + spectrum.scale().name() + "]").yAxisTitle("degeneracy").build();
+        XYSeries s = chart.addSeries("levels", xs, ys);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        s.setMarker(SeriesMarkers.NONE);
+        style(chart);
+        chart.getStyler().setLegendVisible(false);
+        chart.getStyler().setYAxisMin(0.0);
+        return chart;
+    }
+
+    /** Applies our look (palette, fonts, grid, legend placement) to any XChart chart; returns it. */
+    public static <C extends Chart<?, ?>> C style(C chart) {
+        Styler s = chart.getStyler();
+        s.setSeriesColors(PALETTE.toArray(new Color[0]));
+        s.setChartBackgroundColor(Color.WHITE);
+        s.setPlotBackgroundColor(new Color(0xfbfcfc));
+        s.setPlotBorderVisible(false);
+        s.setChartFontColor(INK);
+        s.setBaseFont(new Font(Font.SANS_SERIF, Font.PLAIN, 12));
+        s.setChartTitleFont(new Font(Font.SANS_SERIF, Font.BOLD, 14));
+        s.setChartTitleBoxVisible(false);
+        s.setLegendFont(new Font(Font.SANS_SERIF, Font.PLAIN, 11));
+        s.setLegendBorderColor(GRID);
+        s.setLegendPosition(Styler.LegendPosition.OutsideS);
+        s.setLegendLayout(Styler.LegendLayout.Horizontal);
+        s.setMarkerSize(5);
+        s.setSeriesMarkers(new Marker[] {SeriesMarkers.CIRCLE, SeriesMarkers.SQUARE, SeriesMarkers.DIAMOND,
+            SeriesMarkers.TRIANGLE_UP, SeriesMarkers.TRIANGLE_DOWN, SeriesMarkers.CROSS});
+        if (s instanceof AxesChartStyler a) {
+            a.setPlotGridLinesColor(GRID);
+            a.setPlotGridLinesStroke(new BasicStroke(1f));
+            a.setAxisTickLabelsFont(new Font(Font.SANS_SERIF, Font.PLAIN, 11));
+            a.setAxisTitleFont(new Font(Font.SANS_SERIF, Font.PLAIN, 12));
+            a.setAxisTickMarksColor(new Color(0x8a989c));
+            a.setAxisTickLabelsColor(INK);
+        }
+        return chart;
+    }
+
+    /** The chart drawn as PNG at its own width and height (headless). */
+    public static byte[] png(Chart<?, ?> chart) {
+        DisplayEnvironment.prepare();
+        try {
+            return BitmapEncoder.getBitmapBytes(chart, BitmapEncoder.BitmapFormat.PNG);
+        } catch (IOException e) {
+            throw new UncheckedIOException("could not encode the chart as PNG", e);
+        }
+    }
+
+    /** The chart drawn as an SVG document (UTF-8 XML text) at its own width and height. */
+    public static String svg(Chart<?, ?> chart) {
+        DisplayEnvironment.prepare();
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        try {
+            VectorGraphicsEncoder.saveVectorGraphic(chart, out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
+        } catch (IOException e) {
+            throw new UncheckedIOException("could not encode the chart as SVG", e);
+        }
+        return out.toString(StandardCharsets.UTF_8);
+    }
+
+    /** A display bundle for the chart: image/png (base64), image/svg+xml and a one-line text/plain. */
+    public static MimeBundle bundle(Chart<?, ?> chart) {
+        return MimeBundle.builder(describe(chart))
+                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(chart)))
+                .put(MimeBundle.IMAGE_SVG, svg(chart))
+                .build();
+    }
+
+    /**
+     * A table bundle with a chart under it: the HTML shows the table and then the chart as an
+     * embedded PNG ({@code <img class="mt-chart" src="data:image/png;base64,...">}); the plain text
+     * is the table text followed by the chart's one-line description. Other representations of
+     * {@code table} are kept.
+     */
+    public static MimeBundle combine(MimeBundle table, Chart<?, ?> chart) {
+        String description = describe(chart);
+        MimeBundle.Builder b = MimeBundle.builder(table.plain() + "\n" + description);
+        for (var e : table.data().entrySet()) {
+            if (!e.getKey().equals(MimeBundle.TEXT_PLAIN)) {
+                b.put(e.getKey(), e.getValue());
+            }
+        }
+        String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
+                : "<pre>" + Html.escape(table.plain()) + "</pre>";
+        b.put(MimeBundle.TEXT_HTML, html + "<div class=\"mt-chart\"><img alt=\"" + Html.escape(description)
+                + "\" width=\"" + chart.getWidth() + "\" height=\"" + chart.getHeight()
+                + "\" src=\"data:image/png;base64," + Base64.getEncoder().encodeToString(png(chart)) + "\"/></div>");
+        return b.build();
+    }
+
+    /** A PNG display bundle for an image, with a text/plain line giving its size. */
+    public static MimeBundle bundle(BufferedImage image) {
+        DisplayEnvironment.prepare();
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        try {
+            if (!ImageIO.write(image, "png", out)) {
+                throw new IllegalStateException("no PNG writer for image type " + image.getType());
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException("could not encode the image as PNG", e);
+        }
+        return MimeBundle.builder("image " + image.getWidth() + "\u00d7" + image.getHeight() + " px")
+                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(out.toByteArray()))
+                .build();
+    }
+
+    /** E.g. {@code chart "U vs kT" (640×400 px): series U, C}. */
+    static String describe(Chart<?, ?> chart) {
+        String title = chart.getTitle() == null || chart.getTitle().isBlank() ? "" : " \"" + chart.getTitle() + "\"";
+        return "chart" + title + " (" + chart.getWidth() + "\u00d7" + chart.getHeight() + " px): series "
+                + chart.getSeriesCollection().stream()
+                .map(org.knowm.xchart.internal.series.Series::getName).collect(java.util.stream.Collectors.joining(", "));
+    }
+
+    private static XYChart xy(Tabular table, XYSeries.XYSeriesRenderStyle renderStyle, String xColumn,
+                              String... yColumns) {
+        Objects.requireNonNull(table, "table");
+        requireSeries(yColumns);
+        int xc = columnIndex(table, xColumn);
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle(xColumn).yAxisTitle(axisTitle(yColumns)).build();
+        List<List<Object>> rows = table.rows();
+        for (String name : yColumns) {
+            int yc = columnIndex(table, name);
+            double[] xs = new double[rows.size()];
+            double[] ys = new double[rows.size()];
+            int k = 0;
+            for (int r = 0; r < rows.size(); r++) {
+                Object x = rows.get(r).get(xc);
+                Object y = rows.get(r).get(yc);
+                if (x == null || y == null) {
+                    continue;
+                }
+                xs[k] = toDouble(x, r, xColumn);
+                ys[k] = toDouble(y, r, name);
+                k++;
+            }
+            if (k == 0) {
+                throw InvalidInputException.of("number of points in column '" + name + "'", 0,
+                        ">= 1 (rows with both '" + xColumn + "' and '" + name + "' present)", "");
+            }
+            XYSeries series = chart.addSeries(name, java.util.Arrays.copyOf(xs, k), java.util.Arrays.copyOf(ys, k));
+            series.setXYSeriesRenderStyle(renderStyle);
+        }
+        style(chart);
+        chart.getStyler().setLegendVisible(yColumns.length > 1);
+        return chart;
+    }
+
+    private static void requireSeries(String[] columns) {
+        if (columns == null || columns.length == 0) {
+            throw InvalidInputException.of("number of value columns", 0, ">= 1", "Name the columns to plot.");
+        }
+    }
+
+    private static String axisTitle(String[] columns) {
+        return columns.length == 1 ? columns[0] : "";
+    }
+
+    private static int xsRotation(int categories) {
+        return categories > 16 ? 90 : 0;
+    }
+
+    static int columnIndex(Tabular table, String name) {
+        int i = table.columnNames().indexOf(name);
+        if (i < 0) {
+            throw InvalidInputException.of("column", "'" + name + "'", "one of " + table.columnNames(), "");
+        }
+        return i;
+    }
+
+    /** A cell as a double for plotting; exact values beyond the double range are refused. */
+    static double toDouble(Object v, int row, String column) {
+        double d;
+        if (v instanceof BigFraction f) {
+            d = f.doubleValue();
+        } else if (v instanceof Number n) {
+            d = n.doubleValue();
+        } else if (v instanceof Boolean b) {
+            d = b ? 1 : 0;
+        } else if (v instanceof CharSequence cs) {
+            String s = cs.toString().strip();
+            try {
+                d = s.indexOf('/') > 0 ? Tables.exactFraction(s).doubleValue()
+                        : s.matches("-?[0-9]+") ? new BigInteger(s).doubleValue() : Double.parseDouble(s);
+            } catch (NumberFormatException e) {
+                throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",
+                        "\"" + s + "\"", "a number to plot", "Choose a numeric column.");
+            }
+        } else {
+            throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'", v,
+                    "a number to plot", "Choose a numeric column.");
+        }
+        if (Double.isInfinite(d) && !(v instanceof Double || v instanceof Float)) {
+            throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",
+                    CellText.shown(v, TableFormat.DEFAULT), "at most 1.8e308 in magnitude to plot",
+                    "Plot its logarithm instead (for example ln Omega).");
+        }
+        return d;
+    }
+}

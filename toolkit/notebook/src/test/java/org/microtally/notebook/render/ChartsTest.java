@@ -1,0 +1,218 @@
+package org.microtally.notebook.render;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.awt.GraphicsEnvironment;
+import java.awt.image.BufferedImage;
+import java.io.ByteArrayInputStream;
+import java.io.StringReader;
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Base64;
+import java.util.List;
+import javax.imageio.ImageIO;
+import javax.xml.parsers.DocumentBuilderFactory;
+import org.junit.jupiter.api.Test;
+import org.microtally.InvalidInputException;
+import org.microtally.Tabular;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
+import org.knowm.xchart.CategoryChart;
+import org.knowm.xchart.CategorySeries;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYSeries;
+import org.w3c.dom.Document;
+import org.xml.sax.InputSource;
+
+class ChartsTest {
+
+    /** U and C of a two-level system (gap 1) vs kT, by its closed form. */
+    static Tabular twoLevel() {
+        List<Object[]> rows = new ArrayList<>();
+        for (int i = 1; i <= 40; i++) {
+            double t = 0.05 * i;
+            double x = 1 / t;
+            // Source: closed form for a two-level system with gap 1 (Schottky anomaly):
+            // U = 1/(e^{1/kT} + 1), C = (1/kT)^2 e^{1/kT} / (e^{1/kT} + 1)^2
+            double u = 1 / (Math.exp(x) + 1);
+            double c = x * x * Math.exp(x) / Math.pow(Math.exp(x) + 1, 2);
+            rows.add(new Object[] {t, u, c});
+        }
+        return TestTables.of(List.of("kT", "U", "C"), rows.toArray(new Object[0][]));
+    }
+
+    static BufferedImage decode(byte[] png) throws Exception {
+        return ImageIO.read(new ByteArrayInputStream(png));
+    }
+
+    @Test
+    void renderingIsHeadless() {
+        Charts.png(Charts.line(twoLevel(), "kT", "U"));
+        assertTrue(GraphicsEnvironment.isHeadless());
+        assertEquals("true", System.getProperty("java.awt.headless"));
+    }
+
+    @Test
+    void pngDecodesToTheRequestedSize() throws Exception {
+        XYChart chart = Charts.line(twoLevel(), "kT", "U", "C");
+        BufferedImage img = decode(Charts.png(chart));
+        assertEquals(Charts.WIDTH, img.getWidth());
+        assertEquals(Charts.HEIGHT, img.getHeight());
+        XYChart small = Charts.scatter(twoLevel(), "kT", "C");
+        small = resized(small, 320, 200);
+        BufferedImage img2 = decode(Charts.png(small));
+        assertEquals(320, img2.getWidth());
+        assertEquals(200, img2.getHeight());
+    }
+
+    private static XYChart resized(XYChart chart, int w, int h) {
+        XYChart c = new org.knowm.xchart.XYChartBuilder().width(w).height(h).build();
+        for (XYSeries s : chart.getSeriesCollection()) {
+            c.addSeries(s.getName(), s.getXData(), s.getYData());
+        }
+        return Charts.style(c);
+    }
+
+    @Test
+    void firstSeriesIsDrawnInOurFirstColour() throws Exception {
+        BufferedImage img = decode(Charts.png(Charts.line(twoLevel(), "kT", "U")));
+        int teal = Charts.PALETTE.get(0).getRGB() & 0xffffff;
+        int count = 0;
+        for (int y = 0; y < img.getHeight(); y++) {
+            for (int x = 0; x < img.getWidth(); x++) {
+                if ((img.getRGB(x, y) & 0xffffff) == teal) {
+                    count++;
+                }
+            }
+        }
+        assertTrue(count > 100, "pixels in the first palette colour: " + count);
+    }
+
+    @Test
+    void svgIsWellFormedXmlWithTheChartSize() throws Exception {
+        String svg = Charts.svg(Charts.line(twoLevel(), "kT", "U", "C"));
+        DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
+        f.setNamespaceAware(true);
+        f.setFeature("http://apache.org/xml/features/nonvalidating/load-external-dtd", false);
+        Document d = f.newDocumentBuilder().parse(new InputSource(new StringReader(svg)));
+        assertEquals("svg", d.getDocumentElement().getLocalName());
+        assertEquals("http://www.w3.org/2000/svg", d.getDocumentElement().getNamespaceURI());
+        String width = d.getDocumentElement().getAttribute("width");
+        assertTrue(width.startsWith("640") || d.getDocumentElement().getAttribute("viewBox").contains("640"),
+                "width=" + width + " viewBox=" + d.getDocumentElement().getAttribute("viewBox"));
+    }
+
+    @Test
+    void markupInNamesCannotGetIntoTheSvg() throws Exception {
+        String evil = "y <script>alert(1)</script>";
+        Tabular t = TestTables.of(List.of("x <&>", evil), new Object[] {1, 2.0}, new Object[] {2, 3.0});
+        XYChart chart = Charts.line(t, "x <&>", evil);
+        chart.setTitle("T \"q\" <i>");
+        String svg = Charts.svg(chart);
+        assertFalse(svg.contains("<script"), "script element in SVG");
+        DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
+        f.setFeature("http://apache.org/xml/features/nonvalidating/load-external-dtd", false);
+        Document d = f.newDocumentBuilder().parse(new InputSource(new StringReader(svg)));
+        assertEquals(0, d.getElementsByTagName("script").getLength());
+    }
+
+    @Test
+    void seriesHoldTheTableValues() {
+        Tabular t = twoLevel();
+        XYChart chart = Charts.line(t, "kT", "U", "C");
+        XYSeries c = chart.getSeries("C");
+        assertEquals(40, c.getXData().length);
+        for (int r = 0; r < 40; r++) {
+            assertEquals((Double) t.rows().get(r).get(0), c.getXData()[r]);
+            assertEquals((Double) t.rows().get(r).get(2), c.getYData()[r]);
+        }
+        assertEquals("kT", chart.getXAxisTitle());
+    }
+
+    @Test
+    void missingCellsAreLeftOut() {
+        Tabular t = TestTables.of(List.of("x", "y"), new Object[] {1, 2.0}, new Object[] {2, null},
+                new Object[] {3, 4.0});
+        XYSeries s = Charts.scatter(t, "x", "y").getSeries("y");
+        assertArrayEquals(new double[] {1, 3}, s.getXData());
+        assertArrayEquals(new double[] {2, 4}, s.getYData());
+    }
+
+    @Test
+    void barsOfAHistogram() throws Exception {
+        // Source: common practice, no source: totals of two six-sided dice occur 1,2,3,4,5,6,5,4,3,2,1 times
+        // out of 36 (the convolution of two uniform histograms).
+        int[] ways = {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1};
+        Object[][] rows = new Object[11][];
+        for (int i = 0; i < 11; i++) {
+            rows[i] = new Object[] {i + 2, BigInteger.valueOf(ways[i])};
+        }
+        CategoryChart chart = Charts.bars(TestTables.of(List.of("total", "ways"), rows), "total", "ways");
+        CategorySeries s = chart.getSeries("ways");
+        assertArrayEquals(new double[] {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1}, s.getYData());
+        BufferedImage img = decode(Charts.png(chart));
+        assertEquals(Charts.WIDTH, img.getWidth());
+    }
+
+    @Test
+    void spectrumSticksRiseToTheDegeneracies() throws Exception {
+        Spectrum s = Spectra.harmonicOscillator(3, 5);
+        XYChart chart = Charts.spectrum(s);
+        XYSeries levels = chart.getSeries("levels");
+        assertEquals("energy [hbar*omega]", chart.getXAxisTitle());
+        for (int n = 0; n <= 5; n++) {
+            assertEquals(n, levels.getXData()[3 * n + 1]);
+            // Source: closed form, 3D isotropic oscillator degeneracy g_n = (n+1)(n+2)/2
+            assertEquals((n + 1) * (n + 2) / 2.0, levels.getYData()[3 * n + 1]);
+            assertEquals(0.0, levels.getYData()[3 * n]);
+        }
+        assertEquals(Charts.HEIGHT, decode(Charts.png(chart)).getHeight());
+    }
+
+    @Test
+    void tooLargeExactValueIsRefusedNamingRowAndColumn() {
+        Tabular t = TestTables.of(List.of("E", "Omega"), new Object[] {0, BigInteger.ONE},
+                new Object[] {1, BigInteger.TEN.pow(400)});
+        InvalidInputException e = assertThrows(InvalidInputException.class, () -> Charts.line(t, "E", "Omega"));
+        assertTrue(e.getMessage().contains("row 1"), e.getMessage());
+        assertTrue(e.getMessage().contains("'Omega'"), e.getMessage());
+        assertTrue(e.getMessage().contains("(401 digits)"), e.getMessage());
+        assertTrue(e.getMessage().contains("logarithm"), e.getMessage());
+    }
+
+    @Test
+    void unknownColumnIsNamed() {
+        InvalidInputException e = assertThrows(InvalidInputException.class,
+                () -> Charts.line(twoLevel(), "kT", "S"));
+        assertTrue(e.getMessage().contains("'S'") && e.getMessage().contains("[kT, U, C]"), e.getMessage());
+    }
+
+    @Test
+    void combinedBundleShowsTableThenChart() throws Exception {
+        Tabular t = twoLevel();
+        MimeBundle table = TableDisplay.bundle(t, "two-level", List.of());
+        MimeBundle both = Charts.combine(table, Charts.line(t, "kT", "C"));
+        assertTrue(both.plain().startsWith(table.plain() + "\n"), both.plain());
+        assertTrue(both.plain().endsWith("chart (640\u00d7400 px): series C"), both.plain());
+        Document d = TableDisplayTest.parse(both.get(MimeBundle.TEXT_HTML));
+        assertEquals(1, d.getElementsByTagName("table").getLength());
+        org.w3c.dom.Element img = (org.w3c.dom.Element) d.getElementsByTagName("img").item(0);
+        String src = img.getAttribute("src");
+        assertTrue(src.startsWith("data:image/png;base64,"));
+        BufferedImage decoded = decode(Base64.getDecoder().decode(src.substring("data:image/png;base64,".length())));
+        assertEquals(640, decoded.getWidth());
+    }
+
+    @Test
+    void bundleCarriesPngAndSvgAndText() throws Exception {
+        MimeBundle b = Charts.bundle(Charts.line(twoLevel(), "kT", "U", "C"));
+        assertEquals("chart (640\u00d7400 px): series U, C", b.plain());
+        BufferedImage img = decode(Base64.getDecoder().decode(b.get(MimeBundle.IMAGE_PNG)));
+        assertEquals(400, img.getHeight());
+        assertTrue(b.get(MimeBundle.IMAGE_SVG).contains("<svg"));
+    }
+}
