@@ -1,0 +1,527 @@
+package org.microtally.ensemble;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Objects;
+import org.microtally.InvalidInputException;
+import org.microtally.ProgressListener;
+import org.microtally.Tabular;
+import org.microtally.occupation.ChemicalPotential;
+import org.microtally.occupation.CondensateDistribution;
+import org.microtally.occupation.LevelOccupations;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * The canonical ensemble (fixed N, T) of N ideal particles on a spectrum: exact partition function
+ * Z_N, thermodynamic quantities and exact mean occupations of every level, for Bose, Fermi,
+ * Gentile (at most k per state) and distinguishable particles.
+ *
+ * <h2>Definitions (k = 1, energies and kT in the spectrum's unit, beta = 1/kT)</h2>
+ * Z_N = sum over N-particle microstates of e^{-beta E}; F = -kT ln Z_N; U = &lt;E&gt;;
+ * S = ln Z_N + beta U; Var E = &lt;E^2&gt; - U^2; C_V = beta^2 Var E (the fluctuation formula,
+ * exact for dU/dT); &lt;n_i&gt; = mean number of particles in one state of level i.
+ * Distinguishable (labelled) particles: Z_N = Z_1^N, with Z_1 = sum_i g_i e^{-beta e_i}.
+ *
+ * <h2>Method (indistinguishable particles)</h2>
+ * Z_N is the coefficient of t^N in the generating product prod_states f(y_s t), with
+ * f(w) = 1 + w (Fermi), 1/(1-w) (Bose), 1 + w + ... + w^k (Gentile). The product is built one state
+ * at a time, level by level with degeneracy grouping, truncated at t^N: multiplying by (1 + y t)
+ * gives the elementary symmetric polynomials of the Boltzmann factors, by 1/(1 - y t) the complete
+ * homogeneous ones (the standard positive recurrences for these functions, e.g. Macdonald,
+ * <i>Symmetric Functions and Hall Polynomials</i>, ch. I.2). Every term added is a product of
+ * non-negative numbers. To keep magnitudes representable the Boltzmann factors are fugacity-scaled,
+ * y_s = e^{-beta(e_s - mu*)} with mu* the grand canonical chemical potential for mean number N
+ * (so the coefficients peak near t^N), and the mantissas share one exponent that is renormalised by
+ * exact powers of two. The alternating recursion of Borrmann &amp; Franke (J. Chem. Phys. 98, 2484
+ * (1993)) is available in {@link AlternatingRecursion} for comparison only.
+ *
+ * <p>Occupations. Bosons: P(n_s &gt;= j) = y_s^j Z_{N-j} / Z_N, so &lt;n_s&gt; = sum_{j&gt;=1}
+ * y_s^j Z_{N-j}/Z_N (positive terms, Horner). Fermi and Gentile: P(n_s = j) = y_s^j Z^{(-s)}_{N-j}/Z_N
+ * with Z^{(-s)} the partition functions without state s, obtained as the product of the prefix
+ * series (all states before s, kept from the forward pass) and a suffix series (all states after,
+ * built in a backward pass): again positive terms only, so deep levels keep full relative accuracy
+ * in their hole probability P(n_s = 0) and no deflation (division by 1 + y t, which is unstable on
+ * one side of mu) is used. The ground-level number distribution of bosons, P(N_0 = j) =
+ * C(g_0 + j - 1, j) y_0^j Z^{(-0)}_{N-j} / Z_N, comes from the series of all other levels.
+ * When M levels x (N+1) exceeds 2^23 numbers the prefix series are kept at sqrt(M) checkpoints
+ * and recomputed block-wise (one extra forward pass).
+ *
+ * <p>Heat capacity and energy variance (computed on first request) propagate, next to the series,
+ * the first and second moments of E - rN with r = U/N through the same steps (one more pass).
+ *
+ * <h2>Accuracy</h2>
+ * Rounding: each coefficient is a sum of products of non-negative numbers reached through at most
+ * S + N operations (S = number of states), so its relative error is below (S + N) 2^-53 (a worst-case
+ * bound; typical errors are near 1e-15 for S = 1e5). Flushing of tiny mantissas adds a relative
+ * error of at most S (N+1) 2^-1073 / P_GC(N), P_GC(N) being the grand canonical probability at mu*
+ * of exactly N particles (each flushed mantissa is below 2^-1073 of its series' maximum, which is at
+ * most the untruncated series value); a warning is added if that bound exceeds 1e-12. Occupations
+ * share these bounds. Var E carries an absolute error of about (S + N) 2^-53 N max(e_i - U/N)^2 from
+ * the signed moment terms, so C_V at very low T (C_V much below that) is an absolute, not relative,
+ * statement.
+ *
+ * <p>Cost: forward pass S N multiply-adds (Fermi/Gentile: fewer while fewer than N states are
+ * included); Fermi and Gentile occupations add the backward pass (a second S N); Bose occupations
+ * add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
+ */
+public final class Canonical implements Tabular {
+    private static final int MAX_N = 10_000_000;
+    private static final long STORE_ALL_LIMIT = 1L << 23;
+    private static final double FLUSH_WARNING = 1e-12;
+
+    private final Spectrum spectrum;
+    private final Statistics statistics;
+    private final int n;
+    private final double kT;
+    private final double beta;
+    private final double muStar;
+    private final double lnZ;
+    private final double energy;
+    private final double[] perState;
+    private final CondensateDistribution condensate;
+    private final List<String> warnings;
+    private final Object momentLock = new Object();
+    private double[] moments;
+
+    private Canonical(Spectrum spectrum, Statistics statistics, int n, double kT, double muStar, double lnZ,
+                      double[] perState, CondensateDistribution condensate, List<String> extraWarnings,
+                      double[] knownMoments) {
+        this.spectrum = spectrum;
+        this.statistics = statistics;
+        this.n = n;
+        this.kT = kT;
+        this.beta = 1.0 / kT;
+        this.muStar = muStar;
+        this.lnZ = lnZ;
+        this.perState = perState;
+        this.condensate = condensate;
+        double e0 = spectrum.groundEnergy();
+        double u = 0;
+        for (int i = 0; i < perState.length; i++) {
+            u += spectrum.degeneracy(i) * (spectrum.energy(i) - e0) * perState[i];
+        }
+        this.energy = n * e0 + u;
+        int top = spectrum.size() - 1;
+        List<String> w = new ArrayList<>(TruncationCheck.warnings(spectrum,
+                spectrum.degeneracy(top) * perState[top], n));
+        w.addAll(extraWarnings);
+        this.warnings = Collections.unmodifiableList(w);
+        this.moments = knownMoments;
+    }
+
+    /** The canonical ensemble of {@code n} particles at temperature {@code kT}; see the class notes. */
+    public static Canonical of(Spectrum spectrum, Statistics statistics, int n, double kT) {
+        return of(spectrum, statistics, n, kT, ProgressListener.NONE);
+    }
+
+    /**
+     * As {@link #of(Spectrum, Statistics, int, double)}, reporting progress over the levels.
+     *
+     * @throws InvalidInputException for kT &lt;= 0 or not finite; n &lt; 1 or n &gt; 10^7; n above the
+     *                               capacity (k per state) of a capped spectrum
+     */
+    public static Canonical of(Spectrum spectrum, Statistics statistics, int n, double kT, ProgressListener progress) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        Objects.requireNonNull(statistics, "statistics");
+        Objects.requireNonNull(progress, "progress");
+        GrandCanonical.requireTemperature(kT);
+        requireParticleNumber(spectrum, statistics, n);
+        if (statistics.kind() == Statistics.Kind.DISTINGUISHABLE) {
+            return distinguishable(spectrum, n, kT);
+        }
+        double capacity = statistics.capped() ? (double) statistics.maxOccupancy() * spectrum.stateCount()
+                : Double.POSITIVE_INFINITY;
+        double target = Math.min(n, capacity - 0.5);
+        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, target);
+        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress)
+                : bose(spectrum, n, kT, muStar, progress);
+    }
+
+    /**
+     * The T -&gt; 0 limit: the lowest N-particle energy, its exact degeneracy and the occupations
+     * (each state of a partly filled level holds the same share, the limit of the canonical
+     * occupations by symmetry).
+     */
+    public static GroundState groundState(Spectrum spectrum, Statistics statistics, int n) {
+        requireParticleNumber(spectrum, statistics, n);
+        int m = spectrum.size();
+        double[] occ = new double[m];
+        long cap = statistics.capped() ? statistics.maxOccupancy() : Long.MAX_VALUE;
+        BigInteger degeneracy;
+        double e;
+        if (!statistics.capped()) {
+            occ[0] = (double) n / spectrum.degeneracy(0);
+            e = n * spectrum.groundEnergy();
+            int g0 = spectrum.degeneracy(0);
+            degeneracy = statistics.indistinguishable() ? binomial(g0 + n - 1L, n)
+                    : BigInteger.valueOf(g0).pow(n);
+        } else {
+            long left = n;
+            e = 0;
+            degeneracy = BigInteger.ONE;
+            for (int i = 0; i < m && left > 0; i++) {
+                long g = spectrum.degeneracy(i);
+                long put = Math.min(left, g * cap);
+                occ[i] = (double) put / g;
+                e += put * spectrum.energy(i);
+                if (put < g * cap) {
+                    degeneracy = cappedWays((int) g, (int) cap, (int) put);
+                }
+                left -= put;
+            }
+        }
+        return new GroundState(e, degeneracy, new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), occ));
+    }
+
+    private static void requireParticleNumber(Spectrum spectrum, Statistics statistics, int n) {
+        if (n < 1 || n > MAX_N) {
+            throw InvalidInputException.of("particle number N", n, "an integer in [1, " + MAX_N + "]",
+                    "N = 0 is the empty system (Z = 1, U = S = C = 0) and needs no computation.");
+        }
+        if (statistics.capped()) {
+            long capacity = (long) statistics.maxOccupancy() * spectrum.stateCount();
+            if (n > capacity) {
+                throw InvalidInputException.of("particle number N", n,
+                        "at most the capacity " + capacity + " of the spectrum (" + statistics.maxOccupancy()
+                                + " per state x " + spectrum.stateCount() + " states)",
+                        "Raise the spectrum's cutoff.");
+            }
+        }
+    }
+
+    private static Canonical distinguishable(Spectrum s, int n, double kT) {
+        double beta = 1.0 / kT;
+        double e0 = s.groundEnergy();
+        double z1 = 0;
+        double m1 = 0;
+        double m2 = 0;
+        for (int i = 0; i < s.size(); i++) {
+            double d = s.energy(i) - e0;
+            double w = s.degeneracy(i) * Math.exp(-beta * d);
+            z1 += w;
+            m1 += w * d;
+            m2 += w * d * d;
+        }
+        double mean = m1 / z1;
+        double var1 = Math.max(0.0, m2 / z1 - mean * mean);
+        double lnZ1 = Math.log(z1) - beta * e0;
+        double[] occ = new double[s.size()];
+        for (int i = 0; i < occ.length; i++) {
+            occ[i] = n * Math.exp(-beta * (s.energy(i) - e0)) / z1;
+        }
+        double mu = ChemicalPotential.forMeanNumber(s, Statistics.DISTINGUISHABLE, kT, n);
+        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null, List.of(),
+                new double[] {n * var1});
+    }
+
+    private static double lnY(Spectrum s, int i, double beta, double muStar) {
+        return -beta * (s.energy(i) - muStar);
+    }
+
+    private static Canonical bose(Spectrum s, int n, double kT, double muStar, ProgressListener progress) {
+        double beta = 1.0 / kT;
+        int m = s.size();
+        ScaledSeries z = new ScaledSeries(n, false);
+        ScaledSeries others = null;
+        long every = Math.max(1, m / 100);
+        for (int i = m - 1; i >= 0; i--) {
+            if (i == 0) {
+                others = z.copy();
+            }
+            z.multiplyStates(s.degeneracy(i), lnY(s, i, beta, muStar), Integer.MAX_VALUE, 0);
+            if ((m - i) % every == 0) {
+                progress.progress(m - i, m, "levels");
+            }
+        }
+        double cn = z.c[n];
+        double[] occ = new double[m];
+        for (int i = 0; i < m; i++) {
+            double y = Math.exp(lnY(s, i, beta, muStar));
+            double acc = 0;
+            for (int k = 0; k < n; k++) {
+                acc = acc * y + z.c[k];
+            }
+            occ[i] = y * acc / cn;
+        }
+        double lnZn = z.logCoefficient(n);
+        double[] p = new double[n + 1];
+        double lnY0 = lnY(s, 0, beta, muStar);
+        int g0 = s.degeneracy(0);
+        double lnL = 0;
+        double sum = 0;
+        for (int j = 0; j <= n; j++) {
+            if (j > 0) {
+                lnL += lnY0 + Math.log((g0 + j - 1.0) / j);
+            }
+            double lc = others.logCoefficient(n - j);
+            p[j] = lc == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lnL + lc - lnZn);
+            sum += p[j];
+        }
+        for (int j = 0; j <= n; j++) {
+            p[j] /= sum;
+        }
+        List<String> extra = new ArrayList<>();
+        flushCheck(s, Statistics.BOSE, kT, muStar, n, lnZn, extra);
+        if (Math.abs(sum - 1) > 1e-9) {
+            extra.add("internal consistency: condensate probabilities summed to " + sum + " before normalisation");
+        }
+        return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ,
+                new CondensateDistribution(p), extra, null);
+    }
+
+    private static Canonical capped(Spectrum s, Statistics st, int n, double kT, double muStar,
+                                    ProgressListener progress) {
+        double beta = 1.0 / kT;
+        int m = s.size();
+        int cap = st.maxOccupancy();
+        boolean storeAll = (long) m * (n + 1) <= STORE_ALL_LIMIT;
+        int block = storeAll ? m : (int) Math.ceil(Math.sqrt(m));
+        int blocks = (m + block - 1) / block;
+        ScaledSeries[] checkpoints = new ScaledSeries[blocks];
+        ScaledSeries[] q = new ScaledSeries[storeAll ? m : block];
+        ScaledSeries z = new ScaledSeries(n, false);
+        long total = 2L * m;
+        long every = Math.max(1, m / 50);
+        for (int i = 0; i < m; i++) {
+            if (i % block == 0) {
+                checkpoints[i / block] = storeAll ? null : z.copy();
+            }
+            double ly = lnY(s, i, beta, muStar);
+            z.multiplyStates(s.degeneracy(i) - 1, ly, cap, 0);
+            if (storeAll) {
+                q[i] = z.copy();
+            }
+            z.multiplyStates(1, ly, cap, 0);
+            if ((i + 1) % every == 0) {
+                progress.progress(i + 1, total, "levels (forward)");
+            }
+        }
+        double lnZn = z.logCoefficient(n);
+        double[] occ = new double[m];
+        double worstMismatch = 0;
+        ScaledSeries suffix = new ScaledSeries(n, false);
+        double[] lp = new double[cap + 1];
+        for (int b = blocks - 1; b >= 0; b--) {
+            int from = b * block;
+            int to = Math.min(m, from + block);
+            if (!storeAll) {
+                ScaledSeries w = checkpoints[b].copy();
+                for (int i = from; i < to; i++) {
+                    double ly = lnY(s, i, beta, muStar);
+                    w.multiplyStates(s.degeneracy(i) - 1, ly, cap, 0);
+                    q[i - from] = w.copy();
+                    w.multiplyStates(1, ly, cap, 0);
+                }
+            }
+            for (int i = to - 1; i >= from; i--) {
+                ScaledSeries qi = q[storeAll ? i : i - from];
+                double ly = lnY(s, i, beta, muStar);
+                double max = Double.NEGATIVE_INFINITY;
+                for (int j = 0; j <= cap; j++) {
+                    double c = qi.logProductCoefficient(suffix, n - j);
+                    lp[j] = c == Double.NEGATIVE_INFINITY ? c : c + j * ly;
+                    max = Math.max(max, lp[j]);
+                }
+                double s0 = 0;
+                double s1 = 0;
+                for (int j = 0; j <= cap; j++) {
+                    double w = lp[j] == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lp[j] - max);
+                    s0 += w;
+                    s1 += j * w;
+                }
+                occ[i] = s1 / s0;
+                worstMismatch = Math.max(worstMismatch, Math.abs(max + Math.log(s0) - lnZn));
+                q[storeAll ? i : i - from] = null;
+                suffix.multiplyStates(s.degeneracy(i), ly, cap, 0);
+                long done = m + (m - i);
+                if ((m - i) % every == 0) {
+                    progress.progress(done, total, "levels (occupations)");
+                }
+            }
+        }
+        List<String> extra = new ArrayList<>();
+        flushCheck(s, st, kT, muStar, n, lnZn, extra);
+        if (worstMismatch > 1e-8) {
+            extra.add("internal consistency: a prefix x suffix product differed from Z_N by " + worstMismatch
+                    + " in ln; occupations may be inaccurate");
+        }
+        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, null, extra, null);
+    }
+
+    private static void flushCheck(Spectrum s, Statistics st, double kT, double muStar, int n, double lnZnScaled,
+                                   List<String> out) {
+        double lnXi = GrandCanonical.atChemicalPotential(s, st, kT, muStar).lnXi();
+        double lnPgc = lnZnScaled - lnXi;
+        double lnBound = Math.log((double) s.stateCount()) + Math.log(n + 1.0) - 1073 * Math.log(2.0) - lnPgc;
+        if (lnBound > Math.log(FLUSH_WARNING)) {
+            out.add("underflow bound on the relative error of Z_N is e^" + lnBound
+                    + " (grand canonical probability of exactly N at mu* is e^" + lnPgc + ")");
+        }
+    }
+
+    private double[] moments() {
+        synchronized (momentLock) {
+            if (moments == null) {
+                moments = new double[] {computeEnergyVariance()};
+            }
+            return moments;
+        }
+    }
+
+    private double computeEnergyVariance() {
+        int m = spectrum.size();
+        double r = energy / n;
+        int cap = statistics.capped() ? statistics.maxOccupancy() : Integer.MAX_VALUE;
+        ScaledSeries w = new ScaledSeries(n, true);
+        for (int step = 0; step < m; step++) {
+            int i = statistics.capped() ? step : m - 1 - step;
+            w.multiplyStates(spectrum.degeneracy(i), lnY(spectrum, i, beta, muStar), cap, spectrum.energy(i) - r);
+        }
+        double mean = w.u[n] / w.c[n];
+        return Math.max(0.0, w.v[n] / w.c[n] - mean * mean);
+    }
+
+    /** The spectrum. */
+    public Spectrum spectrum() {
+        return spectrum;
+    }
+
+    /** The statistics. */
+    public Statistics statistics() {
+        return statistics;
+    }
+
+    /** Particle number N. */
+    public int particleNumber() {
+        return n;
+    }
+
+    /** Temperature kT in the spectrum's unit. */
+    public double kT() {
+        return kT;
+    }
+
+    /** beta = 1/kT. */
+    public double beta() {
+        return beta;
+    }
+
+    /** ln Z_N. */
+    public double lnZ() {
+        return lnZ;
+    }
+
+    /** Helmholtz free energy F = -kT ln Z_N. */
+    public double freeEnergy() {
+        return -kT * lnZ;
+    }
+
+    /** Mean energy U = sum_i g_i e_i &lt;n_i&gt;. */
+    public double energy() {
+        return energy;
+    }
+
+    /** Entropy S/k = ln Z_N + U/kT. */
+    public double entropy() {
+        return lnZ + energy / kT;
+    }
+
+    /** Energy variance &lt;E^2&gt; - U^2 (computed on first request, one more pass). */
+    public double energyVariance() {
+        return moments()[0];
+    }
+
+    /** Heat capacity C_V/k = Var E / (kT)^2. */
+    public double heatCapacity() {
+        return energyVariance() / (kT * kT);
+    }
+
+    /** Exact mean occupation of every level. */
+    public LevelOccupations occupations() {
+        return new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), perState);
+    }
+
+    /** Whether {@link #condensate()} is available (bosons). */
+    public boolean hasCondensate() {
+        return condensate != null;
+    }
+
+    /**
+     * The exact canonical distribution of the number of particles in the lowest level (bosons).
+     *
+     * @throws InvalidInputException for other statistics
+     */
+    public CondensateDistribution condensate() {
+        if (condensate == null) {
+            throw InvalidInputException.of("statistics for the condensate distribution", statistics, "BOSE",
+                    "Use occupations() for the mean occupation of the lowest level.");
+        }
+        return condensate;
+    }
+
+    /** The fugacity scale mu* used internally (the grand canonical mu for mean number N;
+     * Maxwell-Boltzmann mu for distinguishable particles). */
+    public double referenceChemicalPotential() {
+        return muStar;
+    }
+
+    /** Warnings (cutoff that matters, numerical bounds exceeded); empty when none. */
+    public List<String> warnings() {
+        return warnings;
+    }
+
+    @Override
+    public List<String> columnNames() {
+        return List.of("quantity", "value");
+    }
+
+    @Override
+    public List<List<Object>> rows() {
+        List<List<Object>> r = new ArrayList<>();
+        r.add(List.of("statistics", statistics.toString()));
+        r.add(List.of("N", n));
+        r.add(List.of("kT", kT));
+        r.add(List.of("ln Z", lnZ));
+        r.add(List.of("F", freeEnergy()));
+        r.add(List.of("U", energy));
+        r.add(List.of("S/k", entropy()));
+        r.add(List.of("C/k", heatCapacity()));
+        r.add(List.of("Var E", energyVariance()));
+        if (condensate != null) {
+            r.add(List.of("<N_0>", condensate.mean()));
+            r.add(List.of("Var N_0", condensate.variance()));
+        }
+        for (String w : warnings) {
+            r.add(List.of("warning", w));
+        }
+        return r;
+    }
+
+    static BigInteger binomial(long a, long b) {
+        BigInteger r = BigInteger.ONE;
+        for (long i = 1; i <= b; i++) {
+            r = r.multiply(BigInteger.valueOf(a - b + i)).divide(BigInteger.valueOf(i));
+        }
+        return r;
+    }
+
+    /** Number of ways to put {@code r} indistinguishable particles into g states, at most k each. */
+    static BigInteger cappedWays(int g, int k, int r) {
+        BigInteger[] w = new BigInteger[r + 1];
+        java.util.Arrays.fill(w, BigInteger.ZERO);
+        w[0] = BigInteger.ONE;
+        for (int s = 0; s < g; s++) {
+            for (int t = r; t >= 1; t--) {
+                BigInteger acc = w[t];
+                for (int j = 1; j <= Math.min(k, t); j++) {
+                    acc = acc.add(w[t - j]);
+                }
+                w[t] = acc;
+            }
+        }
+        return w[r];
+    }
+}

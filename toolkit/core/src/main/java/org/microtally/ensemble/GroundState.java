@@ -1,0 +1,24 @@
+package org.microtally.ensemble;
+
+import java.math.BigInteger;
+import org.microtally.occupation.LevelOccupations;
+
+/**
+ * The T -&gt; 0 limit of the canonical ensemble: lowest N-particle energy, its exact number of
+ * microstates (so S(T -&gt; 0)/k = ln degeneracy) and the limiting occupations.
+ *
+ * @param energy      lowest total energy
+ * @param degeneracy  exact number of N-particle microstates at that energy
+ * @param occupations mean occupation of every level in the limit
+ */
+public record GroundState(double energy, BigInteger degeneracy, LevelOccupations occupations) {
+    /** S/k = ln(degeneracy), the T -&gt; 0 entropy. */
+    public double entropy() {
+        int bits = degeneracy.bitLength();
+        if (bits < 1000) {
+            return Math.log(degeneracy.doubleValue());
+        }
+        int shift = bits - 60;
+        return Math.log(degeneracy.shiftRight(shift).doubleValue()) + shift * Math.log(2.0);
+    }
+}

@@ -1,0 +1,309 @@
+package org.microtally.ensemble;
+
+/**
+ * A power series in t truncated at t^N, stored as mantissas c[0..N] times a common factor
+ * e^{logScale}, with optional first and second energy-moment companions (u, v). Package-private
+ * engine of {@link Canonical}.
+ *
+ * <p>The series is the generating function prod_states f(y_s t) of the canonical partition
+ * functions, with fugacity-scaled Boltzmann factors y_s = e^{-beta (e_s - mu*)}: its coefficient
+ * c_n is Z_n e^{beta mu* n}. One single-particle state is multiplied in by one of the steps below;
+ * every step adds products of non-negative numbers only (for c; the moment companions carry signed
+ * energies). Mantissas are rescaled by exact powers of two whenever a bound on their growth passes
+ * 2^400, so nothing overflows; coefficients that fall below 2^-1074 of the largest one are flushed
+ * to zero (the error this causes is bounded in {@link Canonical}'s documentation).
+ *
+ * <p>Moments: with e_s measured from a reference energy per particle r (eps_s = e_s - r), u_n and
+ * v_n are the sums over n-particle configurations of weight times (E - r n) and (E - r n)^2.
+ */
+final class ScaledSeries {
+    private static final double GROWTH_LIMIT = 0x1p400;
+    private static final double BIG_LOG_FACTOR = 200.0;
+
+    final int n;
+    final double[] c;
+    final double[] u;
+    final double[] v;
+    int degree;
+    double logScale;
+    private double growth = 1;
+
+    /** The series 1 (no states yet). */
+    ScaledSeries(int n, boolean moments) {
+        this.n = n;
+        this.c = new double[n + 1];
+        this.c[0] = 1;
+        this.u = moments ? new double[n + 1] : null;
+        this.v = moments ? new double[n + 1] : null;
+        this.degree = 0;
+        this.logScale = 0;
+    }
+
+    private ScaledSeries(ScaledSeries o) {
+        this.n = o.n;
+        this.c = o.c.clone();
+        this.u = o.u == null ? null : o.u.clone();
+        this.v = o.v == null ? null : o.v.clone();
+        this.degree = o.degree;
+        this.logScale = o.logScale;
+        this.growth = o.growth;
+    }
+
+    ScaledSeries copy() {
+        return new ScaledSeries(this);
+    }
+
+    /** ln of the true coefficient m, or -infinity if it was flushed to zero. */
+    double logCoefficient(int m) {
+        return m < 0 || m > degree || c[m] <= 0 ? Double.NEGATIVE_INFINITY : Math.log(c[m]) + logScale;
+    }
+
+    /**
+     * Multiplies in {@code count} states with ln y = {@code lnY} under occupancy cap {@code cap}
+     * ({@code Integer.MAX_VALUE} for bosons), energies eps relative to the moment reference.
+     */
+    void multiplyStates(int count, double lnY, int cap, double eps) {
+        int s = 0;
+        if (cap == Integer.MAX_VALUE && lnY < 0) {
+            double g1 = Math.min(n + 1.0, -1.0 / Math.expm1(lnY));
+            double g4 = g1 * g1 * g1 * g1;
+            for (; s + 4 <= count; s += 4) {
+                if (growth * g4 > GROWTH_LIMIT) {
+                    renormalize();
+                }
+                boseFourSteps(lnY, eps);
+                growth *= g4;
+            }
+        }
+        for (; s < count; s++) {
+            if (cap == Integer.MAX_VALUE) {
+                boseStep(lnY, eps);
+            } else if (cap == 1) {
+                fermiStep(lnY, eps);
+            } else {
+                gentileStep(lnY, cap, eps);
+            }
+            if (growth > GROWTH_LIMIT) {
+                renormalize();
+            }
+        }
+        renormalize();
+    }
+
+    /**
+     * Multiplies by 1/(1 - y t)^4 as four successive single-state steps evaluated in one sweep over m
+     * (stage s at index m needs stage s-1 at m and stage s at m-1, so the four recurrences pipeline
+     * instead of waiting on one another); the arithmetic is exactly that of four {@link #boseStep}s.
+     */
+    private void boseFourSteps(double lnY, double eps) {
+        double y = Math.exp(lnY);
+        degree = n;
+        if (u == null) {
+            double a1 = c[0];
+            double a2 = a1;
+            double a3 = a1;
+            double a4 = a1;
+            for (int m = 1; m <= n; m++) {
+                a1 = c[m] + y * a1;
+                a2 = a1 + y * a2;
+                a3 = a2 + y * a3;
+                a4 = a3 + y * a4;
+                c[m] = a4;
+            }
+        } else {
+            double e2 = eps * eps;
+            double c1 = c[0];
+            double c2 = c1;
+            double c3 = c1;
+            double c4 = c1;
+            double u1 = u[0];
+            double u2 = u1;
+            double u3 = u1;
+            double u4 = u1;
+            double v1 = v[0];
+            double v2 = v1;
+            double v3 = v1;
+            double v4 = v1;
+            for (int m = 1; m <= n; m++) {
+                v1 = v[m] + y * (v1 + 2 * eps * u1 + e2 * c1);
+                u1 = u[m] + y * (u1 + eps * c1);
+                c1 = c[m] + y * c1;
+                v2 = v1 + y * (v2 + 2 * eps * u2 + e2 * c2);
+                u2 = u1 + y * (u2 + eps * c2);
+                c2 = c1 + y * c2;
+                v3 = v2 + y * (v3 + 2 * eps * u3 + e2 * c3);
+                u3 = u2 + y * (u3 + eps * c3);
+                c3 = c2 + y * c3;
+                v4 = v3 + y * (v4 + 2 * eps * u4 + e2 * c4);
+                u4 = u3 + y * (u4 + eps * c4);
+                c4 = c3 + y * c4;
+                c[m] = c4;
+                u[m] = u4;
+                v[m] = v4;
+            }
+        }
+    }
+
+    /** Multiplies by 1/(1 - y t) = sum_j y^j t^j (y &lt; 1 required). */
+    private void boseStep(double lnY, double eps) {
+        double y = Math.exp(lnY);
+        degree = n;
+        if (u == null) {
+            for (int m = 1; m <= n; m++) {
+                c[m] += y * c[m - 1];
+            }
+        } else {
+            double e2 = eps * eps;
+            for (int m = 1; m <= n; m++) {
+                double cp = c[m - 1];
+                double up = u[m - 1];
+                v[m] += y * (v[m - 1] + 2 * eps * up + e2 * cp);
+                u[m] += y * (up + eps * cp);
+                c[m] += y * cp;
+            }
+        }
+        double ratio = -Math.expm1(lnY);
+        growth *= Math.min(n + 1.0, 1.0 / ratio);
+    }
+
+    /** Multiplies by (1 + y t); for y &gt; e^200 divides by y first and adds ln y to the scale. */
+    private void fermiStep(double lnY, double eps) {
+        int top = Math.min(n, degree + 1);
+        if (lnY <= BIG_LOG_FACTOR) {
+            double y = Math.exp(lnY);
+            if (u == null) {
+                for (int m = top; m >= 1; m--) {
+                    c[m] += y * c[m - 1];
+                }
+            } else {
+                double e2 = eps * eps;
+                for (int m = top; m >= 1; m--) {
+                    double cp = c[m - 1];
+                    double up = u[m - 1];
+                    v[m] += y * (v[m - 1] + 2 * eps * up + e2 * cp);
+                    u[m] += y * (up + eps * cp);
+                    c[m] += y * cp;
+                }
+            }
+            growth *= 1.0 + Math.max(1.0, y);
+        } else {
+            double r = Math.exp(-lnY);
+            if (u == null) {
+                for (int m = top; m >= 1; m--) {
+                    c[m] = c[m] * r + c[m - 1];
+                }
+                c[0] *= r;
+            } else {
+                double e2 = eps * eps;
+                for (int m = top; m >= 1; m--) {
+                    double cp = c[m - 1];
+                    double up = u[m - 1];
+                    v[m] = v[m] * r + v[m - 1] + 2 * eps * up + e2 * cp;
+                    u[m] = u[m] * r + up + eps * cp;
+                    c[m] = c[m] * r + cp;
+                }
+                c[0] *= r;
+                u[0] *= r;
+                v[0] *= r;
+            }
+            logScale += lnY;
+            growth *= 2;
+        }
+        degree = top;
+    }
+
+    /** Multiplies by 1 + y t + ... + (y t)^k; weights taken as y^(j-k) when y &gt; 1. */
+    private void gentileStep(double lnY, int k, double eps) {
+        int top = (int) Math.min(n, (long) degree + k);
+        double[] w = new double[k + 1];
+        if (lnY <= 0) {
+            double y = Math.exp(lnY);
+            w[0] = 1;
+            for (int j = 1; j <= k; j++) {
+                w[j] = w[j - 1] * y;
+            }
+        } else {
+            double r = Math.exp(-lnY);
+            w[k] = 1;
+            for (int j = k - 1; j >= 0; j--) {
+                w[j] = w[j + 1] * r;
+            }
+            logScale += k * lnY;
+        }
+        for (int m = top; m >= 0; m--) {
+            int jmax = Math.min(k, m);
+            double sc = 0;
+            double su = 0;
+            double sv = 0;
+            for (int j = 0; j <= jmax; j++) {
+                double cj = c[m - j];
+                if (cj == 0 && (u == null || u[m - j] == 0)) {
+                    continue;
+                }
+                double wj = w[j];
+                sc += wj * cj;
+                if (u != null) {
+                    double je = j * eps;
+                    sv += wj * (v[m - j] + 2 * je * u[m - j] + je * je * cj);
+                    su += wj * (u[m - j] + je * cj);
+                }
+            }
+            c[m] = sc;
+            if (u != null) {
+                u[m] = su;
+                v[m] = sv;
+            }
+        }
+        degree = top;
+        growth *= k + 1.0;
+    }
+
+    /** Rescales all mantissas by an exact power of two so the largest c lies in [1, 2). */
+    void renormalize() {
+        double max = 0;
+        for (int m = 0; m <= degree; m++) {
+            if (c[m] > max) {
+                max = c[m];
+            }
+        }
+        growth = 1;
+        if (max == 0 || !Double.isFinite(max)) {
+            if (max != 0) {
+                throw new IllegalStateException("scaled series overflowed; please report this input");
+            }
+            return;
+        }
+        int e = Math.getExponent(max);
+        if (e == 0) {
+            return;
+        }
+        for (int m = 0; m <= degree; m++) {
+            c[m] = Math.scalb(c[m], -e);
+        }
+        if (u != null) {
+            for (int m = 0; m <= degree; m++) {
+                u[m] = Math.scalb(u[m], -e);
+                v[m] = Math.scalb(v[m], -e);
+            }
+        }
+        logScale += e * Math.log(2.0);
+    }
+
+    /**
+     * ln of the coefficient at {@code m} of the product of this series and {@code other}:
+     * ln sum_a this[a] other[m - a] (non-negative terms).
+     */
+    double logProductCoefficient(ScaledSeries other, int m) {
+        if (m < 0) {
+            return Double.NEGATIVE_INFINITY;
+        }
+        int aLo = Math.max(0, m - other.degree);
+        int aHi = Math.min(m, degree);
+        double s = 0;
+        double[] o = other.c;
+        for (int a = aLo; a <= aHi; a++) {
+            s += c[a] * o[m - a];
+        }
+        return s > 0 ? Math.log(s) + logScale + other.logScale : Double.NEGATIVE_INFINITY;
+    }
+}

@@ -1,0 +1,69 @@
+package org.microtally.ensemble;
+
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import org.junit.jupiter.api.Test;
+import org.microtally.InvalidInputException;
+import org.microtally.occupation.ChemicalPotential;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+/** Each item of the bad-input list: the error names the offending value. */
+class BadInputTest {
+    private final Spectrum dot = Spectra.harmonicOscillator(2, 5);
+
+    private static void assertNames(InvalidInputException e, String value) {
+        assertTrue(e.getMessage().contains(value), e.getMessage());
+    }
+
+    @Test
+    void nonPositiveOrNaNTemperature() {
+        for (double t : new double[] {0.0, -1.5, Double.NaN, Double.POSITIVE_INFINITY}) {
+            assertNames(assertThrows(InvalidInputException.class,
+                    () -> Canonical.of(dot, Statistics.FERMI, 3, t)), "kT = " + t);
+            assertNames(assertThrows(InvalidInputException.class,
+                    () -> GrandCanonical.atMeanNumber(dot, Statistics.BOSE, t, 3)), "kT = " + t);
+            assertNames(assertThrows(InvalidInputException.class,
+                    () -> GrandCanonical.atChemicalPotential(dot, Statistics.FERMI, t, 0.5)), "kT = " + t);
+        }
+    }
+
+    @Test
+    void targetAboveFermiCapacity() {
+        // 21 states in the 2D oscillator up to 5 quanta
+        InvalidInputException e = assertThrows(InvalidInputException.class,
+                () -> GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 1.0, 21));
+        assertNames(e, "= 21.0");
+        assertTrue(e.getMessage().contains("capacity 21"), e.getMessage());
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> Canonical.of(dot, Statistics.FERMI, 22, 1.0)), "N = 22");
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> GrandCanonical.atMeanNumber(dot, Statistics.maxOccupancy(2), 1.0, 50)), "= 50.0");
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> ChemicalPotential.fermiLevel(dot, Statistics.FERMI, 21)), "= 21");
+    }
+
+    @Test
+    void boseChemicalPotentialOutsideBracket() {
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> GrandCanonical.atChemicalPotential(dot, Statistics.BOSE, 1.0, 0.0)), "mu for bosons = 0.0");
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> GrandCanonical.atChemicalPotential(dot, Statistics.BOSE, 1.0, 2.5)), "= 2.5");
+    }
+
+    @Test
+    void zeroParticles() {
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> Canonical.of(dot, Statistics.BOSE, 0, 1.0)), "N = 0");
+        assertNames(assertThrows(InvalidInputException.class,
+                () -> GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 1.0, 0)), "= 0.0");
+    }
+
+    @Test
+    void condensateOnlyForBosons() {
+        Canonical f = Canonical.of(dot, Statistics.FERMI, 3, 1.0);
+        assertNames(assertThrows(InvalidInputException.class, f::condensate), "FERMI");
+    }
+}
