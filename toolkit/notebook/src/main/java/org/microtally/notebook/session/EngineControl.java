@@ -22,6 +22,7 @@ final class EngineControl extends DirectExecutionControl {
     private static final AtomicInteger THREADS = new AtomicInteger();
 
     private final ThreadGroup group;
+    private final Object stopLock = new Object();
     private volatile Thread running;
     private volatile boolean stopRequested;
     private volatile Object lastValue = NO_VALUE;
@@ -65,7 +66,9 @@ final class EngineControl extends DirectExecutionControl {
     }
 
     void clearStop() {
-        stopRequested = false;
+        synchronized (stopLock) {
+            stopRequested = false;
+        }
     }
 
     @Override
@@ -122,9 +125,15 @@ final class EngineControl extends DirectExecutionControl {
         }, "microtally-cell-" + THREADS.incrementAndGet(), STACK_SIZE);
         t.setDaemon(true);
         t.setContextClassLoader(Thread.currentThread().getContextClassLoader());
-        running = t;
         try {
-            t.start();
+            synchronized (stopLock) {
+                if (stopRequested) {
+                    // stopped while JShell was still compiling: do not start the snippet at all
+                    throw new UserFailure(new InterruptedException("stopped before the snippet started"));
+                }
+                running = t;
+                t.start();
+            }
             t.join();
         } finally {
             running = null;
@@ -145,8 +154,11 @@ final class EngineControl extends DirectExecutionControl {
     @Override
     @SuppressWarnings({"deprecation", "removal"})
     public void stop() {
-        stopRequested = true;
-        Thread t = running;
+        Thread t;
+        synchronized (stopLock) {
+            stopRequested = true;
+            t = running;
+        }
         if (t == null) {
             return;
         }

@@ -213,7 +213,7 @@ class SessionTest {
         stopper.join();
         assertEquals(CellResult.Outcome.INTERRUPTED, r.outcome());
         assertEquals("Interrupted", r.error().orElseThrow().type());
-        assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(10));
+        assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(20), "interrupt took too long");
     }
 
     @Test
