@@ -17,7 +17,10 @@ import org.apache.commons.math3.fraction.Fraction;
  *       {@link TableFormat#maxDigits()} digits, beyond that as the leading digits, an ellipsis and
  *       the digit count: {@code 933262154439…(158 digits)}. Never rounded.</li>
  *   <li>Exact fractions ({@link BigFraction}, {@link Fraction}, strings {@code p/q}) as
- *       {@code p/q}, each part abbreviated as above.</li>
+ *       {@code p/q} while both parts fit in {@link TableFormat#maxDigits()} digits; otherwise as
+ *       their value marked approximate, {@code ≈6.2682846e77} (p/q to the significant digits of the
+ *       format, correctly rounded from the exact quotient), since truncated digits of p and q say
+ *       nothing about the size of p/q. {@link #exact} keeps {@code p/q}.</li>
  *   <li>Floating-point numbers rounded half-even to {@link TableFormat#significantDigits()}
  *       significant digits (they are approximations already; {@link #exact} gives the shortest
  *       decimal that reads back to the same double), plain between 1e-4 and 1e9, otherwise in
@@ -30,6 +33,7 @@ public final class CellText {
     private static final Pattern INTEGER = Pattern.compile("-?[0-9]+");
     private static final Pattern FRACTION = Pattern.compile("-?[0-9]+/[0-9]+");
     private static final String ELLIPSIS = "\u2026";
+    private static final String APPROX = "\u2248";
 
     private CellText() { }
 
@@ -118,7 +122,15 @@ public final class CellText {
         if (den.equals("1")) {
             return integer(num, format);
         }
-        return integer(num, format) + "/" + integer(den, format);
+        if (digitCount(num) <= format.maxDigits() && digitCount(den) <= format.maxDigits()) {
+            return num + "/" + den;
+        }
+        return APPROX + floating(decimalValue(new BigInteger(num), new BigInteger(den)), format.significantDigits());
+    }
+
+    /** The double nearest to p/q for any size of p and q (0 or infinity only beyond the double range). */
+    public static double decimalValue(BigInteger p, BigInteger q) {
+        return new BigDecimal(p).divide(new BigDecimal(q), MathContext.DECIMAL128).doubleValue();
     }
 
     private static String decimal(BigDecimal d, TableFormat format) {

@@ -69,6 +69,7 @@ public final class Renderers {
         register(BufferedImage.class, Charts::bundle);
         register(Collection.class, c -> MimeBundle.text(collection(c)));
         register(Map.class, m -> MimeBundle.text(map(m)));
+        ResultDisplays.registerAll();
     }
 
     private Renderers() { }

@@ -16,7 +16,7 @@ public final class TableDisplay {
     /** The style sheet scoped to our own class names; included once at the top of each HTML table. */
     public static final String STYLE = "<style>"
             + ".mt-table{border-collapse:collapse;font-size:0.9em;font-variant-numeric:tabular-nums;margin:0.3em 0}"
-            + ".mt-table caption{caption-side:top;text-align:left;font-weight:600;color:#1f5f6b;padding:0.2em 0}"
+            + ".mt-caption{font-weight:600;color:#1f5f6b;margin:0.3em 0 0.1em 0}"
             + ".mt-table th{border-bottom:2px solid #1f5f6b;padding:0.25em 0.7em;text-align:right;color:#23343a}"
             + ".mt-table th.mt-text{text-align:left}"
             + ".mt-table td{padding:0.2em 0.7em;border-bottom:1px solid #dde4e6}"
@@ -51,7 +51,11 @@ public final class TableDisplay {
         return plain(Snapshot.of(table, format), caption, notes);
     }
 
-    /** The HTML table ({@link #STYLE}, {@code <table class="mt-table">}, notes as {@code <p class="mt-note">}). */
+    /**
+     * The HTML view: {@code <div class="mt-result">} holding {@link #STYLE}, the caption as
+     * {@code <div class="mt-caption">}, {@code <table class="mt-table">} and the size line and notes
+     * as {@code <p class="mt-note">}. Well-formed XML as well as HTML.
+     */
     public static String html(Tabular table, String caption, List<String> notes, TableFormat format) {
         return html(Snapshot.of(table, format), caption, notes);
     }
@@ -180,10 +184,11 @@ public final class TableDisplay {
 
     private static String html(Snapshot s, String caption, List<String> notes) {
         int n = s.columns().size();
-        StringBuilder sb = new StringBuilder(STYLE).append("<table class=\"mt-table\">");
+        StringBuilder sb = new StringBuilder("<div class=\"mt-result\">").append(STYLE);
         if (caption != null && !caption.isBlank()) {
-            sb.append("<caption>").append(Html.escape(caption)).append("</caption>");
+            sb.append("<div class=\"mt-caption\">").append(Html.escape(caption)).append("</div>");
         }
+        sb.append("<table class=\"mt-table\">");
         sb.append("<thead><tr>");
         for (int c = 0; c < n; c++) {
             sb.append(s.numeric()[c] ? "<th>" : "<th class=\"mt-text\">")
@@ -199,7 +204,7 @@ public final class TableDisplay {
             sb.append("<tr>");
             for (int c = 0; c < n; c++) {
                 boolean differs = !r.shown()[c].equals(r.exact()[c]);
-                boolean cut = differs && r.shown()[c].indexOf('\u2026') >= 0;
+                boolean cut = differs && (r.shown()[c].indexOf('\u2026') >= 0 || r.shown()[c].startsWith("\u2248"));
                 sb.append("<td class=\"").append(s.numeric()[c] ? "mt-num" : "mt-text").append(cut ? " mt-cut\"" : "\"");
                 if (differs) {
                     sb.append(" title=\"").append(Html.escape(r.exact()[c])).append('"');
@@ -222,6 +227,6 @@ public final class TableDisplay {
                 }
             }
         }
-        return sb.toString();
+        return sb.append("</div>").toString();
     }
 }

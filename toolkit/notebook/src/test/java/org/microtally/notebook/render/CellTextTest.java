@@ -71,9 +71,13 @@ class CellTextTest {
         BigFraction big = new BigFraction(factorial(100), BigInteger.valueOf(101).pow(40));
         String shown = CellText.shown(big, TableFormat.DEFAULT);
         // Source: OEIS A000142 (100!: 158 digits, leading 933262154439); closed form
-        // floor(40 log10 101) + 1 = 81 digits; leading digits of 101^40 computed independently with
-        // Python 3 integer arithmetic, str(101**40)[:12] = 148886373358.
-        assertEquals("933262154439\u2026(158 digits)/148886373358\u2026(81 digits)", shown);
+        // 100!/101^40 = 6.26828455408906...e77: computed independently with Python 3 fractions and
+        // decimal (30 digits), rounded here to 8 significant digits.
+        assertEquals("\u22486.2682846e77", shown);
+        BigFraction small = new BigFraction(BigInteger.valueOf(3), BigInteger.TEN.pow(60).add(BigInteger.ONE));
+        // Source: closed form, 3/(10^60 + 1) = 3e-60 to 60 significant digits
+        assertEquals("\u22483e-60", CellText.shown(small, TableFormat.DEFAULT));
+        assertEquals(3e-60, CellText.decimalValue(small.getNumerator(), small.getDenominator()));
         assertEquals(big.getNumerator() + "/" + big.getDenominator(), CellText.exact(big));
     }
 

@@ -185,6 +185,18 @@ class ChartsTest {
     }
 
     @Test
+    void exactFractionsOfHugeIntegersArePlottedAtTheirValue() {
+        BigInteger big = BigInteger.TEN.pow(400);
+        Tabular t = TestTables.of(List.of("q_A", "probability"),
+                new Object[] {0, new org.apache.commons.math3.fraction.BigFraction(big, big.multiply(BigInteger.TEN).add(BigInteger.ONE))},
+                new Object[] {1, new org.apache.commons.math3.fraction.BigFraction(BigInteger.ONE, big)});
+        XYSeries s = Charts.line(t, "q_A", "probability").getSeries("probability");
+        // Source: closed form, 10^400/(10^401 + 1) = 0.1 to double precision; 10^-400 underflows to 0
+        assertEquals(0.1, s.getYData()[0]);
+        assertEquals(0.0, s.getYData()[1]);
+    }
+
+    @Test
     void unknownColumnIsNamed() {
         InvalidInputException e = assertThrows(InvalidInputException.class,
                 () -> Charts.line(twoLevel(), "kT", "S"));

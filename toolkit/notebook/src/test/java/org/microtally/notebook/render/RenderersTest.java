@@ -88,7 +88,7 @@ class RenderersTest {
         List<String> lines = b.plain().lines().toList();
         assertEquals("energy  degeneracy", lines.get(1));
         assertEquals("     3           4", lines.get(6));
-        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<caption>Spectrum: 4 levels"));
+        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<div class=\"mt-caption\">Spectrum: 4 levels"));
     }
 
     @Test
@@ -116,7 +116,7 @@ class RenderersTest {
         Table t = Table.create("levels", DoubleColumn.create("energy", 0.0, 1.0), IntColumn.create("g", 1, 3));
         MimeBundle b = Renderers.render(t);
         assertEquals(String.join("\n", "levels", "energy  g", "------  -", "     0  1", "     1  3"), b.plain());
-        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<caption>levels</caption>"));
+        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<div class=\"mt-caption\">levels</div>"));
     }
 
     @Test

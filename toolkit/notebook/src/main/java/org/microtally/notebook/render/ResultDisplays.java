@@ -1,0 +1,182 @@
+package org.microtally.notebook.render;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.microtally.Tabular;
+import org.microtally.count.CountTable;
+import org.microtally.count.MacrostateHistogram;
+import org.microtally.count.SharedTotal;
+import org.microtally.limit.ReferenceTable;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * The displays of the core result types: a table (a compact view where the result is large), a
+ * chart under it where a picture helps, and a formula where a closed form is known. Registered by
+ * {@link Renderers}; a display that fails falls back to plain text there.
+ */
+final class ResultDisplays {
+    /** Most particle-number columns in the grid view of a count table. */
+    static final int GRID_COLUMNS = 8;
+
+    private ResultDisplays() { }
+
+    static void registerAll() {
+        Renderers.register(CountTable.class, ResultDisplays::countTable);
+        Renderers.register(MacrostateHistogram.class, ResultDisplays::histogram);
+        Renderers.register(SharedTotal.class, ResultDisplays::sharedTotal);
+        Renderers.register(ReferenceTable.class, ResultDisplays::referenceTable);
+    }
+
+    // ---- count tables
+
+    /** The particle numbers shown as grid columns: every n when N + 1 <= 8, else 8 evenly spaced n from 0 to N. */
+    static int[] gridColumns(int maxN) {
+        if (maxN + 1 <= GRID_COLUMNS) {
+            int[] all = new int[maxN + 1];
+            for (int n = 0; n <= maxN; n++) {
+                all[n] = n;
+            }
+            return all;
+        }
+        int[] some = new int[GRID_COLUMNS];
+        for (int k = 0; k < GRID_COLUMNS; k++) {
+            some[k] = (int) Math.round((double) k * maxN / (GRID_COLUMNS - 1));
+        }
+        return some;
+    }
+
+    /** Rows E = 0..E_max, one exact column per shown particle number. */
+    static Tabular grid(CountTable t, int[] ns) {
+        List<String> names = new ArrayList<>(ns.length + 1);
+        names.add("E");
+        for (int n : ns) {
+            names.add("n=" + n);
+        }
+        List<List<Object>> rows = new java.util.AbstractList<>() {
+            @Override
+            public List<Object> get(int e) {
+                List<Object> row = new ArrayList<>(ns.length + 1);
+                row.add(e);
+                for (int n : ns) {
+                    row.add(t.count(n, e));
+                }
+                return row;
+            }
+
+            @Override
+            public int size() {
+                return t.maxEnergy() + 1;
+            }
+        };
+        return Tables.tabular(names, rows);
+    }
+
+    static MimeBundle countTable(CountTable t) {
+        int[] ns = gridColumns(t.maxParticles());
+        List<String> notes = new ArrayList<>();
+        notes.add("Omega(n, E): exact number of microstates of n " + t.statistics()
+                + " particles with total energy E quanta.");
+        if (ns.length < t.maxParticles() + 1) {
+            notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles()
+                    + " shown; every entry: count(n, E), or Tables.of(table) for all rows.");
+        }
+        if (t.completeThroughEnergy() < t.maxEnergy()) {
+            notes.add("Entries with E > " + t.completeThroughEnergy() + " may miss levels above the spectrum cutoff.");
+        }
+        boolean einstein = isEinsteinSolid(t);
+        if (einstein) {
+            notes.add("Closed form: Omega(n, E) = C(E + n - 1, E), n distinguishable oscillators sharing E quanta.");
+        }
+        String caption = String.format("Exact counts Omega(n, E): %s, n <= %d, E <= %d, %s", t.statistics(),
+                t.maxParticles(), t.maxEnergy(), t.spectrum());
+        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes), Charts.counts(t));
+        return einstein ? withLatex(both, "$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$") : both;
+    }
+
+    /**
+     * Whether the table counts distinguishable particles on the non-degenerate, equally spaced
+     * spectrum 0, 1, 2, ... (a 1D oscillator, the Einstein solid), complete through the table's E:
+     * then Omega(n, E) = C(E + n - 1, E) (the number of ways to put E quanta into n oscillators).
+     */
+    static boolean isEinsteinSolid(CountTable t) {
+        if (t.statistics().kind() != Statistics.Kind.DISTINGUISHABLE || t.completeThroughEnergy() < t.maxEnergy()) {
+            return false;
+        }
+        Spectrum s = t.spectrum();
+        if (s.isLabelled()) {
+            return false;
+        }
+        for (int i = 0; i < s.size(); i++) {
+            if (s.energy(i) != i || s.degeneracy(i) != 1) {
+                return false;
+            }
+        }
+        return s.topEnergy() >= t.maxEnergy() || s.isTruncated();
+    }
+
+    // ---- histograms and shared totals
+
+    static MimeBundle histogram(MacrostateHistogram h) {
+        String caption = String.format("Macrostate histogram: totals %d..%d, %s microstates in all, most probable %s",
+                h.minTotal(), h.maxTotal(), CellText.shown(h.totalMultiplicity(), TableFormat.DEFAULT),
+                h.mostProbableTotals());
+        return Charts.combine(TableDisplay.bundle(h, caption, List.of()), Charts.histogram(h));
+    }
+
+    static MimeBundle sharedTotal(SharedTotal s) {
+        String caption = String.format("Shared total q = %d: most probable q_A = %d, mean %s, width %s",
+                s.total(), s.mostProbableSplit(), CellText.floating(s.mean(), 8), CellText.floating(s.width(), 8));
+        return Charts.combine(TableDisplay.bundle(s, caption, List.of()), Charts.split(s));
+    }
+
+    // ---- thermodynamic-limit references
+
+    static MimeBundle referenceTable(ReferenceTable t) {
+        MimeBundle table = TableDisplay.bundle(t, "Thermodynamic-limit reference values", List.of());
+        List<String> ys = new ArrayList<>();
+        String x = referenceAxes(t, ys);
+        if (x == null || ys.isEmpty() || t.rows().size() < 2) {
+            return table;
+        }
+        return Charts.combine(table, Charts.line(t, x, ys.toArray(new String[0])));
+    }
+
+    /**
+     * The chart axes of a reference sweep: x is the first reduced-temperature column (named
+     * {@code T/...}), y every other column not ending in a unit in parentheses such as
+     * {@code " (K)"} (the dimensionless ones, which share a scale). Returns x, or null when there is no reduced temperature; fills {@code ys}.
+     */
+    static String referenceAxes(Tabular t, List<String> ys) {
+        String x = null;
+        for (String c : t.columnNames()) {
+            if (c.startsWith("T/")) {
+                x = c;
+                break;
+            }
+        }
+        if (x == null) {
+            return null;
+        }
+        for (String c : t.columnNames()) {
+            if (!c.equals(x) && !c.matches(".* \\([^()]*\\)")) {
+                ys.add(c);
+            }
+        }
+        return x;
+    }
+
+    // ---- helpers
+
+    /** {@code bundle} with a text/latex representation added. */
+    static MimeBundle withLatex(MimeBundle bundle, String latex) {
+        MimeBundle.Builder b = MimeBundle.builder(bundle.plain());
+        bundle.data().forEach((k, v) -> {
+            if (!k.equals(MimeBundle.TEXT_PLAIN)) {
+                b.put(k, v);
+            }
+        });
+        return b.put(MimeBundle.TEXT_LATEX, latex).build();
+    }
+}

@@ -1,0 +1,149 @@
+package org.microtally.notebook.render;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.microtally.count.CountTable;
+import org.microtally.count.MacrostateHistogram;
+import org.microtally.count.SharedTotal;
+import org.microtally.limit.BoseGas;
+import org.microtally.limit.HarmonicTrap;
+import org.microtally.limit.ReferenceTable;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Statistics;
+import org.knowm.xchart.XYChart;
+import org.knowm.xchart.XYSeries;
+import org.w3c.dom.Document;
+import org.w3c.dom.Element;
+import org.w3c.dom.NodeList;
+
+class ResultDisplaysTest {
+
+    static BigInteger binomial(int n, int k) {
+        BigInteger r = BigInteger.ONE;
+        for (int i = 1; i <= k; i++) {
+            r = r.multiply(BigInteger.valueOf(n - k + i)).divide(BigInteger.valueOf(i));
+        }
+        return r;
+    }
+
+    /** Text of the td cells of the first data row whose first cell is {@code first}. */
+    static List<String> rowStartingWith(Document d, String first) {
+        NodeList trs = d.getElementsByTagName("tr");
+        for (int i = 0; i < trs.getLength(); i++) {
+            NodeList tds = ((Element) trs.item(i)).getElementsByTagName("td");
+            if (tds.getLength() > 1 && tds.item(0).getTextContent().equals(first)) {
+                List<String> out = new ArrayList<>();
+                for (int j = 0; j < tds.getLength(); j++) {
+                    out.add(tds.item(j).getTextContent());
+                }
+                return out;
+            }
+        }
+        return List.of();
+    }
+
+    @Test
+    void einsteinSolidCountTableShowsTheGridTheChartAndTheClosedForm() throws Exception {
+        // Halyard Bay block B: 200 oscillators; 30 quanta keep the test quick
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 30), Statistics.DISTINGUISHABLE, 200, 30);
+        MimeBundle b = Renderers.render(t);
+        assertEquals("$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$", b.get(MimeBundle.TEXT_LATEX));
+        Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
+        NodeList ths = d.getElementsByTagName("th");
+        assertEquals(1 + ResultDisplays.GRID_COLUMNS, ths.getLength());
+        assertEquals("n=200", ths.item(ResultDisplays.GRID_COLUMNS).getTextContent());
+        List<String> row = rowStartingWith(d, "30");
+        int[] ns = ResultDisplays.gridColumns(200);
+        for (int k = 0; k < ns.length; k++) {
+            String expected = ns[k] == 0 ? "0"
+                    // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
+                    : CellText.shown(binomial(30 + ns[k] - 1, 30), TableFormat.DEFAULT);
+            assertEquals(expected, row.get(k + 1), "n = " + ns[k]);
+        }
+        assertEquals(1, d.getElementsByTagName("img").getLength());
+        assertTrue(b.plain().contains("Closed form: Omega(n, E) = C(E + n - 1, E)"), b.plain());
+        assertTrue(b.plain().endsWith("series n = 50, n = 100, n = 150, n = 200"), b.plain());
+    }
+
+    @Test
+    void bosonCountTableHasNoEinsteinFormula() {
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 12), Statistics.BOSE, 5, 12);
+        MimeBundle b = Renderers.render(t);
+        assertFalse(b.has(MimeBundle.TEXT_LATEX));
+        // all particle numbers 0..5 fit as columns
+        assertTrue(b.plain().contains("E  n=0  n=1  n=2  n=3  n=4  n=5"), b.plain());
+        // Source: OEIS A008284, partitions of 12 into at most 5 parts = 47 (bosons on 0,1,2,...)
+        assertTrue(b.plain().lines().anyMatch(l -> l.matches("\\s*12\\s+0\\s+1\\s+7\\s+19\\s+34\\s+47")), b.plain());
+    }
+
+    @Test
+    void countChartPlotsLnOmegaOfTheExactCounts() {
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 20), Statistics.DISTINGUISHABLE, 10, 20);
+        XYChart chart = Charts.counts(t, 10);
+        XYSeries s = chart.getSeries("n = 10");
+        assertEquals(21, s.getXData().length);
+        for (int q = 0; q <= 20; q++) {
+            // Source: closed form, Einstein solid Omega(10, q) = C(q + 9, q)
+            assertEquals(Math.log(binomial(q + 9, q).doubleValue()), s.getYData()[q], 1e-12);
+        }
+        assertEquals("E [hbar*omega]", chart.getXAxisTitle());
+        assertEquals("ln Omega", chart.getYAxisTitle());
+    }
+
+    @Test
+    void sharedTotalShowsItsSplitDistribution() throws Exception {
+        // Halyard Bay blocks A (300) and B (200) sharing quanta, scaled down to 30 and 20 oscillators, 10 quanta
+        CountTable a = CountTable.of(Spectra.harmonicOscillator(1, 10), Statistics.DISTINGUISHABLE, 30, 10);
+        CountTable bb = CountTable.of(Spectra.harmonicOscillator(1, 10), Statistics.DISTINGUISHABLE, 20, 10);
+        SharedTotal s = SharedTotal.of(a, 30, bb, 20, 10);
+        MimeBundle b = Renderers.render(s);
+        assertTrue(b.plain().startsWith("Shared total q = 10: most probable q_A = 6"), b.plain());
+        XYSeries p = Charts.split(s).getSeries("probability");
+        // Source: closed form, P(q_A) = C(q_A + 29, q_A) C(10 - q_A + 19, 10 - q_A) / C(10 + 49, 10)
+        BigInteger all = binomial(59, 10);
+        for (int qa = 0; qa <= 10; qa++) {
+            double expected = new java.math.BigDecimal(binomial(qa + 29, qa).multiply(binomial(10 - qa + 19, 10 - qa)))
+                    .divide(new java.math.BigDecimal(all), java.math.MathContext.DECIMAL64).doubleValue();
+            assertEquals(expected, p.getYData()[qa], 1e-15);
+        }
+        Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
+        assertEquals(1, d.getElementsByTagName("img").getLength());
+    }
+
+    @Test
+    void histogramOfTwoDiceHasBarsOfTheExactProbabilities() {
+        // Source: common practice, no source: two six-sided dice totals 2..12 occur 1,2,3,4,5,6,5,4,3,2,1 times in 36
+        MacrostateHistogram h = MacrostateHistogram.ofIdenticalUnits(2, 1, 2, 3, 4, 5, 6);
+        MimeBundle b = Renderers.render(h);
+        assertTrue(b.plain().startsWith("Macrostate histogram: totals 2..12, 36 microstates in all, most probable [7]"),
+                b.plain());
+        var chart = (org.knowm.xchart.CategoryChart) Charts.histogram(h);
+        double[] ys = chart.getSeries("probability").getYData();
+        int[] ways = {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1};
+        for (int i = 0; i < 11; i++) {
+            assertEquals(ways[i] / 36.0, ys[i], 1e-16);
+        }
+    }
+
+    @Test
+    void referenceSweepIsChartedAgainstReducedTemperature() throws Exception {
+        // Halyard Bay trap: 2000 atoms, 4:4:1 with the slow axis at 24 Hz
+        BoseGas gas = BoseGas.inHarmonicTrap(HarmonicTrap.ofHertz(96, 96, 24), 2000);
+        double tc = gas.criticalTemperature();
+        ReferenceTable sweep = gas.sweep(0.5 * tc, 0.8 * tc, 1.2 * tc, 1.5 * tc);
+        List<String> ys = new ArrayList<>();
+        assertEquals("T/Tc", ResultDisplays.referenceAxes(sweep, ys));
+        assertEquals(List.of("fugacity", "condensate fraction", "C/(N k)"), ys);
+        MimeBundle b = Renderers.render(sweep);
+        Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
+        assertEquals(1, d.getElementsByTagName("img").getLength());
+        // Source: closed form for a harmonic trap, condensate fraction 1 - (T/Tc)^3 below Tc: 1 - 0.125 = 0.875
+        assertEquals("0.875", rowStartingWith(d, CellText.shown(0.5 * tc, TableFormat.DEFAULT)).get(3));
+    }
+}
