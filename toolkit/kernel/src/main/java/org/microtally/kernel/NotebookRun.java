@@ -2,13 +2,14 @@ package org.microtally.kernel;
 
 import java.io.PrintStream;
 import java.util.List;
+import org.microtally.notebook.run.NotebookRunner;
 
-/** The run command: delegates to the notebook module's headless runner. Pending: the runner is not merged yet. */
+/** The run command: the notebook module's headless runner, which needs no Python or Jupyter. */
 final class NotebookRun {
     private NotebookRun() { }
 
+    /** Runs {@code microtally run ARGS...}; the runner prints its own progress and errors on stderr. */
     static int run(List<String> args, PrintStream out, PrintStream err) {
-        err.println("microtally: the headless runner is not part of this build yet");
-        return 1;
+        return NotebookRunner.main(args);
     }
 }

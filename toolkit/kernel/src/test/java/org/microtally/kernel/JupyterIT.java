@@ -232,7 +232,7 @@ class JupyterIT {
     void faultsAreSurvivedAndTimeoutsInterruptTheCell() throws Exception {
         Path nb = Path.of("src/test/resources/notebooks/kernel-faults.ipynb").toAbsolutePath();
         JsonObject executed = nbconvert(nb, WORK.resolve("out"), List.of(
-                "--ExecutePreprocessor.timeout=10", "--ExecutePreprocessor.interrupt_on_timeout=True"));
+                "--ExecutePreprocessor.timeout=15", "--ExecutePreprocessor.interrupt_on_timeout=True"));
         assertEquals(9, checkCells(executed, "kernel-faults"));
     }
 

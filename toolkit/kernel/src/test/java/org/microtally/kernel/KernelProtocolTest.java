@@ -125,6 +125,7 @@ class KernelProtocolTest {
         KernelConnectionProperties props = new KernelConnectionProperties("127.0.0.1", p[0], p[1], p[2], p[3], p[4],
                 "tcp", "hmac-sha256", KEY);
         KernelLog.LOG.addHandler(capture);
+        KernelLog.LOG.setUseParentHandlers(false); // keep the test output quiet
         kernel = new Kernel(props, () -> engine);
         kernel.start();
         ctx = new ZContext();
@@ -140,6 +141,7 @@ class KernelProtocolTest {
     @AfterEach
     void stop() {
         KernelLog.LOG.removeHandler(capture);
+        KernelLog.LOG.setUseParentHandlers(true);
         kernel.stop();
         ctx.close();
     }
