@@ -31,6 +31,7 @@ public class EnsembleBenchmark {
     Spectrum oscillator;
     double[] stateFactors;
     Spectrum million;
+    Spectrum millionStates;
     double[] temperatures;
 
     @Setup
@@ -44,6 +45,7 @@ public class EnsembleBenchmark {
             }
         }
         million = Spectra.equallySpaced(1_000_000, 1e-3);
+        millionStates = Spectra.harmonicOscillator(3, 180);
         temperatures = new double[100];
         for (int t = 0; t < temperatures.length; t++) {
             temperatures[t] = 0.5 + 0.05 * t;
@@ -75,6 +77,18 @@ public class EnsembleBenchmark {
         return c.lnZ() + c.occupations().perState(1) + c.condensate().mean();
     }
 
+    /** 1,004,731 single-particle states in 181 degenerate levels (3D oscillator cut at 180), 100 temperatures. */
+    @Benchmark
+    public double chemicalPotentialMillionStatesHundredTemperatures() {
+        double s = 0;
+        for (double t : temperatures) {
+            s += ChemicalPotential.forMeanNumber(millionStates, Statistics.FERMI, 10 * t, 100_000);
+            s += ChemicalPotential.forMeanNumber(millionStates, Statistics.BOSE, 10 * t, 100_000);
+        }
+        return s;
+    }
+
+    /** 1e6 distinct non-degenerate levels, 100 temperatures. */
     @Benchmark
     public double chemicalPotentialMillionLevelsHundredTemperatures() {
         double s = 0;

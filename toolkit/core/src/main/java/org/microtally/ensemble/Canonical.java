@@ -63,8 +63,9 @@ import org.microtally.spectrum.Statistics;
  * the signed moment terms, so C_V at very low T (C_V much below that) is an absolute, not relative,
  * statement.
  *
- * <p>Cost: forward pass S N multiply-adds (Fermi/Gentile: fewer while fewer than N states are
- * included); Fermi and Gentile occupations add the backward pass (a second S N); Bose occupations
+ * <p>Cost: forward pass at most S N multiply-adds; each step runs only over the non-zero support of
+ * the series (entries that were never reached or were flushed to zero are skipped, which changes no
+ * result), so series whose particle-number distribution is narrow cost far less than N per state; Fermi and Gentile occupations add the backward pass (a second S N); Bose occupations
  * add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
  */
 public final class Canonical implements Tabular {

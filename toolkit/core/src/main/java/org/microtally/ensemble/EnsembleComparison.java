@@ -7,6 +7,7 @@ import java.util.Objects;
 import java.util.function.IntToDoubleFunction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
+import org.microtally.count.CountTable;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
@@ -17,7 +18,7 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Ensembles: canonical ({@link Canonical}, exact) and grand canonical ({@link GrandCanonical} with
  * mu fixed by &lt;N&gt; = N). Where the spectrum is exact-integer and a count table is available,
- * {@link Microcanonical} rows are added by {@link #withMicrocanonical} at the energy grid point
+ * {@link Microcanonical} rows are added by {@link #overTemperatures(CountTable, int, double...)} at the energy grid point
  * nearest to the canonical U. Relative difference of a quantity q: (q - q_canonical) / |q_canonical|
  * (0 for the canonical rows; when q_canonical = 0 it is 0 if q = 0 and sign(q) otherwise).
  *
@@ -27,15 +28,26 @@ import org.microtally.spectrum.Statistics;
  * Gentile statistics the canonical Var N_0 is not computed and is reported as the string "n/a".
  */
 public final class EnsembleComparison implements Tabular {
-    /** One row: an ensemble at one temperature. */
-    public record Row(String ensemble, double kT, double energy, double heatCapacity, double entropy,
+    /**
+     * One row: an ensemble at one nominal temperature kT. {@code ownKT} is the temperature the
+     * ensemble itself assigns (equal to kT for canonical and grand canonical; for the microcanonical
+     * row the Boltzmann grid temperature 1/beta_B at the energy nearest to the canonical U, null where
+     * beta_B = 0 or undefined).
+     */
+    public record Row(String ensemble, double kT, Double ownKT, double energy, double heatCapacity, double entropy,
                       double groundMean, Double groundVariance, double relEnergy, double relHeatCapacity,
                       double relEntropy) { }
 
     private final List<Row> rows;
+    private final List<String> notes;
 
     private EnsembleComparison(List<Row> rows) {
+        this(rows, List.of());
+    }
+
+    private EnsembleComparison(List<Row> rows, List<String> notes) {
         this.rows = Collections.unmodifiableList(rows);
+        this.notes = List.copyOf(notes);
     }
 
     /** Canonical and grand canonical rows at each temperature kT (in the spectrum's unit). */
@@ -59,11 +71,16 @@ public final class EnsembleComparison implements Tabular {
     static Row canonicalRow(Canonical c) {
         double n0 = c.occupations().levelTotal(0);
         Double v0 = c.hasCondensate() ? c.condensate().variance() : null;
-        return new Row("canonical", c.kT(), c.energy(), c.heatCapacity(), c.entropy(), n0, v0, 0, 0, 0);
+        return new Row("canonical", c.kT(), c.kT(), c.energy(), c.heatCapacity(), c.entropy(), n0, v0, 0, 0, 0);
     }
 
     static Row relative(Row can, String name, double kT, double u, double cv, double s, double n0, Double v0) {
-        return new Row(name, kT, u, cv, s, n0, v0, rel(u, can.energy()), rel(cv, can.heatCapacity()),
+        return relative(can, name, kT, kT, u, cv, s, n0, v0);
+    }
+
+    static Row relative(Row can, String name, double kT, Double ownKT, double u, double cv, double s, double n0,
+                        Double v0) {
+        return new Row(name, kT, ownKT, u, cv, s, n0, v0, rel(u, can.energy()), rel(cv, can.heatCapacity()),
                 rel(s, can.entropy()));
     }
 
@@ -93,10 +110,45 @@ public final class EnsembleComparison implements Tabular {
         return new ConvergenceSweep(pts);
     }
 
-    EnsembleComparison with(List<Row> extra) {
-        List<Row> all = new ArrayList<>(rows);
-        all.addAll(extra);
-        return new EnsembleComparison(all);
+    /**
+     * All three ensembles for an exact-integer spectrum: canonical and grand canonical at each kT, and
+     * a microcanonical row at the grid energy E* nearest to the canonical U (from the count table,
+     * which must cover N and energies up to E* + one grid step). Microcanonical columns: U = E*,
+     * C = C_B(E*), S = S_B(E*), &lt;N_0&gt; = exact g_0 &lt;n_0&gt;(N, E*); its Var N_0 is not
+     * computed ("n/a"). Cells that the grid cannot define are "n/a" (ownKT null, C = 0 is never
+     * substituted: a row whose E* has no heat capacity is left out, with the reason in
+     * {@link #notes()}).
+     */
+    public static EnsembleComparison overTemperatures(CountTable table, int n, double... kTs) {
+        Microcanonical mc = Microcanonical.of(table, n);
+        EnsembleComparison base = overTemperatures(table.spectrum(), table.statistics(), n, kTs);
+        List<Row> all = new ArrayList<>();
+        List<String> notes = new ArrayList<>(mc.warnings());
+        int lo = mc.lowestEnergy();
+        int d = mc.gridStep();
+        for (int t = 0; t < kTs.length; t++) {
+            Row can = base.rows.get(2 * t);
+            all.add(can);
+            all.add(base.rows.get(2 * t + 1));
+            long k = Math.round((can.energy() - lo) / d);
+            long eStar = lo + k * d;
+            if (eStar > Integer.MAX_VALUE || !mc.hasHeatCapacity((int) eStar)) {
+                notes.add("kT = " + kTs[t] + ": no microcanonical row, E* = " + eStar
+                        + " has no grid heat capacity within the table (max E " + mc.maxEnergy() + ")");
+                continue;
+            }
+            int e = (int) eStar;
+            double beta = mc.boltzmannBeta(e);
+            double n0 = mc.occupations(e).levelTotal(0);
+            all.add(relative(can, "microcanonical", kTs[t], beta == 0 ? null : 1 / beta, e, mc.heatCapacity(e),
+                    mc.boltzmannEntropy(e), n0, null));
+        }
+        return new EnsembleComparison(all, notes);
+    }
+
+    /** Notes on rows left out or cut-off effects; empty when none. */
+    public List<String> notes() {
+        return notes;
     }
 
     /** The rows, canonical first at each temperature. */
@@ -106,7 +158,7 @@ public final class EnsembleComparison implements Tabular {
 
     @Override
     public List<String> columnNames() {
-        return List.of("ensemble", "kT", "U", "C/k", "S/k", "<N_0>", "Var N_0", "rel. diff U", "rel. diff C",
+        return List.of("ensemble", "kT", "own kT", "U", "C/k", "S/k", "<N_0>", "Var N_0", "rel. diff U", "rel. diff C",
                 "rel. diff S");
     }
 
@@ -114,7 +166,8 @@ public final class EnsembleComparison implements Tabular {
     public List<List<Object>> rows() {
         List<List<Object>> out = new ArrayList<>(rows.size());
         for (Row r : rows) {
-            out.add(List.of(r.ensemble(), r.kT(), r.energy(), r.heatCapacity(), r.entropy(), r.groundMean(),
+            out.add(List.of(r.ensemble(), r.kT(), r.ownKT() == null ? "n/a" : r.ownKT(), r.energy(),
+                    r.heatCapacity(), r.entropy(), r.groundMean(),
                     r.groundVariance() == null ? "n/a" : r.groundVariance(), r.relEnergy(), r.relHeatCapacity(),
                     r.relEntropy()));
         }

@@ -11,7 +11,8 @@ package org.microtally.ensemble;
  * every step adds products of non-negative numbers only (for c; the moment companions carry signed
  * energies). Mantissas are rescaled by exact powers of two whenever a bound on their growth passes
  * 2^400, so nothing overflows; coefficients that fall below 2^-1074 of the largest one are flushed
- * to zero (the error this causes is bounded in {@link Canonical}'s documentation).
+ * to zero (the error this causes is bounded in {@link Canonical}'s documentation). The indices
+ * {@code low..degree} bound the non-zero mantissas and every loop runs over that support only.
  *
  * <p>Moments: with e_s measured from a reference energy per particle r (eps_s = e_s - r), u_n and
  * v_n are the sums over n-particle configurations of weight times (E - r n) and (E - r n)^2.
@@ -24,6 +25,9 @@ final class ScaledSeries {
     final double[] c;
     final double[] u;
     final double[] v;
+    /** Index of the first non-zero mantissa (entries below are zero). */
+    int low;
+    /** Index of the last non-zero mantissa (entries above are zero). */
     int degree;
     double logScale;
     private double growth = 1;
@@ -44,6 +48,7 @@ final class ScaledSeries {
         this.c = o.c.clone();
         this.u = o.u == null ? null : o.u.clone();
         this.v = o.v == null ? null : o.v.clone();
+        this.low = o.low;
         this.degree = o.degree;
         this.logScale = o.logScale;
         this.growth = o.growth;
@@ -55,7 +60,7 @@ final class ScaledSeries {
 
     /** ln of the true coefficient m, or -infinity if it was flushed to zero. */
     double logCoefficient(int m) {
-        return m < 0 || m > degree || c[m] <= 0 ? Double.NEGATIVE_INFINITY : Math.log(c[m]) + logScale;
+        return m < low || m > degree || c[m] <= 0 ? Double.NEGATIVE_INFINITY : Math.log(c[m]) + logScale;
     }
 
     /**
@@ -97,34 +102,41 @@ final class ScaledSeries {
      */
     private void boseFourSteps(double lnY, double eps) {
         double y = Math.exp(lnY);
-        degree = n;
+        int oldTop = degree;
+        int last = degree;
         if (u == null) {
-            double a1 = c[0];
+            double a1 = c[low];
             double a2 = a1;
             double a3 = a1;
             double a4 = a1;
-            for (int m = 1; m <= n; m++) {
+            for (int m = low + 1; m <= n; m++) {
                 a1 = c[m] + y * a1;
                 a2 = a1 + y * a2;
                 a3 = a2 + y * a3;
                 a4 = a3 + y * a4;
                 c[m] = a4;
+                if (m > oldTop) {
+                    if (a1 == 0 && a2 == 0 && a3 == 0 && a4 == 0) {
+                        break;
+                    }
+                    last = m;
+                }
             }
         } else {
             double e2 = eps * eps;
-            double c1 = c[0];
+            double c1 = c[low];
             double c2 = c1;
             double c3 = c1;
             double c4 = c1;
-            double u1 = u[0];
+            double u1 = u[low];
             double u2 = u1;
             double u3 = u1;
             double u4 = u1;
-            double v1 = v[0];
+            double v1 = v[low];
             double v2 = v1;
             double v3 = v1;
             double v4 = v1;
-            for (int m = 1; m <= n; m++) {
+            for (int m = low + 1; m <= n; m++) {
                 v1 = v[m] + y * (v1 + 2 * eps * u1 + e2 * c1);
                 u1 = u[m] + y * (u1 + eps * c1);
                 c1 = c[m] + y * c1;
@@ -140,28 +152,51 @@ final class ScaledSeries {
                 c[m] = c4;
                 u[m] = u4;
                 v[m] = v4;
+                if (m > oldTop) {
+                    if (c1 == 0 && c2 == 0 && c3 == 0 && c4 == 0) {
+                        break;
+                    }
+                    last = m;
+                }
             }
         }
+        degree = last;
     }
 
     /** Multiplies by 1/(1 - y t) = sum_j y^j t^j (y &lt; 1 required). */
     private void boseStep(double lnY, double eps) {
         double y = Math.exp(lnY);
-        degree = n;
+        int oldTop = degree;
+        int last = degree;
         if (u == null) {
-            for (int m = 1; m <= n; m++) {
-                c[m] += y * c[m - 1];
+            for (int m = low + 1; m <= n; m++) {
+                double x = c[m] + y * c[m - 1];
+                c[m] = x;
+                if (m > oldTop) {
+                    if (x == 0) {
+                        break;
+                    }
+                    last = m;
+                }
             }
         } else {
             double e2 = eps * eps;
-            for (int m = 1; m <= n; m++) {
+            for (int m = low + 1; m <= n; m++) {
                 double cp = c[m - 1];
                 double up = u[m - 1];
                 v[m] += y * (v[m - 1] + 2 * eps * up + e2 * cp);
                 u[m] += y * (up + eps * cp);
-                c[m] += y * cp;
+                double x = c[m] + y * cp;
+                c[m] = x;
+                if (m > oldTop) {
+                    if (x == 0) {
+                        break;
+                    }
+                    last = m;
+                }
             }
         }
+        degree = last;
         double ratio = -Math.expm1(lnY);
         growth *= Math.min(n + 1.0, 1.0 / ratio);
     }
@@ -169,15 +204,16 @@ final class ScaledSeries {
     /** Multiplies by (1 + y t); for y &gt; e^200 divides by y first and adds ln y to the scale. */
     private void fermiStep(double lnY, double eps) {
         int top = Math.min(n, degree + 1);
+        int lo1 = Math.max(1, low);
         if (lnY <= BIG_LOG_FACTOR) {
             double y = Math.exp(lnY);
             if (u == null) {
-                for (int m = top; m >= 1; m--) {
+                for (int m = top; m >= lo1; m--) {
                     c[m] += y * c[m - 1];
                 }
             } else {
                 double e2 = eps * eps;
-                for (int m = top; m >= 1; m--) {
+                for (int m = top; m >= lo1; m--) {
                     double cp = c[m - 1];
                     double up = u[m - 1];
                     v[m] += y * (v[m - 1] + 2 * eps * up + e2 * cp);
@@ -189,27 +225,42 @@ final class ScaledSeries {
         } else {
             double r = Math.exp(-lnY);
             if (u == null) {
-                for (int m = top; m >= 1; m--) {
+                for (int m = top; m >= lo1; m--) {
                     c[m] = c[m] * r + c[m - 1];
                 }
-                c[0] *= r;
+                if (low == 0) {
+                    c[0] *= r;
+                }
             } else {
                 double e2 = eps * eps;
-                for (int m = top; m >= 1; m--) {
+                for (int m = top; m >= lo1; m--) {
                     double cp = c[m - 1];
                     double up = u[m - 1];
                     v[m] = v[m] * r + v[m - 1] + 2 * eps * up + e2 * cp;
                     u[m] = u[m] * r + up + eps * cp;
                     c[m] = c[m] * r + cp;
                 }
-                c[0] *= r;
-                u[0] *= r;
-                v[0] *= r;
+                if (low == 0) {
+                    c[0] *= r;
+                    u[0] *= r;
+                    v[0] *= r;
+                }
             }
             logScale += lnY;
             growth *= 2;
         }
         degree = top;
+        trim();
+    }
+
+    /** Moves low/degree inwards past mantissas that are zero (flushed or never reached). */
+    private void trim() {
+        while (degree > low && c[degree] == 0) {
+            degree--;
+        }
+        while (low < degree && c[low] == 0) {
+            low++;
+        }
     }
 
     /** Multiplies by 1 + y t + ... + (y t)^k; weights taken as y^(j-k) when y &gt; 1. */
@@ -230,8 +281,8 @@ final class ScaledSeries {
             }
             logScale += k * lnY;
         }
-        for (int m = top; m >= 0; m--) {
-            int jmax = Math.min(k, m);
+        for (int m = top; m >= low; m--) {
+            int jmax = Math.min(k, m - low);
             double sc = 0;
             double su = 0;
             double sv = 0;
@@ -255,13 +306,14 @@ final class ScaledSeries {
             }
         }
         degree = top;
+        trim();
         growth *= k + 1.0;
     }
 
     /** Rescales all mantissas by an exact power of two so the largest c lies in [1, 2). */
     void renormalize() {
         double max = 0;
-        for (int m = 0; m <= degree; m++) {
+        for (int m = low; m <= degree; m++) {
             if (c[m] > max) {
                 max = c[m];
             }
@@ -277,11 +329,11 @@ final class ScaledSeries {
         if (e == 0) {
             return;
         }
-        for (int m = 0; m <= degree; m++) {
+        for (int m = low; m <= degree; m++) {
             c[m] = Math.scalb(c[m], -e);
         }
         if (u != null) {
-            for (int m = 0; m <= degree; m++) {
+            for (int m = low; m <= degree; m++) {
                 u[m] = Math.scalb(u[m], -e);
                 v[m] = Math.scalb(v[m], -e);
             }
@@ -297,8 +349,8 @@ final class ScaledSeries {
         if (m < 0) {
             return Double.NEGATIVE_INFINITY;
         }
-        int aLo = Math.max(0, m - other.degree);
-        int aHi = Math.min(m, degree);
+        int aLo = Math.max(low, m - other.degree);
+        int aHi = Math.min(m - other.low, degree);
         double s = 0;
         double[] o = other.c;
         for (int a = aLo; a <= aHi; a++) {

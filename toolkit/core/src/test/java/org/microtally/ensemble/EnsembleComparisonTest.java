@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.microtally.count.CountTable;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -36,8 +37,32 @@ class EnsembleComparisonTest {
         assertTrue(gc.groundVariance() > 100 * can.groundVariance(), gc + " vs " + can);
         // the two ensembles still agree on U to a few per cent
         assertTrue(Math.abs(gc.relEnergy()) < 0.05, gc.toString());
-        assertEquals(10, cmp.columnNames().size());
+        assertEquals(11, cmp.columnNames().size());
         assertEquals(2, cmp.rows().size());
+    }
+
+    @Test
+    void microcanonicalRowsFromTheCountTable() {
+        int n = 200;
+        int maxE = 700;
+        Spectrum osc = Spectra.harmonicOscillator(1, maxE);
+        CountTable table = CountTable.of(osc, Statistics.DISTINGUISHABLE, n, maxE);
+        EnsembleComparison cmp = EnsembleComparison.overTemperatures(table, n, 1.0, 2.0);
+        assertEquals(6, cmp.comparisonRows().size(), cmp.notes().toString());
+        for (int t = 0; t < 2; t++) {
+            EnsembleComparison.Row can = cmp.comparisonRows().get(3 * t);
+            EnsembleComparison.Row micro = cmp.comparisonRows().get(3 * t + 2);
+            assertEquals("microcanonical", micro.ensemble());
+            double x = 1 / can.kT();
+            // Source: closed form Einstein solid U = N/(e^x - 1), C = N x^2 e^x/(e^x - 1)^2 (canonical row)
+            assertEquals(n / Math.expm1(x), can.energy(), 1e-10 * n);
+            assertEquals(n * x * x * Math.exp(x) / Math.pow(Math.expm1(x), 2), can.heatCapacity(), 1e-8 * n);
+            // Source: common practice, no source (ensemble equivalence: the microcanonical temperature at E ~ U and
+            // its heat capacity differ from the canonical ones by O(1/N); allow 2 %)
+            assertEquals(can.kT(), micro.ownKT(), 0.02 * can.kT());
+            assertEquals(0, micro.relHeatCapacity(), 0.02);
+            assertEquals(0, micro.relEnergy(), 0.5 / can.energy() + 1e-12);
+        }
     }
 
     @Test
