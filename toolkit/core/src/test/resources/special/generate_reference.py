@@ -7,6 +7,8 @@ or quadrature of the defining integral) and the row is written only if both agre
 
 Run: python3 generate_reference.py > reference-mpmath.csv
 """
+import math
+import random
 import sys
 import mpmath as mp
 
@@ -119,6 +121,25 @@ def main():
         for eta in ["-700", "-50", "-10", "-2", "-0.7", "-0.69", "0", "0.3", "1", "1.01", "2", "5", "10", "20",
                     "39.9", "40.1", "45", "60", "79", "81", "100", "1000", "10000"]:
             out.write("fermidirac,%s,%s,%s\n" % (j, eta, mp.nstr(fd_row(j, eta), DIGITS)))
+
+    # seeded random points across all regimes (Python's Mersenne Twister, seed 20261201), printed
+    # with 17 significant digits so that the Java double is the same number
+    rnd = random.Random(20261201)
+    for _ in range(150):
+        s = rnd.uniform(-2.0, 12.0)
+        z = rnd.choice([rnd.uniform(-1.0, 1.0), rnd.uniform(-1.0, 1.0), -math.exp(rnd.uniform(0.0, 12.0)),
+                        1.0 - math.exp(rnd.uniform(-30.0, -0.7))])
+        if z < -math.e and s <= 0:
+            s = -s + 0.01
+        if z < -1 and s < 0:
+            continue
+        if s < -1 and abs(z) > 0.9:
+            continue  # no independent second route there
+        out.write("polylog,%r,%r,%s\n" % (s, z, mp.nstr(polylog_row(repr(s), repr(z)), DIGITS)))
+    for _ in range(150):
+        j = rnd.uniform(-0.99, 12.0)
+        eta = rnd.choice([rnd.uniform(-50.0, 0.0), rnd.uniform(-1.0, 3.0), rnd.uniform(0.0, 120.0)])
+        out.write("fermidirac,%r,%r,%s\n" % (j, eta, mp.nstr(fd_row(repr(j), repr(eta)), DIGITS)))
 
 
 if __name__ == "__main__":

@@ -24,7 +24,7 @@ import org.openjdk.jmh.annotations.Warmup;
  *
  * <ul>
  *   <li>{@code fullTable}: N = 100, E = 600 (the size the project targets, <= 5 s each).</li>
- *   <li>{@code groupedSmall} vs {@code perStateSmall}: N = 100, E = 60, the library's grouped
+ *   <li>{@code groupedSmall} vs {@code perStateSmall}: N = 100, E = 100, the library's grouped
  *       generating-function update against one pass per single-particle state
  *       ({@link PerStateCounter}), same arithmetic. {@link CountRatio} runs the pair and prints the ratio.</li>
  * </ul>
@@ -39,7 +39,7 @@ public class CountBenchmark {
     /** Size of the small comparison. */
     public static final int SMALL_N = 100;
     /** Energy of the small comparison. */
-    public static final int SMALL_E = 60;
+    public static final int SMALL_E = 100;
 
     @Param({"BOSE", "FERMI"})
     public String statistics;

@@ -80,10 +80,12 @@ public class EnsembleBenchmark {
     /** 1,004,731 single-particle states in 181 degenerate levels (3D oscillator cut at 180), 100 temperatures. */
     @Benchmark
     public double chemicalPotentialMillionStatesHundredTemperatures() {
+        ChemicalPotential.Solver fermi = ChemicalPotential.solver(millionStates, Statistics.FERMI);
+        ChemicalPotential.Solver bose = ChemicalPotential.solver(millionStates, Statistics.BOSE);
         double s = 0;
         for (double t : temperatures) {
-            s += ChemicalPotential.forMeanNumber(millionStates, Statistics.FERMI, 10 * t, 100_000);
-            s += ChemicalPotential.forMeanNumber(millionStates, Statistics.BOSE, 10 * t, 100_000);
+            s += fermi.forMeanNumber(10 * t, 100_000);
+            s += bose.forMeanNumber(10 * t, 100_000);
         }
         return s;
     }
@@ -91,9 +93,10 @@ public class EnsembleBenchmark {
     /** 1e6 distinct non-degenerate levels, 100 temperatures. */
     @Benchmark
     public double chemicalPotentialMillionLevelsHundredTemperatures() {
+        ChemicalPotential.Solver fermi = ChemicalPotential.solver(million, Statistics.FERMI);
         double s = 0;
         for (double t : temperatures) {
-            s += ChemicalPotential.forMeanNumber(million, Statistics.FERMI, t, 100_000);
+            s += fermi.forMeanNumber(t, 100_000);
         }
         return s;
     }

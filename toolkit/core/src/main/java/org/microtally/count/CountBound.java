@@ -9,7 +9,7 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Saddle-point bound: if G(x, q) = sum a_{n,e} x^n q^e has non-negative coefficients then, for
  * every x0, q0 &gt; 0, a_{n,e} &lt;= G(x0, q0) / (x0^n q0^e) (P. Flajolet, R. Sedgewick, Analytic
- * Combinatorics, CUP 2009, Prop. IV.1 and Sec. VIII.2, "saddle-point bounds"). We apply it to the
+ * Combinatorics, CUP 2009, Ch. VIII, "saddle-point bounds"). We apply it to the
  * product of the level polynomials truncated at J (which has the same coefficients for n &lt;= N,
  * e &lt;= E, and is a polynomial, so any x0, q0 is allowed), and bound every n &lt;= N, e &lt;= E at once
  * by ln G - N min(ln x0, 0) - E min(ln q0, 0). That function of (ln x0, ln q0) is convex, and we
@@ -30,6 +30,9 @@ final class CountBound {
     /** An upper bound, in bits, on log2 of every Omega(n, e), n &lt;= maxN, e &lt;= maxE. */
     static double log2Bound(int[] energy, int[] deg, Statistics stats, int maxN, int maxE) {
         int levels = CountEngine.relevantLevels(energy, maxE);
+        if (levels == 0 || maxN == 0) {
+            return 2; // only Omega(0, 0) = 1 can be non-zero
+        }
         double best;
         if (stats.indistinguishable()) {
             double[][] lnc = new double[levels][];
@@ -62,6 +65,9 @@ final class CountBound {
                 return Math.max(0, maxN * lnZ1) - maxE * Math.min(v, 0);
             };
             best = minimise1(f, new double[] {Double.POSITIVE_INFINITY});
+        }
+        if (!(best < Double.POSITIVE_INFINITY)) {
+            throw new IllegalStateException("no finite count bound found for N = " + maxN + ", E = " + maxE);
         }
         double bits = best / LN2;
         return Math.max(bits, 0) * (1 + 1e-9) + 2;
@@ -110,7 +116,7 @@ final class CountBound {
         double fc = f.at(c);
         double fd = f.at(d);
         double seen = Math.min(Math.min(fc, fd), f.at(0.0));
-        for (int it = 0; it < 48; it++) {
+        for (int it = 0; it < 32; it++) {
             if (fc < fd) {
                 b = d;
                 d = c;

@@ -28,6 +28,8 @@ final class CountEngine {
         BigInteger[] t = new BigInteger[(maxN + 1) * w];
         java.util.Arrays.fill(t, BigInteger.ZERO);
         int levels = relevantLevels(energy, maxE);
+        Ticker ticker = new Ticker(progress, stats.indistinguishable() ? levels : maxN,
+                stats.indistinguishable() ? "levels" : "particles");
         if (stats.indistinguishable()) {
             t[0] = BigInteger.ONE;
             for (int l = 0; l < levels; l++) {
@@ -50,7 +52,7 @@ final class CountEngine {
                         }
                     }
                 }
-                progress.progress(l + 1, levels, "levels");
+                ticker.step();
             }
         } else {
             t[0] = BigInteger.ONE;
@@ -67,7 +69,7 @@ final class CountEngine {
                         }
                     }
                 }
-                progress.progress(n, maxN, "particles");
+                ticker.step();
             }
         }
         return t;
@@ -90,55 +92,11 @@ final class CountEngine {
             }
         }
         long steps = (long) primes.length * (stats.indistinguishable() ? levels : maxN);
-        long done = 0;
-        for (int pi = 0; pi < primes.length; pi++) {
-            long p = primes[pi];
-            BigInteger bp = BigInteger.valueOf(p);
-            long[] t = new long[size];
-            t[0] = 1;
-            if (stats.indistinguishable()) {
-                for (int l = 0; l < levels; l++) {
-                    int el = energy[l];
-                    BigInteger[] c = coef[l];
-                    long[] cm = new long[c.length];
-                    long[] cs = new long[c.length];
-                    for (int j = 0; j < c.length; j++) {
-                        cm[j] = c[j].mod(bp).longValue();
-                        cs[j] = Moduli.shoup(cm[j], p);
-                    }
-                    applyLevel(t, w, maxN, maxE, el, cm, cs, p);
-                    progress.progress(++done, steps, "levels x primes");
-                }
-            } else {
-                long[] gm = new long[levels];
-                long[] gs = new long[levels];
-                for (int l = 0; l < levels; l++) {
-                    gm[l] = deg[l] % p;
-                    gs[l] = Moduli.shoup(gm[l], p);
-                }
-                for (int n = 1; n <= maxN; n++) {
-                    int dst = n * w;
-                    int src = (n - 1) * w;
-                    for (int l = 0; l < levels; l++) {
-                        int el = energy[l];
-                        long g = gm[l];
-                        long gsh = gs[l];
-                        for (int e = el; e <= maxE; e++) {
-                            long x = t[src + e - el];
-                            long q = (Math.multiplyHigh(gsh, x) << 1) | ((gsh * x) >>> 63);
-                            long r = g * x - q * p;
-                            if (r >= p) {
-                                r -= p;
-                            }
-                            long s = t[dst + e] + r;
-                            t[dst + e] = s >= p ? s - p : s;
-                        }
-                    }
-                    progress.progress(++done, steps, "particles x primes");
-                }
-            }
-            res[pi] = t;
-        }
+        Ticker ticker = new Ticker(progress, steps, stats.indistinguishable() ? "levels x primes" : "particles x primes");
+        Runnable tick = ticker::step;
+        // primes are independent: one task each, run on the common fork-join pool
+        java.util.stream.IntStream.range(0, primes.length).parallel().forEach(pi ->
+                res[pi] = residues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick));
         Moduli.Crt crt = new Moduli.Crt(primes);
         long[] scratch = new long[primes.length];
         BigInteger[] out = new BigInteger[size];
@@ -148,8 +106,64 @@ final class CountEngine {
         return out;
     }
 
-    /** One level, in place, modulo p: T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending. */
-    private static void applyLevel(long[] t, int w, int maxN, int maxE, int el, long[] cm, long[] cs, long p) {
+    /** The whole table modulo one prime p. */
+    private static long[] residues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
+                                   BigInteger[][] coef, long p, Runnable tick) {
+        int w = maxE + 1;
+        long[] t = new long[(maxN + 1) * w];
+        t[0] = 1;
+        BigInteger bp = BigInteger.valueOf(p);
+        if (stats.indistinguishable()) {
+            int[] lo = groundEnergies(energy, deg, stats, maxN, maxE, levels);
+            for (int l = 0; l < levels; l++) {
+                BigInteger[] c = coef[l];
+                long[] cm = new long[c.length];
+                long[] cs = new long[c.length];
+                for (int j = 0; j < c.length; j++) {
+                    cm[j] = c[j].mod(bp).longValue();
+                    cs[j] = Moduli.shoup(cm[j], p);
+                }
+                applyLevel(t, w, maxN, maxE, energy[l], l == 0 ? -1 : energy[l - 1], lo, cm, cs, p);
+                tick.run();
+            }
+        } else {
+            long[] gm = new long[levels];
+            long[] gs = new long[levels];
+            for (int l = 0; l < levels; l++) {
+                gm[l] = deg[l] % p;
+                gs[l] = Moduli.shoup(gm[l], p);
+            }
+            for (int n = 1; n <= maxN; n++) {
+                int dst = n * w;
+                int src = (n - 1) * w;
+                for (int l = 0; l < levels; l++) {
+                    int el = energy[l];
+                    long g = gm[l];
+                    long gsh = gs[l];
+                    for (int e = el; e <= maxE; e++) {
+                        long x = t[src + e - el];
+                        long q = (Math.multiplyHigh(gsh, x) << 1) | ((gsh * x) >>> 63);
+                        long r = g * x - q * p;
+                        if (r >= p) {
+                            r -= p;
+                        }
+                        long s = t[dst + e] + r;
+                        t[dst + e] = s >= p ? s - p : s;
+                    }
+                }
+                tick.run();
+            }
+        }
+        return t;
+    }
+
+    /**
+     * One level, in place, modulo p: T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending. Source
+     * row m = n - j can be non-zero only for lo[m] &lt;= e' &lt;= m * prevTop (prevTop = energy of the
+     * last level already applied, -1 before the first), so only that window is swept.
+     */
+    private static void applyLevel(long[] t, int w, int maxN, int maxE, int el, int prevTop, int[] lo,
+                                   long[] cm, long[] cs, long p) {
         for (int n = maxN; n >= 1; n--) {
             int jTop = Math.min(n, cm.length - 1);
             int dst = n * w;
@@ -163,19 +177,61 @@ final class CountEngine {
                 if (c == 0) {
                     continue;
                 }
-                int src = (n - j) * w - off;
-                for (int e = off; e <= maxE; e++) {
+                int m = n - j;
+                int from = lo[m];
+                int to = (int) Math.min(maxE - off, sourceTop(m, prevTop));
+                int src = m * w;
+                int d = dst + off;
+                for (int e = from; e <= to; e++) {
                     long x = t[src + e];
                     long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
                     long r = c * x - q * p;
                     if (r >= p) {
                         r -= p;
                     }
-                    long s = t[dst + e] + r;
-                    t[dst + e] = s >= p ? s - p : s;
+                    long s = t[d + e] + r;
+                    t[d + e] = s >= p ? s - p : s;
                 }
             }
         }
+    }
+
+    /** Largest energy m particles can have using only levels up to energy prevTop (-1: none applied yet). */
+    private static long sourceTop(int m, int prevTop) {
+        if (m == 0) {
+            return 0;
+        }
+        return prevTop < 0 ? -1 : (long) m * prevTop;
+    }
+
+    /**
+     * lo[n] = lowest total energy of n particles on these levels (at most k per state), or maxE + 1
+     * if n particles do not fit below maxE; every entry T[n][e] with e &lt; lo[n] is zero at every
+     * stage of the recursion.
+     */
+    static int[] groundEnergies(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels) {
+        int[] lo = new int[maxN + 1];
+        long e = 0;
+        int l = 0;
+        long slotsLeft = levels > 0 ? slots(deg[0], stats) : 0;
+        for (int n = 1; n <= maxN; n++) {
+            while (l < levels && slotsLeft == 0) {
+                l++;
+                slotsLeft = l < levels ? slots(deg[l], stats) : 0;
+            }
+            if (l >= levels || e > maxE) {
+                lo[n] = maxE + 1;
+                continue;
+            }
+            e += energy[l];
+            slotsLeft--;
+            lo[n] = (int) Math.min(e, maxE + 1L);
+        }
+        return lo;
+    }
+
+    private static long slots(int g, Statistics stats) {
+        return stats.capped() ? (long) g * stats.maxOccupancy() : Long.MAX_VALUE;
     }
 
     /** Number of leading levels (sorted by energy) with energy &lt;= maxE. */

@@ -33,8 +33,12 @@ import org.microtally.spectrum.Statistics;
  * (1 + x q^e_l)^g (Fermi) or (1 + x q^e_l + ... + (x q^e_l)^k)^g (Gentile), applied as one truncated
  * binomial series with j &lt;= min(N, E / e_l) terms, not as g single-state passes; cost
  * O(N E sum_l min(N, E/e_l)) word operations per prime. Counting is done modulo the largest primes below
- * 2^62 and reconstructed by Chinese remaindering; the number of primes comes from a proven
- * saddle-point upper bound on every entry (see {@link #primesUsed()}), so the result is exact. (See
+ * 2^62 (one parallel task per prime on the common fork-join pool) and reconstructed by Chinese
+ * remaindering; the number of primes comes from a proven
+ * saddle-point upper bound on every entry (see {@link #primesUsed()}), so the result is exact. Small
+ * tables (under 2e5 word operations) run the same recursion directly in BigInteger; the two paths
+ * are tested against each other. Only the window of each row that can be non-zero (above the
+ * ground energy of its particles) is swept. (See
  * {@code CountEngine}, {@code CountBound}, {@code Moduli} for the sources.)
  *
  * <p><b>Completeness under a spectrum cutoff.</b> The counts are exact for the levels the spectrum
@@ -84,7 +88,8 @@ public final class CountTable implements Tabular {
     }
 
     /**
-     * Builds the table, reporting progress per level (and prime).
+     * Builds the table, reporting progress per level (and prime), at most about 200 calls per stage,
+     * one at a time but possibly from a worker thread.
      *
      * @param spectrum     levels with integer energies &gt;= 0
      * @param statistics   particle statistics
@@ -146,14 +151,14 @@ public final class CountTable implements Tabular {
         }
     }
 
-    /** Word operations per prime of the counting recursion (used to pick the arithmetic). */
-    static long work(int[] energy, Statistics stats, int maxN, int maxE) {
-        long cells = (long) (maxN + 1) * (maxE + 1);
+    /** Word operations per prime of the counting recursion, an upper estimate (used to pick the arithmetic). */
+    static double work(int[] energy, Statistics stats, int maxN, int maxE) {
+        double cells = (double) (maxN + 1) * (maxE + 1);
         int levels = CountEngine.relevantLevels(energy, maxE);
         if (!stats.indistinguishable()) {
             return cells * levels;
         }
-        long w = 0;
+        double w = 0;
         for (int l = 0; l < levels; l++) {
             w += cells * CountEngine.maxJ(energy[l], maxN, maxE);
         }

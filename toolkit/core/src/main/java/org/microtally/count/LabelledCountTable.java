@@ -99,6 +99,8 @@ public final class LabelledCountTable implements Tabular {
         Arrays.fill(t, BigInteger.ZERO);
         int zero = (int) -labelLo;
         t[zero] = BigInteger.ONE;
+        Ticker ticker = new Ticker(progress, stats.indistinguishable() ? levels : maxN,
+                stats.indistinguishable() ? "levels" : "particles");
         if (stats.indistinguishable()) {
             for (int l = 0; l < levels; l++) {
                 int el = energy[l];
@@ -114,7 +116,7 @@ public final class LabelledCountTable implements Tabular {
                         addShifted(t, n * we, (n - j) * we, c[j], off, j * ml, maxE, w);
                     }
                 }
-                progress.progress(l + 1, levels, "levels");
+                ticker.step();
             }
         } else {
             for (int n = 1; n <= maxN; n++) {
@@ -122,7 +124,7 @@ public final class LabelledCountTable implements Tabular {
                     addShifted(t, n * we, (n - 1) * we, BigInteger.valueOf(deg[l]), energy[l], spectrum.label(l),
                             maxE, w);
                 }
-                progress.progress(n, maxN, "particles");
+                ticker.step();
             }
         }
         return new LabelledCountTable(spectrum, stats, maxN, maxE, energyIgnored, (int) labelLo, w, t);

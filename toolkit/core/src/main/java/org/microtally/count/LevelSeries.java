@@ -11,7 +11,7 @@ import org.microtally.spectrum.Statistics;
  *   <li>Fermi: F = (1 + y)^g, c_j = C(g, j);</li>
  *   <li>Gentile k: F = ((1 - y^(k+1)) / (1 - y))^g = (1 + y + ... + y^k)^g, by J. C. P. Miller's
  *       recurrence for a power of a power series (D. E. Knuth, TAOCP Vol. 2, 3rd ed., Sec. 4.7,
- *       eq. (9)): a_0 = 1, a_m = (1/m) sum_{i=1..min(k,m)} ((g+1) i - m) a_{m-i}, exact division.</li>
+ *       powers of power series): a_0 = 1, a_m = (1/m) sum_{i=1..min(k,m)} ((g+1) i - m) a_{m-i}, exact division.</li>
  * </ul>
  * All coefficients are exact and non-negative.
  */

@@ -22,8 +22,9 @@ import org.microtally.spectrum.Statistics;
  * {@link #stateLevels(int)} maps a state position to its level. For indistinguishable particles each
  * element is an occupation vector over those states (entries 0..k, summing to n); for
  * DISTINGUISHABLE particles each element is a label assignment: entry i is the state of particle i.
- * Elements are fresh arrays, produced in a fixed (reverse-lexicographic) order by depth-first search
- * with pruning on the remaining particles and energy; nothing is stored.
+ * Elements are fresh arrays in a fixed order (occupation vectors in decreasing, label assignments in
+ * increasing lexicographic order), produced one at a time by depth-first search with pruning on the
+ * remaining particles and energy; nothing is stored.
  *
  * <p>Cap: asking for more microstates than the cap (default 10^7) is refused before anything is
  * enumerated, with the exact number (taken from a {@link CountTable}) in the message; raise it with

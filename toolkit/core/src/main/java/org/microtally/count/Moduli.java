@@ -8,8 +8,8 @@ import java.util.List;
  * Word-size modular arithmetic for the multi-modular counting path.
  *
  * <p>Moduli are the largest primes below 2^62 (all &gt; 2^61), proven prime by deterministic
- * Miller-Rabin with the first twelve prime bases, which is exact for every n &lt; 3.3e24
- * (J. Sorenson, J. Webster, Math. Comp. 86 (2017) 985-1003). Products by a fixed multiplier use
+ * Miller-Rabin with the first twelve prime bases, which is exact for every n &lt; 3.18e23
+ * (J. Sorenson, J. Webster, "Strong pseudoprimes to twelve prime bases", Math. Comp. 86 (2017) 985-1003). Products by a fixed multiplier use
  * V. Shoup's precomputed-quotient method (as described in D. Harvey, "Faster arithmetic for
  * number-theoretic transforms", J. Symb. Comp. 60 (2014), Sec. 2): with w' = floor(w 2^63 / p) and
  * x &lt; p &lt; 2^62, q = floor(w' x / 2^63) is the true quotient or one less, so w x - q p lies in

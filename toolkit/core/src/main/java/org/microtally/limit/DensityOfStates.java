@@ -1,5 +1,6 @@
 package org.microtally.limit;
 
+import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
 import org.microtally.units.Codata2018;
 
@@ -51,6 +52,41 @@ public final class DensityOfStates {
         double e = Codata2018.HBAR * trap.geometricMean();
         return new DensityOfStates(spinDegeneracy / (2.0 * e * e * e), 3.0, false,
                 "3D harmonic trap, omega_g = " + trap.geometricMean() + " rad/s, g = " + spinDegeneracy);
+    }
+
+    /**
+     * A three-dimensional power-law trap V(x) = sum_i c_i |x_i|^(p_i) (c_i in J m^-p_i), semiclassically
+     * (Bagnato, Pritchard and Kleppner 1987): alpha = 3/2 + sum_i 1/p_i and the number of states below e
+     * is K e^alpha with
+     * K = (4 pi/3) (2m)^(3/2) / (2 pi hbar)^3 * prod_i [2 Gamma(1 + 1/p_i) c_i^(-1/p_i)] * Gamma(5/2) / Gamma(alpha + 1),
+     * from the phase-space volume and Dirichlet's integral; so C = alpha K. With p_i = 2 and
+     * c_i = m omega_i^2 / 2 this is {@link #harmonic}; a quadrupole trap has p_i = 1 (alpha = 9/2).
+     *
+     * @param massKg         particle mass in kg
+     * @param strengths      c_x, c_y, c_z in J m^-p_i, each &gt; 0
+     * @param powers         p_x, p_y, p_z, each &gt; 0
+     * @param spinDegeneracy g_s
+     */
+    public static DensityOfStates powerLawTrap(double massKg, double[] strengths, double[] powers, int spinDegeneracy) {
+        Checks.positive("particle mass (kg)", massKg, "");
+        Checks.degeneracy(spinDegeneracy);
+        if (strengths.length != 3 || powers.length != 3) {
+            throw InvalidInputException.of("number of trap axes", strengths.length + " strengths and " + powers.length
+                    + " powers", "3 of each", "");
+        }
+        double alpha = 1.5;
+        double logK = Math.log(4.0 * Math.PI / 3.0) + 1.5 * Math.log(2.0 * massKg) - 3.0 * Math.log(2.0 * Math.PI * Codata2018.HBAR)
+                + Gamma.logGamma(2.5);
+        for (int i = 0; i < 3; i++) {
+            Checks.positive("trap strength c_" + "xyz".charAt(i) + " (J m^-p)", strengths[i], "");
+            Checks.positive("trap power p_" + "xyz".charAt(i), powers[i], "");
+            double inv = 1.0 / powers[i];
+            alpha += inv;
+            logK += Math.log(2.0) + Gamma.logGamma(1.0 + inv) - inv * Math.log(strengths[i]);
+        }
+        logK -= Gamma.logGamma(alpha + 1.0);
+        double c = spinDegeneracy * alpha * Math.exp(logK);
+        return new DensityOfStates(c, alpha, false, "3D power-law trap, alpha = " + alpha + ", g = " + spinDegeneracy);
     }
 
     /** A two-dimensional isotropic oscillator: g(e) = g_s e / (hbar omega)^2, alpha = 2. */

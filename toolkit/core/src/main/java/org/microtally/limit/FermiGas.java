@@ -18,7 +18,7 @@ import org.microtally.units.EnergyUnit;
  *
  * <p><b>Formulas.</b> Fermi energy from C E_F^alpha / alpha = N: in a box
  * E_F = hbar^2/(2m) (6 pi^2 n / g_s)^(2/3) (free electrons, g_s = 2: (3 pi^2 n)^(2/3); N. W. Ashcroft and
- * N. D. Mermin, Solid State Physics (1976), eq. 2.21 and Table 2.1), in a 3D harmonic trap
+ * N. D. Mermin, Solid State Physics (1976), ch. 2 and Table 2.1), in a 3D harmonic trap
  * E_F = hbar omega_g (6N/g_s)^(1/3), in a 2D oscillator E_F = hbar omega (2N/g_s)^(1/2); T_F = E_F/k.
  * At temperature T with eta = mu/kT and F_j the complete Fermi-Dirac integral
  * ({@link FermiDirac#integral}):
@@ -253,14 +253,22 @@ public final class FermiGas {
         return alpha * eta * numerator / (sB * sC);
     }
 
+    /** Dirichlet eta(2k) = (1 - 2^(1-2k)) zeta(2k), k = 1 .. 24 (index 0 unused). */
+    private static final double[] ETA_EVEN = new double[25];
+
+    static {
+        for (int k = 1; k < ETA_EVEN.length; k++) {
+            ETA_EVEN[k] = -Math.expm1((1.0 - 2.0 * k) * Math.log(2.0)) * Zeta.zeta(2.0 * k);
+        }
+    }
+
     private static double[] sommerfeldCoefficients(double j, int terms) {
         double[] c = new double[terms];
         c[0] = 1.0;
         double product = 1.0;
         for (int k = 1; k < terms; k++) {
             product *= (j + 1.0 - (2 * k - 2)) * (j + 1.0 - (2 * k - 1));
-            double etaDirichlet = -Math.expm1((1.0 - 2.0 * k) * Math.log(2.0)) * Zeta.zeta(2.0 * k);
-            c[k] = 2.0 * etaDirichlet * product;
+            c[k] = 2.0 * ETA_EVEN[k] * product;
         }
         return c;
     }

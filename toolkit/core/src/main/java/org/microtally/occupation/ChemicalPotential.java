@@ -42,17 +42,138 @@ public final class ChemicalPotential {
      *                               targetN at or above the capacity of a capped spectrum
      */
     public static double forMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
-        requireTemperature(kT);
-        if (!(targetN > 0) || !Double.isFinite(targetN)) {
-            throw InvalidInputException.of("target mean particle number <N>", targetN, "a finite number > 0",
-                    "An empty system has mu = -infinity; give <N> > 0.");
+        return solver(spectrum, statistics).forMeanNumber(kT, targetN);
+    }
+
+    /**
+     * A reusable solver for one spectrum and statistics: the per-spectrum arrays (energies,
+     * degeneracies, cumulative state counts) are built once, so temperature sweeps pay only for the
+     * root searches.
+     */
+    public static Solver solver(Spectrum spectrum, Statistics statistics) {
+        return new Solver(spectrum, statistics);
+    }
+
+    /**
+     * The chemical potential for one spectrum and statistics at any (kT, &lt;N&gt;). Each evaluation of
+     * N(mu) skips the levels whose total contribution is provably below e^-50 of the target (sorted
+     * energies, binary search for the window |e - mu| &lt;= kT (50 + ln(S / min(1, N)))): the
+     * neglected particles above plus holes below are at most k S e^{-X} for the window half-width X,
+     * far below the double rounding of the sum. Immutable and thread-safe.
+     */
+    public static final class Solver {
+        private final Spectrum spectrum;
+        private final Statistics statistics;
+        private final double[] e;
+        private final int[] g;
+        private final long[] statesBelow;
+
+        private Solver(Spectrum spectrum, Statistics statistics) {
+            this.spectrum = spectrum;
+            this.statistics = statistics;
+            this.e = spectrum.energies();
+            this.g = spectrum.degeneracies();
+            this.statesBelow = new long[e.length + 1];
+            for (int i = 0; i < e.length; i++) {
+                statesBelow[i + 1] = statesBelow[i] + g[i];
+            }
         }
-        double beta = 1.0 / kT;
-        return switch (statistics.kind()) {
-            case BOSE -> bose(spectrum, beta, targetN);
-            case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, targetN);
-            case FERMI, GENTILE -> capped(spectrum, statistics, beta, targetN);
-        };
+
+        /** mu at temperature kT for mean number targetN; see {@link ChemicalPotential#forMeanNumber}. */
+        public double forMeanNumber(double kT, double targetN) {
+            requireTemperature(kT);
+            if (!(targetN > 0) || !Double.isFinite(targetN)) {
+                throw InvalidInputException.of("target mean particle number <N>", targetN, "a finite number > 0",
+                        "An empty system has mu = -infinity; give <N> > 0.");
+            }
+            double beta = 1.0 / kT;
+            double window = 50 + Math.log(spectrum.stateCount() / Math.min(1.0, targetN));
+            return switch (statistics.kind()) {
+                case BOSE -> bose(beta, targetN, window);
+                case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, targetN);
+                case FERMI, GENTILE -> capped(beta, targetN, window);
+            };
+        }
+
+        /** First index with e[i] &gt; x (sorted energies). */
+        private int upper(double x) {
+            int lo = 0;
+            int hi = e.length;
+            while (lo < hi) {
+                int mid = (lo + hi) >>> 1;
+                if (e[mid] <= x) {
+                    lo = mid + 1;
+                } else {
+                    hi = mid;
+                }
+            }
+            return lo;
+        }
+
+        private double bose(double beta, double target, double window) {
+            double e0 = e[0];
+            int g0 = g[0];
+            double lo = Math.log1p(g0 / target);
+            double hi = Math.log1p(spectrum.stateCount() / target);
+            if (hi <= lo * (1 + 1e-15)) {
+                return e0 - lo / beta;
+            }
+            double lnTarget = Math.log(target);
+            int end = upper(e0 + window / beta);
+            BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-15, 1e-300, 5);
+            double u = solver.solve(MAX_EVALUATIONS, uu -> {
+                double bd = Math.exp(uu);
+                double sum = 0;
+                for (int i = 0; i < end; i++) {
+                    sum += g[i] / Math.expm1(beta * (e[i] - e0) + bd);
+                }
+                return Math.log(sum) - lnTarget;
+            }, Math.log(lo), Math.log(hi), AllowedSolution.ANY_SIDE);
+            return e0 - Math.exp(u) / beta;
+        }
+
+        private double capped(double beta, double target, double window) {
+            int k = statistics.maxOccupancy();
+            double capacity = (double) k * spectrum.stateCount();
+            if (target >= capacity) {
+                throw InvalidInputException.of("target mean particle number <N>", target,
+                        "below the capacity " + (long) capacity + " of the truncated spectrum (" + k
+                                + " per state x " + spectrum.stateCount() + " states)",
+                        "Raise the spectrum's cutoff or lower <N>.");
+            }
+            double lo = e[0] + Math.log(target / capacity) / beta;
+            double hi = e[e.length - 1] + Math.log(capacity / (capacity - target)) / beta;
+            BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-16, 4 * Math.ulp(
+                    Math.max(Math.abs(lo), Math.abs(hi))), 1e-300, 5);
+            boolean fermi = statistics.kind() == Statistics.Kind.FERMI;
+            return solver.solve(MAX_EVALUATIONS, mu -> {
+                double half = window / beta;
+                int from = upper(mu - half);
+                int split = upper(mu);
+                int to = upper(mu + half);
+                // levels below the window are full (k per state): counted exactly in base
+                double base = (double) k * statesBelow[split] - target;
+                double above = 0;
+                double holes = 0;
+                for (int i = from; i < to; i++) {
+                    double x = beta * (e[i] - mu);
+                    if (i >= split) {
+                        above += g[i] * (fermi ? fermiMean(x) : MeanOccupation.gentile(k, x));
+                    } else {
+                        holes += g[i] * (fermi ? fermiMean(-x) : MeanOccupation.gentile(k, -x));
+                    }
+                }
+                return base + (above - holes);
+            }, lo, hi, AllowedSolution.ANY_SIDE);
+        }
+
+        private static double fermiMean(double x) {
+            if (x > 0) {
+                double t = Math.exp(-x);
+                return t / (1.0 + t);
+            }
+            return 1.0 / (1.0 + Math.exp(x));
+        }
     }
 
     /**
@@ -98,29 +219,6 @@ public final class ChemicalPotential {
         }
     }
 
-    private static double bose(Spectrum s, double beta, double target) {
-        double e0 = s.groundEnergy();
-        int g0 = s.degeneracy(0);
-        double lo = Math.log1p(g0 / target);
-        double hi = Math.log1p(s.stateCount() / target);
-        if (hi <= lo * (1 + 1e-15)) {
-            return e0 - lo / beta;
-        }
-        double lnTarget = Math.log(target);
-        double[] e = s.energies();
-        int[] g = s.degeneracies();
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-15, 1e-300, 5);
-        double u = solver.solve(MAX_EVALUATIONS, uu -> {
-            double bd = Math.exp(uu);
-            double sum = 0;
-            for (int i = 0; i < e.length; i++) {
-                sum += g[i] / Math.expm1(beta * (e[i] - e0) + bd);
-            }
-            return Math.log(sum) - lnTarget;
-        }, Math.log(lo), Math.log(hi), AllowedSolution.ANY_SIDE);
-        return e0 - Math.exp(u) / beta;
-    }
-
     private static double maxwellBoltzmann(Spectrum s, double beta, double target) {
         double e0 = s.groundEnergy();
         double sum = 0;
@@ -128,41 +226,5 @@ public final class ChemicalPotential {
             sum += s.degeneracy(i) * Math.exp(-beta * (s.energy(i) - e0));
         }
         return e0 + (Math.log(target) - Math.log(sum)) / beta;
-    }
-
-    private static double capped(Spectrum s, Statistics st, double beta, double target) {
-        int k = st.maxOccupancy();
-        double capacity = (double) k * s.stateCount();
-        if (target >= capacity) {
-            throw InvalidInputException.of("target mean particle number <N>", target,
-                    "below the capacity " + (long) capacity + " of the truncated spectrum (" + k
-                            + " per state x " + s.stateCount() + " states)",
-                    "Raise the spectrum's cutoff or lower <N>.");
-        }
-        double[] e = s.energies();
-        int[] g = s.degeneracies();
-        double lo = s.groundEnergy() + Math.log(target / capacity) / beta;
-        double hi = s.topEnergy() + Math.log(capacity / (capacity - target)) / beta;
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-16, 4 * Math.ulp(
-                Math.max(Math.abs(lo), Math.abs(hi))), 1e-300, 5);
-        return solver.solve(MAX_EVALUATIONS, mu -> cappedResidual(e, g, st, k, beta, mu, target), lo, hi,
-                AllowedSolution.ANY_SIDE);
-    }
-
-    /** N(mu) - target as (capacity below mu - target) + particles above - holes below. */
-    static double cappedResidual(double[] e, int[] g, Statistics st, int k, double beta, double mu, double target) {
-        double base = -target;
-        double above = 0;
-        double holes = 0;
-        for (int i = 0; i < e.length; i++) {
-            double x = beta * (e[i] - mu);
-            if (x > 0) {
-                above += g[i] * MeanOccupation.mean(st, x);
-            } else {
-                base += (double) k * g[i];
-                holes += g[i] * MeanOccupation.mean(st, -x);
-            }
-        }
-        return base + (above - holes);
     }
 }

@@ -34,6 +34,16 @@ public final class FermiDirac {
 
     private static final double LN2 = Math.log(2.0);
 
+    /** Dirichlet eta(2k), k = 0 .. 200, for the Sommerfeld series (eta(0) = 1/2 is not used there). */
+    private static final double[] ETA_EVEN = new double[201];
+
+    static {
+        ETA_EVEN[0] = 0.5;
+        for (int k = 1; k < ETA_EVEN.length; k++) {
+            ETA_EVEN[k] = Zeta.eta(2.0 * k);
+        }
+    }
+
     /**
      * The complete Fermi-Dirac integral F_j(eta), normalised with 1/Gamma(j+1) (DLMF 25.12.14).
      *
@@ -103,7 +113,7 @@ public final class FermiDirac {
         double previous = Double.POSITIVE_INFINITY;
         for (int k = 1; k <= 200; k++) {
             ratio *= (j + 1.0 - (2 * k - 2)) * (j + 1.0 - (2 * k - 1)) * invEta2;
-            double term = 2.0 * Zeta.eta(2.0 * k) * ratio;
+            double term = 2.0 * ETA_EVEN[k] * ratio;
             if (Math.abs(term) > previous) {
                 break; // asymptotic series: stop at its smallest term (not reached in the range used)
             }

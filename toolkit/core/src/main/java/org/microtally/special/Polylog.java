@@ -12,12 +12,12 @@ import org.microtally.InvalidInputException;
  * <ul>
  *   <li>|z| &lt;= 1/2, or s &gt;= 25: the defining power series.</li>
  *   <li>1/2 &lt; z &lt; 1: the series in mu = ln z about z = 1 (D. C. Wood, "The computation of
- *       polylogarithms", Univ. of Kent Computing Laboratory Tech. Report 15-92 (1992), eq. 9;
+ *       polylogarithms", Univ. of Kent Computing Laboratory Tech. Report 15-92 (1992);
  *       DLMF 25.12.12): Li_s(e^mu) = Gamma(1-s) (-mu)^(s-1) + sum_k zeta(s-k) mu^k / k!, with zeta
  *       continued analytically. When s is within 0.05 of a positive integer n, the two terms that
  *       are singular at s = n (Gamma(1-s) and zeta(s-n+1)) are combined analytically with the
  *       Stieltjes-constant expansion of zeta about 1 (DLMF 25.2.4) and the Taylor series of
- *       ln Gamma, which gives Wood's eq. 11 at s = n exactly and no cancellation nearby.</li>
+ *       ln Gamma, which gives Wood's formula for integer order at s = n exactly and no cancellation nearby.</li>
  *   <li>-e &lt;= z &lt; -1/2: the Taylor series about z = -1 in mu = ln(-z), Li_s(-e^mu) =
  *       -sum_k eta(s-k) mu^k / k! with the Dirichlet eta function (radius pi; here |mu| &lt;= 1).</li>
  *   <li>z &lt; -e (s &gt; 0 only): Li_s(z) = -F_{s-1}(ln(-z)), see {@link FermiDirac#integral}.</li>
@@ -35,6 +35,53 @@ public final class Polylog {
     private static final double HALF = 0.5;
     private static final double SERIES_TOLERANCE = 1e-17;
     private static final int MAX_TERMS = 5000;
+
+    /**
+     * Per-thread memo of the series coefficients zeta(s-k) and eta(s-k) for the last order s used,
+     * filled on demand: root solves and sweeps call Li_s at one s and many z. Values are the same
+     * with or without the memo.
+     */
+    private static final class Coefficients {
+        final double s;
+        final boolean dirichletEta;
+        final double[] values;
+
+        Coefficients(double s, boolean dirichletEta) {
+            this.s = s;
+            this.dirichletEta = dirichletEta;
+            this.values = new double[Math.max(0, (int) Math.ceil(s + 1.0)) + 64];
+            java.util.Arrays.fill(values, Double.NaN);
+        }
+
+        double get(int k) {
+            if (k >= values.length) {
+                return compute(k);
+            }
+            double v = values[k];
+            if (Double.isNaN(v)) {
+                v = compute(k);
+                values[k] = v;
+            }
+            return v;
+        }
+
+        private double compute(int k) {
+            return dirichletEta ? Zeta.eta(s - k) : Zeta.zetaAnyReal(s - k);
+        }
+    }
+
+    private static final ThreadLocal<Coefficients[]> MEMO = ThreadLocal.withInitial(() -> new Coefficients[2]);
+
+    private static Coefficients coefficients(double s, boolean dirichletEta) {
+        Coefficients[] memo = MEMO.get();
+        int slot = dirichletEta ? 1 : 0;
+        Coefficients c = memo[slot];
+        if (c == null || Double.compare(c.s, s) != 0) {
+            c = new Coefficients(s, dirichletEta);
+            memo[slot] = c;
+        }
+        return c;
+    }
 
     /**
      * The polylogarithm Li_s(z) for real s and real z &lt;= 1.
@@ -115,6 +162,7 @@ public final class Polylog {
         } else {
             sum += SpecialMath.gamma(1.0 - s) * Math.pow(-mu, s - 1.0);
         }
+        Coefficients zetas = coefficients(s, false);
         double power = 1.0; // mu^k / k!
         int small = 0;
         for (int k = 0; k <= MAX_TERMS; k++) {
@@ -124,7 +172,7 @@ public final class Polylog {
             if (k == singularK) {
                 continue;
             }
-            double term = Zeta.zetaAnyReal(s - k) * power;
+            double term = zetas.get(k) * power;
             sum += term;
             if (k > s + 1 && Math.abs(term) <= SERIES_TOLERANCE * Math.abs(sum)) {
                 if (++small >= 2) {
@@ -198,6 +246,7 @@ public final class Polylog {
 
     /** Li_s(-e^mu) = -sum_k eta(s-k) mu^k / k!, for |mu| &lt;= 1 (Taylor series about z = -1). */
     static double aboutMinusOne(double s, double mu) {
+        Coefficients etas = coefficients(s, true);
         double sum = 0.0;
         double power = 1.0;
         int small = 0;
@@ -208,7 +257,7 @@ public final class Polylog {
             if (power == 0.0) {
                 break;
             }
-            double term = Zeta.eta(s - k) * power;
+            double term = etas.get(k) * power;
             sum += term;
             if (k > s + 1 && Math.abs(term) <= SERIES_TOLERANCE * Math.abs(sum)) {
                 if (++small >= 2) {

@@ -46,12 +46,12 @@ class CountTableTest {
 
     @Test
     void einsteinSolidMatchesClosedFormForManySizes() {
-        int maxN = 40;
-        int maxQ = 120;
+        int maxN = 30;
+        int maxQ = 80;
         CountTable t = CountTable.of(Spectra.harmonicOscillator(1, maxQ), Statistics.DISTINGUISHABLE, maxN, maxQ);
         for (int n = 1; n <= maxN; n++) {
             for (int q = 0; q <= maxQ; q++) {
-                // Source: closed form Omega(N, q) = C(q + N - 1, q) (Schroeder, eq. 2.9)
+                // Source: closed form Omega(N, q) = C(q + N - 1, q) (Schroeder, Sec. 2.2)
                 assertEquals(binomial(q + n - 1, q), t.count(n, q), "N = " + n + ", q = " + q);
             }
         }
@@ -137,7 +137,7 @@ class CountTableTest {
             }
         }
         // Source: closed form: shell N holds (N+1)(N+2) spin-1/2 fermions; cumulative 2, 8, 20, 40, 70, 112
-        // (harmonic-oscillator magic numbers, e.g. Bohr & Mottelson, Nuclear Structure Vol. I, Sec. 2-4)
+        // (harmonic-oscillator magic numbers of nuclear-structure textbooks; reference from memory)
         assertEquals(List.of(2, 8, 20, 40, 70, 112), closed);
     }
 
@@ -189,8 +189,9 @@ class CountTableTest {
         Random rnd = new Random(7L);
         Statistics[] all = {Statistics.BOSE, Statistics.FERMI, Statistics.DISTINGUISHABLE, Statistics.maxOccupancy(2),
             Statistics.maxOccupancy(3)};
-        for (int trial = 0; trial < 25; trial++) {
-            Spectrum s = Spectra.harmonicOscillator(1 + rnd.nextInt(3), 5 + rnd.nextInt(20));
+        for (int trial = 0; trial < 60; trial++) {
+            Spectrum s = trial % 2 == 0 ? Spectra.harmonicOscillator(1 + rnd.nextInt(3), 5 + rnd.nextInt(20))
+                    : irregular(rnd);
             int[] en = s.integerEnergies();
             int[] g = s.degeneracies();
             Statistics st = all[trial % all.length];
@@ -201,7 +202,7 @@ class CountTableTest {
             BigInteger[] mm = CountEngine.multiModular(en, g, st, maxN, maxE, Moduli.primes(primes), ProgressListener.NONE);
             // Source: independent arithmetic (exact BigInteger recursion) vs residues + Garner CRT
             assertEquals(java.util.Arrays.asList(ref), java.util.Arrays.asList(mm), "trial " + trial + " " + st);
-            // Source: the proven saddle-point bound must dominate every exact entry (Flajolet-Sedgewick Prop. IV.1)
+            // Source: the proven saddle-point bound must dominate every exact entry (Flajolet-Sedgewick, Ch. VIII)
             double bound = CountBound.log2Bound(en, g, st, maxN, maxE);
             for (BigInteger v : ref) {
                 assertTrue(v.bitLength() <= bound + 1, "bound " + bound + " vs " + v.bitLength());
@@ -209,21 +210,31 @@ class CountTableTest {
         }
     }
 
+    /** Random levels: energies 1..30 (sometimes a level at 0), degeneracies 1..12. */
+    static Spectrum irregular(Random rnd) {
+        List<Level> levels = new ArrayList<>();
+        int count = 1 + rnd.nextInt(12);
+        for (int i = 0; i < count; i++) {
+            levels.add(new Level(rnd.nextInt(4) == 0 ? 0 : 1 + rnd.nextInt(30), 1 + rnd.nextInt(12)));
+        }
+        return Spectrum.of(levels);
+    }
+
     @Test
     void multiModularNeedsSeveralPrimesForLargeCounts() {
-        Spectrum s = Spectra.harmonicOscillator(3, 150);
+        Spectrum s = Spectra.harmonicOscillator(3, 100);
         int[] en = s.integerEnergies();
         int[] g = s.degeneracies();
-        int primes = CountBound.primesFor(CountBound.log2Bound(en, g, Statistics.BOSE, 40, 150));
+        int primes = CountBound.primesFor(CountBound.log2Bound(en, g, Statistics.BOSE, 30, 100));
         assertTrue(primes >= 2, "primes = " + primes);
-        BigInteger[] ref = CountEngine.bigInteger(en, g, Statistics.BOSE, 40, 150, ProgressListener.NONE);
-        BigInteger[] mm = CountEngine.multiModular(en, g, Statistics.BOSE, 40, 150, Moduli.primes(primes),
+        BigInteger[] ref = CountEngine.bigInteger(en, g, Statistics.BOSE, 30, 100, ProgressListener.NONE);
+        BigInteger[] mm = CountEngine.multiModular(en, g, Statistics.BOSE, 30, 100, Moduli.primes(primes),
                 ProgressListener.NONE);
         // Source: independent arithmetic (exact BigInteger recursion)
         assertEquals(java.util.Arrays.asList(ref), java.util.Arrays.asList(mm));
         assertTrue(ref[ref.length - 1].bitLength() > 61, "needs more than one prime");
-        CountTable t = CountTable.of(s, Statistics.BOSE, 40, 150);
-        assertEquals(ref[ref.length - 1], t.count(40, 150));
+        CountTable t = CountTable.of(s, Statistics.BOSE, 30, 100);
+        assertEquals(ref[ref.length - 1], t.count(30, 100));
     }
 
     @Test
@@ -300,10 +311,45 @@ class CountTableTest {
     }
 
     @Test
+    void progressIsReportedInOrderAndThrottled() {
+        List<long[]> calls = new ArrayList<>();
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(3, 80), Statistics.BOSE, 30, 80,
+                (done, total, stage) -> calls.add(new long[] {done, total}));
+        assertTrue(t.primesUsed() >= 1, "multi-modular path expected");
+        assertTrue(calls.size() >= 2 && calls.size() <= 210, "calls: " + calls.size());
+        for (int i = 1; i < calls.size(); i++) {
+            assertTrue(calls.get(i)[0] > calls.get(i - 1)[0]);
+        }
+        long[] last = calls.get(calls.size() - 1);
+        assertEquals(last[1], last[0]);
+        // Source: independent BigInteger recursion (reference path) for the same table
+        BigInteger[] ref = CountEngine.bigInteger(Spectra.harmonicOscillator(3, 80).integerEnergies(),
+                Spectra.harmonicOscillator(3, 80).degeneracies(), Statistics.BOSE, 30, 80, ProgressListener.NONE);
+        assertEquals(ref[ref.length - 1], t.count(30, 80));
+    }
+
+    @Test
+    void levelsAboveTheTableLeaveOnlyTheEmptyState() {
+        Spectrum high = Spectrum.ofEnergies(5, 7);
+        for (Statistics st : new Statistics[] {Statistics.BOSE, Statistics.FERMI, Statistics.DISTINGUISHABLE}) {
+            for (int n = 0; n <= 2; n++) {
+                CountTable t = CountTable.of(high, st, n, 3);
+                for (int m = 0; m <= n; m++) {
+                    for (int e = 0; e <= 3; e++) {
+                        // common practice, no source: no particle fits below the lowest level at 5
+                        assertEquals(m == 0 && e == 0 ? BigInteger.ONE : BigInteger.ZERO, t.count(m, e));
+                    }
+                }
+            }
+        }
+    }
+
+    @Test
     void rowsListEveryEntry() {
         CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 4), Statistics.BOSE, 2, 3);
         assertEquals(List.of("n", "E", "Omega"), t.columnNames());
         assertEquals(12, t.rows().size());
-        assertEquals(List.of(2, 3, BigInteger.valueOf(2)), t.rows().get(11)); // {3,0},{2,1}: A001400-style, no source
+        // common practice, no source: 2 bosons with 3 quanta on 0,1,2,3,4 are {3,0} and {2,1}
+        assertEquals(List.of(2, 3, BigInteger.valueOf(2)), t.rows().get(11));
     }
 }

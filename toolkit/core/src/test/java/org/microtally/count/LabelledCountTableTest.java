@@ -95,6 +95,20 @@ class LabelledCountTableTest {
     }
 
     @Test
+    void twoIdenticalFermionsInAJ72ShellCoupleToEvenJOnly() {
+        LabelledCountTable t = LabelledCountTable.ignoringEnergy(shell(7), Statistics.FERMI, 2);
+        // Source: two identical fermions in one j = 7/2 shell couple to J = 0, 2, 4, 6 only (standard
+        // angular-momentum result, from memory), so the number of states with projection M is #{J >= |M|}
+        long[] byM = {4, 3, 3, 2, 2, 1, 1};
+        for (int m = 0; m <= 6; m++) {
+            assertEquals(BigInteger.valueOf(byM[m]), t.countAtLabel(2, 2 * m), "M = " + m);
+            assertEquals(BigInteger.valueOf(byM[m]), t.countAtLabel(2, -2 * m), "M = -" + m);
+        }
+        assertEquals(BigInteger.ZERO, t.countAtLabel(2, 14));
+        assertEquals(List.of("n", "label total", "Omega"), t.columnNames());
+    }
+
+    @Test
     void labelResolvedCountsSumToTheUnlabelledCount() {
         Spectrum osc = Spectra.oscillator2dByAngularMomentum(12);
         Statistics[] all = {Statistics.BOSE, Statistics.FERMI, Statistics.DISTINGUISHABLE, Statistics.maxOccupancy(2)};
@@ -120,7 +134,7 @@ class LabelledCountTableTest {
         Spectrum spin = Spectra.spinInField(0.5);
         LabelledCountTable t = LabelledCountTable.ignoringEnergy(spin, Statistics.DISTINGUISHABLE, 12);
         for (int k = 0; k <= 12; k++) {
-            // Source: closed form C(N, N_up) (Schroeder, eq. 2.6)
+            // Source: closed form C(N, N_up) (Schroeder, Sec. 2.1)
             assertEquals(CountTableTest.binomial(12, k), t.countAtLabel(12, 2 * k - 12));
         }
         // spin-1 moments: the number of states with total M is the trinomial coefficient (OEIS A027907 row 4: 1,4,10,16,19,...)

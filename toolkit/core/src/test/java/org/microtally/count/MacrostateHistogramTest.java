@@ -35,7 +35,7 @@ class MacrostateHistogramTest {
         int n = 100;
         MacrostateHistogram h = MacrostateHistogram.ofIdenticalUnits(n, -1, 1);
         for (int k = 0; k <= n; k++) {
-            // Source: closed form C(N, N_up) (Schroeder, An Introduction to Thermal Physics, eq. 2.6)
+            // Source: closed form C(N, N_up) (Schroeder, An Introduction to Thermal Physics, Sec. 2.1)
             assertEquals(CountTableTest.binomial(n, k), h.multiplicity(2 * k - n));
             assertEquals(BigInteger.ZERO, h.multiplicity(2 * k - n + 1));
         }

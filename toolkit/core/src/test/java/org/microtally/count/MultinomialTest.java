@@ -25,8 +25,8 @@ class MultinomialTest {
 
     @Test
     void multinomialIdentities() {
-        // Source: multinomial theorem, sum over occupancies of N!/prod n_i! = M^N (DLMF 26.4.9); and
-        // Pascal-type recurrence C(n_1..n_M) = sum_i C(.., n_i - 1, ..) (DLMF 26.4.7-style, common practice)
+        // Source: multinomial theorem, sum over occupancies of N!/prod n_i! = M^N (DLMF Sec. 26.4); and the
+        // Pascal-type recurrence C(n_1..n_M) = sum_i C(.., n_i - 1, ..) (common practice, no source)
         int m = 3;
         int n = 9;
         BigInteger sum = BigInteger.ZERO;

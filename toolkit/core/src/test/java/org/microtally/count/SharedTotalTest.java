@@ -23,7 +23,7 @@ class SharedTotalTest {
         CountTable b = CountTable.of(Spectra.harmonicOscillator(1, q), Statistics.DISTINGUISHABLE, 200, q);
         SharedTotal st = SharedTotal.of(a, 300, b, 200, q);
         for (int qa = 0; qa <= q; qa++) {
-            // Source: Einstein-solid closed form C(q + N - 1, q) for each block (Schroeder, eq. 2.9)
+            // Source: Einstein-solid closed form C(q + N - 1, q) for each block (Schroeder, Sec. 2.2)
             BigInteger expect = CountTableTest.binomial(qa + 299, qa).multiply(CountTableTest.binomial(q - qa + 199, q - qa));
             assertEquals(expect, st.jointCount(qa));
         }
@@ -37,8 +37,8 @@ class SharedTotalTest {
             }
         }
         assertEquals(arg, st.mostProbableSplit());
-        // Source: the split is a negative hypergeometric (beta-binomial(q; N_A, N_B)) variable: mean q N_A/(N_A+N_B) = 60,
-        // variance q N_A N_B (N_A+N_B+q) / ((N_A+N_B)^2 (N_A+N_B+1)) (standard Polya-urn closed form)
+        // Source: the split is beta-binomial(n = q, alpha = N_A, beta = N_B): mean q N_A/(N_A+N_B) = 60, variance
+        // q N_A N_B (N_A+N_B+q) / ((N_A+N_B)^2 (N_A+N_B+1)) (standard beta-binomial moments, from memory)
         double na = 300;
         double nb = 200;
         assertEquals(60.0, st.mean(), 1e-12);

@@ -95,6 +95,22 @@ class GrandCanonicalTest {
     }
 
     @Test
+    void windowedSolverReproducesTheFullSum() {
+        Spectrum many = Spectra.equallySpaced(200_000, 1e-3);
+        ChemicalPotential.Solver fermi = ChemicalPotential.solver(many, Statistics.FERMI);
+        ChemicalPotential.Solver gentile = ChemicalPotential.solver(many, Statistics.maxOccupancy(3));
+        for (double kT : new double[] {0.01, 0.5, 20}) {
+            // Source: common practice, no source (the full, unwindowed grand canonical sum at the solved mu must give
+            // back the target; the window only drops terms below e^-50 of it)
+            double mu = fermi.forMeanNumber(kT, 10_000);
+            assertEquals(10_000, GrandCanonical.atChemicalPotential(many, Statistics.FERMI, kT, mu).meanNumber(), 1e-8);
+            double mu3 = gentile.forMeanNumber(kT, 10_000);
+            assertEquals(10_000, GrandCanonical.atChemicalPotential(many, Statistics.maxOccupancy(3), kT, mu3)
+                    .meanNumber(), 1e-8);
+        }
+    }
+
+    @Test
     void fixedNumberHeatCapacityMatchesTemperatureDerivative() {
         Spectrum s = Spectra.harmonicOscillator(3, 60);
         double kT = 3.0;

@@ -52,7 +52,7 @@ class LimitReferenceTest {
         double n = 1.0e19;
         BoseGas gas = BoseGas.inBox(m, n);
         // Source: n lambda_T^3 = zeta(3/2), lambda_T = sqrt(2 pi hbar^2 / (m k T)) (K. Huang, Statistical
-        // Mechanics, 2nd ed., eq. 12.53); hand calculation with CODATA 2018 and OEIS A078434: 85.728 nK
+        // Mechanics, 2nd ed., ch. 12, from memory); hand calculation with CODATA 2018 and OEIS A078434: 85.728 nK
         double handTc = 2 * Math.PI * HBAR * HBAR / (m * K_B) * Math.pow(n / ZETA_3_2, 2.0 / 3.0);
         assertRelative(handTc, gas.criticalTemperature(), 1e-13, "box T_c");
         double tc = gas.criticalTemperature();
@@ -111,7 +111,7 @@ class LimitReferenceTest {
         BoseGas box = BoseGas.inBox(m, 1e19);
         double t = 0.7 * box.criticalTemperature();
         double lambda = Math.sqrt(2 * Math.PI * HBAR * HBAR / (m * K_B * t));
-        // Source: P = kT zeta(5/2) / lambda^3 below T_c, independent of n (Huang, eq. 12.61; hand calculation)
+        // Source: P = kT zeta(5/2) / lambda^3 below T_c, independent of n (Huang, ch. 12, from memory; hand calculation)
         assertRelative(K_B * t * ZETA_5_2 / (lambda * lambda * lambda), box.pressure(t), 1e-13, "P below T_c");
     }
 
@@ -126,7 +126,7 @@ class LimitReferenceTest {
         double degeneracy = n * lambda * lambda * lambda; // ~ 1.5e-4
         // Source: C/(N k) -> 3/2 for the classical ideal gas, with the first quantum correction
         // +- (3/2) n lambda^3 / 2^(7/2) from the second virial coefficient -+ n lambda^3 / 2^(5/2)
-        // (Huang, Statistical Mechanics, 2nd ed., eqs. 8.72 and 12.xx; differentiated by hand)
+        // (Huang, Statistical Mechanics, 2nd ed., ch. 8 and 12, from memory; differentiated by hand)
         double correction = 1.5 * degeneracy / Math.pow(2, 3.5);
         double cBose = bose.heatCapacityPerParticle(t);
         double cFermi = fermi.heatCapacityPerParticle(t);
@@ -143,11 +143,11 @@ class LimitReferenceTest {
         // (the table's E_F and T_F are rounded separately; E_F = hbar^2 (3 pi^2 n)^(2/3) / 2m gives 7.03 eV)
         assertEquals(7.00, cu.fermiEnergy().in(EnergyUnit.ELECTRONVOLT), 0.05);
         assertEquals(8.16e4, cu.fermiTemperature(), 0.01e4);
-        // Source: E_F = hbar^2/(2 m_e) (3 pi^2 n)^(2/3), Ashcroft & Mermin eq. 2.21 with k_F^3 = 3 pi^2 n, hand calculation
+        // Source: E_F = hbar^2/(2 m_e) (3 pi^2 n)^(2/3), Ashcroft & Mermin ch. 2 with k_F^3 = 3 pi^2 n, hand calculation
         double hand = HBAR * HBAR / (2 * M_E) * Math.pow(3 * Math.PI * Math.PI * 8.47e28, 2.0 / 3.0);
         assertRelative(hand / EV, cu.fermiEnergy().in(EnergyUnit.ELECTRONVOLT), 1e-13, "E_F(Cu)");
         assertRelative(hand / K_B, cu.fermiTemperature(), 1e-13, "T_F(Cu)");
-        // Source: ground-state pressure P = (2/5) n E_F (Ashcroft & Mermin eq. 2.34), at T = 1e-4 T_F
+        // Source: ground-state pressure P = (2/5) n E_F (Ashcroft & Mermin ch. 2, from memory), at T = 1e-4 T_F
         // where the thermal correction (5 pi^2/12)(T/T_F)^2 ~ 4e-8 is below the tolerance
         assertRelative(0.4 * 8.47e28 * hand, cu.pressure(1e-4 * cu.fermiTemperature()), 1e-7, "P(Cu)");
     }
@@ -175,7 +175,7 @@ class LimitReferenceTest {
         double exact = cu.chemicalPotential(t * tf).ratio(ef);
         double sommerfeld = cu.sommerfeldChemicalPotential(t * tf).ratio(ef);
         // Source: mu/E_F = 1 - (pi^2/12) t^2 - (pi^4/80) t^4 + O(t^6) in a 3D box (R. K. Pathria and P. D. Beale,
-        // Statistical Mechanics, 3rd ed., eq. 8.1.35, from memory): the second-order form misses -pi^4/80 t^4
+        // Statistical Mechanics, 3rd ed., sec. 8.1, from memory; coefficient re-derived with mpmath): the second-order form misses -pi^4/80 t^4
         double fourth = -Math.pow(Math.PI, 4) / 80 * Math.pow(t, 4);
         assertRelative(fourth, exact - sommerfeld, 2e-3, "mu - mu_Sommerfeld at T/T_F = 0.01");
         // at T/T_F = 0.5 the expansion is visibly off (by more than 5% of E_F)
@@ -183,7 +183,7 @@ class LimitReferenceTest {
         double sommerfeldHalf = cu.sommerfeldChemicalPotential(0.5 * tf).ratio(ef);
         assertTrue(sommerfeldHalf - exactHalf > 0.05, exactHalf + " vs " + sommerfeldHalf);
         // Source: same expansion order by order for U: U/(N E_F) = (3/5)[1 + (5 pi^2/12) t^2 - (pi^4/16) t^4]
-        // (Pathria and Beale eq. 8.1.37, from memory), and C/(N k) = (pi^2/2) t [1 - (3 pi^2/10) t^2]
+        // (Pathria and Beale sec. 8.1, from memory; re-derived with mpmath), and C/(N k) = (pi^2/2) t [1 - (3 pi^2/10) t^2]
         double u = cu.energyPerParticle(t * tf).ratio(ef) - cu.sommerfeldEnergyPerParticle(t * tf).ratio(ef);
         assertRelative(-0.6 * Math.pow(Math.PI, 4) / 16 * Math.pow(t, 4), u, 2e-3, "U - U_Sommerfeld");
         double c = cu.heatCapacityPerParticle(t * tf) - cu.sommerfeldHeatCapacityPerParticle(t * tf);
@@ -211,7 +211,7 @@ class LimitReferenceTest {
         double lambda = Math.sqrt(2 * Math.PI * HBAR * HBAR / (m * K_B * t));
         double y = n * lambda * lambda * lambda / 2;
         // Source: classical limit mu/kT = ln(n lambda^3 / g) + (n lambda^3/g)/2^(3/2) + O((n lambda^3)^2)
-        // (inverting n lambda^3/g = f_{3/2}(z) = z - z^2/2^(3/2) + ...; Huang eq. 8.69, common practice)
+        // (inverting n lambda^3/g = f_{3/2}(z) = z - z^2/2^(3/2) + ...; Huang ch. 8, from memory)
         double expected = Math.log(y) + y / Math.pow(2, 1.5);
         assertRelative(expected, gas.chemicalPotential(t).in(EnergyUnit.KELVIN) / t, 1e-9, "mu/kT classical");
     }

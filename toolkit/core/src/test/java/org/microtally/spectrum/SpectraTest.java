@@ -72,8 +72,8 @@ class SpectraTest {
     void cubicBoxDegeneracies() {
         Spectrum box = Spectra.particleInBox(3, 30);
         Map<Integer, Integer> g = degeneracyMap(box);
-        // Source: standard table of 3D cubic-box levels n_x^2 + n_y^2 + n_z^2 (e.g. Griffiths, Introduction to
-        // Quantum Mechanics, Problem 4.2): 3 -> 1, 6 -> 3, 9 -> 3, 11 -> 3, 12 -> 1, 14 -> 6
+        // Source: the textbook table of cubic-box levels n_x^2 + n_y^2 + n_z^2 (values from memory, e.g. as in
+        // Griffiths, Introduction to Quantum Mechanics): 3 -> 1, 6 -> 3, 9 -> 3, 11 -> 3, 12 -> 1, 14 -> 6
         assertEquals(1, g.get(3));
         assertEquals(3, g.get(6));
         assertEquals(3, g.get(9));

@@ -54,6 +54,7 @@ class SpectrumTest {
 
     @Test
     void unsortedInputIsSortedAndDuplicatesAreMerged() {
+        // documented behaviour (Spectrum class notes): sorted by energy, equal energies merged, degeneracies added
         Spectrum s = Spectrum.of(new double[] {5, 0, 2, 5, 2}, new int[] {1, 2, 3, 4, 5});
         assertArrayEquals(new double[] {0, 2, 5}, s.energies());
         assertArrayEquals(new int[] {2, 8, 5}, s.degeneracies());

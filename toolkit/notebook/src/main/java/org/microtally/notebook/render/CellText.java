@@ -91,6 +91,17 @@ public final class CellText {
         return String.valueOf(value);
     }
 
+    /** The text core results put in a cell whose value is undefined. */
+    public static final String NOT_AVAILABLE = "n/a";
+
+    /**
+     * Whether the cell holds no value: {@code null} or the marker {@value #NOT_AVAILABLE}. Such
+     * cells do not decide a column's alignment or type, and charts leave them out.
+     */
+    public static boolean isMissing(Object value) {
+        return value == null || (value instanceof CharSequence cs && NOT_AVAILABLE.contentEquals(cs));
+    }
+
     /** Whether the cell is a number (shown right-aligned). */
     public static boolean isNumeric(Object value) {
         if (value instanceof Number) {

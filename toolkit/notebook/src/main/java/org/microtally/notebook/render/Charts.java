@@ -40,8 +40,8 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
  *
  * <p>Columns are chosen by name. Cells are converted to double for plotting only (a chart is a
  * picture): exact integers and fractions beyond the double range are refused with a message that
- * names the row and column and suggests plotting the logarithm; missing cells leave a gap in their
- * series (the point is omitted).
+ * names the row and column and suggests plotting the logarithm; missing cells ({@code null} or
+ * {@code "n/a"}) are left out of their series (bar charts draw them as 0).
  *
  * <p>The charts returned are ordinary mutable XChart objects: titles, ranges and sizes can be
  * adjusted before display. {@link #style(Chart)} applies our look to a chart built elsewhere.
@@ -77,6 +77,50 @@ public final class Charts {
     }
 
     /**
+     * One line per distinct value of {@code groupColumn} (in order of first appearance), each
+     * plotting {@code yColumn} against {@code xColumn} over that group's rows: for example
+     * U against kT with one series per ensemble. Rows with a missing x or y are left out.
+     */
+    public static XYChart grouped(Tabular table, String groupColumn, String xColumn, String yColumn) {
+        Objects.requireNonNull(table, "table");
+        int gc = columnIndex(table, groupColumn);
+        int xc = columnIndex(table, xColumn);
+        int yc = columnIndex(table, yColumn);
+        java.util.Map<String, List<double[]>> groups = new java.util.LinkedHashMap<>();
+        List<List<Object>> rows = table.rows();
+        for (int r = 0; r < rows.size(); r++) {
+            List<Object> row = rows.get(r);
+            Object x = row.get(xc);
+            Object y = row.get(yc);
+            if (CellText.isMissing(x) || CellText.isMissing(y)) {
+                continue;
+            }
+            String g = CellText.shown(row.get(gc), TableFormat.DEFAULT);
+            groups.computeIfAbsent(g, k -> new ArrayList<>())
+                    .add(new double[] {toDouble(x, r, xColumn), toDouble(y, r, yColumn)});
+        }
+        if (groups.isEmpty()) {
+            throw InvalidInputException.of("number of points", 0, ">= 1 (rows with both '" + xColumn + "' and '"
+                    + yColumn + "' present)", "");
+        }
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle(xColumn).yAxisTitle(yColumn).build();
+        for (var e : groups.entrySet()) {
+            double[] xs = new double[e.getValue().size()];
+            double[] ys = new double[xs.length];
+            for (int i = 0; i < xs.length; i++) {
+                xs[i] = e.getValue().get(i)[0];
+                ys[i] = e.getValue().get(i)[1];
+            }
+            chart.addSeries(e.getKey().isEmpty() ? "(none)" : e.getKey(), xs, ys)
+                    .setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        }
+        style(chart);
+        chart.getStyler().setLegendVisible(groups.size() > 1);
+        return chart;
+    }
+
+    /**
      * A bar chart: one bar group per row, labelled by the category column (shown as text), one
      * series per value column. For histograms: the bin column as category, the counts as values.
      */
@@ -95,7 +139,7 @@ public final class Charts {
                 Object x = rows.get(r).get(cat);
                 Object y = rows.get(r).get(c);
                 xs.add(x == null ? "" : CellText.shown(x, TableFormat.DEFAULT));
-                ys.add(y == null ? 0.0 : toDouble(y, r, name));
+                ys.add(CellText.isMissing(y) ? 0.0 : toDouble(y, r, name));
             }
             if (xs.isEmpty()) {
                 throw InvalidInputException.of("number of rows", 0, ">= 1 to draw a bar chart", "");
@@ -226,6 +270,11 @@ public final class Charts {
             a.setAxisTitleFont(new Font(Font.SANS_SERIF, Font.PLAIN, 12));
             a.setAxisTickMarksColor(new Color(0x8a989c));
             a.setAxisTickLabelsColor(INK);
+            if (a instanceof org.knowm.xchart.style.XYStyler) {
+                // our number format (0.05, 1.5e-12) instead of the default pattern (.05)
+                a.setXAxisTickLabelsFormattingFunction(v -> CellText.floating(v, 6));
+                a.setYAxisTickLabelsFormattingFunction(v -> CellText.floating(v, 6));
+            }
         }
         return chart;
     }
@@ -261,25 +310,31 @@ public final class Charts {
     }
 
     /**
-     * A table bundle with a chart under it: the HTML shows the table and then the chart as an
+     * A table bundle with charts under it: the HTML shows the table and then each chart as an
      * embedded PNG ({@code <img class="mt-chart" src="data:image/png;base64,...">}); the plain text
-     * is the table text followed by the chart's one-line description. Other representations of
+     * is the table text followed by each chart's one-line description. Other representations of
      * {@code table} are kept.
      */
-    public static MimeBundle combine(MimeBundle table, Chart<?, ?> chart) {
-        String description = describe(chart);
-        MimeBundle.Builder b = MimeBundle.builder(table.plain() + "\n" + description);
+    public static MimeBundle combine(MimeBundle table, Chart<?, ?>... charts) {
+        StringBuilder plain = new StringBuilder(table.plain());
+        String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
+                : "<pre>" + Html.escape(table.plain()) + "</pre>";
+        StringBuilder figures = new StringBuilder(html);
+        for (Chart<?, ?> chart : charts) {
+            String description = describe(chart);
+            plain.append('\n').append(description);
+            figures.append("<div class=\"mt-chart\"><img alt=\"").append(Html.escape(description))
+                    .append("\" width=\"").append(chart.getWidth()).append("\" height=\"").append(chart.getHeight())
+                    .append("\" src=\"data:image/png;base64,").append(Base64.getEncoder().encodeToString(png(chart)))
+                    .append("\"/></div>");
+        }
+        MimeBundle.Builder b = MimeBundle.builder(plain.toString());
         for (var e : table.data().entrySet()) {
             if (!e.getKey().equals(MimeBundle.TEXT_PLAIN)) {
                 b.put(e.getKey(), e.getValue());
             }
         }
-        String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
-                : "<pre>" + Html.escape(table.plain()) + "</pre>";
-        b.put(MimeBundle.TEXT_HTML, html + "<div class=\"mt-chart\"><img alt=\"" + Html.escape(description)
-                + "\" width=\"" + chart.getWidth() + "\" height=\"" + chart.getHeight()
-                + "\" src=\"data:image/png;base64," + Base64.getEncoder().encodeToString(png(chart)) + "\"/></div>");
-        return b.build();
+        return b.put(MimeBundle.TEXT_HTML, figures.toString()).build();
     }
 
     /** A PNG display bundle for an image, with a text/plain line giving its size. */
@@ -322,7 +377,7 @@ public final class Charts {
             for (int r = 0; r < rows.size(); r++) {
                 Object x = rows.get(r).get(xc);
                 Object y = rows.get(r).get(yc);
-                if (x == null || y == null) {
+                if (CellText.isMissing(x) || CellText.isMissing(y)) {
                     continue;
                 }
                 xs[k] = toDouble(x, r, xColumn);

@@ -19,6 +19,8 @@ import org.microtally.spectrum.Statistics;
 final class ResultDisplays {
     /** Most particle-number columns in the grid view of a count table. */
     static final int GRID_COLUMNS = 8;
+    /** The grid of a count table has up to 9 columns of exact integers: shown in full up to 20 digits. */
+    static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 8, 20, 5);
 
     private ResultDisplays() { }
 
@@ -91,7 +93,7 @@ final class ResultDisplays {
         }
         String caption = String.format("Exact counts Omega(n, E): %s, n <= %d, E <= %d, %s", t.statistics(),
                 t.maxParticles(), t.maxEnergy(), t.spectrum());
-        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes), Charts.counts(t));
+        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes, GRID_FORMAT), Charts.counts(t));
         return einstein ? withLatex(both, "$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$") : both;
     }
 

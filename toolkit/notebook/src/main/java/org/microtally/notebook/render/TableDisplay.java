@@ -23,7 +23,7 @@ public final class TableDisplay {
             + ".mt-table td.mt-num{text-align:right;white-space:nowrap}"
             + ".mt-table td.mt-text{text-align:left}"
             + ".mt-table td.mt-cut{color:#8a4b12;cursor:help}"
-            + ".mt-table tr.mt-gap td{text-align:center;color:#6b7b80;font-style:italic;border-bottom:1px dashed #b8c4c7}"
+            + ".mt-table tr.mt-gap td{text-align:left;color:#6b7b80;font-style:italic;border-bottom:1px dashed #b8c4c7}"
             + ".mt-note{color:#55666b;font-size:0.85em;margin:0.15em 0}"
             + "</style>";
 
@@ -100,7 +100,7 @@ public final class TableDisplay {
                     Object v = cells.get(c);
                     shown[c] = CellText.shown(v, format);
                     exact[c] = CellText.exact(v);
-                    if (v != null) {
+                    if (!CellText.isMissing(v)) {
                         numeric[c] = seen[c] ? numeric[c] && CellText.isNumeric(v) : CellText.isNumeric(v);
                         seen[c] = true;
                     }

@@ -10,6 +10,7 @@ import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.fraction.Fraction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
+import org.microtally.count.CountTable;
 import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectrum;
 import tech.tablesaw.api.BooleanColumn;
@@ -36,7 +37,7 @@ import tech.tablesaw.columns.strings.StringColumnType;
  *       text of each value (all digits; {@code p/q} for fractions), so nothing is rounded. Read a
  *       value back with {@code new BigInteger(s)} or {@link #exactFraction(String)}.</li>
  * </ul>
- * {@code null} cells become missing values. Tablesaw has no arbitrary-precision column type; keeping
+ * {@code null} cells and the marker {@code "n/a"} ({@link CellText#isMissing}) become missing values. Tablesaw has no arbitrary-precision column type; keeping
  * exact values as their digits is our documented choice.
  */
 public final class Tables {
@@ -78,6 +79,20 @@ public final class Tables {
      */
     public static Table of(Spectrum spectrum) {
         return of(levels(spectrum), "spectrum (" + spectrum.scale().name() + ")");
+    }
+
+    /**
+     * A count table as a grid: column {@code E} (0..E_max) and one exact column {@code n=k} per
+     * particle number k = 0..N (digits as text, see the class description), the layout to export
+     * with {@link org.microtally.notebook.data.Csv}.
+     */
+    public static Table grid(CountTable counts) {
+        Objects.requireNonNull(counts, "counts");
+        int[] all = new int[counts.maxParticles() + 1];
+        for (int n = 0; n < all.length; n++) {
+            all[n] = n;
+        }
+        return of(ResultDisplays.grid(counts, all), "Omega(n, E)");
     }
 
     /** The levels of {@code spectrum} as rows: energy, degeneracy and, when labelled, label. */
@@ -171,7 +186,7 @@ public final class Tables {
         boolean bigLong = false;
         for (List<Object> row : rows) {
             Object v = row.get(c);
-            if (v == null) {
+            if (CellText.isMissing(v)) {
                 continue;
             }
             Kind k;
@@ -200,7 +215,7 @@ public final class Tables {
                 IntColumn col = IntColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append(((Number) v).intValue());
@@ -212,7 +227,7 @@ public final class Tables {
                 LongColumn col = LongColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append(((Number) v).longValue());
@@ -224,7 +239,7 @@ public final class Tables {
                 DoubleColumn col = DoubleColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append(((Number) v).doubleValue());
@@ -236,7 +251,7 @@ public final class Tables {
                 BooleanColumn col = BooleanColumn.create(name);
                 for (List<Object> row : rows) {
                     Object v = row.get(c);
-                    if (v == null) {
+                    if (CellText.isMissing(v)) {
                         col.appendMissing();
                     } else {
                         col.append((Boolean) v);
@@ -248,7 +263,7 @@ public final class Tables {
                 String[] text = new String[rows.size()];
                 for (int r = 0; r < text.length; r++) {
                     Object v = rows.get(r).get(c);
-                    text[r] = v == null ? StringColumnType.missingValueIndicator() : CellText.exact(v);
+                    text[r] = CellText.isMissing(v) ? StringColumnType.missingValueIndicator() : CellText.exact(v);
                 }
                 return StringColumn.create(name, text);
             }

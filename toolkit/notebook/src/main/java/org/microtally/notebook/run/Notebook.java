@@ -78,7 +78,7 @@ final class Notebook {
         }
         if (major.getAsInt() != 4) {
             throw shape(name, "$.nbformat", "is " + major + "; only nbformat 4 is supported "
-                    + "(convert older notebooks with: jupyter nbconvert --to notebook)");
+                    + "(upgrade an older notebook to version 4 with Jupyter first)");
         }
         JsonElement cells = root.get("cells");
         if (cells == null || !cells.isJsonArray()) {

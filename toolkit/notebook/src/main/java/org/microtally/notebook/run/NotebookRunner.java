@@ -10,6 +10,8 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.security.SecureRandom;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.HashSet;
@@ -43,6 +45,7 @@ public final class NotebookRunner {
     /** The tag that marks a cell expected to fail (as in Jupyter's own tools). */
     public static final String RAISES_EXCEPTION = "raises-exception";
     static final String DEFAULT_OUT = "microtally-out";
+    private static final SecureRandom RANDOM = new SecureRandom();
 
     private final Path outDir;
     private final boolean keepGoing;
@@ -225,7 +228,9 @@ public final class NotebookRunner {
                 count++;
                 cell.addProperty("execution_count", count);
                 progress.cellStarted(file, count, codeCells, i + 1);
-                OutputCollector collector = new OutputCollector(outputs, displays);
+                int cellNumber = i + 1;
+                OutputCollector collector = new OutputCollector(outputs, displays,
+                        text -> progress.computation(file, cellNumber, text));
                 ScheduledFuture<?> alarm = timer == null ? null
                         : timer.schedule(session::interrupt, cellTimeoutMillis, TimeUnit.MILLISECONDS);
                 long t0 = System.nanoTime();
@@ -284,9 +289,10 @@ public final class NotebookRunner {
             for (int i = 0; i < targets.size(); i++) {
                 Path t = targets.get(i).toAbsolutePath();
                 Files.createDirectories(t.getParent());
-                Path tmp = Files.createTempFile(t.getParent(), "." + t.getFileName() + ".", ".partial");
+                // created like any new file (permissions from the umask), unlike createTempFile's owner-only mode
+                Path tmp = t.getParent().resolve("." + t.getFileName() + "." + Long.toHexString(RANDOM.nextLong()) + ".partial");
                 temps.add(tmp);
-                Files.writeString(tmp, contents.get(i), StandardCharsets.UTF_8);
+                Files.writeString(tmp, contents.get(i), StandardCharsets.UTF_8, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
             }
             for (int i = 0; i < targets.size(); i++) {
                 try {

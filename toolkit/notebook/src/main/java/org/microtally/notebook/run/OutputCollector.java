@@ -6,6 +6,7 @@ import java.util.Map;
 import org.microtally.notebook.render.MimeBundle;
 import org.microtally.notebook.session.CellError;
 import org.microtally.notebook.session.CellOutput;
+import org.microtally.notebook.session.Display;
 
 /**
  * Collects one cell's outputs as nbformat 4 output objects: consecutive stream chunks of the same
@@ -15,10 +16,13 @@ import org.microtally.notebook.session.CellOutput;
 final class OutputCollector implements CellOutput {
     private final JsonArray outputs;
     private final Map<String, JsonObject> displaysById;
+    private final java.util.function.Consumer<String> progress;
 
-    OutputCollector(JsonArray outputs, Map<String, JsonObject> displaysById) {
+    /** {@code progress} receives the plain text of every progress display and update. */
+    OutputCollector(JsonArray outputs, Map<String, JsonObject> displaysById, java.util.function.Consumer<String> progress) {
         this.outputs = outputs;
         this.displaysById = displaysById;
+        this.progress = progress;
     }
 
     @Override
@@ -40,6 +44,9 @@ final class OutputCollector implements CellOutput {
 
     @Override
     public synchronized void display(MimeBundle bundle, String displayId, boolean update) {
+        if (displayId != null && displayId.startsWith(Display.PROGRESS_ID_PREFIX)) {
+            progress.accept(bundle.plain());
+        }
         if (update && displayId != null) {
             JsonObject earlier = displaysById.get(displayId);
             if (earlier != null) {

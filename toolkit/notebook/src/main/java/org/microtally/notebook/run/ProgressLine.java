@@ -25,6 +25,14 @@ final class ProgressLine {
         }
     }
 
+    /** A progress report of a computation inside a cell: shown in place on a terminal only. */
+    void computation(Path nb, int cellNumber, String text) {
+        if (terminal) {
+            err.print("\r" + nb.getFileName() + "  cell " + cellNumber + "  " + text + "\u001B[K");
+            err.flush();
+        }
+    }
+
     void cellDone(Path nb, int n, int total, int cellNumber, String status, double seconds) {
         String line = bar(n, total) + " " + nb.getFileName() + "  cell " + cellNumber + " " + status
                 + String.format(Locale.ROOT, " %.2f s", seconds);

@@ -41,7 +41,16 @@ final class CellContext {
 
     synchronized void display(MimeBundle bundle, String id, boolean update) {
         flush(false);
-        sink.display(bundle, id, update);
+        try {
+            sink.display(bundle, id, update);
+        } catch (RuntimeException e) {
+            sinkFailed(e);
+        }
+    }
+
+    /** A failing output sink must not turn into an exception in the cell's own print call. */
+    private void sinkFailed(RuntimeException e) {
+        OutputRouter.CONSOLE_ERR.println("microtally engine: the cell output sink failed and dropped output: " + e);
     }
 
     private final class Pending {
@@ -65,7 +74,11 @@ final class CellContext {
             }
             buffer.reset();
             buffer.write(bytes, cut, bytes.length - cut);
-            sink.stream(stderr, new String(bytes, 0, cut, StandardCharsets.UTF_8));
+            try {
+                sink.stream(stderr, new String(bytes, 0, cut, StandardCharsets.UTF_8));
+            } catch (RuntimeException e) {
+                sinkFailed(e);
+            }
         }
     }
 

@@ -15,6 +15,8 @@ import org.microtally.notebook.render.Renderers;
  * printed on the process's standard output.
  */
 public final class Display {
+    /** Display ids of {@link #progress} displays start with this prefix. */
+    public static final String PROGRESS_ID_PREFIX = "microtally-progress-";
     private static final AtomicLong IDS = new AtomicLong();
 
     private Display() { }
@@ -54,7 +56,7 @@ public final class Display {
      */
     public static ProgressListener progress(String label) {
         Objects.requireNonNull(label, "label");
-        ProgressDisplay p = new ProgressDisplay(label, "microtally-progress-" + IDS.incrementAndGet(), OutputRouter.current());
+        ProgressDisplay p = new ProgressDisplay(label, PROGRESS_ID_PREFIX + IDS.incrementAndGet(), OutputRouter.current());
         p.start();
         return p;
     }

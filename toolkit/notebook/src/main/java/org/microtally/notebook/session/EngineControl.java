@@ -23,6 +23,7 @@ final class EngineControl extends DirectExecutionControl {
 
     private final ThreadGroup group;
     private final Object stopLock = new Object();
+    private final ClassLoader cellLoader;
     private volatile Thread running;
     private volatile boolean stopRequested;
     private volatile Object lastValue = NO_VALUE;
@@ -31,6 +32,7 @@ final class EngineControl extends DirectExecutionControl {
     EngineControl(SnippetLoader loader, ThreadGroup group) {
         super(loader);
         this.group = group;
+        this.cellLoader = loader.classLoader();
     }
 
     /** A provider that hands JShell the given, already built control. */
@@ -124,7 +126,7 @@ final class EngineControl extends DirectExecutionControl {
             }
         }, "microtally-cell-" + THREADS.incrementAndGet(), STACK_SIZE);
         t.setDaemon(true);
-        t.setContextClassLoader(Thread.currentThread().getContextClassLoader());
+        t.setContextClassLoader(cellLoader);   // cell classes, and through the parent all engine classes
         try {
             synchronized (stopLock) {
                 if (stopRequested) {

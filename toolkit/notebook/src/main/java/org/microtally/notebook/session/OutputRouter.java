@@ -21,6 +21,8 @@ final class OutputRouter {
 
     private static final CopyOnWriteArrayList<CellContext> ACTIVE = new CopyOnWriteArrayList<>();
     private static boolean installed;
+    private static PrintStream routedOut;
+    private static PrintStream routedErr;
     private static ScheduledExecutorService flusher;
 
     private OutputRouter() { }
@@ -29,8 +31,10 @@ final class OutputRouter {
         if (installed) {
             return;
         }
-        System.setOut(new PrintStream(new Routed(false), true, StandardCharsets.UTF_8));
-        System.setErr(new PrintStream(new Routed(true), true, StandardCharsets.UTF_8));
+        routedOut = new PrintStream(new Routed(false), true, StandardCharsets.UTF_8);
+        routedErr = new PrintStream(new Routed(true), true, StandardCharsets.UTF_8);
+        System.setOut(routedOut);
+        System.setErr(routedErr);
         flusher = Executors.newSingleThreadScheduledExecutor(r -> {
             Thread t = new Thread(r, "microtally-output-flusher");
             t.setDaemon(true);
@@ -44,13 +48,36 @@ final class OutputRouter {
         installed = true;
     }
 
+    /** Cells read an empty standard input: a notebook has no console to type into. */
+    private static final java.io.InputStream NO_INPUT = java.io.InputStream.nullInputStream();
+    private static java.io.InputStream savedIn;
+
     static void begin(CellContext c) {
+        synchronized (OutputRouter.class) {
+            if (ACTIVE.isEmpty() && System.in != NO_INPUT) {
+                savedIn = System.in;
+                System.setIn(NO_INPUT);
+            }
+            // an earlier cell may have replaced the streams with System.setOut/setErr: route again
+            if (System.out != routedOut) {
+                System.setOut(routedOut);
+            }
+            if (System.err != routedErr) {
+                System.setErr(routedErr);
+            }
+        }
         ACTIVE.add(c);
     }
 
     static void end(CellContext c) {
         ACTIVE.remove(c);
         c.flush(true);
+        synchronized (OutputRouter.class) {
+            if (ACTIVE.isEmpty() && savedIn != null) {
+                System.setIn(savedIn);
+                savedIn = null;
+            }
+        }
     }
 
     /** The cell the current thread writes to, or null. */

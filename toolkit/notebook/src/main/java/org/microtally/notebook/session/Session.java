@@ -44,7 +44,8 @@ import org.microtally.notebook.render.Renderers;
  * and the snippets are evaluated in order. Each snippet runs on a fresh thread of this session's
  * thread group, so {@link #interrupt()} can stop it. {@code System.out}/{@code System.err} are
  * routed to the cell's {@link CellOutput} while it runs, delivered in chunks at least every
- * {@value CellContext#FLUSH_INTERVAL_MS} ms (not only at the end). The first failing snippet ends the
+ * {@value CellContext#FLUSH_INTERVAL_MS} ms (not only at the end); {@code System.in} reads as empty.
+ * A failing {@link CellOutput} loses that output but does not fail the cell. The first failing snippet ends the
  * cell: a compile error (line and column in the cell, diagnostic with caret line), an unresolved
  * reference (a declaration that cannot be used yet), a runtime exception (type, message, the stack
  * frames of cell code with lines mapped back to "cell N, line L", engine frames trimmed), or an
@@ -104,7 +105,6 @@ public final class Session implements AutoCloseable {
         OutputRouter.install();
         int n = SESSIONS.incrementAndGet();
         group = new ThreadGroup("microtally-session-" + n);
-        group.setDaemon(false);
         Set<String> classPath = classPath();
         loader = new SnippetLoader(Session.class.getClassLoader(), classPath);
         control = new EngineControl(loader, group);
@@ -410,10 +410,9 @@ public final class Session implements AutoCloseable {
         int firstLine = 0;
         int firstCol = 0;
         String firstMsg = null;
-        String cleanedSourceLimit = piece.source;
         for (Diag d : diags) {
             long p = d.getPosition() >= 0 ? d.getPosition() : d.getStartPosition();
-            int rel = (int) Math.max(0, Math.min(p, cleanedSourceLimit.length()));
+            int rel = (int) Math.max(0, Math.min(p, piece.source.length()));
             int abs = Math.min(piece.start + rel, code.length());
             int line = lineOf(code, abs);
             int col = columnOf(code, abs);

@@ -220,6 +220,23 @@ class ChartsTest {
     }
 
     @Test
+    void groupedChartHasOneSeriesPerGroup() throws Exception {
+        Tabular t = TestTables.of(List.of("ensemble", "kT", "U"),
+                new Object[] {"canonical", 0.5, 1.0}, new Object[] {"grand canonical", 0.5, 1.2},
+                new Object[] {"canonical", 1.0, 2.0}, new Object[] {"grand canonical", 1.0, 2.1},
+                new Object[] {"canonical", 2.0, null});
+        XYChart chart = Charts.grouped(t, "ensemble", "kT", "U");
+        assertEquals(List.of("canonical", "grand canonical"),
+                chart.getSeriesCollection().stream().map(XYSeries::getName).toList());
+        assertArrayEquals(new double[] {0.5, 1.0}, chart.getSeries("canonical").getXData());
+        assertArrayEquals(new double[] {1.2, 2.1}, chart.getSeries("grand canonical").getYData());
+        MimeBundle both = Charts.combine(TableDisplay.bundle(t, null, List.of()), chart, Charts.scatter(t, "kT", "U"));
+        Document d = TableDisplayTest.parse(both.get(MimeBundle.TEXT_HTML));
+        assertEquals(2, d.getElementsByTagName("img").getLength());
+        assertEquals(2, both.plain().lines().filter(l -> l.startsWith("chart (")).count());
+    }
+
+    @Test
     void bundleCarriesPngAndSvgAndText() throws Exception {
         MimeBundle b = Charts.bundle(Charts.line(twoLevel(), "kT", "U", "C"));
         assertEquals("chart (640\u00d7400 px): series U, C", b.plain());

@@ -63,7 +63,7 @@ class ResultDisplaysTest {
         for (int k = 0; k < ns.length; k++) {
             String expected = ns[k] == 0 ? "0"
                     // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
-                    : CellText.shown(binomial(30 + ns[k] - 1, 30), TableFormat.DEFAULT);
+                    : CellText.shown(binomial(30 + ns[k] - 1, 30), ResultDisplays.GRID_FORMAT);
             assertEquals(expected, row.get(k + 1), "n = " + ns[k]);
         }
         assertEquals(1, d.getElementsByTagName("img").getLength());
@@ -80,6 +80,20 @@ class ResultDisplaysTest {
         assertTrue(b.plain().contains("E  n=0  n=1  n=2  n=3  n=4  n=5"), b.plain());
         // Source: OEIS A008284, partitions of 12 into at most 5 parts = 47 (bosons on 0,1,2,...)
         assertTrue(b.plain().lines().anyMatch(l -> l.matches("\\s*12\\s+0\\s+1\\s+7\\s+19\\s+34\\s+47")), b.plain());
+    }
+
+    @Test
+    void gridTableHoldsEveryExactCount() {
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 40), Statistics.DISTINGUISHABLE, 60, 40);
+        tech.tablesaw.api.Table grid = Tables.grid(t);
+        assertEquals(62, grid.columnCount());
+        assertEquals(41, grid.rowCount());
+        for (int n = 1; n <= 60; n += 7) {
+            for (int q = 0; q <= 40; q += 5) {
+                // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
+                assertEquals(binomial(q + n - 1, q), new BigInteger(grid.stringColumn("n=" + n).get(q)));
+            }
+        }
     }
 
     @Test

@@ -82,6 +82,20 @@ class TablesTest {
     }
 
     @Test
+    void notAvailableMarkersAreMissingValues() {
+        Tabular t = TestTables.of(List.of("beta"), new Object[] {"n/a"}, new Object[] {0.5}, new Object[] {-0.25});
+        Table table = Tables.of(t);
+        assertEquals(ColumnType.DOUBLE, table.column("beta").type());
+        assertEquals(1, table.column("beta").countMissing());
+        assertEquals(-0.25, table.doubleColumn("beta").get(2));
+        String plain = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT);
+        assertEquals(List.of(" beta", "-----", "  n/a", "  0.5", "-0.25"), plain.lines().toList());
+        var series = Charts.scatter(TestTables.of(List.of("E", "beta"), new Object[] {1, "n/a"}, new Object[] {2, 0.5}),
+                "E", "beta").getSeries("beta");
+        assertEquals(1, series.getXData().length);
+    }
+
+    @Test
     void spectrumTableHasLevelsInOrder() {
         // Source: closed form, 3D isotropic oscillator degeneracy g_n = (n+1)(n+2)/2
         Spectrum s = Spectra.harmonicOscillator(3, 6);

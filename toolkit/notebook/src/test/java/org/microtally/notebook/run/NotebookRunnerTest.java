@@ -216,6 +216,17 @@ class NotebookRunnerTest {
     }
 
     @Test
+    void terminalProgressShowsComputationsInPlace() throws IOException {
+        Path nbFile = input("dot-shells.ipynb");
+        assertEquals(0, NotebookRunner.main(List.of(nbFile.toString(), "--out", tmp.resolve("out").toString()), log, true));
+        String text = log();
+        assertTrue(text.contains("\rdot-shells.ipynb  cell 4  sweep (kT) [##############################] 100% 50/50"), text);
+        assertTrue(text.contains("\r[########################] 3/3 dot-shells.ipynb  cell 4 ok"), text);
+        // String.lines() would also split at \r: split at \n only
+        assertFalse(java.util.Arrays.stream(text.split("\n")).anyMatch(l -> l.startsWith("[#")), "terminal mode printed a line per cell");
+    }
+
+    @Test
     void usageErrors() {
         assertEquals(2, run());
         assertEquals(2, run("--bogus", "x.ipynb"));
@@ -229,6 +240,11 @@ class NotebookRunnerTest {
         Path dir = tmp.resolve("w");
         NotebookRunner.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
         assertEquals(List.of("a.html", "a.ipynb"), listing(dir));
+        if (dir.getFileSystem().supportedFileAttributeViews().contains("posix")) {
+            // outputs get the permissions of any new file in that directory (not a temp file's owner-only mode)
+            Path plain = Files.createFile(tmp.resolve("plain.txt"));
+            assertEquals(Files.getPosixFilePermissions(plain), Files.getPosixFilePermissions(dir.resolve("a.ipynb")));
+        }
         // a target that cannot be replaced (a non-empty directory) makes the write fail: nothing else changes
         Files.createDirectories(dir.resolve("b.html").resolve("blocker"));
         List<String> beforeFail = listing(dir);

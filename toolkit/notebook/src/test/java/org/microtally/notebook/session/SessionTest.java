@@ -160,6 +160,7 @@ class SessionTest {
         CellResult r = run("org.microtally.notebook.session.Display.class");
         assertSame(Display.class, r.raw().orElseThrow());
         assertSame(Session.class.getClassLoader(), session.cellClassLoader().getParent());
+        assertSame(session.cellClassLoader(), run("Thread.currentThread().getContextClassLoader()").raw().orElseThrow());
         Collector c = new Collector();
         assertTrue(session.run("show(\"shared\");\nhtml(\"<b>bold</b>\");", c).ok());
         List<Collector.Event> d = c.displays();
@@ -214,6 +215,84 @@ class SessionTest {
         assertEquals(CellResult.Outcome.INTERRUPTED, r.outcome());
         assertEquals("Interrupted", r.error().orElseThrow().type());
         assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(20), "interrupt took too long");
+    }
+
+    @Test
+    void interruptStopsARenderingThatNeverEnds() throws Exception {
+        // the value's text form is computed on a stoppable thread too
+        assertInterrupted("new Object() { public String toString() { while (true) { } } }");
+        assertEquals(3, run("1 + 2").raw().orElseThrow());
+    }
+
+    @Test
+    void heavyPrintingArrivesWholeInFewChunks() {
+        Collector c = new Collector();
+        CellResult r = session.run("for (int i = 0; i < 100_000; i++) System.out.println(i);", c);
+        assertTrue(r.ok());
+        StringBuilder expected = new StringBuilder();
+        for (int i = 0; i < 100_000; i++) {
+            expected.append(i).append('\n');
+        }
+        assertEquals(expected.toString(), c.text(false));
+        // 589 KB of text: chunks of up to 8 KB or 50 ms, never one event per line
+        assertTrue(c.events.size() < 1_000, "output flooded: " + c.events.size() + " chunks");
+    }
+
+    @Test
+    void outputOfThreadsStartedByTheCellIsCaptured() {
+        Collector c = new Collector();
+        CellResult r = session.run("Thread t = new Thread(() -> System.out.println(\"from a worker\"));\nt.start(); t.join();\n"
+                + "java.util.stream.IntStream.range(0, 4).parallel().forEach(i -> System.out.print(\"\"));\n"
+                + "java.util.concurrent.ForkJoinPool.commonPool().submit(() -> System.out.println(\"from the pool\")).get();", c);
+        assertTrue(r.ok(), () -> r.error().toString());
+        assertEquals("from a worker\nfrom the pool\n", c.text(false));
+    }
+
+    @Test
+    void classesAndRedefinitionsAcrossCells() {
+        assertTrue(run("record Trap(int atoms, double slowHz) { double ratio() { return 4.0; } }").ok());
+        CellResult r = run("new Trap(2000, 24.0).atoms()");
+        assertEquals(2000, r.raw().orElseThrow());
+        assertTrue(run("int atomsNow = 1;").ok());
+        assertTrue(run("String atomsNow = \"redefined\";").ok());
+        assertEquals("redefined", run("atomsNow").raw().orElseThrow());
+        CellResult empty = run("// only a comment\n");
+        assertTrue(empty.ok() && empty.value().isEmpty());
+        assertEquals(12, run("10 + 2 // trailing comment").raw().orElseThrow());
+    }
+
+    @Test
+    void outputIsRoutedAgainAfterACellReplacedSystemOut() {
+        assertTrue(run("System.setOut(new PrintStream(OutputStream.nullOutputStream()));").ok());
+        Collector c = new Collector();
+        assertTrue(session.run("System.out.println(\"visible again\");", c).ok());
+        assertEquals("visible again\n", c.text(false));
+    }
+
+    @Test
+    void aFailingOutputSinkDoesNotBreakTheCell() {
+        CellOutput broken = new CellOutput() {
+            @Override
+            public void stream(boolean stderr, String text) {
+                throw new IllegalStateException("channel closed");
+            }
+
+            @Override
+            public void display(MimeBundle bundle, String displayId, boolean update) {
+                throw new IllegalStateException("channel closed");
+            }
+        };
+        CellResult r = session.run("System.out.println(\"lost\");\nshow(\"lost too\");\n5 * 5", broken);
+        assertTrue(r.ok(), () -> r.error().toString());
+        assertEquals(25, r.raw().orElseThrow());
+    }
+
+    @Test
+    void standardInputIsEmptyInACell() {
+        java.io.InputStream before = System.in;
+        // Source: JDK 17 API, InputStream.read() returns -1 at end of stream
+        assertEquals(-1, run("System.in.read()").raw().orElseThrow());
+        assertSame(before, System.in);
     }
 
     @Test

@@ -1,0 +1,27 @@
+package org.microtally.count;
+
+import org.microtally.ProgressListener;
+
+/**
+ * Forwards work steps to a {@link ProgressListener} at most about 200 times per stage, in order,
+ * one call at a time (steps may come from several threads).
+ */
+final class Ticker {
+    private final ProgressListener listener;
+    private final long total;
+    private final String stage;
+    private long done;
+
+    Ticker(ProgressListener listener, long total, String stage) {
+        this.listener = listener;
+        this.total = Math.max(1, total);
+        this.stage = stage;
+    }
+
+    synchronized void step() {
+        done++;
+        if (done == total || done * 200 / total != (done - 1) * 200 / total) {
+            listener.progress(Math.min(done, total), total, stage);
+        }
+    }
+}
