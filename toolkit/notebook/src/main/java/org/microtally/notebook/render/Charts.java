@@ -13,6 +13,9 @@ import java.util.ArrayList;
 import java.util.Base64;
 import java.util.List;
 import java.util.Objects;
+import de.erichseifert.vectorgraphics2d.VectorGraphics2D;
+import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
+import de.erichseifert.vectorgraphics2d.util.PageSize;
 import javax.imageio.ImageIO;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
@@ -20,11 +23,11 @@ import org.microtally.Tabular;
 import org.microtally.count.CountTable;
 import org.microtally.count.MacrostateHistogram;
 import org.microtally.count.SharedTotal;
+import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.CategoryChart;
 import org.knowm.xchart.CategoryChartBuilder;
-import org.knowm.xchart.VectorGraphicsEncoder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
@@ -245,6 +248,31 @@ public final class Charts {
         return chart;
     }
 
+    /**
+     * Mean occupation of one state of each level against the level energy, one series per entry
+     * (for example the same spectrum under several statistics, or canonical next to grand
+     * canonical), in the map's iteration order.
+     */
+    public static XYChart occupations(java.util.Map<String, LevelOccupations> byName) {
+        Objects.requireNonNull(byName, "byName");
+        if (byName.isEmpty()) {
+            throw InvalidInputException.of("number of occupation profiles", 0, ">= 1", "");
+        }
+        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
+                .xAxisTitle("level energy").yAxisTitle("<n> per state").build();
+        for (var e : byName.entrySet()) {
+            LevelOccupations o = e.getValue();
+            double[] xs = new double[o.size()];
+            for (int i = 0; i < xs.length; i++) {
+                xs[i] = o.energy(i);
+            }
+            chart.addSeries(e.getKey(), xs, o.perStateArray()).setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        }
+        style(chart);
+        chart.getStyler().setLegendVisible(byName.size() > 1);
+        return chart;
+    }
+
     /** Applies our look (palette, fonts, grid, legend placement) to any XChart chart; returns it. */
     public static <C extends Chart<?, ?>> C style(C chart) {
         Styler s = chart.getStyler();
@@ -279,24 +307,29 @@ public final class Charts {
         return chart;
     }
 
-    /** The chart drawn as PNG at its own width and height (headless). */
+    /** The chart drawn as PNG at its own width and height (headless, off-screen, antialiased by XChart). */
     public static byte[] png(Chart<?, ?> chart) {
         DisplayEnvironment.prepare();
-        try {
-            return BitmapEncoder.getBitmapBytes(chart, BitmapEncoder.BitmapFormat.PNG);
-        } catch (IOException e) {
-            throw new UncheckedIOException("could not encode the chart as PNG", e);
-        }
+        return encodePng(BitmapEncoder.getBufferedImage(chart));
     }
 
-    /** The chart drawn as an SVG document (UTF-8 XML text) at its own width and height. */
+    /**
+     * The chart drawn as an SVG document (UTF-8 XML text) at its own width and height: the chart
+     * paints itself onto a VectorGraphics2D canvas, whose SVG processor writes the document (text is
+     * drawn as outlines, so no markup from titles or names can reach the SVG).
+     */
     public static String svg(Chart<?, ?> chart) {
         DisplayEnvironment.prepare();
+        VectorGraphics2D g = new VectorGraphics2D();
+        chart.paint(g, chart.getWidth(), chart.getHeight());
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try {
-            VectorGraphicsEncoder.saveVectorGraphic(chart, out, VectorGraphicsEncoder.VectorGraphicsFormat.SVG);
+            new SVGProcessor().getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth(), chart.getHeight()))
+                    .writeTo(out);
         } catch (IOException e) {
             throw new UncheckedIOException("could not encode the chart as SVG", e);
+        } finally {
+            g.dispose();
         }
         return out.toString(StandardCharsets.UTF_8);
     }
@@ -339,6 +372,12 @@ public final class Charts {
 
     /** A PNG display bundle for an image, with a text/plain line giving its size. */
     public static MimeBundle bundle(BufferedImage image) {
+        return MimeBundle.builder("image " + image.getWidth() + "\u00d7" + image.getHeight() + " px")
+                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(encodePng(image)))
+                .build();
+    }
+
+    private static byte[] encodePng(BufferedImage image) {
         DisplayEnvironment.prepare();
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try {
@@ -348,9 +387,7 @@ public final class Charts {
         } catch (IOException e) {
             throw new UncheckedIOException("could not encode the image as PNG", e);
         }
-        return MimeBundle.builder("image " + image.getWidth() + "\u00d7" + image.getHeight() + " px")
-                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(out.toByteArray()))
-                .build();
+        return out.toByteArray();
     }
 
     /** E.g. {@code chart "U vs kT" (640×400 px): series U, C}. */

@@ -45,8 +45,9 @@ import tech.tablesaw.api.Table;
  * </ul>
  * A String is always plain text (wrap it in {@link Html} to have it shown as markup).
  *
- * <p>If a renderer throws, the value is shown by {@code String.valueOf} with a line saying that
- * rendering failed and why, so a display problem never hides the value or fails the cell.
+ * <p>If a renderer throws, a {@link Tabular} value is shown by the generic table display and any
+ * other value by {@code String.valueOf}, with a line saying that rendering failed and why, so a
+ * display problem never hides the value or fails the cell.
  */
 public final class Renderers {
     /** Elements of an array or collection shown in plain text before the rest is summarised. */
@@ -70,6 +71,7 @@ public final class Renderers {
         register(Collection.class, c -> MimeBundle.text(collection(c)));
         register(Map.class, m -> MimeBundle.text(map(m)));
         ResultDisplays.registerAll();
+        EnsembleDisplays.registerAll();
     }
 
     private Renderers() { }
@@ -97,6 +99,21 @@ public final class Renderers {
             MimeBundle b = r == null ? null : r.apply(value);
             return b != null ? b : MimeBundle.text(String.valueOf(value));
         } catch (RuntimeException | LinkageError e) {
+            if (value instanceof Tabular t) {
+                try {
+                    MimeBundle generic = TableDisplay.bundle(t, caption(t), List.of());
+                    MimeBundle.Builder b = MimeBundle.builder(generic.plain() + "\n(rich display failed: " + e
+                            + "; shown as a plain table)");
+                    generic.data().forEach((k, v) -> {
+                        if (!k.equals(MimeBundle.TEXT_PLAIN)) {
+                            b.put(k, v);
+                        }
+                    });
+                    return b.build();
+                } catch (RuntimeException ignored) {
+                    // the table itself cannot be shown: fall through to text
+                }
+            }
             String plain;
             try {
                 plain = String.valueOf(value);

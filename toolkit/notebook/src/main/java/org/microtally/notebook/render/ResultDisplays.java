@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
+import org.microtally.count.LabelledCountTable;
 import org.microtally.count.MacrostateHistogram;
 import org.microtally.count.SharedTotal;
 import org.microtally.limit.ReferenceTable;
@@ -26,6 +27,7 @@ final class ResultDisplays {
 
     static void registerAll() {
         Renderers.register(CountTable.class, ResultDisplays::countTable);
+        Renderers.register(LabelledCountTable.class, ResultDisplays::labelledCountTable);
         Renderers.register(MacrostateHistogram.class, ResultDisplays::histogram);
         Renderers.register(SharedTotal.class, ResultDisplays::sharedTotal);
         Renderers.register(ReferenceTable.class, ResultDisplays::referenceTable);
@@ -116,6 +118,50 @@ final class ResultDisplays {
             }
         }
         return s.topEnergy() >= t.maxEnergy() || s.isTruncated();
+    }
+
+    /**
+     * A label-resolved table: counted by (n, label total) alone (energy ignored) it is shown as a
+     * grid, rows L from the smallest to the largest label total, one exact column per shown particle
+     * number (summed over E when energy was counted); every (n, E, L) entry stays available through
+     * the rows and {@link Tables#of(Tabular)}.
+     */
+    static MimeBundle labelledCountTable(LabelledCountTable t) {
+        int[] ns = gridColumns(t.maxParticles());
+        List<String> names = new ArrayList<>(ns.length + 1);
+        names.add("label total");
+        for (int n : ns) {
+            names.add("n=" + n);
+        }
+        int lo = t.minLabelTotal();
+        List<List<Object>> rows = new java.util.AbstractList<>() {
+            @Override
+            public List<Object> get(int i) {
+                List<Object> row = new ArrayList<>(ns.length + 1);
+                row.add(lo + i);
+                for (int n : ns) {
+                    row.add(t.countAtLabel(n, lo + i));
+                }
+                return row;
+            }
+
+            @Override
+            public int size() {
+                return t.maxLabelTotal() - lo + 1;
+            }
+        };
+        List<String> notes = new ArrayList<>();
+        notes.add(t.energyIgnored()
+                ? "Omega(n, L): exact number of microstates of n " + t.statistics() + " particles with label total L "
+                        + "(every level taking part, energy not constrained)."
+                : "Omega(n, L) = sum over E <= " + t.maxEnergy() + " of Omega(n, E, L), exact, " + t.statistics()
+                        + "; the rows of this table hold every (n, E, L).");
+        if (ns.length < t.maxParticles() + 1) {
+            notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles() + " shown.");
+        }
+        String caption = String.format("Label-resolved counts: %s, n <= %d%s, %s", t.statistics(), t.maxParticles(),
+                t.energyIgnored() ? "" : ", E <= " + t.maxEnergy(), t.spectrum());
+        return TableDisplay.bundle(Tables.tabular(names, rows), caption, notes, GRID_FORMAT);
     }
 
     // ---- histograms and shared totals

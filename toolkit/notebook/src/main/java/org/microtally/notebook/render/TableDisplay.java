@@ -17,7 +17,7 @@ public final class TableDisplay {
     public static final String STYLE = "<style>"
             + ".mt-table{border-collapse:collapse;font-size:0.9em;font-variant-numeric:tabular-nums;margin:0.3em 0}"
             + ".mt-caption{font-weight:600;color:#1f5f6b;margin:0.3em 0 0.1em 0}"
-            + ".mt-table th{border-bottom:2px solid #1f5f6b;padding:0.25em 0.7em;text-align:right;color:#23343a}"
+            + ".mt-table th{border-bottom:2px solid #1f5f6b;padding:0.25em 0.7em;text-align:right;color:#23343a;white-space:nowrap}"
             + ".mt-table th.mt-text{text-align:left}"
             + ".mt-table td{padding:0.2em 0.7em;border-bottom:1px solid #dde4e6}"
             + ".mt-table td.mt-num{text-align:right;white-space:nowrap}"

@@ -22,7 +22,6 @@ import org.microtally.Tabular;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.CategoryChart;
-import org.knowm.xchart.CategorySeries;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.w3c.dom.Document;
@@ -144,16 +143,20 @@ class ChartsTest {
 
     @Test
     void barsOfAHistogram() throws Exception {
-        // Source: common practice, no source: totals of two six-sided dice occur 1,2,3,4,5,6,5,4,3,2,1 times
-        // out of 36 (the convolution of two uniform histograms).
-        int[] ways = {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1};
-        Object[][] rows = new Object[11][];
-        for (int i = 0; i < 11; i++) {
-            rows[i] = new Object[] {i + 2, BigInteger.valueOf(ways[i])};
+        // Multiplicity of k up spins among 20 spin-1/2 moments (a two-state paramagnet): C(20, k).
+        Object[][] rows = new Object[21][];
+        for (int k = 0; k <= 20; k++) {
+            rows[k] = new Object[] {k, ResultDisplaysTest.binomial(20, k)};
         }
-        CategoryChart chart = Charts.bars(TestTables.of(List.of("total", "ways"), rows), "total", "ways");
-        CategorySeries s = chart.getSeries("ways");
-        assertArrayEquals(new double[] {1, 2, 3, 4, 5, 6, 5, 4, 3, 2, 1}, s.getYData());
+        CategoryChart chart = Charts.bars(TestTables.of(List.of("up spins", "Omega"), rows), "up spins", "Omega");
+        double[] ys = chart.getSeries("Omega").getYData();
+        // Source: OEIS A007318 (Pascal's triangle), row 20: 1, 20, 190, 1140, ..., 184756 at k = 10
+        assertEquals(1.0, ys[0]);
+        assertEquals(20.0, ys[1]);
+        assertEquals(190.0, ys[2]);
+        assertEquals(1140.0, ys[3]);
+        assertEquals(184756.0, ys[10]);
+        assertEquals(ys[7], ys[13]);
         BufferedImage img = decode(Charts.png(chart));
         assertEquals(Charts.WIDTH, img.getWidth());
     }

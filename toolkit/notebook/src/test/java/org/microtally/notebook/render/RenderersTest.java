@@ -223,6 +223,30 @@ class RenderersTest {
         assertEquals("a", Renderers.render(TestTables.of(List.of("a"), new Object[] {1})).plain().lines().findFirst().get());
     }
 
+    static final class FancyTable implements Tabular {
+        @Override
+        public List<String> columnNames() {
+            return List.of("x");
+        }
+
+        @Override
+        public List<List<Object>> rows() {
+            return List.of(List.of(1), List.of(2));
+        }
+    }
+
+    @Test
+    void failingTypeRendererFallsBackToTheGenericTable() {
+        Renderers.register(FancyTable.class, t -> {
+            throw new IllegalStateException("no chart today");
+        });
+        MimeBundle b = Renderers.render(new FancyTable());
+        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<table class=\"mt-table\">"));
+        assertTrue(b.plain().startsWith("FancyTable\nx\n-\n1\n2\n"), b.plain());
+        assertTrue(b.plain().endsWith("(rich display failed: java.lang.IllegalStateException: no chart today; "
+                + "shown as a plain table)"), b.plain());
+    }
+
     @Test
     void failingRendererFallsBackToTextAndSaysWhy() {
         MimeBundle b = Renderers.render(new Broken());

@@ -97,6 +97,30 @@ class ResultDisplaysTest {
     }
 
     @Test
+    void labelResolvedCountsOfSpinsAreAGridOverTheLabelTotal() {
+        // 6 distinguishable spin-1/2 moments (labels 2m = +1, -1): Omega(6, 2M) = C(6, (6 + 2M)/2)
+        org.microtally.count.LabelledCountTable t = org.microtally.count.LabelledCountTable.ignoringEnergy(
+                Spectra.spinInField(0.5), Statistics.DISTINGUISHABLE, 6);
+        MimeBundle b = Renderers.render(t);
+        assertTrue(b.plain().startsWith("Label-resolved counts: DISTINGUISHABLE, n <= 6, "), b.plain());
+        List<String> lines = b.plain().lines().toList();
+        assertTrue(lines.get(1).matches("label total\\s+n=0\\s+n=1.*n=6"), lines.get(1));
+        int checked = 0;
+        for (String line : lines) {
+            String[] cells = line.strip().split("\\s+");
+            if (cells.length == 8 && cells[0].matches("-?[0-9]+")) {
+                checked++;
+                int twoM = Integer.parseInt(cells[0]);
+                int ups = (6 + twoM) / 2;
+                // Source: closed form, C(6, k) spin configurations with k up spins (OEIS A007318, row 6)
+                String expected = (6 + twoM) % 2 == 0 ? binomial(6, ups).toString() : "0";
+                assertEquals(expected, cells[7], line);
+            }
+        }
+        assertEquals(13, checked, b.plain()); // label totals -6..6
+    }
+
+    @Test
     void countChartPlotsLnOmegaOfTheExactCounts() {
         CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 20), Statistics.DISTINGUISHABLE, 10, 20);
         XYChart chart = Charts.counts(t, 10);

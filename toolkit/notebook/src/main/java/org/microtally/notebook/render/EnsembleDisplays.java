@@ -1,0 +1,102 @@
+package org.microtally.notebook.render;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.microtally.ensemble.Canonical;
+import org.microtally.ensemble.EnsembleComparison;
+import org.microtally.ensemble.GrandCanonical;
+import org.microtally.ensemble.GroundState;
+import org.microtally.ensemble.Microcanonical;
+import org.microtally.occupation.CondensateDistribution;
+import org.microtally.occupation.LevelOccupations;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * Displays of the ensemble and occupation results. A display never starts a computation the
+ * result has not done: a canonical result is shown as its table of quantities; its occupations are
+ * charted when asked for ({@link Charts#occupations}).
+ */
+final class EnsembleDisplays {
+    private EnsembleDisplays() { }
+
+    static void registerAll() {
+        Renderers.register(Canonical.class, EnsembleDisplays::canonical);
+        Renderers.register(GrandCanonical.class, EnsembleDisplays::grandCanonical);
+        Renderers.register(Microcanonical.class, EnsembleDisplays::microcanonical);
+        Renderers.register(EnsembleComparison.class, EnsembleDisplays::comparison);
+        Renderers.register(EnsembleComparison.ConvergenceSweep.class, EnsembleDisplays::convergence);
+        Renderers.register(LevelOccupations.class, o -> Charts.combine(
+                TableDisplay.bundle(o, String.format("Mean occupations of %d levels, %s particles in all", o.size(),
+                        CellText.floating(o.total(), 8)), List.of()),
+                Charts.occupations(java.util.Map.of("<n> per state", o))));
+        Renderers.register(CondensateDistribution.class, EnsembleDisplays::condensate);
+        Renderers.register(GroundState.class, EnsembleDisplays::groundState);
+    }
+
+    static MimeBundle canonical(Canonical c) {
+        String caption = String.format("Canonical ensemble: N = %d, %s, kT = %s %s", c.particleNumber(),
+                c.statistics(), CellText.floating(c.kT(), 8), c.spectrum().scale().name());
+        return TableDisplay.bundle(c, caption, List.of());
+    }
+
+    static MimeBundle grandCanonical(GrandCanonical g) {
+        String caption = String.format("Grand canonical ensemble: %s, kT = %s, mu = %s %s", g.statistics(),
+                CellText.floating(g.kT(), 8), CellText.floating(g.chemicalPotential(), 10), g.spectrum().scale().name());
+        MimeBundle table = TableDisplay.bundle(g, caption, List.of("Occupation of one state: "
+                + occupationLawText(g.statistics())));
+        return ResultDisplays.withLatex(table, occupationLaw(g.statistics()));
+    }
+
+    /** The grand canonical mean occupation of one state, in LaTeX. */
+    static String occupationLaw(Statistics s) {
+        return switch (s.kind()) {
+            case FERMI -> "$$\\langle n \\rangle = \\frac{1}{e^{(\\varepsilon - \\mu)/kT} + 1}$$";
+            case BOSE -> "$$\\langle n \\rangle = \\frac{1}{e^{(\\varepsilon - \\mu)/kT} - 1}$$";
+            case DISTINGUISHABLE -> "$$\\langle n \\rangle = e^{-(\\varepsilon - \\mu)/kT}$$";
+            case GENTILE -> "$$\\langle n \\rangle = \\frac{1}{e^{x} - 1} - \\frac{" + (s.maxOccupancy() + 1)
+                    + "}{e^{" + (s.maxOccupancy() + 1) + "x} - 1}, \\quad x = \\frac{\\varepsilon - \\mu}{kT}$$";
+        };
+    }
+
+    /** The same law in plain text. */
+    static String occupationLawText(Statistics s) {
+        return switch (s.kind()) {
+            case FERMI -> "<n> = 1/(exp((e - mu)/kT) + 1)";
+            case BOSE -> "<n> = 1/(exp((e - mu)/kT) - 1)";
+            case DISTINGUISHABLE -> "<n> = exp(-(e - mu)/kT)";
+            case GENTILE -> "<n> = 1/(exp(x) - 1) - " + (s.maxOccupancy() + 1) + "/(exp(" + (s.maxOccupancy() + 1)
+                    + " x) - 1), x = (e - mu)/kT";
+        };
+    }
+
+    static MimeBundle microcanonical(Microcanonical m) {
+        String caption = String.format("Microcanonical ensemble: N = %d, E <= %d (%s)", m.particleNumber(),
+                m.maxEnergy(), m.table().statistics());
+        MimeBundle table = TableDisplay.bundle(m, caption, m.warnings());
+        return Charts.combine(table, Charts.line(m, "E", "S_B", "S_G"));
+    }
+
+    static MimeBundle comparison(EnsembleComparison c) {
+        MimeBundle table = TableDisplay.bundle(c, "Ensemble comparison", c.notes());
+        return Charts.combine(table, Charts.grouped(c, "ensemble", "kT", "U"), Charts.grouped(c, "ensemble", "kT", "C/k"));
+    }
+
+    static MimeBundle convergence(EnsembleComparison.ConvergenceSweep s) {
+        MimeBundle table = TableDisplay.bundle(s, "Canonical vs grand canonical as N grows", List.of());
+        return Charts.combine(table, Charts.line(s, "N", "rel. diff U", "rel. diff C"));
+    }
+
+    static MimeBundle groundState(GroundState g) {
+        String caption = String.format("Ground state (T -> 0): E = %s, %s microstates (exact), S/k = %s",
+                CellText.floating(g.energy(), 12), CellText.shown(g.degeneracy(), TableFormat.DEFAULT),
+                CellText.floating(g.entropy(), 12));
+        return TableDisplay.bundle(g.occupations(), caption,
+                List.of("Limiting mean occupations per level; degeneracy in full: " + g.degeneracy()));
+    }
+
+    static MimeBundle condensate(CondensateDistribution d) {
+        String caption = String.format("Ground-level number distribution: <N_0> = %s, Var N_0 = %s",
+                CellText.floating(d.mean(), 8), CellText.floating(d.variance(), 8));
+        return Charts.combine(TableDisplay.bundle(d, caption, List.of()), Charts.line(d, "N0", "probability"));
+    }
+}
