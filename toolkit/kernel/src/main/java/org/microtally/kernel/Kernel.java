@@ -71,6 +71,7 @@ final class Kernel {
     private final AtomicBoolean running = new AtomicBoolean(true);
     private final CountDownLatch stopped = new CountDownLatch(1);
     private final CountDownLatch firstKernelInfo = new CountDownLatch(1);
+    private volatile long firstKernelInfoAt;
     private final Object iopubLock = new Object();
     private final String kernelSession = java.util.UUID.randomUUID().toString();
     private final List<Thread> threads = new ArrayList<>();
@@ -84,7 +85,9 @@ final class Kernel {
     private volatile java.util.concurrent.CompletableFuture<CellEngine> engine;
     private volatile boolean executing;
     private volatile Message<?> runningCell;
-    private volatile int droppedBadSignature;
+    /** System.nanoTime() when the shell request being handled was received (shell thread only). */
+    private long shellReceivedAt;
+    private final java.util.concurrent.atomic.AtomicInteger droppedBadSignature = new java.util.concurrent.atomic.AtomicInteger();
     private int executionCount;
     private ZMQ.Socket shell;
     private ZMQ.Socket control;
@@ -120,21 +123,25 @@ final class Kernel {
         thread("microtally-shell", () -> serve(shell, "shell"));
         thread("microtally-control", () -> serve(control, "control"));
         thread("microtally-heartbeat", this::echoHeartbeats);
- // The engine opens once the first kernel_info reply is out (clients always ask first), or after
-        // 300 ms: starting JShell at once would compete for the CPU with answering that request.
+        // The engine opens once the first kernel_info reply is out (clients always ask first), or after
+        // 2 s: starting JShell at once would compete for the CPU with answering that request. The
+        // startup log line is written then too, so formatting it is not on the critical path.
+        long listening = System.currentTimeMillis();
         Thread opener = new Thread(() -> {
             try {
-                firstKernelInfo.await(300, java.util.concurrent.TimeUnit.MILLISECONDS);
+                firstKernelInfo.await(2, java.util.concurrent.TimeUnit.SECONDS);
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
             }
+            long jvmStart = ManagementFactory.getRuntimeMXBean().getStartTime();
+            KernelLog.LOG.info(() -> "kernel listening on " + props.getTransport() + "://" + props.getIp()
+                    + " shell=" + props.getShellPort() + " control=" + props.getControlPort() + ", "
+                    + (listening - jvmStart) + " ms after JVM start; first kernel_info answered "
+                    + (firstKernelInfoAt > 0 ? (firstKernelInfoAt - jvmStart) + " ms after JVM start" : "not yet"));
             openInto(engine);
         }, "microtally-engine-open");
         opener.setDaemon(true);
         opener.start();
-        KernelLog.LOG.info(() -> "kernel listening on " + props.getTransport() + "://" + props.getIp()
-                + " shell=" + props.getShellPort() + " control=" + props.getControlPort() + ", "
-                + (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()) + " ms after JVM start");
     }
 
     private void openInto(java.util.concurrent.CompletableFuture<CellEngine> f) {
@@ -222,7 +229,7 @@ final class Kernel {
 
     /** Messages dropped so far because their signature was wrong. */
     int droppedBadSignature() {
-        return droppedBadSignature;
+        return droppedBadSignature.get();
     }
 
     private ZMQ.Socket bind(SocketType type, int port) {
@@ -278,9 +285,13 @@ final class Kernel {
             if (poller.poll(250) <= 0 || !poller.pollin(0)) {
                 continue;
             }
+            long received = System.nanoTime();
             Optional<Message<?>> m = receive(socket, channel);
             if (m.isEmpty()) {
                 continue;
+            }
+            if (socket == shell) {
+                shellReceivedAt = received;
             }
             try {
                 handle(socket, channel, m.get());
@@ -304,7 +315,7 @@ final class Kernel {
         try {
             return Optional.of(codec.decode(frames));
         } catch (WireCodec.BadSignatureException e) {
-            droppedBadSignature++;
+            droppedBadSignature.incrementAndGet();
             KernelLog.LOG.warning(() -> "dropped a message on " + channel + " with a bad signature ("
                     + frames.size() + " frames): not handled");
         } catch (WireCodec.MalformedMessageException e) {
@@ -351,10 +362,7 @@ final class Kernel {
         String type = WireCodec.typeName(m);
         if (type.equals(MessageType.INTERRUPT_REQUEST.getName())) {
             status(m, PublishStatus.State.BUSY);
-            CellEngine e = engineIfOpen();
-            if (executing && e != null) {
-                e.interrupt();
-            }
+            interruptRunningCell();
             reply(socket, m, MessageType.INTERRUPT_REPLY, new InterruptReply());
             status(m, PublishStatus.State.IDLE);
             return;
@@ -369,9 +377,8 @@ final class Kernel {
                 case "kernel_info_request" -> {
                     reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo());
                     if (firstKernelInfo.getCount() > 0) {
+                        firstKernelInfoAt = System.currentTimeMillis();
                         firstKernelInfo.countDown();
-                        KernelLog.LOG.info(() -> "first kernel_info answered "
-                                + (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()) + " ms after JVM start");
                     }
                 }
                 case "execute_request" -> execute(socket, m);
@@ -384,6 +391,27 @@ final class Kernel {
             }
         } finally {
             status(m, PublishStatus.State.IDLE);
+        }
+    }
+
+    /**
+     * Stops the running cell. An interrupt that lands while the engine is still compiling the cell
+     * may find nothing to stop yet, so it is repeated every 200 ms (at most 10 times) while that
+     * same cell is still running.
+     */
+    private void interruptRunningCell() {
+        Message<?> cell = runningCell;
+        CellEngine e = engineIfOpen();
+        if (cell == null || e == null) {
+            return;
+        }
+        e.interrupt();
+        for (int i = 1; i <= 10; i++) {
+            flusher.schedule(() -> {
+                if (runningCell == cell) {
+                    e.interrupt();
+                }
+            }, 200L * i, java.util.concurrent.TimeUnit.MILLISECONDS);
         }
     }
 
@@ -459,10 +487,11 @@ final class Kernel {
         // kernel's overhead from the evaluation time (toolkit/bench/kernel-latency.py uses it).
         Map<String, Object> metadata = new LinkedHashMap<>();
         metadata.put("microtally_eval_seconds", evalNanos / 1e9);
+        if (!req.isSilent() && result.ok() && result.value().isPresent()) {
+            publish(m, MessageType.PUBLISH_EXECUTION_RESULT, new PublishExecuteResult(n, displayData(result.value().get(), null)));
+        }
+        metadata.put("microtally_kernel_seconds", (System.nanoTime() - shellReceivedAt) / 1e9);
         if (result.ok()) {
-            if (!req.isSilent() && result.value().isPresent()) {
-                publish(m, MessageType.PUBLISH_EXECUTION_RESULT, new PublishExecuteResult(n, displayData(result.value().get(), null)));
-            }
             reply(socket, m, executeReplyType(), new ExecuteOk(n), metadata);
             return;
         }

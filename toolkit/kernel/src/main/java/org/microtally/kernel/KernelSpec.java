@@ -35,9 +35,17 @@ final class KernelSpec {
 
     /** The kernel.json content for a kernel run from {@code jar} by the JVM at {@code java}. */
     static Map<String, Object> kernelJson(Path java, Path jar) {
+        return kernelJson(java, jar, null);
+    }
+
+    /** As {@link #kernelJson(Path, Path)}, using the class data archive {@code archive} if not null. */
+    static Map<String, Object> kernelJson(Path java, Path jar, Path archive) {
         List<String> argv = new ArrayList<>();
         argv.add(java.toAbsolutePath().toString());
         argv.addAll(JVM_OPTIONS);
+        if (archive != null) {
+            argv.addAll(ClassArchive.jvmOptions(archive));
+        }
         argv.add("-jar");
         argv.add(jar.toAbsolutePath().toString());
         argv.add("kernel");
@@ -52,11 +60,21 @@ final class KernelSpec {
         return spec;
     }
 
+    @SuppressWarnings("unchecked")
+    private static List<String> argv(Path java, Path jar, Path archive) {
+        return (List<String>) kernelJson(java, jar, archive).get("argv");
+    }
+
     /** Writes {@code dir/kernel.json}, creating {@code dir}. */
     static Path write(Path dir, Path java, Path jar) throws IOException {
+        return write(dir, java, jar, null);
+    }
+
+    /** Writes {@code dir/kernel.json} using the class data archive {@code archive} (may be null). */
+    static Path write(Path dir, Path java, Path jar, Path archive) throws IOException {
         Files.createDirectories(dir);
         Path file = dir.resolve("kernel.json");
-        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create().toJson(kernelJson(java, jar));
+        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create().toJson(kernelJson(java, jar, archive));
         Files.writeString(file, json + "\n", StandardCharsets.UTF_8);
         return file;
     }
@@ -72,7 +90,9 @@ final class KernelSpec {
         Path staging = Files.createTempDirectory("microtally-kernelspec");
         Path specDir = staging.resolve(NAME);
         try {
-            write(specDir, java, jar);
+            out.println("recording the kernel's class data archive (one warm-up run, a few seconds)...");
+            Path archive = ClassArchive.create(java, jar, out).orElse(null);
+            write(specDir, java, jar, archive);
             Path jupyter = onPath("jupyter");
             if (jupyter != null) {
                 List<String> cmd = new ArrayList<>(List.of(jupyter.toString(), "kernelspec", "install", "--name", NAME));
@@ -90,13 +110,13 @@ final class KernelSpec {
                 Path installed = installedDir(log, scope, prefix);
                 out.println("installed kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") with: " + String.join(" ", cmd));
                 out.println("  location: " + installed);
-                out.println("  runs: " + java + " " + String.join(" ", JVM_OPTIONS) + " -jar " + jar.toAbsolutePath());
+                out.println("  runs: " + String.join(" ", argv(java, jar, archive)));
                 return installed;
             }
             Path target = dataDir(scope, prefix).resolve("kernels").resolve(NAME);
-            write(target, java, jar);
+            write(target, java, jar, archive);
             out.println("jupyter is not on the PATH: wrote kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") directly to " + target);
-            out.println("  runs: " + java + " " + String.join(" ", JVM_OPTIONS) + " -jar " + jar.toAbsolutePath());
+            out.println("  runs: " + String.join(" ", argv(java, jar, archive)));
             return target;
         } finally {
             deleteTree(staging);

@@ -79,6 +79,15 @@ public final class Main {
             case "run" -> {
                 return NotebookRun.run(rest, out, err);
             }
+            case "warm-up" -> {
+                // internal: the run install-kernel records the class data archive from
+                try {
+                    return ClassArchive.warmUp();
+                } catch (java.io.IOException e) {
+                    err.println("microtally warm-up failed: " + e.getMessage());
+                    return 1;
+                }
+            }
             default -> throw new UsageException("unknown command '" + args[0]
                     + "'; allowed: run, install-kernel, kernel, --help, --version");
         }

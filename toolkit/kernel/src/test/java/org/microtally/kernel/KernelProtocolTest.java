@@ -46,6 +46,7 @@ class KernelProtocolTest {
         final List<String> ran = new CopyOnWriteArrayList<>();
         final CountDownLatch spinning = new CountDownLatch(1);
         volatile boolean interrupted;
+        final java.util.concurrent.atomic.AtomicInteger interrupts = new java.util.concurrent.atomic.AtomicInteger();
 
         @Override
         public CellResult run(String code, CellOutput output) {
@@ -53,6 +54,16 @@ class KernelProtocolTest {
             if (code.equals("boom")) {
                 return new CellResult(CellResult.Outcome.RUNTIME_ERROR, Optional.empty(), Optional.empty(),
                         Optional.of(new CellError("java.lang.IllegalStateException", "boom", List.of("IllegalStateException: boom", "  at cell 1"), 1, 1)));
+            }
+            if (code.equals("deaf-once")) {
+                // like an engine that is still compiling when the first interrupt arrives
+                spinning.countDown();
+                long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(10);
+                while (interrupts.get() < 2 && System.nanoTime() < end) {
+                    Thread.onSpinWait();
+                }
+                return new CellResult(CellResult.Outcome.INTERRUPTED, Optional.empty(), Optional.empty(),
+                        Optional.of(new CellError("Interrupted", "stopped after " + interrupts.get() + " interrupts", List.of(), 0, 0)));
             }
             if (code.equals("spin")) {
                 spinning.countDown();
@@ -70,6 +81,7 @@ class KernelProtocolTest {
 
         @Override
         public void interrupt() {
+            interrupts.incrementAndGet();
             interrupted = true;
         }
 
@@ -310,6 +322,20 @@ class KernelProtocolTest {
         assertEquals("error", reply[2].get("status").getAsString());
         assertEquals("Interrupted", reply[2].get("ename").getAsString());
         assertTrue(engine.interrupted);
+    }
+
+    @Test
+    void anInterruptThatFindsNothingToStopYetIsRepeated() throws Exception {
+        send(shell, KEY, "execute_request",
+                "{\"code\":\"deaf-once\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        assertTrue(engine.spinning.await(5, TimeUnit.SECONDS));
+        long t0 = System.nanoTime();
+        send(control, KEY, "interrupt_request", "{}");
+        assertEquals("interrupt_reply", receive(control)[0].get("msg_type").getAsString());
+        JsonObject[] reply = receive(shell);
+        assertEquals("Interrupted", reply[2].get("ename").getAsString());
+        assertTrue(System.nanoTime() - t0 < TimeUnit.SECONDS.toNanos(3), "the repeated interrupt came late");
+        assertTrue(engine.interrupts.get() >= 2);
     }
 
     @Test
