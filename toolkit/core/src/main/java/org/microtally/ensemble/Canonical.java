@@ -31,7 +31,7 @@ import org.microtally.spectrum.Statistics;
  * at a time, level by level with degeneracy grouping, truncated at t^N: multiplying by (1 + y t)
  * gives the elementary symmetric polynomials of the Boltzmann factors, by 1/(1 - y t) the complete
  * homogeneous ones (the standard positive recurrences for these functions, e.g. Macdonald,
- * <i>Symmetric Functions and Hall Polynomials</i>, ch. I.2). Every term added is a product of
+ * <i>Symmetric Functions and Hall Polynomials</i>, ch. I.2, cited from memory). Every term added is a product of
  * non-negative numbers. To keep magnitudes representable the Boltzmann factors are fugacity-scaled,
  * y_s = e^{-beta(e_s - mu*)} with mu* the grand canonical chemical potential for mean number N
  * (so the coefficients peak near t^N), and the mantissas share one exponent that is renormalised by
@@ -44,8 +44,10 @@ import org.microtally.spectrum.Statistics;
  * series (all states before s, kept from the forward pass) and a suffix series (all states after,
  * built in a backward pass): again positive terms only, so deep levels keep full relative accuracy
  * in their hole probability P(n_s = 0) and no deflation (division by 1 + y t, which is unstable on
- * one side of mu) is used. The ground-level number distribution of bosons, P(N_0 = j) =
- * C(g_0 + j - 1, j) y_0^j Z^{(-0)}_{N-j} / Z_N, comes from the series of all other levels.
+ * one side of mu) is used. The ground-level number distribution, P(N_0 = j) =
+ * L_0[j] Z^{(-0)}_{N-j} / Z_N with L_0 the series of the lowest level's own g_0 states (bosons:
+ * C(g_0 + j - 1, j) y_0^j), comes from the series of all other levels (bosons: kept before the last
+ * level of the forward pass; Fermi and Gentile: the suffix series at the end of the backward pass).
  * When M levels x (N+1) exceeds 2^23 numbers the prefix series are kept at sqrt(M) checkpoints
  * and recomputed block-wise (one extra forward pass).
  *
@@ -65,8 +67,9 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Cost: forward pass at most S N multiply-adds; each step runs only over the non-zero support of
  * the series (entries that were never reached or were flushed to zero are skipped, which changes no
- * result), so series whose particle-number distribution is narrow cost far less than N per state; Fermi and Gentile occupations add the backward pass (a second S N); Bose occupations
- * add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
+ * result), so series whose particle-number distribution is narrow cost far less than N per state;
+ * Fermi and Gentile occupations add the backward pass (a second pass of the same kind); Bose
+ * occupations add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
  */
 public final class Canonical implements Tabular {
     private static final int MAX_N = 10_000_000;
@@ -82,14 +85,15 @@ public final class Canonical implements Tabular {
     private final double lnZ;
     private final double energy;
     private final double[] perState;
+    private final double[] vacancies;
     private final CondensateDistribution condensate;
     private final List<String> warnings;
     private final Object momentLock = new Object();
     private double[] moments;
 
     private Canonical(Spectrum spectrum, Statistics statistics, int n, double kT, double muStar, double lnZ,
-                      double[] perState, CondensateDistribution condensate, List<String> extraWarnings,
-                      double[] knownMoments) {
+                      double[] perState, double[] vacancies, CondensateDistribution condensate,
+                      List<String> extraWarnings, double[] knownMoments) {
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.n = n;
@@ -98,6 +102,7 @@ public final class Canonical implements Tabular {
         this.muStar = muStar;
         this.lnZ = lnZ;
         this.perState = perState;
+        this.vacancies = vacancies;
         this.condensate = condensate;
         double e0 = spectrum.groundEnergy();
         double u = 0;
@@ -137,8 +142,15 @@ public final class Canonical implements Tabular {
                 : Double.POSITIVE_INFINITY;
         double target = Math.min(n, capacity - 0.5);
         double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, target);
-        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress)
+        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress, STORE_ALL_LIMIT)
                 : bose(spectrum, n, kT, muStar, progress);
+    }
+
+    /** Test hook: Fermi/Gentile with a given prefix-memory limit (0 forces the checkpoint path). */
+    static Canonical cappedWithPrefixLimit(Spectrum spectrum, Statistics statistics, int n, double kT, long limit) {
+        double capacity = (double) statistics.maxOccupancy() * spectrum.stateCount();
+        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, Math.min(n, capacity - 0.5));
+        return capped(spectrum, statistics, n, kT, muStar, ProgressListener.NONE, limit);
     }
 
     /**
@@ -214,7 +226,26 @@ public final class Canonical implements Tabular {
             occ[i] = n * Math.exp(-beta * (s.energy(i) - e0)) / z1;
         }
         double mu = ChemicalPotential.forMeanNumber(s, Statistics.DISTINGUISHABLE, kT, n);
-        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null, List.of(),
+        // each labelled particle is in the lowest level independently with p = g_0 / Z_1: binomial N_0
+        double excited = z1 - s.degeneracy(0);
+        double lnP = Math.log(s.degeneracy(0) / z1);
+        double lnQ = excited > 0 ? Math.log(excited / z1) : Double.NEGATIVE_INFINITY;
+        double[] dist = new double[n + 1];
+        double lnBinom = 0;
+        double total = 0;
+        for (int j = 0; j <= n; j++) {
+            if (j > 0) {
+                lnBinom += Math.log((n - j + 1.0) / j);
+            }
+            double lq = n - j == 0 ? 0.0 : (n - j) * lnQ;
+            dist[j] = lq == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lnBinom + j * lnP + lq);
+            total += dist[j];
+        }
+        for (int j = 0; j <= n; j++) {
+            dist[j] /= total;
+        }
+        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null,
+                new CondensateDistribution(dist), List.of(),
                 new double[] {n * var1});
     }
 
@@ -269,16 +300,16 @@ public final class Canonical implements Tabular {
         if (Math.abs(sum - 1) > 1e-9) {
             extra.add("internal consistency: condensate probabilities summed to " + sum + " before normalisation");
         }
-        return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ,
+        return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ, null,
                 new CondensateDistribution(p), extra, null);
     }
 
     private static Canonical capped(Spectrum s, Statistics st, int n, double kT, double muStar,
-                                    ProgressListener progress) {
+                                    ProgressListener progress, long storeAllLimit) {
         double beta = 1.0 / kT;
         int m = s.size();
         int cap = st.maxOccupancy();
-        boolean storeAll = (long) m * (n + 1) <= STORE_ALL_LIMIT;
+        boolean storeAll = (long) m * (n + 1) <= storeAllLimit;
         int block = storeAll ? m : (int) Math.ceil(Math.sqrt(m));
         int blocks = (m + block - 1) / block;
         ScaledSeries[] checkpoints = new ScaledSeries[blocks];
@@ -302,9 +333,11 @@ public final class Canonical implements Tabular {
         }
         double lnZn = z.logCoefficient(n);
         double[] occ = new double[m];
+        double[] vac = new double[m];
         double worstMismatch = 0;
         ScaledSeries suffix = new ScaledSeries(n, false);
         double[] lp = new double[cap + 1];
+        double[] groundDistribution = null;
         for (int b = blocks - 1; b >= 0; b--) {
             int from = b * block;
             int to = Math.min(m, from + block);
@@ -328,14 +361,20 @@ public final class Canonical implements Tabular {
                 }
                 double s0 = 0;
                 double s1 = 0;
+                double sv = 0;
                 for (int j = 0; j <= cap; j++) {
                     double w = lp[j] == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lp[j] - max);
                     s0 += w;
                     s1 += j * w;
+                    sv += (cap - j) * w;
                 }
                 occ[i] = s1 / s0;
+                vac[i] = sv / s0;
                 worstMismatch = Math.max(worstMismatch, Math.abs(max + Math.log(s0) - lnZn));
                 q[storeAll ? i : i - from] = null;
+                if (i == 0) {
+                    groundDistribution = levelDistribution(s.degeneracy(0), ly, cap, n, suffix, lnZn);
+                }
                 suffix.multiplyStates(s.degeneracy(i), ly, cap, 0);
                 long done = m + (m - i);
                 if ((m - i) % every == 0) {
@@ -349,7 +388,29 @@ public final class Canonical implements Tabular {
             extra.add("internal consistency: a prefix x suffix product differed from Z_N by " + worstMismatch
                     + " in ln; occupations may be inaccurate");
         }
-        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, null, extra, null);
+        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, vac,
+                new CondensateDistribution(groundDistribution), extra, null);
+    }
+
+    /**
+     * P(N_0 = j) for the lowest level: (level factor series of its g states)[j] x (series of all other
+     * levels)[N - j] / Z_N, positive terms only; normalised (the raw sum is Z_N / Z_N = 1 to rounding).
+     */
+    private static double[] levelDistribution(int g, double lnY, int cap, int n, ScaledSeries others, double lnZn) {
+        ScaledSeries level = new ScaledSeries(n, false);
+        level.multiplyStates(g, lnY, cap, 0);
+        double[] p = new double[n + 1];
+        double sum = 0;
+        for (int j = 0; j <= n; j++) {
+            double a = level.logCoefficient(j);
+            double b = others.logCoefficient(n - j);
+            p[j] = a == Double.NEGATIVE_INFINITY || b == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(a + b - lnZn);
+            sum += p[j];
+        }
+        for (int j = 0; j <= n; j++) {
+            p[j] /= sum;
+        }
+        return p;
     }
 
     private static void flushCheck(Spectrum s, Statistics st, double kT, double muStar, int n, double lnZnScaled,
@@ -445,21 +506,47 @@ public final class Canonical implements Tabular {
         return new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), perState);
     }
 
+    /**
+     * Fermi and Gentile: the mean number of vacancies k - &lt;n_s&gt; in one state of each level, computed
+     * from the probabilities P(n_s = j) directly (sum (k - j) P_j), not as k minus the occupation, so
+     * deep levels keep full relative accuracy in their tiny hole numbers.
+     *
+     * @throws InvalidInputException for Bose and distinguishable particles (no cap)
+     */
+    public LevelOccupations vacancies() {
+        if (vacancies == null) {
+            throw InvalidInputException.of("statistics for vacancies", statistics, "FERMI or maxOccupancy(k)",
+                    "Uncapped statistics have no vacancies.");
+        }
+        return new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), vacancies);
+    }
+
     /** Whether {@link #condensate()} is available (bosons). */
     public boolean hasCondensate() {
-        return condensate != null;
+        return statistics.kind() == Statistics.Kind.BOSE;
     }
 
     /**
-     * The exact canonical distribution of the number of particles in the lowest level (bosons).
+     * The exact canonical distribution of the number of particles in the lowest level (bosons: the
+     * condensate number distribution).
      *
-     * @throws InvalidInputException for other statistics
+     * @throws InvalidInputException for other statistics (use {@link #groundLevelDistribution()})
      */
     public CondensateDistribution condensate() {
-        if (condensate == null) {
+        if (!hasCondensate()) {
             throw InvalidInputException.of("statistics for the condensate distribution", statistics, "BOSE",
-                    "Use occupations() for the mean occupation of the lowest level.");
+                    "Use groundLevelDistribution() for the number distribution of the lowest level.");
         }
+        return condensate;
+    }
+
+    /**
+     * The exact canonical distribution P(N_0 = j), j = 0..N, of the number of particles in the lowest
+     * level (all its states together), for every statistics: bosons from the series of the other
+     * levels (see the class notes); Fermi and Gentile as (level factor series)[j] x (suffix series of
+     * the other levels)[N - j] / Z_N; distinguishable particles binomial with p = g_0 e^{-e_0/kT}/Z_1.
+     */
+    public CondensateDistribution groundLevelDistribution() {
         return condensate;
     }
 
@@ -491,10 +578,8 @@ public final class Canonical implements Tabular {
         r.add(List.of("S/k", entropy()));
         r.add(List.of("C/k", heatCapacity()));
         r.add(List.of("Var E", energyVariance()));
-        if (condensate != null) {
-            r.add(List.of("<N_0>", condensate.mean()));
-            r.add(List.of("Var N_0", condensate.variance()));
-        }
+        r.add(List.of("<N_0>", condensate.mean()));
+        r.add(List.of("Var N_0", condensate.variance()));
         for (String w : warnings) {
             r.add(List.of("warning", w));
         }
@@ -524,5 +609,12 @@ public final class Canonical implements Tabular {
             }
         }
         return w[r];
+    }
+
+    /** A one-line summary (statistics, N, kT, ln Z, U, number of warnings); does not trigger the C_V pass. */
+    @Override
+    public String toString() {
+        return "Canonical[" + statistics + ", N=" + n + ", kT=" + kT + ", lnZ=" + lnZ + ", U=" + energy
+                + (warnings.isEmpty() ? "" : ", " + warnings.size() + " warning(s)") + "]";
     }
 }

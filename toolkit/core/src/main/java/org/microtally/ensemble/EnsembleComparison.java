@@ -24,8 +24,8 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>The canonical Var N_0 is exact; the grand canonical one is g_0 n_0 (n_0 + 1) for bosons, which
  * below condensation is of order N_0^2 instead of order N, the overestimate discussed by Politzer
- * (PRA 54, 5048 (1996)) and Wilkens &amp; Weiss (J. Mod. Opt. 44, 1801 (1997)). For Fermi and
- * Gentile statistics the canonical Var N_0 is not computed and is reported as the string "n/a".
+ * (PRA 54, 5048 (1996)) and Wilkens &amp; Weiss (J. Mod. Opt. 44, 1801 (1997)). The canonical
+ * Var N_0 is exact for every statistics ({@link Canonical#groundLevelDistribution()}).
  */
 public final class EnsembleComparison implements Tabular {
     /**
@@ -70,7 +70,7 @@ public final class EnsembleComparison implements Tabular {
 
     static Row canonicalRow(Canonical c) {
         double n0 = c.occupations().levelTotal(0);
-        Double v0 = c.hasCondensate() ? c.condensate().variance() : null;
+        Double v0 = c.groundLevelDistribution().variance();
         return new Row("canonical", c.kT(), c.kT(), c.energy(), c.heatCapacity(), c.entropy(), n0, v0, 0, 0, 0);
     }
 

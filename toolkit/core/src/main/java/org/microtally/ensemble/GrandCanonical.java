@@ -183,7 +183,7 @@ public final class GrandCanonical implements Tabular {
 
     /** Heat capacity at fixed &lt;N&gt;, C/k = (Var E - Cov(E,N)^2/Var N)/(kT)^2. */
     public double heatCapacity() {
-        double c = (varE - covEN * covEN / varN) / (kT * kT);
+        double c = varN > 0 ? (varE - covEN * covEN / varN) / (kT * kT) : varE / (kT * kT);
         return Math.max(c, 0.0);
     }
 
@@ -230,5 +230,12 @@ public final class GrandCanonical implements Tabular {
             r.add(List.of("warning", w));
         }
         return r;
+    }
+
+    /** A one-line summary (statistics, kT, mu, ln Xi, &lt;N&gt;, U, number of warnings). */
+    @Override
+    public String toString() {
+        return "GrandCanonical[" + statistics + ", kT=" + kT + ", mu=" + mu + ", lnXi=" + lnXi + ", <N>=" + meanN
+                + ", U=" + energy + (warnings.isEmpty() ? "" : ", " + warnings.size() + " warning(s)") + "]";
     }
 }

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
+import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
 import org.microtally.occupation.LevelOccupations;
@@ -85,10 +86,16 @@ public final class Microcanonical implements Tabular {
 
     /** Builds the count table for n particles and total energies 0..maxEnergy, then the ensemble. */
     public static Microcanonical of(Spectrum spectrum, Statistics statistics, int n, int maxEnergy) {
+        return of(spectrum, statistics, n, maxEnergy, ProgressListener.NONE);
+    }
+
+    /** As {@link #of(Spectrum, Statistics, int, int)}, reporting the count table's progress. */
+    public static Microcanonical of(Spectrum spectrum, Statistics statistics, int n, int maxEnergy,
+                                    ProgressListener progress) {
         if (n < 1) {
             throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
         }
-        return new Microcanonical(CountTable.of(spectrum, statistics, n, maxEnergy), n);
+        return new Microcanonical(CountTable.of(spectrum, statistics, n, maxEnergy, progress), n);
     }
 
     private static int gridStep(Spectrum s) {
@@ -365,5 +372,11 @@ public final class Microcanonical implements Tabular {
             out.add(Collections.unmodifiableList(r));
         }
         return out;
+    }
+
+    @Override
+    public String toString() {
+        return "Microcanonical[" + table.statistics() + ", N=" + n + ", E=0.." + maxE + ", grid step " + step
+                + (warnings.isEmpty() ? "" : ", " + warnings.size() + " warning(s)") + "]";
     }
 }

@@ -62,6 +62,16 @@ class BadInputTest {
     }
 
     @Test
+    void cutoffThatMattersIsReportedWithTheTopLevelOccupation() {
+        Spectrum low = Spectra.harmonicOscillator(3, 4);
+        GrandCanonical hot = GrandCanonical.atMeanNumber(low, Statistics.FERMI, 5.0, 10);
+        double top = hot.occupations().levelTotal(low.size() - 1);
+        assertTrue(hot.warnings().size() == 1 && hot.warnings().get(0).contains(String.format("%.3g", top)),
+                hot.warnings().toString());
+        assertTrue(GrandCanonical.atMeanNumber(low, Statistics.FERMI, 0.05, 10).warnings().isEmpty());
+    }
+
+    @Test
     void condensateOnlyForBosons() {
         Canonical f = Canonical.of(dot, Statistics.FERMI, 3, 1.0);
         assertNames(assertThrows(InvalidInputException.class, f::condensate), "FERMI");

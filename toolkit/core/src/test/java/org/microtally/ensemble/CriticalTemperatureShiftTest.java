@@ -4,6 +4,8 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
+import org.microtally.limit.BoseGas;
+import org.microtally.limit.HarmonicTrap;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -22,6 +24,9 @@ class CriticalTemperatureShiftTest {
         // Source: Grossmann & Holthaus, Z. Naturforsch. 50a, 921 (1995); Ketterle & van Druten, PRA 54, 656 (1996):
         // T_c(N)/T_c0 = 1 - zeta(2) / (2 zeta(3)^(2/3)) N^(-1/3) for an isotropic trap (= 0.927 at N = 1000)
         double predicted = 1 - ZETA2 / (2 * Math.pow(ZETA3, 2.0 / 3.0)) / Math.cbrt(n);
+        // the thermodynamic-limit package gives the same leading shift (isotropic trap, omega_m = omega_g)
+        double fromLimit = BoseGas.inHarmonicTrap(new HarmonicTrap(100.0, 100.0, 100.0), n).criticalTemperatureShift();
+        assertEquals(predicted - 1, fromLimit, 1e-12);
 
         // the same T_c(N) defined as in Ketterle & van Druten: the excited states at mu = e_0 hold exactly N
         double lo = 0.8;
