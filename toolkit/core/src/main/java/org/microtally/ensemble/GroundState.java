@@ -1,6 +1,8 @@
 package org.microtally.ensemble;
 
 import java.math.BigInteger;
+import java.util.List;
+import org.microtally.Tabular;
 import org.microtally.occupation.LevelOccupations;
 
 /**
@@ -11,7 +13,7 @@ import org.microtally.occupation.LevelOccupations;
  * @param degeneracy  exact number of N-particle microstates at that energy
  * @param occupations mean occupation of every level in the limit
  */
-public record GroundState(double energy, BigInteger degeneracy, LevelOccupations occupations) {
+public record GroundState(double energy, BigInteger degeneracy, LevelOccupations occupations) implements Tabular {
     /** S/k = ln(degeneracy), the T -&gt; 0 entropy. */
     public double entropy() {
         int bits = degeneracy.bitLength();
@@ -20,5 +22,16 @@ public record GroundState(double energy, BigInteger degeneracy, LevelOccupations
         }
         int shift = bits - 60;
         return Math.log(degeneracy.shiftRight(shift).doubleValue()) + shift * Math.log(2.0);
+    }
+
+    @Override
+    public List<String> columnNames() {
+        return List.of("quantity", "value");
+    }
+
+    @Override
+    public List<List<Object>> rows() {
+        return List.of(List.of("ground energy", energy), List.of("degeneracy", degeneracy),
+                List.of("S/k = ln degeneracy", entropy()));
     }
 }

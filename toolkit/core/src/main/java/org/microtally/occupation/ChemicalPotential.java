@@ -31,8 +31,11 @@ import org.microtally.spectrum.Statistics;
  * as valid as the original); for Fermi the Boltzmann factors within 12 kT (plus the window below) of
  * that energy are computed once, so each residual evaluation there costs one exponential in total.
  * Only levels whose contribution can matter are visited (see {@link Solver}).
- * Accuracy: the root is located to 1e-15 relative in u (Bose) or about 4 ulp of the bracket end
- * magnitudes in mu (Fermi, Gentile), i.e. &lt;N&gt; is reproduced to about 1e-14 relative.
+ * Accuracy: the search stops when the residual is within its rounding noise (Fermi, Gentile:
+ * 4 sqrt(terms) ulp of the summed particles and holes, plus 2 ulp(N) if N is not an integer; Bose:
+ * |ln N(u) - ln N| &lt;= 4 ulp(1)) or the bracket is 1e-15 relative in u (Bose) or about 4 ulp in mu
+ * wide, i.e. &lt;N&gt; is reproduced to about 1e-14 relative, and mu in a gap at low T (where N(mu) is
+ * flat) to the accuracy the small particle and hole sums allow.
  */
 public final class ChemicalPotential {
     private ChemicalPotential() { }
@@ -133,7 +136,9 @@ public final class ChemicalPotential {
                 for (int i = 0; i < end; i++) {
                     sum += g[i] / Math.expm1(beta * (e[i] - e0) + bd);
                 }
-                return Math.log(sum) - lnTarget;
+                double v = Math.log(sum) - lnTarget;
+                // within 4 ulp of 1 in ln <N>: rounding noise, reported as an exact root to end the search there
+                return Math.abs(v) <= 4 * Math.ulp(1.0) ? 0.0 : v;
             }, Math.log(lo), Math.log(hi), AllowedSolution.ANY_SIDE);
             return e0 - Math.exp(u) / beta;
         }
@@ -151,7 +156,8 @@ public final class ChemicalPotential {
             double hi = e[e.length - 1] + Math.log(capacity / (capacity - target)) / beta;
             double half = window / beta;
             double guess = Math.min(hi, Math.max(lo, fillingEnergy(target / k)));
-            java.util.function.DoubleUnaryOperator exact = mu -> residual(mu, beta, half, k, target);
+            double[] noise = new double[1];
+            java.util.function.DoubleUnaryOperator exact = mu -> residual(mu, beta, half, k, target, noise);
             java.util.function.DoubleUnaryOperator f = exact;
             double reach = 12 / beta;
             if (statistics.kind() == Statistics.Kind.FERMI) {
@@ -164,7 +170,8 @@ public final class ChemicalPotential {
                     w[i - from] = Math.exp(-beta * (e[i] - guess));
                 }
                 f = mu -> Math.abs(mu - guess) <= reach
-                        ? fastFermiResidual(mu, beta, half, target, guess, w, from) : exact.applyAsDouble(mu);
+                        ? fastFermiResidual(mu, beta, half, target, guess, w, from, noise)
+                        : exact.applyAsDouble(mu);
             }
             // narrow the proven bracket [lo, hi] around the T = 0 filling energy by outward steps (f is increasing)
             double a = guess;
@@ -189,7 +196,13 @@ public final class ChemicalPotential {
             }
             BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-16, 4 * Math.ulp(
                     Math.max(Math.abs(a), Math.abs(b))), 1e-300, 5);
-            return solver.solve(MAX_EVALUATIONS, f::applyAsDouble, a, b, AllowedSolution.ANY_SIDE);
+            // a residual within its own rounding noise is reported as an exact root, which ends the search there
+            // (the solver otherwise insists on shrinking the bracket from both sides)
+            java.util.function.DoubleUnaryOperator g = f;
+            return solver.solve(MAX_EVALUATIONS, mu -> {
+                double v = g.applyAsDouble(mu);
+                return Math.abs(v) <= noise[0] ? 0.0 : v;
+            }, a, b, AllowedSolution.ANY_SIDE);
         }
 
         /** The energy at which filling the states from below reaches {@code states} (T = 0 estimate of mu). */
@@ -208,7 +221,7 @@ public final class ChemicalPotential {
         }
 
         /** N(mu) - target as (capacity below mu - target) + particles above - holes below, over the window. */
-        private double residual(double mu, double beta, double half, int k, double target) {
+        private double residual(double mu, double beta, double half, int k, double target, double[] noise) {
             boolean fermi = statistics.kind() == Statistics.Kind.FERMI;
             int from = upper(mu - half);
             int split = upper(mu);
@@ -224,12 +237,22 @@ public final class ChemicalPotential {
                     holes += g[i] * (fermi ? fermiMean(-x) : MeanOccupation.gentile(k, -x));
                 }
             }
+            noise[0] = noiseLevel(above + holes, to - from, target);
             return base + (above - holes);
+        }
+
+        /**
+         * The rounding noise of a residual: 4 sqrt(terms) ulp of the summed magnitude, plus 2 ulp of the
+         * target when the integer base term is not exact.
+         */
+        private static double noiseLevel(double magnitude, int terms, double target) {
+            double inexactBase = target == Math.rint(target) && target < 0x1p52 ? 0.0 : 2 * Math.ulp(target);
+            return 4 * Math.sqrt(Math.max(1, terms)) * Math.ulp(magnitude) + inexactBase;
         }
 
         /** The Fermi residual with y_i = w_i e^{beta(mu - centre)}: n = y/(1+y) above mu, hole = 1/(1+y) below. */
         private double fastFermiResidual(double mu, double beta, double half, double target, double centre,
-                                         double[] w, int offset) {
+                                         double[] w, int offset, double[] noise) {
             int from = Math.max(offset, upper(mu - half));
             int split = upper(mu);
             int to = Math.min(offset + w.length, upper(mu + half));
@@ -245,6 +268,7 @@ public final class ChemicalPotential {
                 double y = w[i - offset] * z;
                 above += g[i] * y / (1.0 + y);
             }
+            noise[0] = noiseLevel(above + holes, to - from, target);
             return base + (above - holes);
         }
 

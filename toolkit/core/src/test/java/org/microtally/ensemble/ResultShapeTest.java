@@ -24,7 +24,7 @@ class ResultShapeTest {
                 GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 1.0, 10),
                 EnsembleComparison.overTemperatures(dot, Statistics.BOSE, 10, 0.5, 1.0),
                 EnsembleComparison.convergence(dot, Statistics.FERMI, new int[] {5, 10}, n -> 1.0),
-                Microcanonical.of(dot, Statistics.FERMI, 6, 20));
+                Microcanonical.of(dot, Statistics.FERMI, 6, 20), Canonical.groundState(dot, Statistics.FERMI, 7));
         for (Tabular t : all) {
             int cols = t.columnNames().size();
             assertTrue(cols >= 2);

@@ -81,7 +81,8 @@ public final class Session implements AutoCloseable {
     static final List<String> TOOLKIT_PACKAGES = List.of(
             "org.microtally", "org.microtally.spectrum", "org.microtally.count", "org.microtally.ensemble",
             "org.microtally.occupation", "org.microtally.special", "org.microtally.limit",
-            "org.microtally.lattice", "org.microtally.units", "org.microtally.notebook.render");
+            "org.microtally.lattice", "org.microtally.units", "org.microtally.notebook.render",
+            "org.microtally.notebook.data");
     /** Standard library packages imported in every session. */
     static final List<String> JAVA_PACKAGES = List.of(
             "java.util", "java.util.function", "java.util.stream", "java.math", "java.io", "java.nio.file");
