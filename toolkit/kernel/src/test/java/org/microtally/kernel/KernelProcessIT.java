@@ -60,7 +60,7 @@ class KernelProcessIT {
         }
         assertFalse(orphanAlive, "the kernel outlived its parent by 15 s");
         String err = Files.readString(stderr);
-        // Source: common practice, no source: java.util.logging's default ConsoleHandler writes
+        // common practice, no source: java.util.logging's default ConsoleHandler writes
         // "INFO: ..." / "WARNING: ..." lines to stderr; none must appear.
         assertFalse(err.contains("INFO:") || err.contains("WARNING:") || err.contains("SEVERE:"), "kernel stderr: " + err);
         Path log = dir.resolve("microtally-kernel.0.log");
