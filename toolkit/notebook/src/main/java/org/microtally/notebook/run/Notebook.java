@@ -213,7 +213,7 @@ final class Notebook {
         root.add("metadata", md);
         JsonObject kernelspec = new JsonObject();
         kernelspec.addProperty("name", "microtally");
-        kernelspec.addProperty("display_name", "microtally (Java)");
+        kernelspec.addProperty("display_name", "Java 17 (microtally)");
         kernelspec.addProperty("language", "java");
         md.add("kernelspec", kernelspec);
         JsonObject lang = new JsonObject();
