@@ -270,7 +270,9 @@ public final class Session implements AutoCloseable {
         if (control.stopRequested()) {
             return interrupted();
         }
-        if (value == EngineControl.NO_VALUE) {
+        if (value == EngineControl.NO_VALUE || value instanceof java.io.PrintStream) {
+            // A cell ending in System.out.printf(...) or .append(...) evaluates to the stream itself;
+            // its text has already been streamed, so the stream object is not shown as a value.
             return new CellResult(CellResult.Outcome.OK, Optional.empty(), Optional.empty(), Optional.empty());
         }
         Object v = value;

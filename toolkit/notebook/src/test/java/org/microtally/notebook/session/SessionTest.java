@@ -59,6 +59,15 @@ class SessionTest {
     }
 
     @Test
+    void printfAsLastExpressionPrintsButShowsNoStreamValue() {
+        Collector c = new Collector();
+        CellResult r = session.run("System.out.printf(\"%d quanta%n\", 100)", c);
+        assertTrue(r.ok());
+        assertEquals("100 quanta" + System.lineSeparator(), c.text(false));
+        assertTrue(r.value().isEmpty(), "the PrintStream returned by printf is not shown as a value");
+    }
+
+    @Test
     void stdoutAndStderrAreCapturedSeparately() {
         Collector c = new Collector();
         CellResult r = session.run("System.out.println(\"to out\");\nSystem.err.println(\"to err\");", c);
