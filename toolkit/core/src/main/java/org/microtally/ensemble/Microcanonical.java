@@ -10,6 +10,7 @@ import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
+import org.microtally.count.ExactRatio;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -36,7 +37,8 @@ import org.microtally.spectrum.Statistics;
  *       (W(n, e) = Omega(n, e) - sum_{j=1..k} W(n - j, e - j e_i); bosons: W = Omega(n, e) -
  *       Omega(n - 1, e - e_i)), evaluated along the line (N - m, E - m e_i) only. Distinguishable
  *       particles: &lt;n_s&gt; = N Omega(N - 1, E - e_i) / Omega(N, E). The mean is an exact
- *       {@link BigFraction}, converted to double only at the end.</li>
+ *       {@link BigFraction}, converted to double only at the end
+ *       (correctly rounded, by {@link ExactRatio}).</li>
  * </ul>
  * Accuracy: counts exact; logarithms within 2 ulp ({@link CountTable#lnCount}); finite differences
  * carry the O(d^2 S''') discretisation error of a central difference, which is the meaning of a
@@ -288,7 +290,7 @@ public final class Microcanonical implements Tabular {
         List<BigFraction> f = exactOccupations(e);
         double[] d = new double[f.size()];
         for (int i = 0; i < d.length; i++) {
-            d[i] = f.get(i).doubleValue();
+            d[i] = ExactRatio.toDouble(f.get(i));
         }
         Spectrum s = table.spectrum();
         return new LevelOccupations(s.energies(), s.degeneracies(), d);
