@@ -124,4 +124,23 @@ class MultinomialTest {
         assertThrows(InvalidInputException.class, () -> Multinomial.lnProbability(Double.NaN));
         assertThrows(InvalidInputException.class, () -> Multinomial.mostProbableOccupancy(0, 3));
     }
+
+    @Test
+    void totalBeyondDoubleRangeIsRefusedNamingN() {
+        // 1e308 + 1e308 = 2e308 exceeds Double.MAX_VALUE = 1.797...e308 (IEEE 754 binary64)
+        for (InvalidInputException e : new InvalidInputException[] {
+                assertThrows(InvalidInputException.class, () -> Multinomial.lnProbability(1e308, 1e308)),
+                assertThrows(InvalidInputException.class, () -> Multinomial.lnCount(1e308, 1e308)),
+                assertThrows(InvalidInputException.class, () -> Multinomial.lnCountByLogGamma(1e308, 1e308))}) {
+            assertTrue(e.getMessage().contains("N = sum of the occupancies = 2.00000E+308"), e.getMessage());
+        }
+        // lnGamma(N + 1) ~ N ln N overflows long before N does: the direct formula refuses, naming N
+        InvalidInputException e = assertThrows(InvalidInputException.class,
+                () -> Multinomial.lnCountByLogGamma(1e307, 1e307));
+        assertTrue(e.getMessage().contains("N = 2.0E307"), e.getMessage());
+        // Source: Stirling (DLMF 5.11.1): ln C(N, N/2) = N ln 2 + 0.5 ln(2/(pi N)) + O(1/N), here at N = 2e307
+        double n = 2e307;
+        assertEquals(n * Math.log(2) + 0.5 * Math.log(2 / (Math.PI * n)), Multinomial.lnCount(1e307, 1e307),
+                1e-12 * n);
+    }
 }
