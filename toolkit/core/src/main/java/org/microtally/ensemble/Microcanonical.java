@@ -160,8 +160,11 @@ public final class Microcanonical implements Tabular {
         return table.lnCount(n, e);
     }
 
-    /** S_B(E), or -infinity where Omega(N, E) = 0 (for sums of Boltzmann weights over the grid). */
-    public double boltzmannEntropyOrMinusInfinity(int e) {
+    /**
+     * S_B(E), or -infinity where Omega(N, E) = 0 (for sums of Boltzmann weights over the grid).
+     * Package-private: the public API never returns an infinity; use {@link #boltzmannEntropy}.
+     */
+    double boltzmannEntropyOrMinusInfinity(int e) {
         requireEnergy(e);
         return table.isZero(n, e) ? Double.NEGATIVE_INFINITY : table.lnCount(n, e);
     }
