@@ -10,6 +10,7 @@ import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
+import org.microtally.count.ExactLog;
 import org.microtally.count.ExactRatio;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
@@ -176,7 +177,7 @@ public final class Microcanonical implements Tabular {
             throw InvalidInputException.of("number of states with energy <= " + e, 0, "> 0",
                     "The lowest accessible energy is " + lowestEnergy() + ".");
         }
-        return ln(c);
+        return ExactLog.ln(c);
     }
 
     /** The lowest energy with Omega(N, E) &gt; 0. */
@@ -319,15 +320,6 @@ public final class Microcanonical implements Tabular {
                     "a grid point with Omega > 0 at E - " + step + ", E and E + " + step + " within [0, " + maxE + "]",
                     "Check hasBoltzmannTemperature(E) first.");
         }
-    }
-
-    private static double ln(BigInteger c) {
-        int bits = c.bitLength();
-        if (bits < 1000) {
-            return Math.log(c.doubleValue());
-        }
-        int shift = bits - 64;
-        return Math.log(c.shiftRight(shift).doubleValue()) + shift * Math.log(2.0);
     }
 
     /**
