@@ -8,15 +8,16 @@ import org.microtally.InvalidInputException;
  * The double nearest to an exact ratio p / q of integers of any size.
  *
  * <p>Why: {@code BigFraction.doubleValue()} in Commons Math 3.6.1 converts numerator and
- * denominator to double separately, so a part above 2^1024 becomes infinite and the quotient 0, NaN
- * or infinite (2^28 / 2^1028 gives 0.0 instead of 2^-1000).
+ * denominator to double separately, so a part of 2^1024 or more becomes infinite; only the case of
+ * both parts that large (a NaN quotient) is rescued by a shift, otherwise the quotient comes out 0 or
+ * infinite (2^28 / 2^1028 gives 0.0 instead of 2^-1000).
  *
  * <p>Method: with e = bitLength(|p|) - bitLength(|q|), form the integer quotient
  * Q = floor(|p| 2^s / |q|), s = 55 - e, so Q has 55 or 56 bits, and remember whether the division
  * left a remainder. The result has t = min(53, E + 1075) significant bits, E = bitLength(Q) - 1 - s
  * being its binary exponent (t &lt; 53 for subnormal results). Q is cut to its top t bits and rounded
  * to nearest, ties to even, using the first dropped bit and a sticky bit (any lower dropped bit or a
- * non-zero remainder), the rounding of IEEE 754 binary64 (common practice, no source). The rounded
+ * non-zero remainder): the default rounding of IEEE 754 binary64 (roundTiesToEven). The rounded
  * integer times 2^(dropped - s) is then formed with {@link Math#scalb}, which is exact there because
  * the integer already fits the result's precision. Accuracy: correctly rounded (error at most half
  * an ulp), for normal and subnormal results alike; exact zero gives 0.0. Cost: one BigInteger
