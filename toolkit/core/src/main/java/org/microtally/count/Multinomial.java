@@ -117,6 +117,11 @@ public final class Multinomial {
         for (double k : occupancy) {
             s -= Gamma.logGamma(k + 1);
         }
+        if (!Double.isFinite(s)) {
+            throw InvalidInputException.of("total number of objects N", n,
+                    "small enough that lnGamma(N + 1) is a finite double (about N < 1e305)",
+                    "Use lnCount, which rearranges the logarithms and works for any finite N.");
+        }
         return s;
     }
 
@@ -188,6 +193,11 @@ public final class Multinomial {
                 throw InvalidInputException.of("occupancy of box " + i, k, "a finite integer >= 0", "");
             }
             n = n.add(new BigDecimal(k));
+        }
+        if (!Double.isFinite(n.doubleValue())) {
+            throw InvalidInputException.of("total number of objects N = sum of the occupancies",
+                    n.round(new MathContext(6)), "at most " + Double.MAX_VALUE + " (a finite double)",
+                    "Rescale the occupancies; ln N! for such N is itself beyond double range.");
         }
         return n;
     }

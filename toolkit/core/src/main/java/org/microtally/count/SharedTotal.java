@@ -1,8 +1,6 @@
 package org.microtally.count;
 
-import java.math.BigDecimal;
 import java.math.BigInteger;
-import java.math.MathContext;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
@@ -118,14 +116,14 @@ public final class SharedTotal implements Tabular {
 
     /** Mean of q_A under the exact distribution. */
     public double mean() {
-        return new BigDecimal(moment(1)).divide(new BigDecimal(all), MathContext.DECIMAL128).doubleValue();
+        return ExactRatio.toDouble(moment(1), all);
     }
 
     /** Standard deviation of q_A under the exact distribution. */
     public double width() {
         BigInteger s1 = moment(1);
         BigInteger var = moment(2).multiply(all).subtract(s1.multiply(s1));
-        double v = new BigDecimal(var).divide(new BigDecimal(all.multiply(all)), MathContext.DECIMAL128).doubleValue();
+        double v = ExactRatio.toDouble(var, all.multiply(all));
         return Math.sqrt(v);
     }
 

@@ -3,6 +3,7 @@ package org.microtally.ensemble;
 import java.math.BigInteger;
 import java.util.List;
 import org.microtally.Tabular;
+import org.microtally.count.ExactLog;
 import org.microtally.occupation.LevelOccupations;
 
 /**
@@ -14,14 +15,9 @@ import org.microtally.occupation.LevelOccupations;
  * @param occupations mean occupation of every level in the limit
  */
 public record GroundState(double energy, BigInteger degeneracy, LevelOccupations occupations) implements Tabular {
-    /** S/k = ln(degeneracy), the T -&gt; 0 entropy. */
+    /** S/k = ln(degeneracy), the T -&gt; 0 entropy, by {@link ExactLog#ln} (within 2 ulp). */
     public double entropy() {
-        int bits = degeneracy.bitLength();
-        if (bits < 1000) {
-            return Math.log(degeneracy.doubleValue());
-        }
-        int shift = bits - 60;
-        return Math.log(degeneracy.shiftRight(shift).doubleValue()) + shift * Math.log(2.0);
+        return ExactLog.ln(degeneracy);
     }
 
     @Override

@@ -10,6 +10,8 @@ import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
+import org.microtally.count.ExactLog;
+import org.microtally.count.ExactRatio;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -36,7 +38,8 @@ import org.microtally.spectrum.Statistics;
  *       (W(n, e) = Omega(n, e) - sum_{j=1..k} W(n - j, e - j e_i); bosons: W = Omega(n, e) -
  *       Omega(n - 1, e - e_i)), evaluated along the line (N - m, E - m e_i) only. Distinguishable
  *       particles: &lt;n_s&gt; = N Omega(N - 1, E - e_i) / Omega(N, E). The mean is an exact
- *       {@link BigFraction}, converted to double only at the end.</li>
+ *       {@link BigFraction}, converted to double only at the end
+ *       (correctly rounded, by {@link ExactRatio}).</li>
  * </ul>
  * Accuracy: counts exact; logarithms within 2 ulp ({@link CountTable#lnCount}); finite differences
  * carry the O(d^2 S''') discretisation error of a central difference, which is the meaning of a
@@ -158,8 +161,11 @@ public final class Microcanonical implements Tabular {
         return table.lnCount(n, e);
     }
 
-    /** S_B(E), or -infinity where Omega(N, E) = 0 (for sums of Boltzmann weights over the grid). */
-    public double boltzmannEntropyOrMinusInfinity(int e) {
+    /**
+     * S_B(E), or -infinity where Omega(N, E) = 0 (for sums of Boltzmann weights over the grid).
+     * Package-private: the public API never returns an infinity; use {@link #boltzmannEntropy}.
+     */
+    double boltzmannEntropyOrMinusInfinity(int e) {
         requireEnergy(e);
         return table.isZero(n, e) ? Double.NEGATIVE_INFINITY : table.lnCount(n, e);
     }
@@ -171,7 +177,7 @@ public final class Microcanonical implements Tabular {
             throw InvalidInputException.of("number of states with energy <= " + e, 0, "> 0",
                     "The lowest accessible energy is " + lowestEnergy() + ".");
         }
-        return ln(c);
+        return ExactLog.ln(c);
     }
 
     /** The lowest energy with Omega(N, E) &gt; 0. */
@@ -288,7 +294,7 @@ public final class Microcanonical implements Tabular {
         List<BigFraction> f = exactOccupations(e);
         double[] d = new double[f.size()];
         for (int i = 0; i < d.length; i++) {
-            d[i] = f.get(i).doubleValue();
+            d[i] = ExactRatio.toDouble(f.get(i));
         }
         Spectrum s = table.spectrum();
         return new LevelOccupations(s.energies(), s.degeneracies(), d);
@@ -314,15 +320,6 @@ public final class Microcanonical implements Tabular {
                     "a grid point with Omega > 0 at E - " + step + ", E and E + " + step + " within [0, " + maxE + "]",
                     "Check hasBoltzmannTemperature(E) first.");
         }
-    }
-
-    private static double ln(BigInteger c) {
-        int bits = c.bitLength();
-        if (bits < 1000) {
-            return Math.log(c.doubleValue());
-        }
-        int shift = bits - 64;
-        return Math.log(c.shiftRight(shift).doubleValue()) + shift * Math.log(2.0);
     }
 
     /**

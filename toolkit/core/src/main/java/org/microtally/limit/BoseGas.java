@@ -5,6 +5,7 @@ import java.util.List;
 import java.util.Optional;
 import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
 import org.apache.commons.math3.analysis.solvers.AllowedSolution;
+import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
 import org.microtally.special.Polylog;
 import org.microtally.special.Zeta;
@@ -50,7 +51,7 @@ public final class BoseGas {
             throw InvalidInputException.of("density-of-states exponent alpha for a Bose gas", alpha, "> 1",
                     "For alpha <= 1 (e.g. a 2D box) zeta(alpha) diverges and there is no condensation at T > 0.");
         }
-        double gammaAlpha = Math.exp(org.apache.commons.math3.special.Gamma.logGamma(alpha));
+        double gammaAlpha = Math.exp(Gamma.logGamma(alpha));
         this.criticalEnergy = Math.pow(amount / (dos.coefficient() * gammaAlpha * Zeta.zeta(alpha)), 1.0 / alpha);
     }
 

@@ -20,7 +20,12 @@ import org.microtally.spectrum.Statistics;
  * <p>Method: each formula is evaluated in the branch that never forms e^{|x|} (expm1/log1p for the
  * Bose and Fermi laws; for Gentile the geometric sums run over powers of e^{-|x|} &lt;= 1, the
  * particle-hole image m -&gt; k - m is used for x &lt; 0). Accuracy: a few ulp relative for mean and
- * ln xi over the whole real line (Bose: x &gt; 0); the variance to a few ulp relative.
+ * ln xi, and for the variance, wherever the result is a finite double. That is not the whole real
+ * line: the Maxwell-Boltzmann mean, variance and ln xi (e^-x) overflow for x below about -709.78;
+ * the Bose-Einstein mean (about 1/x) overflows for x below about 5.6e-309 and its variance (about
+ * 1/x^2) for x below about 7.5e-155; the Gentile ln xi (about -k x) overflows for x below about
+ * -1.8e308/k. Fermi-Dirac results are finite for every finite x. Where a result would not be
+ * finite, the method throws {@link InvalidInputException} naming x, never returning Infinity.
  *
  * <p>{@link Statistics#DISTINGUISHABLE} is mapped to Maxwell-Boltzmann: the grand canonical
  * ensemble of classical particles with Boltzmann's 1/N! counting.
@@ -31,7 +36,7 @@ public final class MeanOccupation {
     /** Bose-Einstein mean 1/(e^x - 1); x must be &gt; 0 (mu below the state). */
     public static double boseEinstein(double x) {
         requireBoseArgument(x);
-        return 1.0 / Math.expm1(x);
+        return requireFiniteResult("Bose-Einstein mean occupation", x, 1.0 / Math.expm1(x));
     }
 
     /** Fermi-Dirac mean 1/(e^x + 1), any finite x. */
@@ -47,7 +52,7 @@ public final class MeanOccupation {
     /** Maxwell-Boltzmann mean e^-x. */
     public static double maxwellBoltzmann(double x) {
         requireFinite(x);
-        return Math.exp(-x);
+        return requireFiniteResult("Maxwell-Boltzmann mean occupation", x, Math.exp(-x));
     }
 
     /** Gentile mean occupation with at most {@code k} particles per state. */
@@ -70,7 +75,7 @@ public final class MeanOccupation {
         return switch (statistics.kind()) {
             case BOSE -> {
                 double n = boseEinstein(x);
-                yield n * (n + 1);
+                yield requireFiniteResult("Bose-Einstein occupation variance", x, n * (n + 1));
             }
             case FERMI -> {
                 double n = fermiDirac(x);
@@ -90,8 +95,8 @@ public final class MeanOccupation {
                 yield -Math.log(-Math.expm1(-x));
             }
             case FERMI -> x > 0 ? Math.log1p(Math.exp(-x)) : -x + Math.log1p(Math.exp(x));
-            case DISTINGUISHABLE -> Math.exp(-x);
-            case GENTILE -> gentileLogFactor(statistics.maxOccupancy(), x);
+            case DISTINGUISHABLE -> requireFiniteResult("Maxwell-Boltzmann ln xi", x, Math.exp(-x));
+            case GENTILE -> requireFiniteResult("Gentile ln xi", x, gentileLogFactor(statistics.maxOccupancy(), x));
         };
     }
 
@@ -143,6 +148,20 @@ public final class MeanOccupation {
             throw InvalidInputException.of("(e - mu)/kT", x, "a finite number",
                     "Check that kT > 0 and mu are finite.");
         }
+    }
+
+    /**
+     * Returns {@code result} if it is finite; otherwise throws naming x, the range of x for which
+     * {@code quantity} is a finite double, and what to do.
+     */
+    private static double requireFiniteResult(String quantity, double x, double result) {
+        if (Double.isFinite(result)) {
+            return result;
+        }
+        throw InvalidInputException.of("(e - mu)/kT", x,
+                "such that the " + quantity + " is a finite double (it overflows here)",
+                "Choose mu and kT so that x lies in the range given in the MeanOccupation Javadoc"
+                        + " (e.g. mu further below the level).");
     }
 
     private static void requireBoseArgument(double x) {

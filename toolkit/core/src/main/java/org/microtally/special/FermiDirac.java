@@ -1,5 +1,6 @@
 package org.microtally.special;
 
+import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
 
 /**
@@ -96,7 +97,7 @@ public final class FermiDirac {
         if (j + 1.0 <= 170.0) {
             return total / SpecialMath.gamma(j + 1.0);
         }
-        return Math.exp(Math.log(total) - SpecialMath.logGamma(j + 1.0));
+        return Math.exp(Math.log(total) - Gamma.logGamma(j + 1.0));
     }
 
     /** Sommerfeld / inversion formula for large eta. */
@@ -105,7 +106,7 @@ public final class FermiDirac {
         if (j + 2.0 <= 170.0) {
             leading = Math.pow(eta, j + 1.0) / SpecialMath.gamma(j + 2.0);
         } else {
-            leading = Math.exp((j + 1.0) * Math.log(eta) - SpecialMath.logGamma(j + 2.0));
+            leading = Math.exp((j + 1.0) * Math.log(eta) - Gamma.logGamma(j + 2.0));
         }
         double series = 1.0;
         double ratio = 1.0; // Gamma(j+2)/Gamma(j+2-2k) / eta^(2k)

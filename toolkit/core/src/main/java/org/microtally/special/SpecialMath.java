@@ -71,18 +71,13 @@ final class SpecialMath {
         return Gamma.gamma(x);
     }
 
-    /** ln Gamma(x) for x > 0 (Commons Math {@link Gamma#logGamma}). */
-    static double logGamma(double x) {
-        return Gamma.logGamma(x);
-    }
-
     /** The reciprocal 1/Gamma(x), exactly 0 at the non-positive integers (the poles of Gamma). */
     static double reciprocalGamma(double x) {
         if (x <= 0 && x == Math.rint(x)) {
             return 0.0;
         }
         if (x > 170) {
-            return Math.exp(-logGamma(x));
+            return Math.exp(-Gamma.logGamma(x));
         }
         return 1.0 / gamma(x);
     }

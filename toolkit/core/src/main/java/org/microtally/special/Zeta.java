@@ -3,6 +3,7 @@ package org.microtally.special;
 import java.math.BigDecimal;
 import java.math.BigInteger;
 import java.math.MathContext;
+import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
 
 /**
@@ -90,7 +91,7 @@ public final class Zeta {
         if (oneMinusX <= 170.0) {
             return Math.pow(2.0, x) * Math.pow(Math.PI, x - 1.0) * sin * SpecialMath.gamma(oneMinusX) * zetaReflected;
         }
-        double logMagnitude = x * LN2 + (x - 1.0) * Math.log(Math.PI) + SpecialMath.logGamma(oneMinusX);
+        double logMagnitude = x * LN2 + (x - 1.0) * Math.log(Math.PI) + Gamma.logGamma(oneMinusX);
         return Math.signum(sin) * Math.exp(logMagnitude) * zetaReflected;
     }
 

@@ -8,6 +8,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.math.BigInteger;
 import java.util.Random;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.apache.commons.math3.special.Gamma;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 
@@ -45,14 +46,17 @@ class MultinomialTest {
                 if (c > 0) {
                     rec = rec.add(Multinomial.count(a, b, c - 1));
                 }
+                // Source: Pascal-type recurrence for multinomial coefficients (common practice, no source)
                 assertEquals(v, rec);
             }
         }
+        // Source: multinomial theorem (DLMF Sec. 26.4)
         assertEquals(BigInteger.valueOf(m).pow(n), sum);
     }
 
     @Test
     void mostProbableOccupancyIsAsEvenAsPossibleAndIsMaximal() {
+        // Source: closed form: 10 = 4 x 2 + 2, so 2 boxes hold 3 and 2 hold 2, larger first (common practice, no source)
         assertArrayEquals(new int[] {3, 3, 2, 2}, Multinomial.mostProbableOccupancy(4, 10));
         // Source: independent brute force over all occupancies of 4 boxes by 10 objects
         BigInteger best = BigInteger.ZERO;
@@ -90,8 +94,12 @@ class MultinomialTest {
             assertEquals(exactLnP, Multinomial.lnProbability(d), 1e-12 * Math.max(1, Math.abs(exactLnP)),
                     java.util.Arrays.toString(occ));
             if (n < 2000) {
-                // Source: Commons Math Gamma.logGamma (Lanczos approximation), fine at moderate N
-                assertEquals(Multinomial.lnCountByLogGamma(d), Multinomial.lnCount(d), 1e-9 * Math.max(1, exactLnC));
+                // Source: Commons Math Gamma.logGamma, an independent implementation, called directly here
+                double direct = Gamma.logGamma(n + 1.0);
+                for (int o : occ) {
+                    direct -= Gamma.logGamma(o + 1.0);
+                }
+                assertEquals(direct, Multinomial.lnCountByLogGamma(d), 1e-12 * Math.max(1, Math.abs(direct)));
             }
         }
     }
@@ -111,7 +119,8 @@ class MultinomialTest {
         double n3 = 3e27;
         double expected3 = Math.log(3 * Math.sqrt(3) / (2 * Math.PI * n3));
         assertEquals(expected3, Multinomial.lnProbability(1e27, 1e27, 1e27), 1e-12 * Math.abs(expected3));
-        // ln C ~ N ln 2 - 0.5 ln(pi N / 2): relative accuracy on a number ~8.6e26
+        // Source: Stirling (DLMF 5.11.1): ln C(N, N/2) = N ln 2 - 0.5 ln(pi N / 2) + O(1/N); relative accuracy
+        // on a number ~8.6e26
         double lnC = Multinomial.lnCount(n / 2, n / 2);
         assertEquals(n * Math.log(2) + 0.5 * Math.log(2 / (Math.PI * n)), lnC, 1e-12 * lnC);
     }
@@ -121,7 +130,29 @@ class MultinomialTest {
         assertTrue(assertThrows(InvalidInputException.class, () -> Multinomial.count(2, -1)).getMessage().contains("-1"));
         assertTrue(assertThrows(InvalidInputException.class, () -> Multinomial.lnCount(2.5, 1))
                 .getMessage().contains("2.5"));
-        assertThrows(InvalidInputException.class, () -> Multinomial.lnProbability(Double.NaN));
-        assertThrows(InvalidInputException.class, () -> Multinomial.mostProbableOccupancy(0, 3));
+        // common practice, no source: NaN is not an occupancy, and 0 boxes cannot hold 3 objects
+        assertTrue(assertThrows(InvalidInputException.class, () -> Multinomial.lnProbability(Double.NaN))
+                .getMessage().contains("NaN"));
+        assertTrue(assertThrows(InvalidInputException.class, () -> Multinomial.mostProbableOccupancy(0, 3))
+                .getMessage().contains("M = 0"));
+    }
+
+    @Test
+    void totalBeyondDoubleRangeIsRefusedNamingN() {
+        // 1e308 + 1e308 = 2e308 exceeds Double.MAX_VALUE = 1.797...e308 (IEEE 754 binary64)
+        for (InvalidInputException e : new InvalidInputException[] {
+                assertThrows(InvalidInputException.class, () -> Multinomial.lnProbability(1e308, 1e308)),
+                assertThrows(InvalidInputException.class, () -> Multinomial.lnCount(1e308, 1e308)),
+                assertThrows(InvalidInputException.class, () -> Multinomial.lnCountByLogGamma(1e308, 1e308))}) {
+            assertTrue(e.getMessage().contains("N = sum of the occupancies = 2.00000E+308"), e.getMessage());
+        }
+        // lnGamma(N + 1) ~ N ln N overflows long before N does: the direct formula refuses, naming N
+        InvalidInputException e = assertThrows(InvalidInputException.class,
+                () -> Multinomial.lnCountByLogGamma(1e307, 1e307));
+        assertTrue(e.getMessage().contains("N = 2.0E307"), e.getMessage());
+        // Source: Stirling (DLMF 5.11.1): ln C(N, N/2) = N ln 2 + 0.5 ln(2/(pi N)) + O(1/N), here at N = 2e307
+        double n = 2e307;
+        assertEquals(n * Math.log(2) + 0.5 * Math.log(2 / (Math.PI * n)), Multinomial.lnCount(1e307, 1e307),
+                1e-12 * n);
     }
 }

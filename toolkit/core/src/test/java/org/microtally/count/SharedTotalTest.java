@@ -44,13 +44,17 @@ class SharedTotalTest {
         assertEquals(60.0, st.mean(), 1e-12);
         double var = q * na * nb * (na + nb + q) / ((na + nb) * (na + nb) * (na + nb + 1));
         assertEquals(Math.sqrt(var), st.width(), 1e-12 * Math.sqrt(var));
+        // Source: closed form: ln(Omega_A Omega_B) = ln Omega_A + ln Omega_B
         assertEquals(st.entropyA(60) + st.entropyB(60), st.entropy(60), 1e-9);
+        // Source: Vandermonde identity, total C(q + 499, q) = C(599, 100) as above
         assertEquals(ExactLog.ln(CountTableTest.binomial(599, 100)), st.totalEntropy(), 1e-12 * st.totalEntropy());
         BigFraction sum = BigFraction.ZERO;
         for (int qa = 0; qa <= q; qa++) {
             sum = sum.add(st.probability(qa));
         }
+        // Source: normalisation, closed form
         assertEquals(BigFraction.ONE, sum);
+        // common practice, no source: one row per split q_A = 0..100
         assertEquals(101, st.rows().size());
     }
 

@@ -83,7 +83,9 @@ class GrandCanonicalTest {
     void fermiLevelIsMidGapForAClosedShell() {
         Spectrum dot = Spectra.harmonicOscillator(2, 10);
         // 1 + 2 + 3 = 6 electrons (spinless) fill shells 0..2; gap to shell 3 (degeneracy 4)
+        // Source: shell filling, closed form: mid-gap between the last filled and first empty level
         assertEquals(2.5, ChemicalPotential.fermiLevel(dot, Statistics.FERMI, 6), 0);
+        // Source: shell filling, closed form: mid-gap between the last filled and first empty level
         assertEquals(2.0, ChemicalPotential.fermiLevel(dot, Statistics.FERMI, 4), 0);
         double kT = 0.02;
         double mu = ChemicalPotential.forMeanNumber(dot, Statistics.FERMI, kT, 6);

@@ -13,6 +13,7 @@ import org.apache.commons.math3.special.Gamma;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.count.CountTable;
+import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
@@ -37,6 +38,44 @@ class MicrocanonicalTest {
         }
         assertEquals(0.0, mc.boltzmannBeta(n / 2), 1e-15);
         assertEquals(n + 1, mc.rows().size());
+    }
+
+    @Test
+    void occupationsAreRightWhenExactFractionsExceedDoubleRange() {
+        int n = 60;
+        int e = 60;
+        int[] en = {0, 1, 30};
+        int[] g = {1, 1_000_003, 1};
+        Spectrum s = Spectrum.of(new double[] {0, 1, 30}, g);
+        Microcanonical mc = Microcanonical.of(s, Statistics.DISTINGUISHABLE, n, e);
+        // Independent brute force: Omega(M, E) = [x^E] (1 + 1000003 x + x^30)^M by repeated polynomial multiplication
+        BigInteger[] previous = {BigInteger.ONE};
+        BigInteger[] current = previous;
+        for (int m = 1; m <= n; m++) {
+            previous = current;
+            current = new BigInteger[previous.length + 30];
+            java.util.Arrays.fill(current, BigInteger.ZERO);
+            for (int k = 0; k < previous.length; k++) {
+                for (int i = 0; i < 3; i++) {
+                    current[k + en[i]] = current[k + en[i]].add(previous[k].multiply(BigInteger.valueOf(g[i])));
+                }
+            }
+        }
+        BigFraction top = mc.exactOccupations(e).get(2);
+        // precondition of this test, not a result check: the reduced fraction of the top level has a numerator
+        // within double range over a denominator beyond 2^1024, where BigFraction.doubleValue() gives 0.0
+        assertTrue(top.getNumerator().bitLength() < 1000 && top.getDenominator().bitLength() > 1030,
+                top.getNumerator().bitLength() + " / " + top.getDenominator().bitLength() + " bits");
+        LevelOccupations occ = mc.occupations(e);
+        for (int i = 0; i < 3; i++) {
+            BigInteger num = BigInteger.valueOf(n).multiply(previous[e - en[i]]);
+            // Source: closed form <n_s> = N Omega(N-1, E - e_i) / Omega(N, E) (distinguishable particles), with
+            // the counts from the brute-force product above and the division by independent BigDecimal arithmetic
+            double expected = new java.math.BigDecimal(num).divide(new java.math.BigDecimal(current[e]),
+                    new java.math.MathContext(40)).doubleValue();
+            assertEquals(expected, occ.perState(i), 0.0, "level " + i);
+        }
+        assertTrue(occ.perState(2) > 0, "top level occupation " + occ.perState(2));
     }
 
     @Test
