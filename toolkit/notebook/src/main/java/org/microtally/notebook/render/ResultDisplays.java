@@ -19,8 +19,8 @@ import org.microtally.spectrum.Statistics;
  */
 final class ResultDisplays {
     /** Most particle-number columns in the grid view of a count table. */
-    static final int GRID_COLUMNS = 8;
-    /** The grid of a count table has up to 9 columns of exact integers: shown in full up to 20 digits. */
+    static final int GRID_COLUMNS = 9;
+    /** The grid of a count table has up to 10 columns (E and 9 particle numbers) of exact integers: shown in full up to 20 digits. */
     static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 8, 20, 5);
 
     private ResultDisplays() { }
@@ -35,7 +35,7 @@ final class ResultDisplays {
 
     // ---- count tables
 
-    /** The particle numbers shown as grid columns: every n when N + 1 <= 8, else 8 evenly spaced n from 0 to N. */
+    /** The particle numbers shown as grid columns: every n when N + 1 <= 9, else 9 evenly spaced n from 0 to N (0, N/8, ..., N). */
     static int[] gridColumns(int maxN) {
         if (maxN + 1 <= GRID_COLUMNS) {
             int[] all = new int[maxN + 1];
