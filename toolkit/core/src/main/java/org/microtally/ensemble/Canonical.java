@@ -8,6 +8,7 @@ import java.util.Objects;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
+import org.microtally.count.Combinatorics;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;
@@ -169,7 +170,7 @@ public final class Canonical implements Tabular {
             occ[0] = (double) n / spectrum.degeneracy(0);
             e = n * spectrum.groundEnergy();
             int g0 = spectrum.degeneracy(0);
-            degeneracy = statistics.indistinguishable() ? binomial(g0 + n - 1L, n)
+            degeneracy = statistics.indistinguishable() ? Combinatorics.binomial(g0 + n - 1L, n)
                     : BigInteger.valueOf(g0).pow(n);
         } else {
             long left = n;
@@ -582,14 +583,6 @@ public final class Canonical implements Tabular {
         r.add(List.of("Var N_0", condensate.variance()));
         for (String w : warnings) {
             r.add(List.of("warning", w));
-        }
-        return r;
-    }
-
-    static BigInteger binomial(long a, long b) {
-        BigInteger r = BigInteger.ONE;
-        for (long i = 1; i <= b; i++) {
-            r = r.multiply(BigInteger.valueOf(a - b + i)).divide(BigInteger.valueOf(i));
         }
         return r;
     }
