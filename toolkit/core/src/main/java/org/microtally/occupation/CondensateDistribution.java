@@ -16,8 +16,8 @@ import org.microtally.Tabular;
  * the same as P(N_0 &gt;= j) = e^{-beta j e_0} Z_{N-j} / Z_N); Fermi and Gentile particles use that
  * level's own capped series in place of L_0; distinguishable particles give a binomial distribution
  * with p = g_0 e^{-beta e_0} / Z_1. Method: the partition-function ratio form of the canonical
- * ground-state number distribution (H. D. Politzer, Phys. Rev. A 54, 5048 (1996); C. Weiss and
- * M. Wilkens, Opt. Express 1, 272 (1997); both from memory), evaluated in
+ * ground-state number distribution (H. D. Politzer, Phys. Rev. A 54, 5048 (1996); M. Wilkens and
+ * C. Weiss, J. Mod. Opt. 44, 1801 (1997); both from memory), evaluated in
  * {@link org.microtally.ensemble.Canonical} with positive terms only.
  *
  * <p><b>Mean and variance.</b> mean = sum_j j p_j / sum_j p_j and variance = sum_j (j - mean)^2 p_j
