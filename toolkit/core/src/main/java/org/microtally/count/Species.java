@@ -24,11 +24,18 @@ import org.microtally.spectrum.Statistics;
  *       states is allowed and simply gives zero counts.</li>
  * </ul>
  *
- * @throws InvalidInputException (from the constructor) if {@code particles} &lt; 0; a null component
- *         throws NullPointerException naming it
+ * @param name       display name, non-null
+ * @param spectrum   single-particle levels of this species, non-null
+ * @param statistics statistics of this species, non-null
+ * @param particles  fixed particle number, &gt;= 0
  */
 public record Species(String name, Spectrum spectrum, Statistics statistics, int particles) {
-    /** Validates the record. */
+    /**
+     * Validates the record.
+     *
+     * @throws InvalidInputException if {@code particles} &lt; 0
+     * @throws NullPointerException  if a component is null (the message names it)
+     */
     public Species {
         Objects.requireNonNull(name, "name");
         Objects.requireNonNull(spectrum, "spectrum");
