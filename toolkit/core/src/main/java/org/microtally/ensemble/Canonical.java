@@ -157,7 +157,8 @@ public final class Canonical implements Tabular {
     /**
      * The T -&gt; 0 limit: the lowest N-particle energy, its exact degeneracy and the occupations
      * (each state of a partly filled level holds the same share, the limit of the canonical
-     * occupations by symmetry).
+     * occupations by symmetry). How the degeneracy is counted, its accuracy, and a limitation for
+     * labelled spectra with several levels at one energy are stated on {@link GroundState}.
      */
     public static GroundState groundState(Spectrum spectrum, Statistics statistics, int n) {
         requireParticleNumber(spectrum, statistics, n);
