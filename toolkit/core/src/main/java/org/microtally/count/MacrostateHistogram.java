@@ -15,10 +15,18 @@ import org.microtally.Tabular;
  * The exact multiplicity of every value of an additive macro variable (the total) for k independent
  * units, each with a finite set of integer outcomes carrying multiplicities. Immutable.
  *
- * <p>Method: exact BigInteger convolution of the units' outcome distributions, one unit at a time;
- * cost O(k * span * outcomes). Multiplicity of total t = sum over outcome tuples with sum t of the
- * product of their multiplicities; the probability of t is that over the product of the units' total
- * multiplicities (all tuples equally likely, weighted by multiplicity). Exact.
+ * <p><b>Formula.</b> With unit i having outcome o of multiplicity w_i(o), the multiplicity of total t
+ * is W(t) = sum over outcome tuples (o_1, ..., o_k) with o_1 + ... + o_k = t of prod_i w_i(o_i), that is
+ * the coefficient of s^t in prod_i P_i(s), P_i(s) = sum_o w_i(o) s^o. The probability of t is
+ * W(t) / prod_i P_i(1) (every tuple equally likely, weighted by multiplicity).
+ *
+ * <p><b>Method.</b> Exact BigInteger convolution of the units' outcome polynomials, one unit at a time
+ * (the product rule for ordinary generating functions, H. S. Wilf, generatingfunctionology, 2nd ed.
+ * (1994), ch. 1-2, from memory); cost O(k * span * outcomes) multiply-adds, with the span of the total
+ * capped at {@link #MAX_SPAN}.
+ *
+ * <p><b>Accuracy.</b> Exact: multiplicities are BigInteger and probabilities BigFraction; no double
+ * is involved.
  */
 public final class MacrostateHistogram implements Tabular {
     /** Largest allowed span of the total (max - min + 1). */

@@ -26,6 +26,12 @@ import org.microtally.spectrum.Statistics;
  * increasing lexicographic order), produced one at a time by depth-first search with pruning on the
  * remaining particles and energy; nothing is stored.
  *
+ * <p>Method and accuracy: plain depth-first generation of every occupation vector or assignment with
+ * the given particle number and energy (common practice, no source); it is exact by construction,
+ * using only integer arithmetic, and shares no code with the generating-function recursions of
+ * {@link CountTable}, which is what makes it an independent check. Cost: proportional to the number
+ * of microstates produced times the number of states, plus the pruned dead ends.
+ *
  * <p>Cap: asking for more microstates than the cap (default 10^7) is refused before anything is
  * enumerated, with the exact number (taken from a {@link CountTable}) in the message; raise it with
  * {@link #withCap(long)}.

@@ -43,10 +43,10 @@ public final class Multinomial {
     /** N! / (n_1! ... n_M!), exact. */
     public static BigInteger count(int... occupancy) {
         int n = checkOccupancy(occupancy);
-        BigInteger num = factorial(n);
+        BigInteger num = Combinatorics.factorial(n);
         BigInteger den = BigInteger.ONE;
         for (int k : occupancy) {
-            den = den.multiply(factorial(k));
+            den = den.multiply(Combinatorics.factorial(k));
         }
         return num.divide(den);
     }
@@ -202,11 +202,4 @@ public final class Multinomial {
         return n;
     }
 
-    private static BigInteger factorial(int n) {
-        BigInteger f = BigInteger.ONE;
-        for (int i = 2; i <= n; i++) {
-            f = f.multiply(BigInteger.valueOf(i));
-        }
-        return f;
-    }
 }

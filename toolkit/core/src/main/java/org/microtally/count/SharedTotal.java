@@ -15,10 +15,20 @@ import org.microtally.Tabular;
  * microstates of the combined system being equally likely, the split has the exact distribution
  * P(q_A) = Omega_A(q_A) Omega_B(q - q_A) / Omega(q), Omega(q) = sum over splits. Immutable.
  *
- * <p>The mean and width (standard deviation) of q_A are computed from the exact sums
+ * <p><b>Method.</b> Omega(q) is the coefficient of t^q in the product of the two generating
+ * functions sum_k Omega_A(k) t^k and sum_k Omega_B(k) t^k (the product rule for ordinary generating
+ * functions, H. S. Wilf, generatingfunctionology, 2nd ed. (1994), ch. 1-2, from memory); only this one
+ * coefficient is needed, so it is the direct sum over the q + 1 splits, in BigInteger. Reading the
+ * normalised joint count as the probability of the split is the postulate of equal a priori
+ * probabilities for the combined isolated system (e.g. D. V. Schroeder, An Introduction to Thermal
+ * Physics (2000), section 2.3, from memory).
+ *
+ * <p><b>Accuracy.</b> Joint counts, Omega(q) and the probabilities are exact (BigInteger,
+ * BigFraction). The mean and width (standard deviation) of q_A come from the exact sums
  * S_k = sum q_A^k Omega_A Omega_B as exact rationals S_1/S_0 and (S_2 S_0 - S_1^2)/S_0^2, each
- * rounded once to double (then a square root), so they are accurate to a few ulp however large the
- * counts are. Entropies are ln of the exact integers ({@link ExactLog}).
+ * rounded once to the nearest double ({@link ExactRatio}, half an ulp), the width then through one
+ * correctly rounded square root: within about 1 ulp however large the counts are. Entropies are ln of
+ * the exact integers ({@link ExactLog}, within 2 ulp).
  */
 public final class SharedTotal implements Tabular {
     private final int total;

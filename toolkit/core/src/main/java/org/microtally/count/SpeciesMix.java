@@ -14,9 +14,23 @@ import org.microtally.Tabular;
  * and total label L (for example L = 2M for spin-up and spin-down electrons, or protons and neutrons
  * in a shell). Immutable.
  *
- * <p>Method: a {@link LabelledCountTable} per species, sliced at its particle number, then exact 2-D
- * convolution over (e, L), truncated at e &lt;= E. Particles of different species are distinguishable
- * from each other, so the joint count is the product summed over the ways to share e and L. Exact.
+ * <p><b>Formula.</b> Particles of different species are distinguishable from each other, so a
+ * microstate of the mix is one microstate of each species, and with Omega_s(n_s, e, L) the count of
+ * species s at its fixed particle number n_s,
+ * <pre>
+ *   Omega(e, L) = sum over e_1 + ... + e_S = e, L_1 + ... + L_S = L of prod_s Omega_s(n_s, e_s, L_s),
+ * </pre>
+ * that is, the generating function of the mix is the product of the species' generating functions
+ * sum_{e,L} Omega_s(n_s, e, L) q^e z^L.
+ *
+ * <p><b>Method.</b> A {@link LabelledCountTable} per species (its method and sources are documented
+ * there), sliced at its particle number, then exact two-dimensional convolution over (e, L),
+ * truncated at e &lt;= E after each species (the product rule for ordinary generating functions:
+ * H. S. Wilf, generatingfunctionology, 2nd ed. (1994), ch. 1-2, from memory). Cost per species
+ * O((E+1)^2 W_cur W_s) multiply-adds for label windows of widths W_cur and W_s.
+ *
+ * <p><b>Accuracy.</b> Exact: BigInteger throughout. Truncating at E loses nothing for e &lt;= E because
+ * all energies are &gt;= 0.
  */
 public final class SpeciesMix implements Tabular {
     private final List<Species> species;

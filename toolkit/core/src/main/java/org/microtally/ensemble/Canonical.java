@@ -8,6 +8,7 @@ import java.util.Objects;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
+import org.microtally.count.Combinatorics;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;
@@ -156,7 +157,8 @@ public final class Canonical implements Tabular {
     /**
      * The T -&gt; 0 limit: the lowest N-particle energy, its exact degeneracy and the occupations
      * (each state of a partly filled level holds the same share, the limit of the canonical
-     * occupations by symmetry).
+     * occupations by symmetry). How the degeneracy is counted, its accuracy, and a limitation for
+     * labelled spectra with several levels at one energy are stated on {@link GroundState}.
      */
     public static GroundState groundState(Spectrum spectrum, Statistics statistics, int n) {
         requireParticleNumber(spectrum, statistics, n);
@@ -169,7 +171,7 @@ public final class Canonical implements Tabular {
             occ[0] = (double) n / spectrum.degeneracy(0);
             e = n * spectrum.groundEnergy();
             int g0 = spectrum.degeneracy(0);
-            degeneracy = statistics.indistinguishable() ? binomial(g0 + n - 1L, n)
+            degeneracy = statistics.indistinguishable() ? Combinatorics.binomial(g0 + n - 1L, n)
                     : BigInteger.valueOf(g0).pow(n);
         } else {
             long left = n;
@@ -582,14 +584,6 @@ public final class Canonical implements Tabular {
         r.add(List.of("Var N_0", condensate.variance()));
         for (String w : warnings) {
             r.add(List.of("warning", w));
-        }
-        return r;
-    }
-
-    static BigInteger binomial(long a, long b) {
-        BigInteger r = BigInteger.ONE;
-        for (long i = 1; i <= b; i++) {
-            r = r.multiply(BigInteger.valueOf(a - b + i)).divide(BigInteger.valueOf(i));
         }
         return r;
     }

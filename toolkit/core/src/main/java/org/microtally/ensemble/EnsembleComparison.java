@@ -26,6 +26,13 @@ import org.microtally.spectrum.Statistics;
  * below condensation is of order N_0^2 instead of order N, the overestimate discussed by Politzer
  * (PRA 54, 5048 (1996)) and Wilkens &amp; Weiss (J. Mod. Opt. 44, 1801 (1997)). The canonical
  * Var N_0 is exact for every statistics ({@link Canonical#groundLevelDistribution()}).
+ *
+ * <p>Method and accuracy: nothing is computed here beyond the relative differences (one subtraction
+ * and one division, a few ulp); every entry carries the accuracy stated by the class that produced
+ * it ({@link Canonical}, {@link GrandCanonical}, {@link Microcanonical}). "Exact" above means without
+ * a large-N or grand canonical approximation, within those rounding bounds. Microcanonical rows sit
+ * at the grid energy nearest to the canonical U, so they differ from the canonical row by that
+ * energy offset as well as by the ensemble.
  */
 public final class EnsembleComparison implements Tabular {
     /**

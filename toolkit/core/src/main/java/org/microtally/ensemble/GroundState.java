@@ -8,7 +8,37 @@ import org.microtally.occupation.LevelOccupations;
 
 /**
  * The T -&gt; 0 limit of the canonical ensemble: lowest N-particle energy, its exact number of
- * microstates (so S(T -&gt; 0)/k = ln degeneracy) and the limiting occupations.
+ * microstates (so S(T -&gt; 0)/k = ln degeneracy) and the limiting occupations. Built by
+ * {@link Canonical#groundState}.
+ *
+ * <p><b>How the degeneracy is obtained</b> (exact, BigInteger, by direct counting of the lowest
+ * configuration; closed forms are common practice, no source). With g_0 the degeneracy of the
+ * lowest level:
+ * <ul>
+ *   <li>Bose: all N particles in the lowest level, C(g_0 + N - 1, N) ways (multisets of size N from
+ *       g_0 states, {@link org.microtally.count.Combinatorics#binomial}); energy N e_0.</li>
+ *   <li>distinguishable: every labelled particle in one of the g_0 lowest states, g_0^N ways.</li>
+ *   <li>Fermi and maxOccupancy(k): levels are filled from the bottom, k per state; the last,
+ *       partly filled level of degeneracy g holding r particles gives the number of ways to put r
+ *       indistinguishable particles into g states with at most k each, counted exactly by a small
+ *       dynamic programme over the states (for k = 1 this is C(g, r)). Completely filled levels
+ *       contribute one way.</li>
+ * </ul>
+ * The occupations give each state of a partly filled level the same share, the limit of the
+ * canonical occupations by symmetry.
+ *
+ * <p><b>Limitation.</b> The counting treats each level of the spectrum separately, so it assumes
+ * distinct levels have distinct energies. A labelled spectrum may hold several levels of equal
+ * energy and different labels; for such a spectrum, when the lowest level (Bose, distinguishable) or
+ * the partly filled energy shell (Fermi, Gentile) consists of several levels, the degeneracy and
+ * occupations here cover only part of that shell and are too small. Use an unlabelled spectrum
+ * (equal energies are then merged) for the T -&gt; 0 limit.
+ *
+ * <p><b>Accuracy.</b> {@code degeneracy} is exact. {@code energy} is N e_0, or the sum of (particles
+ * put in level i) e_i, formed in double: exact when the level energies are integers and every
+ * partial result stays below 2^53, otherwise rounded once per operation.
+ * {@link #entropy()} is ln of the exact degeneracy by {@link ExactLog#ln}: within 2 ulp of the true
+ * ln for integers of any size (no overflow for degeneracies beyond 10^308).
  *
  * @param energy      lowest total energy
  * @param degeneracy  exact number of N-particle microstates at that energy

@@ -13,6 +13,22 @@ import org.microtally.units.Codata2018;
  * <p>Whether C counts states per unit volume (a box: the particle amount is then a density in
  * m^-3) or in the whole system (a trap: the amount is a number of particles) is recorded in
  * {@link #perVolume()}.
+ *
+ * <p><b>Method.</b> Each builder evaluates a closed form: the box is the leading (Weyl) term of the
+ * free-particle state count, phase-space volume / (2 pi hbar)^3; the traps are the semiclassical
+ * phase-space volume below e for the given potential (Bagnato, Pritchard and Kleppner 1987, above),
+ * with the zero-point energy dropped. {@link #statesBelow} is the integral C e^alpha / alpha.
+ *
+ * <p><b>Accuracy.</b> Two separate things. (1) Numerically, {@link #box3D}, {@link #harmonic},
+ * {@link #harmonic2D} and {@link #statesBelow} are a few floating-point operations on the CODATA 2018
+ * constants: relative error a few ulp (about 1e-15). {@link #powerLawTrap} goes through ln K with
+ * Commons Math {@code Gamma.logGamma} and one exp, so its relative error is about |ln K| times
+ * 1e-16 plus that of logGamma, typically below 1e-13. (2) As physics, a power law is the
+ * continuum limit: it is the leading term for e (and kT) large compared with the level spacing
+ * (hbar omega for a trap). Discreteness and zero-point energy give corrections of relative order
+ * hbar omega / kT, seen for example as the finite-N shift of the condensation temperature in a
+ * harmonic trap (W. Ketterle and N. J. van Druten, Phys. Rev. A 54, 656 (1996), from memory); for
+ * small N use the exact spectrum and the ensemble classes instead.
  */
 public final class DensityOfStates {
     private final double coefficient;

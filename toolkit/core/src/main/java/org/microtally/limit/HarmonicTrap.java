@@ -4,6 +4,13 @@ package org.microtally.limit;
  * A three-dimensional anisotropic harmonic trap, V = (m/2) sum_i omega_i^2 x_i^2, given by its three
  * angular frequencies in rad/s.
  *
+ * <p>A plain value: the only computations are omega = 2 pi f ({@link #ofHertz}) and the two means.
+ * The geometric mean omega_g is the frequency that enters the semiclassical density of states
+ * g(e) = e^2 / (2 (hbar omega_g)^3) (V. Bagnato, D. E. Pritchard and D. Kleppner, Phys. Rev. A 35,
+ * 4354 (1987)); the arithmetic mean omega_m sets the leading finite-size correction (see
+ * {@link DensityOfStates}). Accuracy: each is a few double operations ({@code Math.cbrt} is within
+ * 1 ulp), relative error at most a few ulp.
+ *
  * @param omegaX angular frequency along x, rad/s
  * @param omegaY angular frequency along y, rad/s
  * @param omegaZ angular frequency along z, rad/s

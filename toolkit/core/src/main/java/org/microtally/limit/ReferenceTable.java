@@ -9,6 +9,14 @@ import org.microtally.Tabular;
  * A table of thermodynamic-limit reference values, e.g. a temperature sweep of a {@link FermiGas}
  * with the exact numbers next to the Sommerfeld expansion. Immutable.
  *
+ * <p>A container only: it computes nothing and adds no error. Its cells carry the accuracy of the
+ * class that filled them, stated there: {@link FermiGas#sweep} (the columns without a suffix about
+ * 1e-13 relative; the Sommerfeld columns are truncated expansions, mu and U to second order with the
+ * next term of order (T/T_F)^4, C to first order with the next term of order (T/T_F)^3) and
+ * {@link BoseGas#sweep} (about 1e-13 relative, from the Bose functions). Those accuracies are within
+ * the thermodynamic-limit model (a power-law density of states, {@link DensityOfStates}); they are
+ * not statements about a finite N.
+ *
  * @param columnNames column names, with units in parentheses
  * @param rows        rows of {@link Double} cells, one per column
  */

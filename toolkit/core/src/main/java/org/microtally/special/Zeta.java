@@ -5,6 +5,7 @@ import java.math.BigInteger;
 import java.math.MathContext;
 import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
+import org.microtally.count.Combinatorics;
 
 /**
  * The Riemann zeta function zeta(s) = sum_{k>=1} k^-s for real s &gt; 1 (DLMF 25.2.1).
@@ -120,8 +121,8 @@ public final class Zeta {
         MathContext mc = new MathContext(50);
         BigDecimal[] t = new BigDecimal[n + 1];
         for (int i = 0; i <= n; i++) {
-            BigInteger num = BigInteger.valueOf(n).multiply(factorial(n + i - 1)).multiply(BigInteger.valueOf(4).pow(i));
-            BigInteger den = factorial(n - i).multiply(factorial(2 * i));
+            BigInteger num = BigInteger.valueOf(n).multiply(Combinatorics.factorial(n + i - 1)).multiply(BigInteger.valueOf(4).pow(i));
+            BigInteger den = Combinatorics.factorial(n - i).multiply(Combinatorics.factorial(2 * i));
             t[i] = new BigDecimal(num).divide(new BigDecimal(den), mc);
         }
         BigDecimal dn = BigDecimal.ZERO;
@@ -137,11 +138,4 @@ public final class Zeta {
         return w;
     }
 
-    private static BigInteger factorial(int m) {
-        BigInteger f = BigInteger.ONE;
-        for (int i = 2; i <= m; i++) {
-            f = f.multiply(BigInteger.valueOf(i));
-        }
-        return f;
-    }
 }

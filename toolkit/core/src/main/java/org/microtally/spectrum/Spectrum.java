@@ -18,6 +18,12 @@ import org.microtally.units.EnergyScale;
  * the sum. A spectrum may be <em>labelled</em>: every level then carries an integer label of a
  * second conserved quantity (such as 2m), and exact counting can resolve totals of that label.
  *
+ * <p>Exactness test: a level energy counts as an integer multiple of the quantum, for
+ * {@link #isExact()} and {@link #integerEnergies()}, only when it equals its nearest integer exactly
+ * (no tolerance) and lies within int range; an energy such as 0.1 + 0.2 is therefore not exact, and
+ * rounding to integers is the caller's deliberate choice. Equal energies are merged by exact double
+ * comparison in the same way.
+ *
  * <p>Every builder in {@link Spectra} truncates an infinite spectrum at an explicit cutoff;
  * {@link #cutoffEnergy()} records it and {@link #cutoffNote()} says what it costs. Exact counts
  * of total energy E are unaffected by the cutoff when E - (lowest energy of the other N-1

@@ -11,6 +11,9 @@ import org.microtally.InvalidInputException;
  * <p>A scale without a physical size (see {@link #abstractUnit(String)}) is fine for counting and for
  * temperatures given as kT in the same unit; converting to a physical unit then throws with a
  * message saying how to declare the size.
+ *
+ * <p>Conversions are one multiplication ({@link #energy}) or one division ({@link #multiples}) of
+ * the stored joules: one rounding each, on top of the accuracy of the declared quantum.
  */
 public final class EnergyScale {
     private final String name;

@@ -4,6 +4,10 @@ package org.microtally.units;
  * Physical units in which an {@link Energy} can be expressed. Conversions use CODATA 2018 exact
  * constants ({@link Codata2018}): 1 eV = e J, 1 K = k_B J (energy E/k_B), 1 cm^-1 = 100 h c J,
  * 1 Hz = h J.
+ *
+ * <p>Accuracy: those constants are exact in the SI since 2019, so the only error is rounding: each
+ * factor is the double nearest to the exact value, or a product of two or three such doubles (meV,
+ * cm^-1), within 2 ulp of the exact factor.
  */
 public enum EnergyUnit {
     /** Joule. */

@@ -195,7 +195,7 @@ class MicrocanonicalTest {
     }
 
     private static BigInteger binomial(int a, int b) {
-        return Canonical.binomial(a, b);
+        return org.microtally.count.Combinatorics.binomial(a, b);
     }
 
     private static double lnBinomial(int a, int b) {
