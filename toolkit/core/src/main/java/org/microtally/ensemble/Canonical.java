@@ -157,8 +157,8 @@ public final class Canonical implements Tabular {
     /**
      * The T -&gt; 0 limit: the lowest N-particle energy, its exact degeneracy and the occupations
      * (each state of a partly filled level holds the same share, the limit of the canonical
-     * occupations by symmetry). How the degeneracy is counted, its accuracy, and a limitation for
-     * labelled spectra with several levels at one energy are stated on {@link GroundState}.
+     * occupations by symmetry). How the degeneracy is counted (by energy shell, so labelled spectra
+     * with several levels at one energy are handled) and its accuracy are stated on {@link GroundState}.
      */
     public static GroundState groundState(Spectrum spectrum, Statistics statistics, int n) {
         requireParticleNumber(spectrum, statistics, n);
@@ -168,27 +168,51 @@ public final class Canonical implements Tabular {
         BigInteger degeneracy;
         double e;
         if (!statistics.capped()) {
-            occ[0] = (double) n / spectrum.degeneracy(0);
+            // every particle in the lowest energy, shared by all levels at that energy (labelled
+            // spectra may hold several levels there, one per label)
+            int top = energyGroupEnd(spectrum, 0);
+            long g0 = 0;
+            for (int i = 0; i < top; i++) {
+                g0 += spectrum.degeneracy(i);
+            }
+            for (int i = 0; i < top; i++) {
+                occ[i] = (double) n / g0;
+            }
             e = n * spectrum.groundEnergy();
-            int g0 = spectrum.degeneracy(0);
             degeneracy = statistics.indistinguishable() ? Combinatorics.binomial(g0 + n - 1L, n)
                     : BigInteger.valueOf(g0).pow(n);
         } else {
             long left = n;
             e = 0;
             degeneracy = BigInteger.ONE;
-            for (int i = 0; i < m && left > 0; i++) {
-                long g = spectrum.degeneracy(i);
+            for (int i = 0; i < m && left > 0; ) {
+                int top = energyGroupEnd(spectrum, i);
+                long g = 0;
+                for (int j = i; j < top; j++) {
+                    g += spectrum.degeneracy(j);
+                }
                 long put = Math.min(left, g * cap);
-                occ[i] = (double) put / g;
+                for (int j = i; j < top; j++) {
+                    occ[j] = (double) put / g;
+                }
                 e += put * spectrum.energy(i);
                 if (put < g * cap) {
                     degeneracy = cappedWays((int) g, (int) cap, (int) put);
                 }
                 left -= put;
+                i = top;
             }
         }
         return new GroundState(e, degeneracy, new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), occ));
+    }
+
+    /** One past the last level with the same energy as level {@code from} (levels are sorted by energy). */
+    private static int energyGroupEnd(Spectrum spectrum, int from) {
+        int top = from + 1;
+        while (top < spectrum.size() && spectrum.energy(top) == spectrum.energy(from)) {
+            top++;
+        }
+        return top;
     }
 
     private static void requireParticleNumber(Spectrum spectrum, Statistics statistics, int n) {

@@ -13,7 +13,7 @@ import org.microtally.occupation.LevelOccupations;
  *
  * <p><b>How the degeneracy is obtained</b> (exact, BigInteger, by direct counting of the lowest
  * configuration; closed forms are common practice, no source). With g_0 the degeneracy of the
- * lowest level:
+ * lowest energy shell:
  * <ul>
  *   <li>Bose: all N particles in the lowest level, C(g_0 + N - 1, N) ways (multisets of size N from
  *       g_0 states, {@link org.microtally.count.Combinatorics#binomial}); energy N e_0.</li>
@@ -27,12 +27,9 @@ import org.microtally.occupation.LevelOccupations;
  * The occupations give each state of a partly filled level the same share, the limit of the
  * canonical occupations by symmetry.
  *
- * <p><b>Limitation.</b> The counting treats each level of the spectrum separately, so it assumes
- * distinct levels have distinct energies. A labelled spectrum may hold several levels of equal
- * energy and different labels; for such a spectrum, when the lowest level (Bose, distinguishable) or
- * the partly filled energy shell (Fermi, Gentile) consists of several levels, the degeneracy and
- * occupations here cover only part of that shell and are too small. Use an unlabelled spectrum
- * (equal energies are then merged) for the T -&gt; 0 limit.
+ * <p><b>Energy shells.</b> "Level" above means all levels of the spectrum at one energy: a
+ * labelled spectrum holds one level per label at an energy (e.g. the 2D oscillator resolved by m),
+ * and their degeneracies are added before counting, so g_0 and g are shell degeneracies.
  *
  * <p><b>Accuracy.</b> {@code degeneracy} is exact. {@code energy} is N e_0, or the sum of (particles
  * put in level i) e_i, formed in double: exact when the level energies are integers and every

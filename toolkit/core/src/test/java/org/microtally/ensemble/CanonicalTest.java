@@ -253,6 +253,27 @@ class CanonicalTest {
     }
 
     @Test
+    void groundStateOfALabelledSpectrumCountsWholeEnergyShells() {
+        // the 2D oscillator resolved by m holds one level per label at each energy
+        Spectrum byM = Spectra.oscillator2dByAngularMomentum(8);
+        for (Statistics st : List.of(Statistics.FERMI, Statistics.BOSE, Statistics.maxOccupancy(2),
+                Statistics.DISTINGUISHABLE)) {
+            for (int n = 1; n <= 7; n++) {
+                GroundState g = Canonical.groundState(byM, st, n);
+                // Source: independent brute force: the exact count table's lowest non-empty energy and its count
+                org.microtally.count.CountTable t = org.microtally.count.CountTable.of(byM, st, n, 30);
+                int e0 = 0;
+                while (t.isZero(n, e0)) {
+                    e0++;
+                }
+                assertEquals(e0, g.energy(), 0.0, st + " N=" + n);
+                assertEquals(t.count(n, e0), g.degeneracy(), st + " N=" + n);
+                assertEquals(n, g.occupations().total(), 1e-12, st + " N=" + n);
+            }
+        }
+    }
+
+    @Test
     void canonicalAndGrandCanonicalConvergeAsOneOverN() {
         // Fermions in a 3D oscillator at kT = 1: energy per particle, canonical vs grand canonical
         Spectrum s = Spectra.harmonicOscillator(3, 60);
