@@ -174,11 +174,7 @@ public final class BoseGas {
      * @throws InvalidInputException if the density of states is not per volume (a trap has no pressure)
      */
     public double pressure(double kelvin) {
-        if (!dos.perVolume()) {
-            throw new InvalidInputException("pressure is defined for a gas in a box (density of states per volume); "
-                    + "this gas has " + dos + ".");
-        }
-        return amount * energyPerParticle(kelvin).in(EnergyUnit.JOULE) / dos.exponent();
+        return dos.pressureFromEnergyDensity(amount * energyPerParticle(kelvin).in(EnergyUnit.JOULE));
     }
 
     /**

@@ -153,4 +153,19 @@ public final class DensityOfStates {
     public String toString() {
         return description;
     }
+
+    /**
+     * The pressure P = (U/V)/alpha of an ideal gas with this density of states, from its energy density
+     * U/V in J/m^3 (for a 3D box, alpha = 3/2: P = 2U/(3V)); exact identity for a power-law density of
+     * states per volume (Bagnato, Pritchard & Kleppner, PRA 35, 4354 (1987)), one rounding.
+     *
+     * @throws InvalidInputException if the density of states is not per volume (a trap has no pressure)
+     */
+    double pressureFromEnergyDensity(double energyDensity) {
+        if (!perVolume) {
+            throw new InvalidInputException("pressure is defined for a gas in a box (density of states per volume); "
+                    + "this gas has " + this + ".");
+        }
+        return energyDensity / exponent;
+    }
 }

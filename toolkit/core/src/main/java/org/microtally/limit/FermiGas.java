@@ -170,11 +170,7 @@ public final class FermiGas {
      * @throws InvalidInputException if the density of states is not per volume
      */
     public double pressure(double kelvin) {
-        if (!dos.perVolume()) {
-            throw new InvalidInputException("pressure is defined for a gas in a box (density of states per volume); "
-                    + "this gas has " + dos + ".");
-        }
-        return amount * energyPerParticle(kelvin).in(EnergyUnit.JOULE) / dos.exponent();
+        return dos.pressureFromEnergyDensity(amount * energyPerParticle(kelvin).in(EnergyUnit.JOULE));
     }
 
     /**
