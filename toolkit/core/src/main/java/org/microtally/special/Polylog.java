@@ -162,27 +162,7 @@ public final class Polylog {
         } else {
             sum += SpecialMath.gamma(1.0 - s) * Math.pow(-mu, s - 1.0);
         }
-        Coefficients zetas = coefficients(s, false);
-        double power = 1.0; // mu^k / k!
-        int small = 0;
-        for (int k = 0; k <= MAX_TERMS; k++) {
-            if (k > 0) {
-                power *= mu / k;
-            }
-            if (k == singularK) {
-                continue;
-            }
-            double term = zetas.get(k) * power;
-            sum += term;
-            if (k > s + 1 && Math.abs(term) <= SERIES_TOLERANCE * Math.abs(sum)) {
-                if (++small >= 2) {
-                    break;
-                }
-            } else {
-                small = 0;
-            }
-        }
-        return sum;
+        return exponentialSeries(coefficients(s, false), s, mu, singularK, sum);
     }
 
     /**
@@ -244,11 +224,14 @@ public final class Polylog {
         return muPowOverFact * (oneMinusFOverEps + stieltjes);
     }
 
-    /** Li_s(-e^mu) = -sum_k eta(s-k) mu^k / k!, for |mu| &lt;= 1 (Taylor series about z = -1). */
-    static double aboutMinusOne(double s, double mu) {
-        Coefficients etas = coefficients(s, true);
-        double sum = 0.0;
-        double power = 1.0;
+    /**
+     * start + sum_k c_k mu^k / k! over k = 0, 1, ..., skipping k = {@code skipK} (-1 for none); stops once
+     * mu^k/k! underflows to 0 or, past k = s + 1, two successive terms fall below SERIES_TOLERANCE
+     * relative to the sum.
+     */
+    private static double exponentialSeries(Coefficients c, double s, double mu, int skipK, double start) {
+        double sum = start;
+        double power = 1.0; // mu^k / k!
         int small = 0;
         for (int k = 0; k <= MAX_TERMS; k++) {
             if (k > 0) {
@@ -257,7 +240,10 @@ public final class Polylog {
             if (power == 0.0) {
                 break;
             }
-            double term = etas.get(k) * power;
+            if (k == skipK) {
+                continue;
+            }
+            double term = c.get(k) * power;
             sum += term;
             if (k > s + 1 && Math.abs(term) <= SERIES_TOLERANCE * Math.abs(sum)) {
                 if (++small >= 2) {
@@ -267,6 +253,11 @@ public final class Polylog {
                 small = 0;
             }
         }
-        return -sum;
+        return sum;
+    }
+
+    /** Li_s(-e^mu) = -sum_k eta(s-k) mu^k / k!, for |mu| &lt;= 1 (Taylor series about z = -1). */
+    static double aboutMinusOne(double s, double mu) {
+        return -exponentialSeries(coefficients(s, true), s, mu, -1, 0.0);
     }
 }

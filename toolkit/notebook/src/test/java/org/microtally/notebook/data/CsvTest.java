@@ -23,17 +23,7 @@ import tech.tablesaw.io.csv.CsvReadOptions;
 class CsvTest {
 
     static Tabular of(List<String> names, List<List<Object>> rows) {
-        return new Tabular() {
-            @Override
-            public List<String> columnNames() {
-                return names;
-            }
-
-            @Override
-            public List<List<Object>> rows() {
-                return rows;
-            }
-        };
+        return Tables.tabular(names, rows);
     }
 
     static Table readAsText(String csv) {

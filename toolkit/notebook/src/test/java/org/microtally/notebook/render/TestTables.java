@@ -15,16 +15,6 @@ final class TestTables {
         for (Object[] r : rows) {
             list.add(Arrays.asList(r));
         }
-        return new Tabular() {
-            @Override
-            public List<String> columnNames() {
-                return names;
-            }
-
-            @Override
-            public List<List<Object>> rows() {
-                return list;
-            }
-        };
+        return Tables.tabular(names, list);
     }
 }
