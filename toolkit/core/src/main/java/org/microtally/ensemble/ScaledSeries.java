@@ -30,10 +30,34 @@ final class ScaledSeries {
     /** Index of the last non-zero mantissa (entries above are zero). */
     int degree;
     double logScale;
+    /**
+     * Excitation-moment mode only: the configuration-independent constant removed from the energy so
+     * that every per-state contribution is non-negative (see {@link #excitationMoments(int)}).
+     */
+    double momentShift;
+    private final boolean excitation;
     private double growth = 1;
 
     /** The series 1 (no states yet). */
     ScaledSeries(int n, boolean moments) {
+        this(n, moments, false);
+    }
+
+    /**
+     * The series 1 with energy moments in which every term is non-negative: a state of energy
+     * eps &gt;= 0 (relative to the reference) adds eps per particle, a capped state with eps &lt; 0 adds
+     * |eps| per vacancy, (J - n_s)|eps| with J = min(cap, N) (the particle-hole picture), and the
+     * constant J eps this drops is summed in {@link #momentShift}. Then u_m/c_m + momentShift is the
+     * mean of E - r m and v_m/c_m - (u_m/c_m)^2 its variance, with no signed terms anywhere, so the
+     * variance loses only the factor 1 + mean(X)^2/Var(X) (X the shifted energy) to the final
+     * subtraction. Bose states must have eps &gt;= 0 (reference at or below the lowest level).
+     */
+    static ScaledSeries excitationMoments(int n) {
+        return new ScaledSeries(n, true, true);
+    }
+
+    private ScaledSeries(int n, boolean moments, boolean excitation) {
+        this.excitation = excitation;
         this.n = n;
         this.c = new double[n + 1];
         this.c[0] = 1;
@@ -51,6 +75,8 @@ final class ScaledSeries {
         this.low = o.low;
         this.degree = o.degree;
         this.logScale = o.logScale;
+        this.momentShift = o.momentShift;
+        this.excitation = o.excitation;
         this.growth = o.growth;
     }
 
@@ -68,6 +94,9 @@ final class ScaledSeries {
      * ({@code Integer.MAX_VALUE} for bosons), energies eps relative to the moment reference.
      */
     void multiplyStates(int count, double lnY, int cap, double eps) {
+        if (excitation && eps < 0 && cap == Integer.MAX_VALUE && u != null) {
+            throw new IllegalStateException("excitation moments need Bose states at or above the reference");
+        }
         int s = 0;
         if (cap == Integer.MAX_VALUE && lnY < 0) {
             double g1 = Math.min(n + 1.0, -1.0 / Math.expm1(lnY));
@@ -205,61 +234,83 @@ final class ScaledSeries {
     private void fermiStep(double lnY, double eps) {
         int top = Math.min(n, degree + 1);
         int lo1 = Math.max(1, low);
-        if (lnY <= BIG_LOG_FACTOR) {
-            double y = Math.exp(lnY);
-            if (u == null) {
+        boolean big = lnY > BIG_LOG_FACTOR;
+        if (u == null) {
+            if (!big) {
+                double y = Math.exp(lnY);
                 for (int m = top; m >= lo1; m--) {
                     c[m] += y * c[m - 1];
                 }
             } else {
-                double e2 = eps * eps;
-                for (int m = top; m >= lo1; m--) {
-                    double cp = c[m - 1];
-                    double up = u[m - 1];
-                    v[m] += y * (v[m - 1] + 2 * eps * up + e2 * cp);
-                    u[m] += y * (up + eps * cp);
-                    c[m] += y * cp;
-                }
-            }
-            growth *= 1.0 + Math.max(1.0, y);
-        } else {
-            double r = Math.exp(-lnY);
-            if (u == null) {
+                double r = Math.exp(-lnY);
                 for (int m = top; m >= lo1; m--) {
                     c[m] = c[m] * r + c[m - 1];
                 }
                 if (low == 0) {
                     c[0] *= r;
                 }
-            } else {
-                double e2 = eps * eps;
-                for (int m = top; m >= lo1; m--) {
-                    double cp = c[m - 1];
-                    double up = u[m - 1];
-                    v[m] = v[m] * r + v[m - 1] + 2 * eps * up + e2 * cp;
-                    u[m] = u[m] * r + up + eps * cp;
-                    c[m] = c[m] * r + cp;
-                }
-                if (low == 0) {
-                    c[0] *= r;
-                    u[0] *= r;
-                    v[0] *= r;
-                }
             }
+        } else {
+            fermiMomentStep(big ? 1.0 : Math.exp(lnY), big ? Math.exp(-lnY) : 1.0, eps, top, lo1);
+        }
+        if (big) {
             logScale += lnY;
             growth *= 2;
+        } else {
+            growth *= 1.0 + Math.max(1.0, Math.exp(lnY));
         }
         degree = top;
         trim();
     }
 
+    /**
+     * One Fermi state with moments: weight {@code wp} with the state filled, {@code wa} with it empty;
+     * energy eps per particle, or in excitation mode |eps| for the vacancy of a state below the
+     * reference (then the constant eps goes to the shift).
+     */
+    private void fermiMomentStep(double wp, double wa, double eps, int top, int lo1) {
+        double p = eps;
+        double a = 0;
+        if (excitation && eps < 0) {
+            p = 0;
+            a = -eps;
+            momentShift += eps;
+        }
+        double p2 = p * p;
+        double a2 = a * a;
+        for (int m = top; m >= lo1; m--) {
+            double cm = c[m];
+            double um = u[m];
+            double cp = c[m - 1];
+            double up = u[m - 1];
+            v[m] = wa * (v[m] + 2 * a * um + a2 * cm) + wp * (v[m - 1] + 2 * p * up + p2 * cp);
+            u[m] = wa * (um + a * cm) + wp * (up + p * cp);
+            c[m] = wa * cm + wp * cp;
+        }
+        if (low == 0) {
+            v[0] = wa * (v[0] + 2 * a * u[0] + a2 * c[0]);
+            u[0] = wa * (u[0] + a * c[0]);
+            c[0] *= wa;
+        }
+    }
+
     /** Moves low/degree inwards past mantissas that are zero (flushed or never reached). */
     private void trim() {
         while (degree > low && c[degree] == 0) {
+            clearMoments(degree);
             degree--;
         }
         while (low < degree && c[low] == 0) {
+            clearMoments(low);
             low++;
+        }
+    }
+
+    /** Flushes the moments with their coefficient, so no stale (never rescaled) entry is read later. */
+    private void clearMoments(int m) {
+        if (u != null) {
+            u[m] = 0;
+            v[m] = 0;
         }
     }
 
@@ -281,6 +332,17 @@ final class ScaledSeries {
             }
             logScale += k * lnY;
         }
+        double[] je = new double[k + 1];
+        if (u != null) {
+            boolean holes = excitation && eps < 0;
+            int full = Math.min(k, n);
+            for (int j = 0; j <= k; j++) {
+                je[j] = holes ? (full - j) * -eps : j * eps;
+            }
+            if (holes) {
+                momentShift += full * eps;
+            }
+        }
         for (int m = top; m >= low; m--) {
             int jmax = Math.min(k, m - low);
             double sc = 0;
@@ -294,9 +356,9 @@ final class ScaledSeries {
                 double wj = w[j];
                 sc += wj * cj;
                 if (u != null) {
-                    double je = j * eps;
-                    sv += wj * (v[m - j] + 2 * je * u[m - j] + je * je * cj);
-                    su += wj * (u[m - j] + je * cj);
+                    double ej = je[j];
+                    sv += wj * (v[m - j] + 2 * ej * u[m - j] + ej * ej * cj);
+                    su += wj * (u[m - j] + ej * cj);
                 }
             }
             c[m] = sc;

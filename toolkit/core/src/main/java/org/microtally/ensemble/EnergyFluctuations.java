@@ -1,0 +1,104 @@
+package org.microtally.ensemble;
+
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * Canonical energy variance of ideal indistinguishable particles from the energy moments of the
+ * generating product, with the two internal checks that decide whether it can be trusted.
+ * Package-private engine of {@link Canonical#energyVariance()}.
+ *
+ * <p>Method: energies are measured from the fugacity reference mu* in the particle-hole form of
+ * {@link ScaledSeries#excitationMoments(int)}, so every term of the moment recurrences is
+ * non-negative; Var E = v_N/c_N - (u_N/c_N)^2 then loses only the factor 1 + mean(X)^2/Var X (X the
+ * excitation energy above the mu*-reference, of the order of the number of thermally active
+ * particles and holes) to the final subtraction.
+ *
+ * <p>Checks (each one a warning when it fails): (1) U from the moments, N mu* + shift + u_N/c_N,
+ * against U from the occupations (a different pass), relative 1e-8; (2) the fluctuation value
+ * C_V = Var E/(kT)^2 against an independent estimate dU/dT, a central difference of the moment mean at
+ * kT(1 -/+ h) with h = 1e-3 / max(1, Delta/kT) and Delta = Var X / mean(X) the energy scale of
+ * the excitations, so the O(h^2) truncation error stays near 1e-7; agreement required to 1e-4
+ * relative plus the difference's rounding noise; (3) Var E against its rounding bound
+ * 4 (S + N) 2^-53 (v_N/c_N + mean^2) (S states), below which C_V is only an upper bound.
+ */
+final class EnergyFluctuations {
+    private static final double U_TOLERANCE = 1e-8;
+    private static final double C_TOLERANCE = 1e-4;
+    private static final double STEP = 1e-3;
+
+    final double variance;
+    final List<String> notes;
+
+    private EnergyFluctuations(double variance, List<String> notes) {
+        this.variance = variance;
+        this.notes = Collections.unmodifiableList(notes);
+    }
+
+    /** A variance known in closed form (distinguishable particles): no checks needed. */
+    static EnergyFluctuations exact(double variance) {
+        return new EnergyFluctuations(variance, new ArrayList<>());
+    }
+
+    /** One moment pass: {mean of X, variance of X, shift}. */
+    private static double[] pass(Spectrum s, Statistics st, int n, double kT, double muStar) {
+        int m = s.size();
+        int cap = st.capped() ? st.maxOccupancy() : Integer.MAX_VALUE;
+        double beta = 1.0 / kT;
+        ScaledSeries w = ScaledSeries.excitationMoments(n);
+        for (int step = 0; step < m; step++) {
+            int i = st.capped() ? step : m - 1 - step;
+            double eps = s.energy(i) - muStar;
+            w.multiplyStates(s.degeneracy(i), -beta * eps, cap, eps);
+        }
+        double c = w.c[n];
+        double mean = w.u[n] / c;
+        double second = w.v[n] / c;
+        return new double[] {mean, second - mean * mean, w.momentShift, second};
+    }
+
+    static EnergyFluctuations of(Spectrum s, Statistics st, int n, double kT, double muStar, double energy) {
+        List<String> notes = new ArrayList<>();
+        double[] at = pass(s, st, n, kT, muStar);
+        double mean = at[0];
+        double var = at[1];
+        double bound = 4 * (s.stateCount() + (double) n) * 0x1p-53 * (at[3] + mean * mean);
+        if (!(Double.isFinite(mean) && Double.isFinite(var))) {
+            throw new IllegalStateException("energy moments not finite (mean " + mean + ", variance " + var
+                    + "); please report this input");
+        }
+        double uMoments = n * muStar + at[2] + mean;
+        double uScale = Math.max(Math.abs(energy), n * Math.abs(muStar)) + Math.abs(at[2]);
+        if (Math.abs(uMoments - energy) > U_TOLERANCE * Math.max(uScale, Double.MIN_NORMAL)) {
+            notes.add(String.format("internal consistency: U from the energy moments (%.12g) differs from U from the "
+                    + "occupations (%.12g); C_V and Var E may be inaccurate", uMoments, energy));
+        }
+        if (var <= bound) {
+            if (mean == 0 && var <= 0) {
+                notes.add("C_V and Var E underflow to 0: kT is far below the lowest excitation energy (the T -> 0 "
+                        + "limit, exponentially small); exact value below " + String.format("%.3g", bound / (kT * kT)));
+            } else {
+                notes.add(String.format("Var E (%.3g) is at or below its rounding bound %.3g: C_V is accurate only to "
+                        + "%.3g absolute", var, bound, bound / (kT * kT)));
+            }
+            return new EnergyFluctuations(Math.max(0.0, var), notes);
+        }
+        double delta = var / Math.max(mean, Double.MIN_NORMAL);
+        double h = STEP / Math.max(1.0, delta / kT);
+        double[] up = pass(s, st, n, kT * (1 + h), muStar);
+        double[] down = pass(s, st, n, kT * (1 - h), muStar);
+        double cFluct = var / (kT * kT);
+        double cDiff = (up[0] - down[0]) / (2 * h * kT);
+        double noise = 8 * (s.stateCount() + (double) n) * 0x1p-53 * (Math.abs(up[0]) + Math.abs(down[0]))
+                / (2 * h * kT);
+        if (Math.abs(cFluct - cDiff) > C_TOLERANCE * Math.max(cFluct, Math.abs(cDiff)) + noise) {
+            notes.add(String.format("internal consistency: C_V from the energy fluctuations (%.10g) and from dU/dT "
+                    + "(%.10g, central difference at kT(1 -/+ %.1g)) disagree; C_V and Var E may be inaccurate",
+                    cFluct, cDiff, h));
+        }
+        return new EnergyFluctuations(var, notes);
+    }
+}
