@@ -3,7 +3,14 @@ package org.microtally.ensemble;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
@@ -42,5 +49,48 @@ class CanonicalFluctuationTest {
 
     private static double energy(Spectrum s, int n, double kT) {
         return Canonical.of(s, Statistics.FERMI, n, kT).energy();
+    }
+
+    static Stream<Arguments> mpmathTable() throws IOException {
+        List<Arguments> rows = new ArrayList<>();
+        try (BufferedReader r = new BufferedReader(new InputStreamReader(
+                CanonicalFluctuationTest.class.getResourceAsStream("/ensemble/canonical_moments_mpmath.csv"),
+                StandardCharsets.UTF_8))) {
+            r.readLine();
+            for (String line = r.readLine(); line != null; line = r.readLine()) {
+                rows.add(Arguments.of((Object[]) line.split(",")));
+            }
+        }
+        return rows.stream();
+    }
+
+    @ParameterizedTest
+    @MethodSource("mpmathTable")
+    void energyAndVarianceAgreeWithMultiprecisionRecursion(String stat, String spin, String cutoff, String n,
+                                                           String kT, String u, String varE) {
+        Spectrum s = Spectra.harmonicOscillator(2, Integer.parseInt(cutoff))
+                .withInternalMultiplicity(Integer.parseInt(spin));
+        Canonical c = Canonical.of(s, stat.equals("FERMI") ? Statistics.FERMI : Statistics.BOSE,
+                Integer.parseInt(n), Double.parseDouble(kT));
+        // Source: 60-digit mpmath 1.3.0 symmetric-polynomial recursion with energy moments,
+        // src/test/resources/ensemble/canonical_moments_mpmath.py (generator beside the table)
+        assertEquals(Double.parseDouble(u), c.energy(), 1e-13 * Double.parseDouble(u));
+        assertEquals(Double.parseDouble(varE), c.energyVariance(), 1e-12 * Double.parseDouble(varE));
+        // the moment checks pass (a cutoff warning may be present: the reference uses the same cutoff)
+        assertTrue(c.warnings().stream().noneMatch(w -> w.contains("consistency") || w.contains("rounding")),
+                c.warnings().toString());
+    }
+
+    @Test
+    void warningsDoNotDependOnWhichQuantityWasAskedFirst() {
+        Spectrum s = Spectra.harmonicOscillator(2, 30);
+        Canonical first = Canonical.of(s, Statistics.FERMI, 60, 0.5);
+        List<String> before = first.warnings();
+        first.heatCapacity();
+        Canonical second = Canonical.of(s, Statistics.FERMI, 60, 0.5);
+        second.heatCapacity();
+        // Source: common practice, no source (the warnings are a property of the result, not of the call order)
+        assertEquals(before, first.warnings());
+        assertEquals(second.warnings(), first.warnings());
     }
 }
