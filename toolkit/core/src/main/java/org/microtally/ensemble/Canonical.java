@@ -90,16 +90,20 @@ public final class Canonical implements Tabular {
     private final double muStar;
     private final double lnZ;
     private final double energy;
+    private final double entropy;
     private final double[] perState;
     private final double[] vacancies;
     private final CondensateDistribution condensate;
     private final List<String> warnings;
     private final Object momentLock = new Object();
     private EnergyFluctuations fluctuations;
+    /** At kT &lt; 0: the ensemble of the mirrored spectrum at -kT, whose moment pass gives Var E. */
+    private final Canonical mirror;
 
     private Canonical(Spectrum spectrum, Statistics statistics, int n, double kT, double muStar, double lnZ,
                       double[] perState, double[] vacancies, CondensateDistribution condensate,
-                      List<String> extraWarnings, EnergyFluctuations knownFluctuations) {
+                      List<String> extraWarnings, EnergyFluctuations knownFluctuations, Canonical mirror,
+                      Double exactEntropy) {
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.n = n;
@@ -116,12 +120,14 @@ public final class Canonical implements Tabular {
             u += spectrum.degeneracy(i) * (spectrum.energy(i) - e0) * perState[i];
         }
         this.energy = n * e0 + u;
+        this.entropy = exactEntropy != null ? exactEntropy : lnZ + energy / kT;
         int top = spectrum.size() - 1;
         List<String> w = new ArrayList<>(TruncationCheck.warnings(spectrum,
                 spectrum.degeneracy(top) * perState[top], n));
         w.addAll(extraWarnings);
         this.warnings = Collections.unmodifiableList(w);
         this.fluctuations = knownFluctuations;
+        this.mirror = mirror;
     }
 
     /** The canonical ensemble of {@code n} particles at temperature {@code kT}; see the class notes. */
@@ -132,15 +138,31 @@ public final class Canonical implements Tabular {
     /**
      * As {@link #of(Spectrum, Statistics, int, double)}, reporting progress over the levels.
      *
-     * @throws InvalidInputException for kT &lt;= 0 or not finite; n &lt; 1 or n &gt; 10^7; n above the
-     *                               capacity (k per state) of a capped spectrum
+     * <p>kT &lt; 0 is allowed for bounded spectra (not truncated from an infinite one) and computed
+     * exactly as the mirrored spectrum at |kT| ({@link NegativeTemperature}). Where the lowest N-particle
+     * excitation exceeds 700 kT the T -&gt; 0 limit is returned, exact to double precision, with a note in
+     * {@link #warnings()} ({@link ZeroTemperatureLimit}).
+     *
+     * @throws InvalidInputException for kT = 0 or not finite, kT &lt; 0 on a truncated spectrum; n &lt; 1
+     *                               or n &gt; 10^7; n above the capacity (k per state) of a capped spectrum
      */
     public static Canonical of(Spectrum spectrum, Statistics statistics, int n, double kT, ProgressListener progress) {
         Objects.requireNonNull(spectrum, "spectrum");
         Objects.requireNonNull(statistics, "statistics");
         Objects.requireNonNull(progress, "progress");
-        GrandCanonical.requireTemperature(kT);
+        if (kT == 0 || !Double.isFinite(kT)) {
+            throw InvalidInputException.of("temperature kT", kT, "a finite number, not 0 (negative only for a "
+                    + "spectrum that is bounded, not truncated)",
+                    "For T -> 0 give a tiny kT (the limit is then taken exactly) or call Canonical.groundState.");
+        }
         requireParticleNumber(spectrum, statistics, n);
+        if (kT < 0) {
+            return NegativeTemperature.canonical(spectrum, statistics, n, kT, progress);
+        }
+        double gap = ZeroTemperatureLimit.gap(spectrum, statistics, n);
+        if (gap > ZeroTemperatureLimit.EXPONENT * kT) {
+            return zeroTemperatureLimit(spectrum, statistics, n, kT, gap);
+        }
         if (statistics.kind() == Statistics.Kind.DISTINGUISHABLE) {
             return distinguishable(spectrum, n, kT);
         }
@@ -211,6 +233,62 @@ public final class Canonical implements Tabular {
         return new GroundState(e, degeneracy, new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), occ));
     }
 
+    /** Canonical in the T -&gt; 0 limit (see {@link ZeroTemperatureLimit}): every quantity from the ground states. */
+    private static Canonical zeroTemperatureLimit(Spectrum s, Statistics st, int n, double kT, double gap) {
+        GroundState gs = groundState(s, st, n);
+        double lnZ = gs.entropy() - gs.energy() / kT;
+        if (!Double.isFinite(lnZ)) {
+            throw InvalidInputException.of("temperature kT", kT, "large enough that E_0/kT is finite (E_0 = "
+                    + gs.energy() + ")", "Measure energies from the ground level (E_0 = 0), or use Canonical.groundState.");
+        }
+        int m = s.size();
+        double[] occ = new double[m];
+        double[] vac = st.capped() ? new double[m] : null;
+        double top = s.groundEnergy();
+        for (int i = 0; i < m; i++) {
+            occ[i] = gs.occupations().perState(i);
+            if (vac != null) {
+                vac[i] = st.maxOccupancy() - occ[i];
+            }
+            if (occ[i] > 0) {
+                top = s.energy(i);
+            }
+        }
+        String note = gap == Double.POSITIVE_INFINITY
+                ? "no excitations: every N-particle state has the same energy, so ln Z = ln g - E_0/kT, U = E_0, "
+                        + "S/k = ln g (g = " + gs.degeneracy() + " states), C_V = Var E = 0 and the occupations are "
+                        + "exact at every temperature"
+                : String.format("T -> 0 limit: the lowest excitation (%.6g) is %.3g kT, so every excited state is "
+                        + "suppressed by a factor below e^-700; ln Z = ln g - E_0/kT, U = E_0, S/k = ln g (g = %s "
+                        + "ground states), C_V = Var E = 0 (exponentially small) and the occupations and ground-level "
+                        + "distribution are the ground-state values, all exact to double precision",
+                        gap, gap / kT, gs.degeneracy());
+        double[] dist = ZeroTemperatureLimit.groundLevelDistribution(s, st, n, occ[0] * s.degeneracy(0));
+        return new Canonical(s, st, n, kT, top, lnZ, occ, vac, new CondensateDistribution(dist), List.of(note),
+                EnergyFluctuations.exact(0), null, gs.entropy());
+    }
+
+    /**
+     * The ensemble at {@code kT} &lt; 0 on {@code original} from the ensemble {@code mirror} of its
+     * energy-negated spectrum at -kT ({@link NegativeTemperature}); {@code map[i]} is the mirror's index
+     * of level i. The ground-level distribution is not carried over (it belongs to the mirror's lowest,
+     * this spectrum's highest level).
+     */
+    static Canonical mirrored(Spectrum original, Canonical mirror, double kT, int[] map) {
+        int m = original.size();
+        double[] occ = new double[m];
+        double[] vac = mirror.vacancies == null ? null : new double[m];
+        for (int i = 0; i < m; i++) {
+            occ[i] = mirror.perState[map[i]];
+            if (vac != null) {
+                vac[i] = mirror.vacancies[map[i]];
+            }
+        }
+        Canonical c = new Canonical(original, mirror.statistics, mirror.n, kT, -mirror.muStar, mirror.lnZ, occ, vac,
+                null, mirror.warnings, null, mirror, mirror.entropy);
+        return c;
+    }
+
     /** One past the last level with the same energy as level {@code from} (levels are sorted by energy). */
     private static int energyGroupEnd(Spectrum spectrum, int from) {
         int top = from + 1;
@@ -277,7 +355,7 @@ public final class Canonical implements Tabular {
         }
         return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null,
                 new CondensateDistribution(dist), List.of(),
-                EnergyFluctuations.exact(n * var1));
+                EnergyFluctuations.exact(n * var1), null, null);
     }
 
     private static double lnY(Spectrum s, int i, double beta, double muStar) {
@@ -332,7 +410,7 @@ public final class Canonical implements Tabular {
             extra.add("internal consistency: condensate probabilities summed to " + sum + " before normalisation");
         }
         return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ, null,
-                new CondensateDistribution(p), extra, null);
+                new CondensateDistribution(p), extra, null, null, null);
     }
 
     private static Canonical capped(Spectrum s, Statistics st, int n, double kT, double muStar,
@@ -420,7 +498,7 @@ public final class Canonical implements Tabular {
                     + " in ln; occupations may be inaccurate");
         }
         return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, vac,
-                new CondensateDistribution(groundDistribution), extra, null);
+                new CondensateDistribution(groundDistribution), extra, null, null, null);
     }
 
     /**
@@ -458,7 +536,8 @@ public final class Canonical implements Tabular {
     private EnergyFluctuations fluctuations() {
         synchronized (momentLock) {
             if (fluctuations == null) {
-                fluctuations = EnergyFluctuations.of(spectrum, statistics, n, kT, muStar, energy);
+                fluctuations = mirror != null ? mirror.fluctuations()
+                        : EnergyFluctuations.of(spectrum, statistics, n, kT, muStar, energy);
             }
             return fluctuations;
         }
@@ -504,9 +583,9 @@ public final class Canonical implements Tabular {
         return energy;
     }
 
-    /** Entropy S/k = ln Z_N + U/kT. */
+    /** Entropy S/k = ln Z_N + U/kT (in the T -&gt; 0 limit: ln of the exact ground-state degeneracy). */
     public double entropy() {
-        return lnZ + energy / kT;
+        return entropy;
     }
 
     /** Energy variance &lt;E^2&gt; - U^2 (computed on first request, one more pass). */
@@ -516,7 +595,7 @@ public final class Canonical implements Tabular {
 
     /** Heat capacity C_V/k = Var E / (kT)^2. */
     public double heatCapacity() {
-        return energyVariance() / (kT * kT);
+        return energyVariance() * beta * beta;
     }
 
     /** Exact mean occupation of every level. */
@@ -555,6 +634,15 @@ public final class Canonical implements Tabular {
             throw InvalidInputException.of("statistics for the condensate distribution", statistics, "BOSE",
                     "Use groundLevelDistribution() for the number distribution of the lowest level.");
         }
+        return requireDistribution();
+    }
+
+    private CondensateDistribution requireDistribution() {
+        if (condensate == null) {
+            throw InvalidInputException.of("temperature kT for the ground-level distribution", kT, "> 0",
+                    "At kT < 0 the particles crowd into the highest level: call Canonical.of on the spectrum with "
+                            + "energies negated, at -kT, whose lowest level is this one's highest.");
+        }
         return condensate;
     }
 
@@ -565,7 +653,7 @@ public final class Canonical implements Tabular {
      * the other levels)[N - j] / Z_N; distinguishable particles binomial with p = g_0 e^{-e_0/kT}/Z_1.
      */
     public CondensateDistribution groundLevelDistribution() {
-        return condensate;
+        return requireDistribution();
     }
 
     /** The fugacity scale mu* used internally (the grand canonical mu for mean number N;
@@ -607,8 +695,10 @@ public final class Canonical implements Tabular {
         r.add(List.of("S/k", entropy()));
         r.add(List.of("C/k", heatCapacity()));
         r.add(List.of("Var E", energyVariance()));
-        r.add(List.of("<N_0>", condensate.mean()));
-        r.add(List.of("Var N_0", condensate.variance()));
+        if (condensate != null) {
+            r.add(List.of("<N_0>", condensate.mean()));
+            r.add(List.of("Var N_0", condensate.variance()));
+        }
         for (String w : warnings()) {
             r.add(List.of("warning", w));
         }

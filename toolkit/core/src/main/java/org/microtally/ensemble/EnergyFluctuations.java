@@ -11,11 +11,12 @@ import org.microtally.spectrum.Statistics;
  * generating product, with the two internal checks that decide whether it can be trusted.
  * Package-private engine of {@link Canonical#energyVariance()}.
  *
- * <p>Method: energies are measured from the fugacity reference mu* in the particle-hole form of
- * {@link ScaledSeries#excitationMoments(int)}, so every term of the moment recurrences is
- * non-negative; Var E = v_N/c_N - (u_N/c_N)^2 then loses only the factor 1 + mean(X)^2/Var X (X the
- * excitation energy above the mu*-reference, of the order of the number of thermally active
- * particles and holes) to the final subtraction.
+ * <p>Method: energies are measured from r, the energy of the highest shell the ground states occupy,
+ * in the particle-hole form of {@link ScaledSeries#excitationMoments(int)} (states below r counted by
+ * their vacancies), so every term of the moment recurrences is non-negative and the excitation energy
+ * X is 0 in every ground state; Var E = v_N/c_N - (u_N/c_N)^2 then loses only the factor
+ * 1 + mean(X)^2/Var X (of the order of the number of thermally active particles and holes, and below
+ * 1 at low T) to the final subtraction.
  *
  * <p>Checks (each one a warning when it fails): (1) U from the moments, N mu* + shift + u_N/c_N,
  * against U from the occupations (a different pass), relative 1e-8; (2) the fluctuation value
@@ -44,15 +45,14 @@ final class EnergyFluctuations {
     }
 
     /** One moment pass: {mean of X, variance of X, shift}. */
-    private static double[] pass(Spectrum s, Statistics st, int n, double kT, double muStar) {
+    private static double[] pass(Spectrum s, Statistics st, int n, double kT, double muStar, double reference) {
         int m = s.size();
         int cap = st.capped() ? st.maxOccupancy() : Integer.MAX_VALUE;
         double beta = 1.0 / kT;
         ScaledSeries w = ScaledSeries.excitationMoments(n);
         for (int step = 0; step < m; step++) {
             int i = st.capped() ? step : m - 1 - step;
-            double eps = s.energy(i) - muStar;
-            w.multiplyStates(s.degeneracy(i), -beta * eps, cap, eps);
+            w.multiplyStates(s.degeneracy(i), -beta * (s.energy(i) - muStar), cap, s.energy(i) - reference);
         }
         double c = w.c[n];
         double mean = w.u[n] / c;
@@ -62,7 +62,8 @@ final class EnergyFluctuations {
 
     static EnergyFluctuations of(Spectrum s, Statistics st, int n, double kT, double muStar, double energy) {
         List<String> notes = new ArrayList<>();
-        double[] at = pass(s, st, n, kT, muStar);
+        double reference = ZeroTemperatureLimit.topShellEnergy(s, st, n);
+        double[] at = pass(s, st, n, kT, muStar, reference);
         double mean = at[0];
         double var = at[1];
         double bound = 4 * (s.stateCount() + (double) n) * 0x1p-53 * (at[3] + mean * mean);
@@ -70,8 +71,8 @@ final class EnergyFluctuations {
             throw new IllegalStateException("energy moments not finite (mean " + mean + ", variance " + var
                     + "); please report this input");
         }
-        double uMoments = n * muStar + at[2] + mean;
-        double uScale = Math.max(Math.abs(energy), n * Math.abs(muStar)) + Math.abs(at[2]);
+        double uMoments = n * reference + at[2] + mean;
+        double uScale = Math.max(Math.abs(energy), n * Math.abs(reference)) + Math.abs(at[2]);
         if (Math.abs(uMoments - energy) > U_TOLERANCE * Math.max(uScale, Double.MIN_NORMAL)) {
             notes.add(String.format("internal consistency: U from the energy moments (%.12g) differs from U from the "
                     + "occupations (%.12g); C_V and Var E may be inaccurate", uMoments, energy));
@@ -88,8 +89,8 @@ final class EnergyFluctuations {
         }
         double delta = var / Math.max(mean, Double.MIN_NORMAL);
         double h = STEP / Math.max(1.0, delta / kT);
-        double[] up = pass(s, st, n, kT * (1 + h), muStar);
-        double[] down = pass(s, st, n, kT * (1 - h), muStar);
+        double[] up = pass(s, st, n, kT * (1 + h), muStar, reference);
+        double[] down = pass(s, st, n, kT * (1 - h), muStar, reference);
         double cFluct = var / (kT * kT);
         double cDiff = (up[0] - down[0]) / (2 * h * kT);
         double noise = 8 * (s.stateCount() + (double) n) * 0x1p-53 * (Math.abs(up[0]) + Math.abs(down[0]))
