@@ -224,7 +224,7 @@ public final class Canonical implements Tabular {
                 }
                 e += put * spectrum.energy(i);
                 if (put < g * cap) {
-                    degeneracy = cappedWays((int) g, (int) cap, (int) put);
+                    degeneracy = cappedWays(g, (int) cap, (int) put);
                 }
                 left -= put;
                 i = top;
@@ -395,7 +395,7 @@ public final class Canonical implements Tabular {
         double sum = 0;
         for (int j = 0; j <= n; j++) {
             if (j > 0) {
-                lnL += lnY0 + Math.log((g0 + j - 1.0) / j);
+                lnL += lnY0 + Math.log(((double) g0 + j - 1) / j);
             }
             double lc = others.logCoefficient(n - j);
             p[j] = lc == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lnL + lc - lnZn);
@@ -705,21 +705,31 @@ public final class Canonical implements Tabular {
         return r;
     }
 
-    /** Number of ways to put {@code r} indistinguishable particles into g states, at most k each. */
-    static BigInteger cappedWays(int g, int k, int r) {
-        BigInteger[] w = new BigInteger[r + 1];
-        java.util.Arrays.fill(w, BigInteger.ZERO);
-        w[0] = BigInteger.ONE;
-        for (int s = 0; s < g; s++) {
-            for (int t = r; t >= 1; t--) {
-                BigInteger acc = w[t];
-                for (int j = 1; j <= Math.min(k, t); j++) {
-                    acc = acc.add(w[t - j]);
-                }
-                w[t] = acc;
-            }
+    /**
+     * Number of ways to put {@code r} indistinguishable particles into g states, at most k each:
+     * C(g, r) for k = 1, C(g + r - 1, r) for k &gt;= r, otherwise the inclusion-exclusion sum over the
+     * states forced above k, sum_i (-1)^i C(g, i) C(r - i(k+1) + g - 1, g - 1) (the standard count of
+     * bounded compositions, e.g. Stanley, <i>Enumerative Combinatorics</i> vol. 1, ch. 1, from memory).
+     * Exact; cost O(r^2 / k) big-integer operations, independent of g.
+     */
+    static BigInteger cappedWays(long g, int k, int r) {
+        if (k == 1) {
+            return Combinatorics.binomial(g, r);
         }
-        return w[r];
+        if (k >= r) {
+            return Combinatorics.binomial(g + r - 1, r);
+        }
+        BigInteger sum = BigInteger.ZERO;
+        BigInteger choose = BigInteger.ONE;
+        for (int i = 0; i <= g && (long) i * (k + 1) <= r; i++) {
+            if (i > 0) {
+                choose = choose.multiply(BigInteger.valueOf(g - i + 1)).divide(BigInteger.valueOf(i));
+            }
+            long rest = r - (long) i * (k + 1);
+            BigInteger term = choose.multiply(Combinatorics.binomial(rest + g - 1, rest));
+            sum = (i & 1) == 0 ? sum.add(term) : sum.subtract(term);
+        }
+        return sum;
     }
 
     /** A one-line summary (statistics, N, kT, ln Z, U, number of warnings); runs the C_V checks if not yet run. */

@@ -97,6 +97,10 @@ final class ScaledSeries {
         if (excitation && eps < 0 && cap == Integer.MAX_VALUE && u != null) {
             throw new IllegalStateException("excitation moments need Bose states at or above the reference");
         }
+        if (count > 1 && LevelFactor.pays(count, cap, n)) {
+            multiplyLevel(count, lnY, cap, eps);
+            return;
+        }
         int s = 0;
         if (cap == Integer.MAX_VALUE && lnY < 0) {
             double g1 = Math.min(n + 1.0, -1.0 / Math.expm1(lnY));
@@ -235,9 +239,9 @@ final class ScaledSeries {
         int top = Math.min(n, degree + 1);
         int lo1 = Math.max(1, low);
         boolean big = lnY > BIG_LOG_FACTOR;
+        double y = big ? 0 : Math.exp(lnY);
         if (u == null) {
             if (!big) {
-                double y = Math.exp(lnY);
                 for (int m = top; m >= lo1; m--) {
                     c[m] += y * c[m - 1];
                 }
@@ -251,13 +255,13 @@ final class ScaledSeries {
                 }
             }
         } else {
-            fermiMomentStep(big ? 1.0 : Math.exp(lnY), big ? Math.exp(-lnY) : 1.0, eps, top, lo1);
+            fermiMomentStep(big ? 1.0 : y, big ? Math.exp(-lnY) : 1.0, eps, top, lo1);
         }
         if (big) {
             logScale += lnY;
             growth *= 2;
         } else {
-            growth *= 1.0 + Math.max(1.0, Math.exp(lnY));
+            growth *= 1.0 + Math.max(1.0, y);
         }
         degree = top;
         trim();
@@ -292,6 +296,60 @@ final class ScaledSeries {
             u[0] = wa * (u[0] + a * c[0]);
             c[0] *= wa;
         }
+    }
+
+    /**
+     * Multiplies in {@code count} states at once by their closed-form level factor ({@link LevelFactor}):
+     * c'_m = sum_j b_j c_{m-j}, with the moments of j particles in the level, energy E_j = j eps (or, in
+     * excitation mode below the reference, (J - j)|eps| with J = min(count cap, N)). Non-negative terms.
+     */
+    private void multiplyLevel(int count, double lnY, int cap, double eps) {
+        LevelFactor f = LevelFactor.of(count, lnY, cap, n - low);
+        double[] b = f.b;
+        int width = b.length;
+        double[] ej = null;
+        if (u != null) {
+            ej = new double[width];
+            boolean holes = excitation && eps < 0;
+            long full = Math.min((long) count * Math.min(cap, n), n);
+            for (int j = 0; j < width; j++) {
+                ej[j] = holes ? (full - j) * -eps : j * eps;
+            }
+            if (holes) {
+                momentShift += full * eps;
+            }
+        }
+        int top = (int) Math.min(n, (long) degree + width - 1);
+        for (int m = top; m >= low; m--) {
+            int jmax = Math.min(width - 1, m - low);
+            int jmin = Math.max(0, m - degree);
+            double sc = 0;
+            double su = 0;
+            double sv = 0;
+            for (int j = jmin; j <= jmax; j++) {
+                double w = b[j];
+                if (w == 0) {
+                    continue;
+                }
+                double cj = c[m - j];
+                sc += w * cj;
+                if (ej != null) {
+                    double e = ej[j];
+                    double uj = u[m - j];
+                    su += w * (uj + e * cj);
+                    sv += w * (v[m - j] + 2 * e * uj + e * e * cj);
+                }
+            }
+            c[m] = sc;
+            if (u != null) {
+                u[m] = su;
+                v[m] = sv;
+            }
+        }
+        degree = top;
+        logScale += f.logScale;
+        trim();
+        renormalize();
     }
 
     /** Moves low/degree inwards past mantissas that are zero (flushed or never reached). */

@@ -113,7 +113,7 @@ final class ZeroTemperatureLimit {
         int rest = (int) (shell - g0);
         if (st.capped() && st.maxOccupancy() > 1) {
             int k = st.maxOccupancy();
-            BigDecimal all = new BigDecimal(Canonical.cappedWays((int) shell, k, (int) r));
+            BigDecimal all = new BigDecimal(Canonical.cappedWays(shell, k, (int) r));
             for (int j = 0; j <= Math.min(r, (long) k * g0); j++) {
                 BigInteger w = Canonical.cappedWays(g0, k, j).multiply(Canonical.cappedWays(rest, k, (int) r - j));
                 p[j] = new BigDecimal(w).divide(all, MathContext.DECIMAL64).doubleValue();
