@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
+import org.microtally.MemoryEstimate;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Spectrum;
@@ -153,7 +154,7 @@ public final class CountTable implements Tabular {
 
     /** Word operations per prime of the counting recursion, an upper estimate (used to pick the arithmetic). */
     static double work(int[] energy, Statistics stats, int maxN, int maxE) {
-        double cells = (double) (maxN + 1) * (maxE + 1);
+        double cells = (maxN + 1.0) * (maxE + 1.0);
         int levels = CountEngine.relevantLevels(energy, maxE);
         if (!stats.indistinguishable()) {
             return cells * levels;
@@ -167,14 +168,15 @@ public final class CountTable implements Tabular {
 
     /** Refuses, before allocating, a table whose estimated footprint exceeds the memory limit. */
     static void requireMemory(int maxN, int maxE, double bitsPerEntry, int primes) {
-        double cells = (double) (maxN + 1) * (maxE + 1);
+        double cells = (maxN + 1.0) * (maxE + 1.0);
         // per entry: a BigInteger (~40 bytes + magnitude) plus the reference, plus one long per prime
         double bytes = cells * (56 + bitsPerEntry / 8 + 8.0 * primes);
         double limit = Runtime.getRuntime().maxMemory() * MEMORY_FRACTION;
         if (cells > Integer.MAX_VALUE - 16 || bytes > limit) {
-            throw InvalidInputException.of("count table size (N + 1) x (E + 1) = " + (maxN + 1) + " x " + (maxE + 1),
-                    String.format("%.3g entries, about %.3g MiB", cells, bytes / (1 << 20)),
-                    String.format("at most %.3g MiB (half the maximum heap)", limit / (1 << 20)),
+            throw InvalidInputException.of("count table size (N + 1) x (E + 1) = " + (maxN + 1L) + " x " + (maxE + 1L),
+                    String.format("%.3g entries, about %s", cells, MemoryEstimate.human(bytes)),
+                    String.format("at most 2^31 - 17 entries and %s (half the maximum heap)",
+                            MemoryEstimate.human(limit)),
                     "Lower N or E, or run the JVM with a larger -Xmx.");
         }
     }

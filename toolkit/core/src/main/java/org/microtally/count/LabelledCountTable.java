@@ -7,6 +7,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
+import org.microtally.MemoryEstimate;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Spectrum;
@@ -97,13 +98,14 @@ public final class LabelledCountTable implements Tabular {
         }
         long labelLo = lo * maxN;
         long labelHi = hi * maxN;
-        double cells = (double) (maxN + 1) * (maxE + 1) * (labelHi - labelLo + 1);
+        double cells = (maxN + 1.0) * (maxE + 1.0) * (labelHi - labelLo + 1.0);
         double limit = Runtime.getRuntime().maxMemory() * 0.5;
         if (cells * 64 > limit || cells > Integer.MAX_VALUE - 16) {
             throw InvalidInputException.of("labelled table size (N+1) x (E+1) x (label range)",
-                    String.format("%d x %d x %d = %.3g entries, about %.3g MiB", maxN + 1, maxE + 1,
-                            labelHi - labelLo + 1, cells, cells * 64 / (1 << 20)),
-                    String.format("at most %.3g MiB (half the maximum heap)", limit / (1 << 20)),
+                    String.format("%d x %d x %d = %.3g entries, about %s", maxN + 1L, maxE + 1L,
+                            labelHi - labelLo + 1, cells, MemoryEstimate.human(cells * 64)),
+                    String.format("at most 2^31 - 17 entries and %s (half the maximum heap)",
+                            MemoryEstimate.human(limit)),
                     "Lower N or E, or count without the label (CountTable).");
         }
         int w = (int) (labelHi - labelLo + 1);

@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
+import org.microtally.MemoryEstimate;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.count.Combinatorics;
@@ -421,6 +422,9 @@ public final class Canonical implements Tabular {
         boolean storeAll = (long) m * (n + 1) <= storeAllLimit;
         int block = storeAll ? m : (int) Math.ceil(Math.sqrt(m));
         int blocks = (m + block - 1) / block;
+        MemoryEstimate.requireHeap("particle number N", n, "the kept partial products, " + (storeAll ? m : block + blocks)
+                        + " series of N + 1 numbers", (storeAll ? (double) m : (double) block + blocks) * (n + 1.0), 8,
+                "Lower N, or merge levels of equal energy (each level is one series), or run the JVM with a larger -Xmx.");
         ScaledSeries[] checkpoints = new ScaledSeries[blocks];
         ScaledSeries[] q = new ScaledSeries[storeAll ? m : block];
         ScaledSeries z = new ScaledSeries(n, false);

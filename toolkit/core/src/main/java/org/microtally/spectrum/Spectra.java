@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.microtally.InvalidInputException;
+import org.microtally.MemoryEstimate;
 import org.microtally.units.EnergyScale;
 
 /**
@@ -58,6 +59,7 @@ public final class Spectra {
             }
         }
         requireCutoff(maxQuanta);
+        requireLevels("oscillator cutoff (max quanta)", maxQuanta, "maxQuanta + 1 energies", maxQuanta + 1.0);
         long[] ways = new long[maxQuanta + 1];
         ways[0] = 1;
         for (int r : ratios) {
@@ -82,6 +84,8 @@ public final class Spectra {
      */
     public static Spectrum oscillator2dByAngularMomentum(int maxQuanta) {
         requireCutoff(maxQuanta);
+        requireLevels("oscillator cutoff (max quanta)", maxQuanta, "(maxQuanta + 1)(maxQuanta + 2)/2 levels",
+                (maxQuanta + 1.0) * (maxQuanta + 2.0) / 2);
         List<Level> levels = new ArrayList<>();
         for (int nr = 0; 2 * nr <= maxQuanta; nr++) {
             for (int absM = 0; 2 * nr + absM <= maxQuanta; absM++) {
@@ -109,6 +113,8 @@ public final class Spectra {
             throw InvalidInputException.of("cutoff on n1^2+...+nd^2", maxSquareSum,
                     ">= the ground value " + dimensions + " for d = " + dimensions, "");
         }
+        requireLevels("cutoff on n1^2+...+nd^2", maxSquareSum, "maxSquareSum + 1 values of the sum",
+                maxSquareSum + 1.0);
         long[] ways = new long[maxSquareSum + 1];
         ways[0] = 1;
         for (int d = 0; d < dimensions; d++) {
@@ -117,8 +123,8 @@ public final class Spectra {
                 if (ways[s] == 0) {
                     continue;
                 }
-                for (int n = 1; s + n * n <= maxSquareSum; n++) {
-                    next[s + n * n] += ways[s];
+                for (long n = 1; s + n * n <= maxSquareSum; n++) {
+                    next[(int) (s + n * n)] += ways[s];
                 }
             }
             ways = next;
@@ -156,6 +162,7 @@ public final class Spectra {
         if (!(spacing > 0) || !Double.isFinite(spacing)) {
             throw InvalidInputException.of("level spacing", spacing, "a finite number > 0", "");
         }
+        requireLevels("number of levels", count, "that many levels", count);
         double[] e = new double[count];
         for (int i = 0; i < count; i++) {
             e[i] = i * spacing;
@@ -205,6 +212,14 @@ public final class Spectra {
         if (d < 1 || d > 3) {
             throw InvalidInputException.of("number of dimensions", d, "1, 2 or 3", "");
         }
+    }
+
+    /** Bytes per level while building: the level record, its list slot, the spectrum's arrays, a count. */
+    private static final double BYTES_PER_LEVEL = 64;
+
+    private static void requireLevels(String what, int value, String sizeInWords, double levels) {
+        MemoryEstimate.require(what, value, sizeInWords, levels, BYTES_PER_LEVEL,
+                "Lower the cutoff (thermal results need levels up to about mu + 40 kT), or run the JVM with a larger -Xmx.");
     }
 
     private static void requireCutoff(int maxQuanta) {
