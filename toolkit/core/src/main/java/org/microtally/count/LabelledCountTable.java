@@ -41,6 +41,16 @@ import org.microtally.spectrum.Statistics;
  *
  * <p><b>Accuracy.</b> Exact: BigInteger arithmetic throughout (no modular path, no double); the
  * tests compare it with brute-force enumeration and with closed forms.
+ *
+ * <p><b>Completeness under a spectrum cutoff.</b> For a spectrum truncated at C (integer energies, so
+ * every omitted level lies at C + 1 or above), a microstate the table misses has one particle at
+ * &gt;= floor(C) + 1 and the other n - 1 at least at their lowest possible energy E_low(n - 1) (levels
+ * filled from the bottom, particles beyond the kept levels' capacity counted at floor(C) + 1). So row n
+ * is exact for the untruncated spectrum through e = floor(C) + E_low(n - 1)
+ * ({@link #completeThroughEnergy(int)}). {@link #count}, {@link #countAtLabel} and
+ * {@link #countAllLabels} refuse entries beyond that with a message saying how far to raise the cutoff;
+ * {@link #truncatedModelCount} gives the count for the truncated spectrum as it is, and the table rows
+ * carry a "complete" column. Counting with energy ignored needs a spectrum that is not truncated.
  */
 public final class LabelledCountTable implements Tabular {
     private final Spectrum spectrum;
@@ -51,9 +61,16 @@ public final class LabelledCountTable implements Tabular {
     private final int labelLo;
     private final int width;
     private final BigInteger[] counts;
+    private final int[] completeThrough;
 
     private LabelledCountTable(Spectrum spectrum, Statistics statistics, int maxN, int maxE, boolean energyIgnored,
                                int labelLo, int width, BigInteger[] counts) {
+        this.completeThrough = new int[maxN + 1];
+        for (int n = 0; n <= maxN; n++) {
+            long c = n == 0 || !spectrum.isTruncated() ? maxE
+                    : (long) Math.floor(spectrum.cutoffEnergy()) + lowestEnergyBound(spectrum, statistics, n - 1);
+            completeThrough[n] = (int) Math.min(maxE, c);
+        }
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.maxN = maxN;
@@ -82,6 +99,13 @@ public final class LabelledCountTable implements Tabular {
         Objects.requireNonNull(statistics, "statistics");
         if (maxParticles < 0) {
             throw InvalidInputException.of("maximum particle number N", maxParticles, "an integer >= 0", "");
+        }
+        if (spectrum.isTruncated() && maxParticles > 0) {
+            throw InvalidInputException.of("spectrum cutoff for counting with energy ignored", spectrum.cutoffEnergy(),
+                    "+infinity (a complete, finite spectrum): with energy ignored every level takes part, so the "
+                            + "levels a cutoff omits would change every count with n >= 1",
+                    "Give the finite model space itself (Spectrum.of with cutoff +infinity), or count with energy "
+                            + "(LabelledCountTable.of) below completeThroughEnergy(n).");
         }
         return build(spectrum, statistics, maxParticles, 0, new int[spectrum.size()], true, ProgressListener.NONE);
     }
@@ -161,8 +185,35 @@ public final class LabelledCountTable implements Tabular {
         }
     }
 
-    /** Omega(n, e, L) (0 for a label total outside the table's window). */
+    /**
+     * Omega(n, e, L) (0 for a label total outside the table's window), exact for the untruncated
+     * spectrum.
+     *
+     * @throws InvalidInputException for e beyond {@link #completeThroughEnergy(int)} (use
+     *                               {@link #truncatedModelCount} for the truncated spectrum's count)
+     */
     public BigInteger count(int n, int e, int labelTotal) {
+        BigInteger v = truncatedModelCount(n, e, labelTotal);
+        if (e > completeThrough[n]) {
+            throw incomplete(n, e);
+        }
+        return v;
+    }
+
+    private InvalidInputException incomplete(int n, int e) {
+        long need = (long) e - completeThrough[n] + (long) Math.floor(spectrum.cutoffEnergy());
+        return InvalidInputException.of("total energy e for n = " + n, e, "at most " + completeThrough[n]
+                        + ": the spectrum is truncated at " + spectrum.cutoffEnergy() + " and above that energy the "
+                        + "omitted levels add microstates this table lacks (" + spectrum.cutoffNote() + ")",
+                "Rebuild the spectrum with a cutoff of at least " + need + ", or call truncatedModelCount(n, e, L) "
+                        + "for the count in the truncated spectrum as given.");
+    }
+
+    /**
+     * Omega(n, e, L) in the spectrum exactly as given, levels above its cutoff absent: the number the
+     * generating function gives, with no completeness check (the finite model's own count).
+     */
+    public BigInteger truncatedModelCount(int n, int e, int labelTotal) {
         checkN(n);
         if (e < 0 || e > maxE) {
             throw InvalidInputException.of("total energy e", e, "in [0, " + maxE + "]",
@@ -191,6 +242,52 @@ public final class LabelledCountTable implements Tabular {
             s = s.add(count(n, e, labelLo + li));
         }
         return s;
+    }
+
+    /**
+     * The largest total energy through which row n equals the untruncated spectrum's count
+     * (see the class notes): E when the spectrum is not truncated or n = 0, else
+     * min(E, floor(C) + E_low(n - 1)).
+     */
+    public int completeThroughEnergy(int n) {
+        checkN(n);
+        return completeThrough[n];
+    }
+
+    /**
+     * The largest total energy through which every row n &gt;= 1 is complete, min(E, floor(C)) for a
+     * truncated spectrum (the same safe number as {@link CountTable#completeThroughEnergy()}).
+     */
+    public int completeThroughEnergy() {
+        int c = maxE;
+        for (int n = 1; n <= maxN; n++) {
+            c = Math.min(c, completeThrough[n]);
+        }
+        return c;
+    }
+
+    /**
+     * A lower bound on the lowest total energy of n particles of the untruncated spectrum: levels
+     * filled from the bottom (k per state for capped statistics), particles beyond the kept levels'
+     * capacity at floor(C) + 1, or "unbounded" (Long.MAX_VALUE / 4) when the spectrum is complete and
+     * cannot hold them (then no such microstate exists). Energies are the spectrum's integers.
+     */
+    static long lowestEnergyBound(Spectrum s, Statistics st, int n) {
+        int[] e = s.integerEnergies();
+        if (!st.capped()) {
+            return (long) n * e[0];
+        }
+        long left = n;
+        long total = 0;
+        for (int i = 0; i < e.length && left > 0; i++) {
+            long put = Math.min(left, (long) s.degeneracy(i) * st.maxOccupancy());
+            total += put * e[i];
+            left -= put;
+        }
+        if (left > 0) {
+            return s.isTruncated() ? total + left * ((long) Math.floor(s.cutoffEnergy()) + 1) : Long.MAX_VALUE / 4;
+        }
+        return total;
     }
 
     /** Smallest label total in the table's window (N times the smallest label, or 0). */
@@ -245,10 +342,14 @@ public final class LabelledCountTable implements Tabular {
         }
     }
 
-    /** Columns n, E, label total, Omega (E omitted when energy is ignored). */
+    /**
+     * Columns n, E, label total, Omega, complete (E and complete omitted when energy is ignored);
+     * complete is false where the spectrum's cutoff makes the entry the truncated model's count only.
+     */
     @Override
     public List<String> columnNames() {
-        return energyIgnored ? List.of("n", "label total", "Omega") : List.of("n", "E", "label total", "Omega");
+        return energyIgnored ? List.of("n", "label total", "Omega")
+                : List.of("n", "E", "label total", "Omega", "complete");
     }
 
     /** One row per non-zero entry. */
@@ -260,7 +361,8 @@ public final class LabelledCountTable implements Tabular {
                 for (int li = 0; li < width; li++) {
                     BigInteger v = counts[(n * (maxE + 1) + e) * width + li];
                     if (v.signum() != 0) {
-                        out.add(energyIgnored ? List.of(n, labelLo + li, v) : List.of(n, e, labelLo + li, v));
+                        out.add(energyIgnored ? List.of(n, labelLo + li, v)
+                                : List.of(n, e, labelLo + li, v, e <= completeThrough[n]));
                     }
                 }
             }

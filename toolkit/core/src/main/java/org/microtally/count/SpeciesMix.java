@@ -31,6 +31,13 @@ import org.microtally.Tabular;
  *
  * <p><b>Accuracy.</b> Exact: BigInteger throughout. Truncating at E loses nothing for e &lt;= E because
  * all energies are &gt;= 0.
+ *
+ * <p><b>Completeness under spectrum cutoffs.</b> Species s alone is complete through c_s =
+ * {@link LabelledCountTable#completeThroughEnergy(int)} at its n_s; in a split of e, its share is at
+ * most e - sum_{t != s} E_low,t (the others' lowest energies), so the mix is exact for the
+ * untruncated spectra through min_s (c_s + sum_{t != s} E_low,t) ({@link #completeThroughEnergy()}).
+ * {@link #count}, {@link #countAtLabel} and {@link #total} refuse what lies beyond;
+ * {@link #truncatedModelCount} gives the truncated spectra's count as it is.
  */
 public final class SpeciesMix implements Tabular {
     private final List<Species> species;
@@ -38,8 +45,11 @@ public final class SpeciesMix implements Tabular {
     private final boolean energyIgnored;
     private final int labelLo;
     private final BigInteger[][] counts; // [e][L - labelLo]
+    private final int completeThrough;
 
-    private SpeciesMix(List<Species> species, int maxE, boolean energyIgnored, int labelLo, BigInteger[][] counts) {
+    private SpeciesMix(List<Species> species, int maxE, boolean energyIgnored, int labelLo, BigInteger[][] counts,
+                       int completeThrough) {
+        this.completeThrough = completeThrough;
         this.species = species;
         this.maxE = maxE;
         this.energyIgnored = energyIgnored;
@@ -69,10 +79,21 @@ public final class SpeciesMix implements Tabular {
         BigInteger[][] cur = {{BigInteger.ONE}};
         int curLo = 0;
         cur = extend(cur, maxE);
+        long[] own = new long[copy.size()];
+        long[] low = new long[copy.size()];
+        long lowSum = 0;
+        int index = 0;
         for (Species s : copy) {
             LabelledCountTable t = ignore
                     ? LabelledCountTable.ignoringEnergy(s.spectrum(), s.statistics(), s.particles())
                     : LabelledCountTable.of(s.spectrum(), s.statistics(), s.particles(), maxE);
+            if (!ignore) {
+                own[index] = s.spectrum().isTruncated() ? t.completeThroughEnergy(s.particles()) : Long.MAX_VALUE / 4;
+                low[index] = Math.min(Long.MAX_VALUE / 4,
+                        LabelledCountTable.lowestEnergyBound(s.spectrum(), s.statistics(), s.particles()));
+                lowSum = Math.min(Long.MAX_VALUE / 4, lowSum + low[index]);
+            }
+            index++;
             BigInteger[][] sl = t.slice(s.particles());
             int w1 = cur[0].length;
             int w2 = sl[0].length;
@@ -99,7 +120,19 @@ public final class SpeciesMix implements Tabular {
             cur = next;
             curLo += t.minLabelTotal();
         }
-        return new SpeciesMix(copy, maxE, ignore, curLo, cur);
+        long complete = maxE;
+        for (int i = 0; i < copy.size() && !ignore; i++) {
+            complete = Math.min(complete, own[i] + (lowSum - low[i]));
+        }
+        return new SpeciesMix(copy, maxE, ignore, curLo, cur, (int) complete);
+    }
+
+    /**
+     * The largest total energy through which every entry equals the count for the untruncated
+     * spectra (see the class notes); E when no spectrum is truncated.
+     */
+    public int completeThroughEnergy() {
+        return completeThrough;
     }
 
     private static BigInteger[][] extend(BigInteger[][] cur, int maxE) {
@@ -110,8 +143,24 @@ public final class SpeciesMix implements Tabular {
         return out;
     }
 
-    /** Omega(e, L): microstates of the whole system with energy e and label total L. */
+    /**
+     * Omega(e, L): microstates of the whole system with energy e and label total L.
+     *
+     * @throws InvalidInputException for e beyond {@link #completeThroughEnergy()}
+     */
     public BigInteger count(int e, int labelTotal) {
+        BigInteger v = truncatedModelCount(e, labelTotal);
+        if (e > completeThrough) {
+            throw InvalidInputException.of("total energy e", e, "at most " + completeThrough + ": above it a species' "
+                            + "spectrum cutoff omits microstates this mix lacks",
+                    "Raise the cutoffs of the truncated spectra by at least " + (e - completeThrough)
+                            + ", or call truncatedModelCount(e, L) for the count in the truncated spectra as given.");
+        }
+        return v;
+    }
+
+    /** Omega(e, L) in the spectra exactly as given (levels above their cutoffs absent), no completeness check. */
+    public BigInteger truncatedModelCount(int e, int labelTotal) {
         if (e < 0 || e > maxE) {
             throw InvalidInputException.of("total energy e", e, "in [0, " + maxE + "]",
                     energyIgnored ? "This mix ignores energy: use countAtLabel(L)." : "Build with a larger E.");
@@ -131,6 +180,9 @@ public final class SpeciesMix implements Tabular {
 
     /** Every microstate counted (all e &lt;= E, all labels). */
     public BigInteger total() {
+        if (maxE > completeThrough) {
+            count(maxE, labelLo);
+        }
         BigInteger s = BigInteger.ZERO;
         for (BigInteger[] row : counts) {
             for (BigInteger v : row) {
