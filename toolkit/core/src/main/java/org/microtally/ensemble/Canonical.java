@@ -96,6 +96,8 @@ public final class Canonical implements Tabular {
     private final double[] vacancies;
     private final CondensateDistribution condensate;
     private final List<String> warnings;
+    private final List<String> extraWarnings;
+    private final Counting counting;
     private final Object momentLock = new Object();
     private EnergyFluctuations fluctuations;
     /** At kT &lt; 0: the ensemble of the mirrored spectrum at -kT, whose moment pass gives Var E. */
@@ -126,9 +128,46 @@ public final class Canonical implements Tabular {
         List<String> w = new ArrayList<>(TruncationCheck.warnings(spectrum,
                 spectrum.degeneracy(top) * perState[top], n));
         w.addAll(extraWarnings);
+        this.extraWarnings = List.copyOf(extraWarnings);
+        this.counting = Counting.defaultFor(statistics);
         this.warnings = Collections.unmodifiableList(w);
         this.fluctuations = knownFluctuations;
         this.mirror = mirror;
+    }
+
+    /** A copy of {@code o} with every count divided by e^{lnDivisor} under {@code counting}. */
+    private Canonical(Canonical o, Counting counting) {
+        double d = counting.lnDivisor(o.n);
+        this.spectrum = o.spectrum;
+        this.statistics = o.statistics;
+        this.n = o.n;
+        this.kT = o.kT;
+        this.beta = o.beta;
+        this.muStar = o.muStar;
+        this.lnZ = o.lnZ - d;
+        this.perState = o.perState;
+        this.vacancies = o.vacancies;
+        this.condensate = o.condensate;
+        this.energy = o.energy;
+        this.entropy = o.entropy - d;
+        this.warnings = o.warnings;
+        this.extraWarnings = o.extraWarnings;
+        this.fluctuations = o.fluctuations();
+        this.mirror = o.mirror;
+        this.counting = counting;
+    }
+
+    /**
+     * The canonical ensemble with an explicit {@link Counting}: for distinguishable particles
+     * LABELLED (Z_1^N, the default of {@link #of(Spectrum, Statistics, int, double)}) or
+     * CORRECTED_BOLTZMANN (Z_1^N / N!: ln Z, F and S shifted by ln N!, all else unchanged); quantum
+     * statistics take IDENTICAL only.
+     */
+    public static Canonical of(Spectrum spectrum, Statistics statistics, int n, double kT, Counting counting) {
+        Objects.requireNonNull(statistics, "statistics");
+        Counting.require(statistics, counting);
+        Canonical c = of(spectrum, statistics, n, kT);
+        return counting == Counting.CORRECTED_BOLTZMANN ? new Canonical(c, counting) : c;
     }
 
     /** The canonical ensemble of {@code n} particles at temperature {@code kT}; see the class notes. */
@@ -552,6 +591,11 @@ public final class Canonical implements Tabular {
         return spectrum;
     }
 
+    /** How microstates are counted ({@link Counting}); ln Z, F and S depend on it. */
+    public Counting counting() {
+        return counting;
+    }
+
     /** The statistics. */
     public Statistics statistics() {
         return statistics;
@@ -691,6 +735,9 @@ public final class Canonical implements Tabular {
     public List<List<Object>> rows() {
         List<List<Object>> r = new ArrayList<>();
         r.add(List.of("statistics", statistics.toString()));
+        if (!statistics.indistinguishable()) {
+            r.add(List.of("counting", counting.toString()));
+        }
         r.add(List.of("N", n));
         r.add(List.of("kT", kT));
         r.add(List.of("ln Z", lnZ));

@@ -22,6 +22,10 @@ import org.microtally.spectrum.Statistics;
  * nearest to the canonical U. Relative difference of a quantity q: (q - q_canonical) / |q_canonical|
  * (0 for the canonical rows; when q_canonical = 0 it is 0 if q = 0 and sign(q) otherwise).
  *
+ * <p>Counting: every row of one comparison counts microstates the same way ({@link Counting});
+ * distinguishable particles default to CORRECTED_BOLTZMANN (1/N!) in all three ensembles, so a
+ * difference in S is an ensemble difference, not a counting convention.
+ *
  * <p>The canonical Var N_0 is exact; the grand canonical one is g_0 n_0 (n_0 + 1) for bosons, which
  * below condensation is of order N_0^2 instead of order N, the overestimate discussed by Politzer
  * (PRA 54, 5048 (1996)) and Wilkens &amp; Weiss (J. Mod. Opt. 44, 1801 (1997)). The canonical
@@ -57,16 +61,38 @@ public final class EnsembleComparison implements Tabular {
         this.notes = List.copyOf(notes);
     }
 
-    /** Canonical and grand canonical rows at each temperature kT (in the spectrum's unit). */
+    /**
+     * Canonical and grand canonical rows at each temperature kT (in the spectrum's unit), with one
+     * counting in every row: distinguishable particles are compared under
+     * {@link Counting#CORRECTED_BOLTZMANN} (the grand canonical ensemble's usual Maxwell-Boltzmann
+     * counting, so S and ln Z are like with like); choose LABELLED with
+     * {@link #overTemperatures(Spectrum, Statistics, int, Counting, double...)}.
+     */
     public static EnsembleComparison overTemperatures(Spectrum spectrum, Statistics statistics, int n, double... kTs) {
+        Objects.requireNonNull(statistics, "statistics");
+        return overTemperatures(spectrum, statistics, n, comparisonCounting(statistics), kTs);
+    }
+
+    private static Counting comparisonCounting(Statistics st) {
+        return st.indistinguishable() ? Counting.IDENTICAL : Counting.CORRECTED_BOLTZMANN;
+    }
+
+    /**
+     * As {@link #overTemperatures(Spectrum, Statistics, int, double...)} with the {@link Counting}
+     * used in every row (LABELLED or CORRECTED_BOLTZMANN for distinguishable particles, IDENTICAL for
+     * quantum statistics).
+     */
+    public static EnsembleComparison overTemperatures(Spectrum spectrum, Statistics statistics, int n,
+                                                      Counting counting, double... kTs) {
         Objects.requireNonNull(spectrum, "spectrum");
+        Counting.require(statistics, counting);
         if (kTs == null || kTs.length == 0) {
             throw InvalidInputException.of("number of temperatures", 0, ">= 1", "");
         }
         List<Row> out = new ArrayList<>();
         for (double kT : kTs) {
-            Canonical c = Canonical.of(spectrum, statistics, n, kT);
-            GrandCanonical g = GrandCanonical.atMeanNumber(spectrum, statistics, kT, n);
+            Canonical c = Canonical.of(spectrum, statistics, n, kT, counting);
+            GrandCanonical g = GrandCanonical.atMeanNumber(spectrum, statistics, kT, n, counting);
             Row can = canonicalRow(c);
             out.add(can);
             out.add(relative(can, "grand canonical", kT, g.energy(), g.heatCapacity(), g.entropy(),
@@ -127,8 +153,9 @@ public final class EnsembleComparison implements Tabular {
      * {@link #notes()}).
      */
     public static EnsembleComparison overTemperatures(CountTable table, int n, double... kTs) {
-        Microcanonical mc = Microcanonical.of(table, n);
-        EnsembleComparison base = overTemperatures(table.spectrum(), table.statistics(), n, kTs);
+        Counting counting = comparisonCounting(table.statistics());
+        Microcanonical mc = Microcanonical.of(table, n, counting);
+        EnsembleComparison base = overTemperatures(table.spectrum(), table.statistics(), n, counting, kTs);
         List<Row> all = new ArrayList<>();
         List<String> notes = new ArrayList<>(mc.warnings());
         int lo = mc.lowestEnergy();
@@ -145,6 +172,12 @@ public final class EnsembleComparison implements Tabular {
                 continue;
             }
             int e = (int) eStar;
+            if (!mc.isHeatCapacityResolved(e)) {
+                notes.add(String.format("kT = %s: the microcanonical C = %.4g at E* = %d is not resolved by the energy "
+                        + "grid (central differences of step %d and %d disagree by more than 10%%): a discretisation "
+                        + "artefact of a few quanta per particle, not an ensemble difference", kTs[t],
+                        mc.heatCapacity(e), e, d, 2 * d));
+            }
             double beta = mc.boltzmannBeta(e);
             double n0 = mc.occupations(e).levelTotal(0);
             all.add(relative(can, "microcanonical", kTs[t], beta == 0 ? null : 1 / beta, e, mc.heatCapacity(e),

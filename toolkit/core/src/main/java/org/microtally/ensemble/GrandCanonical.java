@@ -31,7 +31,13 @@ import org.microtally.spectrum.Statistics;
  *       J. Mod. Opt. 44, 1801 (1997)).</li>
  * </ul>
  * {@link Statistics#DISTINGUISHABLE} is taken as Maxwell-Boltzmann (classical particles with 1/N!
- * counting). Accuracy: each term to a few ulp; the sums are plain double sums of positive terms
+ * counting, {@link Counting#CORRECTED_BOLTZMANN}) unless {@link Counting#LABELLED} is asked for: then
+ * Xi = sum_N (z Z_1)^N = 1/(1 - w), w = z Z_1 &lt; 1, so &lt;N&gt; = w/(1 - w), Var N = w/(1 - w)^2, the
+ * N particles of each term independent with the one-particle law p_i = g_i e^{-e_i/kT}/Z_1:
+ * U = &lt;N&gt; e_bar, Var E = &lt;N&gt; var_1 + Var N e_bar^2, Cov(E, N) = Var N e_bar, and
+ * Var N_0 = &lt;N&gt; p_0 (1 - p_0) + p_0^2 Var N (closed forms of the geometric mixture, common
+ * practice, no source); mu for a target &lt;N&gt; is kT (ln(N/(N+1)) - ln Z_1) in closed form.
+ * Accuracy: each term to a few ulp; the sums are plain double sums of positive terms
  * (relative error ~ M ulp for M levels), except C, whose difference of fluctuations can lose digits
  * where it is small compared with Var E.
  */
@@ -50,8 +56,10 @@ public final class GrandCanonical implements Tabular {
     private final double groundMean;
     private final double groundVariance;
     private final List<String> warnings;
+    private final Counting counting;
 
     private GrandCanonical(Spectrum spectrum, Statistics statistics, double kT, double mu) {
+        this.counting = statistics.indistinguishable() ? Counting.IDENTICAL : Counting.CORRECTED_BOLTZMANN;
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.kT = kT;
@@ -88,6 +96,111 @@ public final class GrandCanonical implements Tabular {
         groundMean = spectrum.degeneracy(0) * perState[0];
         groundVariance = spectrum.degeneracy(0) * MeanOccupation.variance(statistics, beta * (spectrum.energy(0) - mu));
         warnings = TruncationCheck.warnings(spectrum, spectrum.degeneracy(m - 1) * perState[m - 1], meanN);
+    }
+
+    /** Labelled (Z_1^N) particles at fugacity w = z Z_1 &lt; 1: the geometric mixture of the class notes. */
+    private GrandCanonical(Spectrum spectrum, double kT, double mu, double w) {
+        this.counting = Counting.LABELLED;
+        this.spectrum = spectrum;
+        this.statistics = Statistics.DISTINGUISHABLE;
+        this.kT = kT;
+        this.mu = mu;
+        double beta = 1.0 / kT;
+        double e0 = spectrum.groundEnergy();
+        int m = spectrum.size();
+        double z1 = 0;
+        double m1 = 0;
+        double m2 = 0;
+        double[] boltzmann = new double[m];
+        for (int i = 0; i < m; i++) {
+            double d = spectrum.energy(i) - e0;
+            boltzmann[i] = Math.exp(-beta * d);
+            double g = spectrum.degeneracy(i) * boltzmann[i];
+            z1 += g;
+            m1 += g * d;
+            m2 += g * d * d;
+        }
+        double mean1 = m1 / z1;
+        double var1 = Math.max(0.0, m2 / z1 - mean1 * mean1);
+        double n = w / (1 - w);
+        double vn = n / (1 - w);
+        perState = new double[m];
+        for (int i = 0; i < m; i++) {
+            perState[i] = n * boltzmann[i] / z1;
+        }
+        double eBar = e0 + mean1;
+        // energies relative to mu, as in the general constructor (Var E is reassembled in energyVariance)
+        double dBar = eBar - mu;
+        lnXi = -Math.log1p(-w);
+        meanN = n;
+        varN = vn;
+        energy = n * eBar;
+        varE = n * var1 + vn * dBar * dBar;
+        covEN = vn * dBar;
+        double p0 = spectrum.degeneracy(0) / z1;
+        groundMean = n * p0;
+        groundVariance = n * p0 * (1 - p0) + p0 * p0 * vn;
+        warnings = TruncationCheck.warnings(spectrum, spectrum.degeneracy(m - 1) * perState[m - 1], meanN);
+    }
+
+    private static double lnZ1(Spectrum s, double kT) {
+        double e0 = s.groundEnergy();
+        double z1 = 0;
+        for (int i = 0; i < s.size(); i++) {
+            z1 += s.degeneracy(i) * Math.exp(-(s.energy(i) - e0) / kT);
+        }
+        return Math.log(z1) - e0 / kT;
+    }
+
+    /**
+     * The ensemble at a given chemical potential with an explicit {@link Counting} (LABELLED or
+     * CORRECTED_BOLTZMANN for distinguishable particles, IDENTICAL for quantum statistics).
+     *
+     * @throws InvalidInputException as {@link #atChemicalPotential(Spectrum, Statistics, double, double)};
+     *                               for LABELLED also when z Z_1 &gt;= 1 (the geometric sum diverges)
+     */
+    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
+                                                     Counting counting) {
+        Counting.require(statistics, counting);
+        if (counting != Counting.LABELLED) {
+            return atChemicalPotential(spectrum, statistics, kT, mu);
+        }
+        requireTemperature(kT);
+        if (!Double.isFinite(mu)) {
+            throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
+        }
+        double lnZ1 = lnZ1(spectrum, kT);
+        double lnW = mu / kT + lnZ1;
+        if (!(lnW < 0)) {
+            throw InvalidInputException.of("chemical potential mu for labelled particles", mu,
+                    "below -kT ln Z_1 = " + (-kT * lnZ1) + " (z Z_1 < 1, else sum_N (z Z_1)^N diverges)",
+                    "Fix <N> instead (atMeanNumber).");
+        }
+        return new GrandCanonical(spectrum, kT, mu, Math.exp(lnW));
+    }
+
+    /**
+     * The ensemble with mean particle number {@code targetN} and an explicit {@link Counting}; for
+     * LABELLED, mu = kT (ln(N/(N+1)) - ln Z_1) in closed form.
+     */
+    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN,
+                                              Counting counting) {
+        Counting.require(statistics, counting);
+        if (counting != Counting.LABELLED) {
+            return atMeanNumber(spectrum, statistics, kT, targetN);
+        }
+        requireTemperature(kT);
+        if (!(targetN > 0) || !Double.isFinite(targetN)) {
+            throw InvalidInputException.of("target mean particle number", targetN, "a finite number > 0", "");
+        }
+        double lnZ1 = lnZ1(spectrum, kT);
+        double w = targetN / (targetN + 1);
+        return new GrandCanonical(spectrum, kT, kT * (Math.log(w) - lnZ1), w);
+    }
+
+    /** How microstates are counted ({@link Counting}); distinguishable particles default to CORRECTED_BOLTZMANN. */
+    public Counting counting() {
+        return counting;
     }
 
     /**
@@ -216,6 +329,9 @@ public final class GrandCanonical implements Tabular {
     public List<List<Object>> rows() {
         List<List<Object>> r = new ArrayList<>();
         r.add(List.of("statistics", statistics.toString()));
+        if (!statistics.indistinguishable()) {
+            r.add(List.of("counting", counting.toString()));
+        }
         r.add(List.of("kT", kT));
         r.add(List.of("mu", mu));
         r.add(List.of("ln Xi", lnXi));

@@ -52,8 +52,12 @@ public final class Microcanonical implements Tabular {
     private final int maxE;
     private final BigInteger[] cumulative;
     private final List<String> warnings;
+    private final Counting counting;
+    private final double lnDivisor;
 
-    private Microcanonical(CountTable table, int n) {
+    private Microcanonical(CountTable table, int n, Counting counting) {
+        this.counting = Counting.require(table.statistics(), counting);
+        this.lnDivisor = counting.lnDivisor(n);
         this.table = table;
         this.n = n;
         this.maxE = table.maxEnergy();
@@ -79,12 +83,38 @@ public final class Microcanonical implements Tabular {
 
     /** The microcanonical ensemble of {@code n} particles from an existing count table (n &lt;= its N). */
     public static Microcanonical of(CountTable table, int n) {
+        requireInTable(table, n);
+        return new Microcanonical(table, n, Counting.defaultFor(table.statistics()));
+    }
+
+    private static void requireInTable(CountTable table, int n) {
         Objects.requireNonNull(table, "table");
         if (n < 1 || n > table.maxParticles()) {
             throw InvalidInputException.of("particle number N", n, "in [1, " + table.maxParticles() + "] (the table's range)",
                     "Build the count table with a larger maxParticles.");
         }
-        return new Microcanonical(table, n);
+    }
+
+    /**
+     * As {@link #of(CountTable, int)} with an explicit {@link Counting}: for distinguishable particles
+     * LABELLED (Omega = assignments of labelled particles, the default) or CORRECTED_BOLTZMANN
+     * (Omega / N!: S_B, S_G and ln Z lower by ln N!, temperatures, C and occupations unchanged);
+     * IDENTICAL for quantum statistics. The counts themselves ({@link #count}) stay the exact integers.
+     */
+    public static Microcanonical of(CountTable table, int n, Counting counting) {
+        requireInTable(table, n);
+        return new Microcanonical(table, n, counting);
+    }
+
+    /** As {@link #of(Spectrum, Statistics, int, int)} with an explicit {@link Counting}. */
+    public static Microcanonical of(Spectrum spectrum, Statistics statistics, int n, int maxEnergy, Counting counting) {
+        Counting.require(statistics, counting);
+        return of(of(spectrum, statistics, n, maxEnergy).table, n, counting);
+    }
+
+    /** How microstates are counted ({@link Counting}); the entropies and ln Z depend on it. */
+    public Counting counting() {
+        return counting;
     }
 
     /** Builds the count table for n particles and total energies 0..maxEnergy, then the ensemble. */
@@ -98,7 +128,8 @@ public final class Microcanonical implements Tabular {
         if (n < 1) {
             throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
         }
-        return new Microcanonical(CountTable.of(spectrum, statistics, n, maxEnergy, progress), n);
+        return new Microcanonical(CountTable.of(spectrum, statistics, n, maxEnergy, progress), n,
+                Counting.defaultFor(statistics));
     }
 
     private static int gridStep(Spectrum s) {
@@ -155,10 +186,10 @@ public final class Microcanonical implements Tabular {
         return cumulative[e];
     }
 
-    /** S_B(E) = ln Omega(N, E). @throws InvalidInputException where Omega = 0 */
+    /** S_B(E) = ln Omega(N, E) (minus ln N! under CORRECTED_BOLTZMANN). @throws InvalidInputException where Omega = 0 */
     public double boltzmannEntropy(int e) {
         requireEnergy(e);
-        return table.lnCount(n, e);
+        return table.lnCount(n, e) - lnDivisor;
     }
 
     /**
@@ -167,7 +198,7 @@ public final class Microcanonical implements Tabular {
      */
     double boltzmannEntropyOrMinusInfinity(int e) {
         requireEnergy(e);
-        return table.isZero(n, e) ? Double.NEGATIVE_INFINITY : table.lnCount(n, e);
+        return table.isZero(n, e) ? Double.NEGATIVE_INFINITY : table.lnCount(n, e) - lnDivisor;
     }
 
     /** S_G(E) = ln (number of states with energy &lt;= E). @throws InvalidInputException where that is 0 */
@@ -177,7 +208,7 @@ public final class Microcanonical implements Tabular {
             throw InvalidInputException.of("number of states with energy <= " + e, 0, "> 0",
                     "The lowest accessible energy is " + lowestEnergy() + ".");
         }
-        return ExactLog.ln(c);
+        return ExactLog.ln(c) - lnDivisor;
     }
 
     /** The lowest energy with Omega(N, E) &gt; 0. */
@@ -196,19 +227,40 @@ public final class Microcanonical implements Tabular {
         return isAccessible(e - step) && isAccessible(e) && isAccessible(e + step);
     }
 
-    /** Boltzmann inverse temperature beta_B(E) = (S_B(E + d) - S_B(E - d)) / (2d). */
+    /**
+     * Boltzmann inverse temperature beta_B(E) = (S_B(E + d) - S_B(E - d)) / (2d), formed as
+     * ln(Omega(E + d)/Omega(E - d)) / (2d) from the exact counts ({@link #lnRatio}: no cancellation,
+     * a few ulp relative even where beta_B is near 0).
+     */
     public double boltzmannBeta(int e) {
         requireBoltzmann(e);
-        return (table.lnCount(n, e + step) - table.lnCount(n, e - step)) / (2.0 * step);
+        return lnRatio(table.count(n, e + step), table.count(n, e - step)) / (2.0 * step);
     }
 
-    /** Gibbs inverse temperature beta_G(E) = (S_G(E + d) - S_G(E - d)) / (2d); always &gt;= 0. */
+    /**
+     * Gibbs inverse temperature beta_G(E) = (S_G(E + d) - S_G(E - d)) / (2d); always &gt;= 0. Formed as
+     * ln(1 + (states in (E - d, E + d]) / (states &lt;= E - d)) / (2d) from exact integers, so values far
+     * below 1 (high energies of bounded spectra, e.g. 1e-36) keep full relative accuracy.
+     */
     public double gibbsBeta(int e) {
         if (e - step < 0 || e + step > maxE || cumulativeCount(e - step).signum() == 0) {
             throw InvalidInputException.of("energy for the Gibbs temperature", e,
                     "with at least one state at or below E - d and E + d <= " + maxE, "");
         }
-        return (gibbsEntropy(e + step) - gibbsEntropy(e - step)) / (2.0 * step);
+        return lnRatio(cumulativeCount(e + step), cumulativeCount(e - step)) / (2.0 * step);
+    }
+
+    /**
+     * ln(a/b) for positive integers without cancellation: log1p((a - b)/b) with the ratio rounded once
+     * from exact integers ({@link ExactRatio}) when a and b are within a factor 2^60, else
+     * ln a - ln b ({@link ExactLog}, each within 2 ulp, and then |ln a - ln b| &gt; 41, so the difference
+     * keeps its relative accuracy). A few ulp relative in both branches.
+     */
+    static double lnRatio(BigInteger a, BigInteger b) {
+        if (Math.abs(a.bitLength() - b.bitLength()) > 60) {
+            return ExactLog.ln(a) - ExactLog.ln(b);
+        }
+        return Math.log1p(ExactRatio.toDouble(a.subtract(b), b));
     }
 
     /** Whether the Boltzmann temperature at e is negative (S_B decreasing: more energy, fewer states). */
@@ -233,9 +285,35 @@ public final class Microcanonical implements Tabular {
         return -b * b / s2;
     }
 
+    /** S_B'' on step h: ln(Omega(E + h) Omega(E - h) / Omega(E)^2) / h^2 from exact integers (no cancellation). */
+    private double secondDifference(int e, int h) {
+        BigInteger mid = table.count(n, e);
+        return lnRatio(table.count(n, e + h).multiply(table.count(n, e - h)), mid.multiply(mid)) / ((double) h * h);
+    }
+
     private double secondDifference(int e) {
-        return (table.lnCount(n, e + step) - 2 * table.lnCount(n, e) + table.lnCount(n, e - step))
-                / ((double) step * step);
+        return secondDifference(e, step);
+    }
+
+    /**
+     * Whether the grid resolves the heat capacity at e: C from the central differences of step d and of
+     * step 2d agree within 10% (same sign). Where they do not (low energies, a few quanta per
+     * particle) C(E) on the grid is a discretisation artefact (it can even come out negative for an
+     * ideal gas at positive temperature), not a property of the system; false also where step 2d
+     * leaves the table or meets Omega = 0.
+     */
+    public boolean isHeatCapacityResolved(int e) {
+        if (!hasHeatCapacity(e) || !isAccessible(e - 2 * step) || !isAccessible(e + 2 * step)) {
+            return false;
+        }
+        double fine = heatCapacity(e);
+        double s2 = secondDifference(e, 2 * step);
+        if (s2 == 0) {
+            return false;
+        }
+        double b = lnRatio(table.count(n, e + 2 * step), table.count(n, e - 2 * step)) / (4.0 * step);
+        double coarse = -b * b / s2;
+        return Math.signum(fine) == Math.signum(coarse) && Math.abs(fine - coarse) <= 0.1 * Math.abs(fine);
     }
 
     /**
@@ -341,7 +419,7 @@ public final class Microcanonical implements Tabular {
                 s += Math.exp(x - max);
             }
         }
-        return max + Math.log(s);
+        return max + Math.log(s) - lnDivisor;
     }
 
     @Override
