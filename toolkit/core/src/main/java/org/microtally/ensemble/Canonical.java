@@ -124,9 +124,9 @@ public final class Canonical implements Tabular {
         }
         this.energy = n * e0 + u;
         this.entropy = exactEntropy != null ? exactEntropy : lnZ + energy / kT;
-        int top = spectrum.size() - 1;
-        List<String> w = new ArrayList<>(TruncationCheck.warnings(spectrum,
-                spectrum.degeneracy(top) * perState[top], n));
+        double ground = condensate != null ? condensate.mean() : spectrum.degeneracy(0) * perState[0];
+        List<String> w = new ArrayList<>(TruncationCheck.warnings(spectrum, perState, n, kT, muStar, energy,
+                entropy, ground));
         w.addAll(extraWarnings);
         this.extraWarnings = List.copyOf(extraWarnings);
         this.counting = Counting.defaultFor(statistics);

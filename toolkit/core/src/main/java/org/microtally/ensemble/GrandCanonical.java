@@ -95,7 +95,8 @@ public final class GrandCanonical implements Tabular {
         covEN = cov;
         groundMean = spectrum.degeneracy(0) * perState[0];
         groundVariance = spectrum.degeneracy(0) * MeanOccupation.variance(statistics, beta * (spectrum.energy(0) - mu));
-        warnings = TruncationCheck.warnings(spectrum, spectrum.degeneracy(m - 1) * perState[m - 1], meanN);
+        warnings = TruncationCheck.warnings(spectrum, perState, meanN, kT, mu, energy,
+                lnXi + (energy - mu * meanN) / kT, groundMean);
     }
 
     /** Labelled (Z_1^N) particles at fugacity w = z Z_1 &lt; 1: the geometric mixture of the class notes. */
@@ -140,7 +141,8 @@ public final class GrandCanonical implements Tabular {
         double p0 = spectrum.degeneracy(0) / z1;
         groundMean = n * p0;
         groundVariance = n * p0 * (1 - p0) + p0 * p0 * vn;
-        warnings = TruncationCheck.warnings(spectrum, spectrum.degeneracy(m - 1) * perState[m - 1], meanN);
+        warnings = TruncationCheck.warnings(spectrum, perState, meanN, kT, mu, energy,
+                lnXi + (energy - mu * meanN) / kT, groundMean);
     }
 
     private static double lnZ1(Spectrum s, double kT) {

@@ -25,7 +25,7 @@ final class NegativeTemperature {
     private NegativeTemperature() { }
 
     static Canonical canonical(Spectrum s, Statistics st, int n, double kT, ProgressListener progress) {
-        if (s.isTruncated()) {
+        if (s.isTruncated() || s.isCompletenessUndeclared()) {
             throw InvalidInputException.of("temperature kT", kT, "> 0 for this spectrum: it is truncated at "
                             + s.cutoffEnergy() + " from an infinite one, and e^{-E/kT} grows without bound above the "
                             + "cutoff when kT < 0",

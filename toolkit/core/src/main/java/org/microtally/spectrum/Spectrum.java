@@ -39,8 +39,15 @@ public final class Spectrum {
     private final double cutoffEnergy;
     private final String cutoffNote;
     private final long stateCount;
+    private final boolean completenessUndeclared;
 
     private Spectrum(List<Level> levels, EnergyScale scale, boolean labelled, double cutoffEnergy, String cutoffNote) {
+        this(levels, scale, labelled, cutoffEnergy, cutoffNote, false);
+    }
+
+    private Spectrum(List<Level> levels, EnergyScale scale, boolean labelled, double cutoffEnergy, String cutoffNote,
+                     boolean completenessUndeclared) {
+        this.completenessUndeclared = completenessUndeclared;
         this.levels = levels;
         this.scale = scale;
         this.labelled = labelled;
@@ -218,6 +225,29 @@ public final class Spectrum {
         return cutoffEnergy != Double.POSITIVE_INFINITY;
     }
 
+    /**
+     * Whether the source of this spectrum declared neither a cutoff nor that it is complete (a table
+     * read without a cutoff): it is then used as complete ({@link #isTruncated()} is false), but the
+     * ensembles warn when its top level is populated, since levels above it may have been left out.
+     */
+    public boolean isCompletenessUndeclared() {
+        return completenessUndeclared;
+    }
+
+    /**
+     * The same spectrum marked {@link #isCompletenessUndeclared() completeness undeclared}, with
+     * {@code note} saying where it came from (for readers of level tables without a stated cutoff).
+     *
+     * @throws InvalidInputException if this spectrum is already truncated at a declared cutoff
+     */
+    public Spectrum withCompletenessUndeclared(String note) {
+        if (isTruncated()) {
+            throw InvalidInputException.of("cutoff of a spectrum marked as of undeclared completeness", cutoffEnergy,
+                    "+infinity (no declared cutoff)", "A declared cutoff already says what is missing.");
+        }
+        return new Spectrum(levels, scale, labelled, cutoffEnergy, note == null ? "" : note, true);
+    }
+
     /** What the cutoff costs, in words; empty for a complete spectrum. */
     public String cutoffNote() {
         return cutoffNote;
@@ -286,12 +316,14 @@ public final class Spectrum {
             }
             scaled.add(new Level(l.energy(), (int) g, l.label()));
         }
-        return new Spectrum(Collections.unmodifiableList(scaled), scale, labelled, cutoffEnergy, cutoffNote);
+        return new Spectrum(Collections.unmodifiableList(scaled), scale, labelled, cutoffEnergy, cutoffNote,
+                completenessUndeclared);
     }
 
     /** The same levels in another declared unit (no numeric change: the numbers are re-labelled). */
     public Spectrum withScale(EnergyScale newScale) {
-        return new Spectrum(levels, Objects.requireNonNull(newScale, "scale"), labelled, cutoffEnergy, cutoffNote);
+        return new Spectrum(levels, Objects.requireNonNull(newScale, "scale"), labelled, cutoffEnergy, cutoffNote,
+                completenessUndeclared);
     }
 
     /** The levels with energy &lt;= {@code maxEnergy}; the new cutoff is the smaller of the two. */
