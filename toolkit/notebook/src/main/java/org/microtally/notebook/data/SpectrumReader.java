@@ -2,10 +2,15 @@ package org.microtally.notebook.data;
 
 import java.io.IOException;
 import java.io.Reader;
+import java.io.StringReader;
 import java.io.UncheckedIOException;
 import java.math.BigDecimal;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -34,9 +39,18 @@ import tech.tablesaw.io.csv.CsvReadOptions;
  * sorted (they are sorted by energy, then label) and rows with the same energy and label are merged
  * by adding their degeneracies.
  *
- * <p>A file holds no cutoff: the spectrum read is taken as complete unless a cutoff is passed.
+ * <p>A file holds no cutoff. Read without one ({@link #fromCsv(Path, EnergyScale)},
+ * {@link #fromTable(Table, EnergyScale)}) the spectrum is used as complete but marked
+ * {@link Spectrum#isCompletenessUndeclared() completeness undeclared}, so the ensembles warn when its
+ * top level is populated; pass the cutoff, or {@code Double.POSITIVE_INFINITY} for a list that is
+ * complete, to declare it.
+ *
+ * <p>Labels are integers written as integers: a label cell such as {@code 010}, {@code +3} or
+ * {@code 2.0} is refused with the cell named (a text label like {@code 010} would otherwise become
+ * the number 10 and merge with it). Energies and degeneracies are numbers in any decimal form.
  * A bad cell is reported with its data row (1-based), the file line (assuming no quoted line
- * breaks), the column and the text found.
+ * breaks), the column and the text found ({@code NaN} shown as written). A missing file is reported
+ * as not found, bytes that are not UTF-8 by their offset.
  */
 public final class SpectrumReader {
     private static final String ENERGY = "energy";
@@ -49,18 +63,45 @@ public final class SpectrumReader {
 
     private SpectrumReader() { }
 
-    /** A complete spectrum from a UTF-8 CSV file. */
+    /** A spectrum from a UTF-8 CSV file with no declared cutoff (used as complete, completeness undeclared). */
     public static Spectrum fromCsv(Path file, EnergyScale scale) {
-        return fromCsv(file, scale, Double.POSITIVE_INFINITY, "");
+        return fromCsv(file, scale, Double.POSITIVE_INFINITY, "").withCompletenessUndeclared(undeclared(file.toString()));
     }
 
-    /** A spectrum from a UTF-8 CSV file, recording that levels above {@code cutoffEnergy} were omitted. */
+    private static String undeclared(String source) {
+        return "read from " + source + " without a declared cutoff: levels above its last row may exist; declare the "
+                + "cutoff, or Double.POSITIVE_INFINITY if the list is complete";
+    }
+
+    /**
+     * A spectrum from a UTF-8 CSV file, recording that levels above {@code cutoffEnergy} were omitted
+     * ({@code Double.POSITIVE_INFINITY}: the file lists every level).
+     */
     public static Spectrum fromCsv(Path file, EnergyScale scale, double cutoffEnergy, String cutoffNote) {
         Objects.requireNonNull(file, "file");
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-            return fromCsv(r, file.getFileName().toString(), scale, cutoffEnergy, cutoffNote);
+        byte[] bytes;
+        try {
+            bytes = Files.readAllBytes(file);
+        } catch (NoSuchFileException e) {
+            throw InvalidInputException.of("spectrum CSV file", file.toAbsolutePath(), "an existing file",
+                    "The file was not found; check the path and the working directory.");
         } catch (IOException e) {
             throw new UncheckedIOException("could not read spectrum CSV " + file + ": " + e.getMessage(), e);
+        }
+        return fromCsv(new StringReader(utf8(bytes, file.getFileName().toString())), file.getFileName().toString(),
+                scale, cutoffEnergy, cutoffNote);
+    }
+
+    /** Decodes strictly, naming the offset of the first byte that is not UTF-8. */
+    private static String utf8(byte[] bytes, String source) {
+        ByteBuffer in = ByteBuffer.wrap(bytes);
+        try {
+            return StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT).decode(in).toString();
+        } catch (CharacterCodingException e) {
+            throw InvalidInputException.of("spectrum CSV " + source, "a file that is not valid UTF-8 at byte "
+                    + in.position() + " (0-based, value 0x" + String.format("%02x", bytes[in.position()] & 0xff)
+                    + ")", "UTF-8 text", "Save the file as UTF-8.");
         }
     }
 
@@ -71,18 +112,20 @@ public final class SpectrumReader {
         Table table;
         try {
             table = Table.read().csv(CsvReadOptions.builder(csv).tableName(sourceName).header(true)
-                    .columnTypes(name -> ColumnType.STRING));
+                    .missingValueIndicator("").columnTypes(name -> ColumnType.STRING));
         } catch (RuntimeException e) {
-            String why = String.valueOf(e.getMessage()).strip().replaceAll("\\.+$", "");
+            String why = String.valueOf(e.getMessage()).strip().lines().findFirst().orElse("").strip()
+                    .replaceAll("\\.+$", "");
             throw new InvalidInputException("could not read spectrum CSV " + sourceName + ": " + why
                     + ". Give a comma-separated file with a header row naming energy, degeneracy and optionally label.");
         }
         return read(table, sourceName, true, scale, cutoffEnergy, cutoffNote);
     }
 
-    /** A complete spectrum from the columns of a Tablesaw table (numeric or text columns). */
+    /** A spectrum from the columns of a Tablesaw table with no declared cutoff (completeness undeclared). */
     public static Spectrum fromTable(Table table, EnergyScale scale) {
-        return fromTable(table, scale, Double.POSITIVE_INFINITY, "");
+        return fromTable(table, scale, Double.POSITIVE_INFINITY, "")
+                .withCompletenessUndeclared(undeclared("table '" + table.name() + "'"));
     }
 
     /** A spectrum from the columns of a Tablesaw table, with its cutoff. */
@@ -113,7 +156,7 @@ public final class SpectrumReader {
             if (g < 1) {
                 throw bad(degeneracy, r, where, "an integer >= 1");
             }
-            int l = label == null ? 0 : integer(label, r, where, "an integer");
+            int l = label == null ? 0 : labelValue(label, r, where);
             levels.add(new Level(e, g, l));
         }
         return Spectrum.of(levels, scale, label != null, cutoffEnergy, cutoffNote);
@@ -160,6 +203,17 @@ public final class SpectrumReader {
         } catch (NumberFormatException | ArithmeticException e) {
             throw bad(col, r, where, allowed);
         }
+    }
+
+    /** Labels: integers written as integers (no leading zeros, sign only for negatives, no decimals). */
+    private static int labelValue(Column<?> col, int r, String where) {
+        String allowed = "an integer written as one (such as 10 or -2; not 010, +2 or 2.0: labels name states, "
+                + "and text labels would merge with the number they look like)";
+        if (!col.isMissing(r) && !(col.get(r) instanceof Number)
+                && !String.valueOf(col.get(r)).strip().matches("-?(0|[1-9][0-9]*)")) {
+            throw bad(col, r, where, allowed);
+        }
+        return integer(col, r, where, allowed);
     }
 
     private static InvalidInputException bad(Column<?> col, int r, String where, String allowed) {

@@ -82,11 +82,15 @@ class SpectrumReaderTest {
             energy,degeneracy\\n0,2.5\\n       | column 'degeneracy' in data row 1 (line 2) of dot.csv = "2.5" | an integer >= 1
             energy,degeneracy\\n0,1\\n,1\\n    | column 'energy' in data row 2 (line 3) of dot.csv = (empty) | a finite number
             energy,degeneracy\\nInfinity,1\\n  | column 'energy' in data row 1 (line 2) of dot.csv = "Infinity" | a finite number
-            energy,degeneracy,label\\n0,1,x\\n | column 'label' in data row 1 (line 2) of dot.csv = "x" | an integer
+            energy,degeneracy,label\\n0,1,x\\n | column 'label' in data row 1 (line 2) of dot.csv = "x" | an integer written as one
+            energy,degeneracy,label\\n0,1,010\\n | column 'label' in data row 1 (line 2) of dot.csv = "010" | an integer written as one
+            energy,degeneracy,label\\n0,1,+2\\n | column 'label' in data row 1 (line 2) of dot.csv = "+2" | an integer written as one
+            energy,degeneracy\\nNaN,1\\n       | column 'energy' in data row 1 (line 2) of dot.csv = "NaN" | a finite number
             """)
     void badCellsAreReportedWithRowAndColumn(String csv, String where, String allowed) {
         InvalidInputException e = assertThrows(InvalidInputException.class, () -> read(csv.replace("\\n", "\n")));
-        assertTrue(e.getMessage().startsWith(where + " is not allowed: must be " + allowed + "."), e.getMessage());
+        assertTrue(e.getMessage().startsWith(where + " is not allowed: must be " + allowed + ".")
+                || e.getMessage().startsWith(where + " is not allowed: must be " + allowed + " ("), e.getMessage());
     }
 
     @Test
@@ -118,5 +122,31 @@ class SpectrumReaderTest {
         Spectrum s = SpectrumReader.fromCsv(file, MEV);
         assertEquals(3, s.size());
         assertEquals(-2, s.label(1));
+    }
+
+    @Test
+    void aFileReadWithoutACutoffIsMarkedSoTheEnsemblesCheckItsTop(@TempDir Path dir) throws Exception {
+        Path file = dir.resolve("levels.csv");
+        Files.writeString(file, "energy,degeneracy\n0,1\n1,3\n2,6\n", StandardCharsets.UTF_8);
+        Spectrum s = SpectrumReader.fromCsv(file, MEV);
+        // Source: common practice, no source (no cutoff declared: used as complete, marked undeclared)
+        assertFalse(s.isTruncated());
+        assertTrue(s.isCompletenessUndeclared());
+        assertTrue(org.microtally.ensemble.Canonical.of(s, org.microtally.spectrum.Statistics.BOSE, 10, 2.0).warnings()
+                .stream().anyMatch(w -> w.startsWith("spectrum of undeclared completeness")));
+        assertFalse(SpectrumReader.fromCsv(file, MEV, Double.POSITIVE_INFINITY, "complete list").isCompletenessUndeclared());
+    }
+
+    @Test
+    void aMissingFileIsReportedAsNotFoundAndBadBytesByOffset(@TempDir Path dir) throws Exception {
+        InvalidInputException missing = assertThrows(InvalidInputException.class,
+                () -> SpectrumReader.fromCsv(dir.resolve("nowhere.csv"), MEV));
+        assertTrue(missing.getMessage().contains("not found") && missing.getMessage().contains("nowhere.csv"),
+                missing.getMessage());
+        Path latin = dir.resolve("latin.csv");
+        Files.write(latin, new byte[] {'e', 'n', 'e', 'r', 'g', 'y', ',', 'd', 'e', 'g', 'e', 'n', 'e', 'r', 'a', 'c',
+                'y', '\n', '0', ',', '1', (byte) 0xe9, '\n'});
+        InvalidInputException bad = assertThrows(InvalidInputException.class, () -> SpectrumReader.fromCsv(latin, MEV));
+        assertTrue(bad.getMessage().contains("not valid UTF-8 at byte 21"), bad.getMessage());
     }
 }
