@@ -76,7 +76,16 @@ import org.microtally.spectrum.Statistics;
  * the series (entries that were never reached or were flushed to zero are skipped, which changes no
  * result), so series whose particle-number distribution is narrow cost far less than N per state;
  * Fermi and Gentile occupations add the backward pass (a second pass of the same kind); Bose
- * occupations add M N. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints).
+ * occupations add M N. A level of g states with g above about 2 (N + 1) is multiplied in as one
+ * closed-form factor ({@link LevelFactor}: O(N) to build and O(N^2) to apply, O(N^2 log g) for
+ * Gentile), so the cost depends on the number of levels, not of states (two levels of 2^31 - 1
+ * states, N = 1000: tens of milliseconds). C_V and Var E add three moment passes when first asked
+ * for. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints), checked
+ * against half the heap before allocating.
+ *
+ * <p>Limits: ideal (non-interacting) particles only; kT &lt; 0 only for bounded spectra; where the
+ * lowest excitation exceeds 700 kT the exact T -&gt; 0 limit is returned with a note. Truncated
+ * spectra carry the estimated effect of their cutoff in {@link #warnings()}.
  */
 public final class Canonical implements Tabular {
     private static final int MAX_N = 10_000_000;
