@@ -120,6 +120,13 @@ final class BruteForce {
         return t;
     }
 
+    /** Asserts that {@code c} (built for the same spectrum, statistics, n and kT) agrees on ln Z, U and Var E. */
+    void assertThermodynamicsMatch(Canonical c, int n, String ctx) {
+        org.junit.jupiter.api.Assertions.assertEquals(lnZ(n), c.lnZ(), 1e-12 * Math.max(1, Math.abs(lnZ(n))), ctx);
+        org.junit.jupiter.api.Assertions.assertEquals(u, c.energy(), 1e-11 * Math.max(1, Math.abs(u)), ctx);
+        org.junit.jupiter.api.Assertions.assertEquals(varE, c.energyVariance(), 1e-10 * Math.max(1, varE), ctx);
+    }
+
     /** ln Z including the ground-energy shift removed in the weights. */
     double lnZ(int n) {
         return Math.log(z) - beta * e0 * n;
