@@ -26,9 +26,10 @@ final class NegativeTemperature {
 
     static Canonical canonical(Spectrum s, Statistics st, int n, double kT, ProgressListener progress) {
         if (s.isTruncated() || s.isCompletenessUndeclared()) {
-            throw InvalidInputException.of("temperature kT", kT, "> 0 for this spectrum: it is truncated at "
-                            + s.cutoffEnergy() + " from an infinite one, and e^{-E/kT} grows without bound above the "
-                            + "cutoff when kT < 0",
+            throw InvalidInputException.of("temperature kT", kT, "> 0 for this spectrum: it is "
+                            + (s.isTruncated() ? "truncated at " + s.cutoffEnergy() + " from an infinite one"
+                                    : "of undeclared completeness (read without a cutoff)")
+                            + ", and e^{-E/kT} grows without bound above its top when kT < 0",
                     "Negative temperatures need a bounded spectrum with every level given (cutoff +infinity), "
                             + "such as Spectra.twoLevel or Spectra.spinInField.");
         }
