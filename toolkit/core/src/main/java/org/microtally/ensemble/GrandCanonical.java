@@ -52,6 +52,9 @@ public final class GrandCanonical implements Tabular {
     private final double energy;
     private final double varE;
     private final double covEN;
+    /** Var E - Cov(E,N)^2/Var N, formed as a weighted variance of e - mu (non-negative terms). */
+    private final double fixedNVariance;
+    private final double entropy;
     private final double[] perState;
     private final double groundMean;
     private final double groundVariance;
@@ -73,6 +76,8 @@ public final class GrandCanonical implements Tabular {
         double u = 0;
         double ve = 0;
         double cov = 0;
+        double sk = 0;
+        double[] weight = new double[m];
         for (int i = 0; i < m; i++) {
             double g = spectrum.degeneracy(i);
             double d = spectrum.energy(i) - mu;
@@ -86,7 +91,17 @@ public final class GrandCanonical implements Tabular {
             u += g * spectrum.energy(i) * n;
             ve += g * d * d * v;
             cov += g * d * v;
+            weight[i] = g * v;
+            sk += g * stateEntropy(statistics, x);
         }
+        double dBar = vn > 0 ? cov / vn : 0;
+        double fixed = 0;
+        for (int i = 0; i < m; i++) {
+            double dd = spectrum.energy(i) - mu - dBar;
+            fixed += weight[i] * dd * dd;
+        }
+        fixedNVariance = vn > 0 ? fixed : ve;
+        entropy = sk;
         lnXi = lx;
         meanN = nn;
         varN = vn;
@@ -95,8 +110,7 @@ public final class GrandCanonical implements Tabular {
         covEN = cov;
         groundMean = spectrum.degeneracy(0) * perState[0];
         groundVariance = spectrum.degeneracy(0) * MeanOccupation.variance(statistics, beta * (spectrum.energy(0) - mu));
-        warnings = TruncationCheck.warnings(spectrum, perState, meanN, kT, mu, energy,
-                lnXi + (energy - mu * meanN) / kT, groundMean);
+        warnings = TruncationCheck.warnings(spectrum, perState, meanN, kT, mu, energy, entropy, groundMean);
     }
 
     /** Labelled (Z_1^N) particles at fugacity w = z Z_1 &lt; 1: the geometric mixture of the class notes. */
@@ -138,11 +152,23 @@ public final class GrandCanonical implements Tabular {
         energy = n * eBar;
         varE = n * var1 + vn * dBar * dBar;
         covEN = vn * dBar;
+        fixedNVariance = n * var1;
+        entropy = lnXi + (energy - mu * meanN) / kT;
         double p0 = spectrum.degeneracy(0) / z1;
         groundMean = n * p0;
         groundVariance = n * p0 * (1 - p0) + p0 * p0 * vn;
-        warnings = TruncationCheck.warnings(spectrum, perState, meanN, kT, mu, energy,
-                lnXi + (energy - mu * meanN) / kT, groundMean);
+        warnings = TruncationCheck.warnings(spectrum, perState, meanN, kT, mu, energy, entropy, groundMean);
+    }
+
+    /**
+     * Entropy of one state, ln xi + x n, in the form without cancellation: capped laws by the
+     * particle-hole symmetry s(x) = s(|x|) (so both terms are non-negative), Bose with x &gt; 0 (both
+     * terms positive); Maxwell-Boltzmann e^{-x}(1 + x).
+     */
+    private static double stateEntropy(Statistics st, double x) {
+        double y = st.capped() ? Math.abs(x) : x;
+        double n = MeanOccupation.mean(st, y);
+        return n == 0 ? MeanOccupation.logFactor(st, y) : MeanOccupation.logFactor(st, y) + y * n;
     }
 
     private static double lnZ1(Spectrum s, double kT) {
@@ -231,7 +257,14 @@ public final class GrandCanonical implements Tabular {
     public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
         requireTemperature(kT);
         double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, targetN);
-        return new GrandCanonical(spectrum, statistics, kT, mu);
+        GrandCanonical g = new GrandCanonical(spectrum, statistics, kT, mu);
+        if (!(Math.abs(g.meanN - targetN) <= 1e-9 * Math.max(1.0, targetN))) {
+            throw InvalidInputException.of("temperature kT for a grand canonical <N> = " + targetN, kT,
+                    "large enough that some mu gives that mean (here the best mu, " + mu + ", gives " + g.meanN
+                            + ": at this kT the occupations are steps)",
+                    "Use Canonical.of (exact T -> 0 limit) or ChemicalPotential.fermiLevel for the T -> 0 limit.");
+        }
+        return g;
     }
 
     static void requireTemperature(double kT) {
@@ -291,15 +324,22 @@ public final class GrandCanonical implements Tabular {
         return varE + 2 * mu * covEN + mu * mu * varN;
     }
 
-    /** Entropy S/k = ln Xi + (U - mu &lt;N&gt;)/kT. */
+    /**
+     * Entropy S/k = ln Xi + (U - mu &lt;N&gt;)/kT, summed as sum_i g_i s(x_i) with the one-state entropy
+     * in a form free of cancellation (capped statistics by particle-hole symmetry), so it keeps its
+     * relative accuracy at low T; labelled particles from the definition.
+     */
     public double entropy() {
-        return lnXi + (energy - mu * meanN) / kT;
+        return entropy;
     }
 
-    /** Heat capacity at fixed &lt;N&gt;, C/k = (Var E - Cov(E,N)^2/Var N)/(kT)^2. */
+    /**
+     * Heat capacity at fixed &lt;N&gt;, C/k = (Var E - Cov(E,N)^2/Var N)/(kT)^2, formed as the weighted
+     * variance sum_i g_i var_i (e_i - mu - d_bar)^2 with d_bar = Cov(E,N)/Var N (non-negative terms,
+     * no difference of large numbers); labelled particles: &lt;N&gt; var_1 / kT^2.
+     */
     public double heatCapacity() {
-        double c = varN > 0 ? (varE - covEN * covEN / varN) / (kT * kT) : varE / (kT * kT);
-        return Math.max(c, 0.0);
+        return fixedNVariance / kT / kT;
     }
 
     /** Mean occupations of every level. */
