@@ -427,7 +427,11 @@ public final class Microcanonical implements Tabular {
         return List.of("E", "Omega", "S_B", "S_G", "beta_B", "beta_G", "C/k", "negative T_B");
     }
 
-    /** One row per grid energy from the lowest accessible one to E_max; undefined cells are "n/a". */
+    /**
+     * One row per grid energy from the lowest accessible one to E_max; undefined cells are "n/a", and a
+     * heat capacity the grid does not resolve ({@link #isHeatCapacityResolved}) is shown as text marked
+     * "(grid artefact?)".
+     */
     @Override
     public List<List<Object>> rows() {
         List<List<Object>> out = new ArrayList<>();
@@ -442,7 +446,8 @@ public final class Microcanonical implements Tabular {
             r.add(hb ? (Object) boltzmannBeta(e) : "n/a");
             boolean hg = e - step >= lo && e + step <= maxE;
             r.add(hg ? (Object) gibbsBeta(e) : "n/a");
-            r.add(hasHeatCapacity(e) ? (Object) heatCapacity(e) : "n/a");
+            r.add(!hasHeatCapacity(e) ? "n/a" : isHeatCapacityResolved(e) ? (Object) heatCapacity(e)
+                    : String.format("%.4g (grid artefact?)", heatCapacity(e)));
             r.add(hb ? (Object) (boltzmannBeta(e) < 0) : "n/a");
             out.add(Collections.unmodifiableList(r));
         }

@@ -82,6 +82,10 @@ final class ResultDisplays {
         List<String> notes = new ArrayList<>();
         notes.add("Omega(n, E): exact number of microstates of n " + t.statistics()
                 + " particles with total energy E quanta.");
+        if (t.completeThroughEnergy() < t.maxEnergy()) {
+            notes.add("The spectrum is truncated: column n sums E <= completeThroughEnergy(n) only (the entries beyond "
+                    + "it would miss microstates with a particle above the cutoff).");
+        }
         if (ns.length < t.maxParticles() + 1) {
             notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles()
                     + " shown; every entry: count(n, E), or Tables.of(table) for all rows.");
@@ -126,6 +130,18 @@ final class ResultDisplays {
      * number (summed over E when energy was counted); every (n, E, L) entry stays available through
      * the rows and {@link Tables#of(Tabular)}.
      */
+    /** Omega(n, L) summed over the energies through which row n is complete (all of them when nothing is cut). */
+    private static java.math.BigInteger completeAtLabel(LabelledCountTable t, int n, int label) {
+        if (t.energyIgnored() || t.completeThroughEnergy(n) >= t.maxEnergy()) {
+            return t.countAtLabel(n, label);
+        }
+        java.math.BigInteger s = java.math.BigInteger.ZERO;
+        for (int e = 0; e <= t.completeThroughEnergy(n); e++) {
+            s = s.add(t.count(n, e, label));
+        }
+        return s;
+    }
+
     static MimeBundle labelledCountTable(LabelledCountTable t) {
         int[] ns = gridColumns(t.maxParticles());
         List<String> names = new ArrayList<>(ns.length + 1);
@@ -140,7 +156,7 @@ final class ResultDisplays {
                 List<Object> row = new ArrayList<>(ns.length + 1);
                 row.add(lo + i);
                 for (int n : ns) {
-                    row.add(t.countAtLabel(n, lo + i));
+                    row.add(completeAtLabel(t, n, lo + i));
                 }
                 return row;
             }
@@ -156,6 +172,10 @@ final class ResultDisplays {
                         + "(every level taking part, energy not constrained)."
                 : "Omega(n, L) = sum over E <= " + t.maxEnergy() + " of Omega(n, E, L), exact, " + t.statistics()
                         + "; the rows of this table hold every (n, E, L).");
+        if (t.completeThroughEnergy() < t.maxEnergy()) {
+            notes.add("The spectrum is truncated: column n sums E <= completeThroughEnergy(n) only (the entries beyond "
+                    + "it would miss microstates with a particle above the cutoff).");
+        }
         if (ns.length < t.maxParticles() + 1) {
             notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles() + " shown.");
         }

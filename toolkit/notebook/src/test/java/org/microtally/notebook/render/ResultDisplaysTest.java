@@ -200,4 +200,21 @@ class ResultDisplaysTest {
         // Source: closed form for a harmonic trap, condensate fraction 1 - (T/Tc)^3 below Tc: 1 - 0.125 = 0.875
         assertEquals("0.875", rowStartingWith(d, CellText.shown(0.5 * tc, TableFormat.DEFAULT)).get(3));
     }
+
+    @Test
+    void aLabelResolvedTableOnATruncatedSpectrumShowsOnlyItsCompleteEnergies() {
+        org.microtally.count.LabelledCountTable t = org.microtally.count.LabelledCountTable.of(
+                Spectra.oscillator2dByAngularMomentum(6), Statistics.FERMI, 3, 12);
+        org.microtally.count.LabelledCountTable ref = org.microtally.count.LabelledCountTable.of(
+                Spectra.oscillator2dByAngularMomentum(12), Statistics.FERMI, 3, 12);
+        MimeBundle b = Renderers.render(t);
+        assertTrue(b.plain().contains("completeThroughEnergy(n)"), b.plain());
+        // Source: independent route, the same counts on a spectrum cut at 12 summed over E <= 6 + E_low(2) = 7
+        BigInteger expected = BigInteger.ZERO;
+        for (int e = 0; e <= t.completeThroughEnergy(3); e++) {
+            expected = expected.add(ref.count(3, e, 1));
+        }
+        assertEquals(7, t.completeThroughEnergy(3));
+        assertTrue(b.plain().contains(expected.toString()), b.plain());
+    }
 }
