@@ -56,8 +56,8 @@ import org.microtally.spectrum.Statistics;
  * <p>Heat capacity and energy variance (computed on first request, or by {@link #warnings()}) propagate,
  * next to the series, the first and second moments of the energy through the same steps, measured from
  * mu* in particle-hole form so that every term is non-negative (see {@link EnergyFluctuations}); the
- * result is checked against U from the occupations and against a central difference dU/dT (two more
- * passes), and a disagreement is a warning.
+ * result is checked against U from the occupations and against a forward difference dU/dT (one more
+ * pass), and a disagreement is a warning.
  *
  * <h2>Accuracy</h2>
  * Rounding: each coefficient is a sum of products of non-negative numbers reached through at most
@@ -76,11 +76,11 @@ import org.microtally.spectrum.Statistics;
  * the series (entries that were never reached or were flushed to zero are skipped, which changes no
  * result), so series whose particle-number distribution is narrow cost far less than N per state;
  * Fermi and Gentile occupations add the backward pass (a second pass of the same kind); Bose
- * occupations add M N. A level of g states with g above about 2 (N + 1) is multiplied in as one
+ * occupations add M N. A level of g states with g above 8 (N + 1) (Bose), 3 (N + 1) (Fermi) is multiplied in as one
  * closed-form factor ({@link LevelFactor}: O(N) to build and O(N^2) to apply, O(N^2 log g) for
  * Gentile), so the cost depends on the number of levels, not of states (two levels of 2^31 - 1
- * states, N = 1000: tens of milliseconds). C_V and Var E add three moment passes when first asked
- * for. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints), checked
+ * states, N = 1000: tens of milliseconds). C_V and Var E add a moment pass and a check pass when
+ * first asked for. Memory: M (N+1) doubles for Fermi/Gentile (or 2 sqrt(M)(N+1) with checkpoints), checked
  * against half the heap before allocating.
  *
  * <p>Limits: ideal (non-interacting) particles only; kT &lt; 0 only for bounded spectra; where the
@@ -645,7 +645,7 @@ public final class Canonical implements Tabular {
         return entropy;
     }
 
-    /** Energy variance &lt;E^2&gt; - U^2 (computed on first request, one more pass). */
+    /** Energy variance &lt;E^2&gt; - U^2 (computed on first request: a moment pass and a check pass; see the class notes). */
     public double energyVariance() {
         return fluctuations().variance;
     }

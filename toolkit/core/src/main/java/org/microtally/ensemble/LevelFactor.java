@@ -27,11 +27,18 @@ final class LevelFactor {
         this.logScale = logScale;
     }
 
-    /** Whether the closed form is cheaper than {@code count} single-state steps on a series of degree n. */
+    /**
+     * Whether the closed form is clearly cheaper than {@code count} single-state steps on a series of
+     * degree n: its convolution costs about width^2 against count x width for the steps, whose inner
+     * loops are faster (Bose steps run four at a time), hence the margins 8 (Bose) and 3 (Fermi).
+     */
     static boolean pays(int count, int cap, int n) {
         long width = Math.min((long) count * Math.min(cap, n), n) + 1L;
-        if (cap == 1 || cap == Integer.MAX_VALUE) {
-            return count > 2 * width;
+        if (cap == Integer.MAX_VALUE) {
+            return count > 8 * width;
+        }
+        if (cap == 1) {
+            return count > 3 * width;
         }
         double log2 = 64 - Long.numberOfLeadingZeros(count);
         return (double) count * (Math.min(cap, n) + 1.0) > 2 * log2 * width + width;
