@@ -107,4 +107,38 @@ class CanonicalTemperatureLimitsTest {
         assertThrows(InvalidInputException.class,
                 () -> Canonical.of(Spectra.twoLevel(1.0), Statistics.FERMI, 1, 0.0));
     }
+
+    @Test
+    void theLimitSharesAPartlyFilledLowestShellAmongItsLevelsAsEnumerationDoes() {
+        Random rnd = new Random(314L);
+        for (int trial = 0; trial < 12; trial++) {
+            Statistics st = ALL[trial % 3];
+            List<Level> levels = new ArrayList<>();
+            int shellStates = 0;
+            int parts = 2 + rnd.nextInt(2);
+            for (int l = 0; l < parts; l++) {
+                int g = 1 + rnd.nextInt(2);
+                levels.add(new Level(0, g, l - 1));
+                shellStates += g;
+            }
+            levels.add(new Level(1.5, 2, 0));
+            Spectrum s = Spectrum.of(levels, org.microtally.units.EnergyScale.abstractUnit("unit"), true,
+                    Double.POSITIVE_INFINITY, "");
+            int capacity = st.capped() ? st.maxOccupancy() * shellStates : 4;
+            int n = 1 + rnd.nextInt(Math.min(4, capacity - 1));
+            Canonical c = Canonical.of(s, st, n, 1e-200);
+            // Source: independent brute-force enumeration at the same kT, where every excited microstate has
+            // weight e^{-1.5e200} = 0 and the ground microstates (all in the lowest shell) weight 1
+            BruteForce ref = new BruteForce(s, st, n, 1e-200);
+            String ctx = st + " n=" + n + " " + s.levels();
+            assertTrue(c.warnings().stream().anyMatch(w -> w.contains("T -> 0 limit")), ctx);
+            for (int j = 0; j <= n; j++) {
+                assertEquals(ref.groundLevelDistribution[j], c.groundLevelDistribution().probability(j), 1e-12,
+                        ctx + " P(N0=" + j + ")");
+            }
+            for (int i = 0; i < s.size(); i++) {
+                assertEquals(ref.perLevel[i], c.occupations().perState(i), 1e-12, ctx + " level " + i);
+            }
+        }
+    }
 }
