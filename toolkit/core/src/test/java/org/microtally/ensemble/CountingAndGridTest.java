@@ -60,6 +60,9 @@ class CountingAndGridTest {
         // derivative: here C = -2.64 at E* = 5 for an ideal gas at positive temperature)
         assertTrue(cmp.notes().stream().anyMatch(s -> s.startsWith("kT = 1.5: the microcanonical C")),
                 cmp.notes().toString());
+        Microcanonical m = Microcanonical.of(counts, 20);
+        assertFalse(m.isHeatCapacityResolved(5));
+        assertTrue(m.rows().stream().anyMatch(r -> r.get(0).equals(5) && String.valueOf(r.get(6)).endsWith("(grid artefact?)")));
         CountTable spins = CountTable.of(Spectra.spinInField(1), Statistics.DISTINGUISHABLE, 20, 40);
         EnsembleComparison fine = EnsembleComparison.overTemperatures(spins, 20, 1.0);
         assertFalse(fine.notes().stream().anyMatch(s -> s.contains("not resolved")), fine.notes().toString());
