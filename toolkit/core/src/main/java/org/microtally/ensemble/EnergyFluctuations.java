@@ -128,7 +128,10 @@ final class EnergyFluctuations {
         double cFluct = var / (kT * kT);
         double cDiff = (up - here) / (h * kT);
         double noise = 8 * (s.stateCount() + (double) n) * 0x1p-53 * (Math.abs(up) + Math.abs(here)) / (h * kT);
-        if (Math.abs(cFluct - cDiff) > C_TOLERANCE * Math.max(cFluct, Math.abs(cDiff)) + noise) {
+        if (!Double.isFinite(cDiff)) {
+            notes.add("internal consistency: the dU/dT check of C_V could not be formed (U at kT(1 + h) = " + up
+                    + "); C_V and Var E are unchecked");
+        } else if (Math.abs(cFluct - cDiff) > C_TOLERANCE * Math.max(cFluct, Math.abs(cDiff)) + noise) {
             notes.add(String.format("internal consistency: C_V from the energy fluctuations (%.10g) and from dU/dT "
                     + "(%.10g, forward difference over kT(1 + %.1g)) disagree; C_V and Var E may be inaccurate",
                     cFluct, cDiff, h));
