@@ -49,13 +49,31 @@ public final class CanonicalMixture implements Tabular {
         this.species = species;
         this.parts = parts;
         this.kT = kT;
+        List<List<String>> each = new ArrayList<>();
+        for (Canonical c : parts) {
+            each.add(c.warnings());
+        }
+        this.warnings = prefixedWarnings(species, each);
+    }
+
+    /** Every species' warnings, each prefixed with the species' name (shared with the grand canonical mixture). */
+    static List<String> prefixedWarnings(List<Species> species, List<List<String>> warnings) {
         List<String> w = new ArrayList<>();
-        for (int a = 0; a < parts.size(); a++) {
-            for (String s : parts.get(a).warnings()) {
+        for (int a = 0; a < species.size(); a++) {
+            for (String s : warnings.get(a)) {
                 w.add(species.get(a).name() + ": " + s);
             }
         }
-        this.warnings = Collections.unmodifiableList(w);
+        return Collections.unmodifiableList(w);
+    }
+
+    /** Runs {@code call} for one species, naming the species in any refusal. */
+    static <T> T forSpecies(Species s, java.util.function.Supplier<T> call) {
+        try {
+            return call.get();
+        } catch (InvalidInputException e) {
+            throw new InvalidInputException("species " + s.name() + ": " + e.getMessage());
+        }
     }
 
     /**
@@ -97,11 +115,8 @@ public final class CanonicalMixture implements Tabular {
     }
 
     private static Canonical compute(Key k, double kT) {
-        try {
-            return Canonical.of(k.species.spectrum(), k.species.statistics(), k.species.particles(), kT);
-        } catch (InvalidInputException e) {
-            throw new InvalidInputException("species " + k.species.name() + ": " + e.getMessage());
-        }
+        Species s = k.species;
+        return forSpecies(s, () -> Canonical.of(s.spectrum(), s.statistics(), s.particles(), kT));
     }
 
     /** Checks the list shared by the canonical and grand canonical mixtures; returns an unmodifiable copy. */

@@ -40,13 +40,11 @@ public final class GrandCanonicalMixture implements Tabular {
         this.species = species;
         this.parts = parts;
         this.kT = kT;
-        List<String> w = new ArrayList<>();
-        for (int a = 0; a < parts.size(); a++) {
-            for (String s : parts.get(a).warnings()) {
-                w.add(species.get(a).name() + ": " + s);
-            }
+        List<List<String>> each = new ArrayList<>();
+        for (GrandCanonical g : parts) {
+            each.add(g.warnings());
         }
-        this.warnings = Collections.unmodifiableList(w);
+        this.warnings = CanonicalMixture.prefixedWarnings(species, each);
     }
 
     /**
@@ -67,11 +65,9 @@ public final class GrandCanonicalMixture implements Tabular {
         List<GrandCanonical> parts = new ArrayList<>();
         for (int a = 0; a < list.size(); a++) {
             Species s = list.get(a);
-            try {
-                parts.add(GrandCanonical.atChemicalPotential(s.spectrum(), s.statistics(), kT, mu[a]));
-            } catch (InvalidInputException e) {
-                throw new InvalidInputException("species " + s.name() + ": " + e.getMessage());
-            }
+            double m = mu[a];
+            parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.atChemicalPotential(s.spectrum(),
+                    s.statistics(), kT, m)));
         }
         return new GrandCanonicalMixture(list, Collections.unmodifiableList(parts), kT);
     }
@@ -90,11 +86,8 @@ public final class GrandCanonicalMixture implements Tabular {
                 throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),
                         "an integer >= 1 as a target mean number", "Leave an empty species out of the list.");
             }
-            try {
-                parts.add(GrandCanonical.atMeanNumber(s.spectrum(), s.statistics(), kT, s.particles()));
-            } catch (InvalidInputException e) {
-                throw new InvalidInputException("species " + s.name() + ": " + e.getMessage());
-            }
+            parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.atMeanNumber(s.spectrum(), s.statistics(),
+                    kT, s.particles())));
         }
         return new GrandCanonicalMixture(list, Collections.unmodifiableList(parts), kT);
     }
