@@ -30,7 +30,9 @@ import org.microtally.spectrum.Statistics;
  * the remaining n get further passes at lower mu*. {@link #passes()} says how many were needed (one
  * when the whole range fits, e.g. bosons or high T; of order N / sqrt(Var_GC N) for cold fermions).
  * Each pass also carries the first energy moment with energies measured from the ground level
- * (non-negative terms only), so U_n = n e_0 + u_n / c_n; for Fermi and Gentile statistics the
+ * (non-negative terms only), so U_n = n e_0 + u_n / c_n, and the second moment v_n (also
+ * non-negative), so Var E_n = v_n / c_n - (u_n / c_n)^2 with its cancellation bounded (absolute
+ * error 2 (S + n) 2^-53 (v_n/c_n + (u_n/c_n)^2), refused above 1e-6 max(Var, kT^2)); for Fermi and Gentile statistics the
  * states are multiplied in one at a time and the moment entries below the series' first non-zero
  * coefficient are zeroed after each (stale entries there would otherwise feed back into the moments
  * as the support moves up). Distinguishable particles use the closed form
@@ -55,16 +57,20 @@ public final class CanonicalSweep implements Tabular {
     private final double kT;
     private final double[] lnZ;
     private final double[] energy;
+    private final double[] energyVariance;
+    private final double[] varianceError;
     private final int passes;
     private final List<String> warnings;
 
     private CanonicalSweep(Spectrum spectrum, Statistics statistics, double kT, double[] lnZ, double[] energy,
-                           int passes, List<String> warnings) {
+                           double[] energyVariance, double[] varianceError, int passes, List<String> warnings) {
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.kT = kT;
         this.lnZ = lnZ;
         this.energy = energy;
+        this.energyVariance = energyVariance;
+        this.varianceError = varianceError;
         this.passes = passes;
         this.warnings = Collections.unmodifiableList(warnings);
     }
@@ -91,6 +97,8 @@ public final class CanonicalSweep implements Tabular {
         double beta = 1 / kT;
         double[] lnZ = new double[maxN + 1];
         double[] u = new double[maxN + 1];
+        double[] var = new double[maxN + 1];
+        double[] varErr = new double[maxN + 1];
         List<String> warnings = new ArrayList<>();
         double e0 = spectrum.groundEnergy();
         if (!statistics.indistinguishable()) {
@@ -102,12 +110,21 @@ public final class CanonicalSweep implements Tabular {
                 z1 += w;
                 m1 += w * d;
             }
+            double mean1 = m1 / z1;
+            double v1 = 0;
+            for (int i = 0; i < spectrum.size(); i++) {
+                double d = spectrum.energy(i) - e0 - mean1;
+                v1 += spectrum.degeneracy(i) * Math.exp(-beta * (spectrum.energy(i) - e0)) * d * d;
+            }
+            v1 /= z1;
             for (int n = 0; n <= maxN; n++) {
                 lnZ[n] = n * (Math.log(z1) - beta * e0);
-                u[n] = n * (e0 + m1 / z1);
+                u[n] = n * (e0 + mean1);
+                var[n] = n * v1;
+                varErr[n] = 4 * spectrum.size() * 0x1p-53 * var[n];
             }
             warnings.addAll(GrandCanonical.atMeanNumber(spectrum, statistics, kT, maxN).warnings());
-            return new CanonicalSweep(spectrum, statistics, kT, lnZ, u, 0, warnings);
+            return new CanonicalSweep(spectrum, statistics, kT, lnZ, u, var, varErr, 0, warnings);
         }
         boolean[] done = new boolean[maxN + 1];
         done[0] = true;
@@ -135,7 +152,13 @@ public final class CanonicalSweep implements Tabular {
                     continue;
                 }
                 lnZ[n] = lc - beta * mu * n;
-                u[n] = n * e0 + z.u[n] / z.c[n];
+                double m1 = z.u[n] / z.c[n];
+                double m2 = z.v[n] / z.c[n];
+                u[n] = n * e0 + m1;
+                var[n] = m2 - m1 * m1;
+                // the three moments carry relative errors <= (S + n) 2^-53 each (non-negative terms), so
+                // the difference has an absolute error below 2 (S + n) 2^-53 (m2 + m1^2)
+                varErr[n] = 2 * (spectrum.stateCount() + n) * 0x1p-53 * (m2 + m1 * m1);
                 done[n] = true;
             }
             if (!done[target]) {
@@ -146,7 +169,7 @@ public final class CanonicalSweep implements Tabular {
                 missing--;
             }
         }
-        return new CanonicalSweep(spectrum, statistics, kT, lnZ, u, passes, warnings);
+        return new CanonicalSweep(spectrum, statistics, kT, lnZ, u, var, varErr, passes, warnings);
     }
 
     /** One forward pass truncated at t^target with the first energy moment from the ground level. */
@@ -234,6 +257,38 @@ public final class CanonicalSweep implements Tabular {
         return energy[n];
     }
 
+    /**
+     * Var E_n = &lt;E^2&gt;_n - U_n^2, from the non-negative moments of E - n e_0 carried in the pass
+     * (a value below 0 by rounding is returned as 0); its absolute error bound is
+     * {@link #energyVarianceError(int)}, which includes the cancellation of the difference.
+     *
+     * @throws InvalidInputException when that bound exceeds 1e-6 max(Var E_n, (kT)^2), i.e. C_n would
+     *                               carry an error above 1e-6 max(C_n, 1); then use {@link Canonical}
+     *                               at this n, which measures energies from U/N
+     */
+    public double energyVariance(int n) {
+        checkN(n, 0, lnZ.length - 1);
+        double v = Math.max(0.0, energyVariance[n]);
+        if (varianceError[n] > 1e-6 * Math.max(v, kT * kT)) {
+            throw InvalidInputException.of("absolute error bound of Var E at n = " + n, varianceError[n],
+                    "<= 1e-6 max(Var E, kT^2) = " + 1e-6 * Math.max(v, kT * kT),
+                    "The spread of the energy is tiny next to its mean excitation here; use Canonical.of(..., " + n
+                            + ", kT).energyVariance().");
+        }
+        return v;
+    }
+
+    /** The absolute error bound of {@link #energyVariance(int)} (rounding times the cancellation). */
+    public double energyVarianceError(int n) {
+        checkN(n, 0, lnZ.length - 1);
+        return varianceError[n];
+    }
+
+    /** C_n/k = Var E_n / (kT)^2, refused like {@link #energyVariance(int)}. */
+    public double heatCapacity(int n) {
+        return energyVariance(n) / (kT * kT);
+    }
+
     /** S_n/k = ln Z_n + U_n/kT. */
     public double entropy(int n) {
         return lnZ(n) + energy(n) / kT;
@@ -266,13 +321,16 @@ public final class CanonicalSweep implements Tabular {
         return warnings;
     }
 
-    /** Columns n, ln Z, F, U, S/k, mu, addition energy, odd-even staggering. */
+    /** Columns n, ln Z, F, U, S/k, C/k, mu, addition energy, odd-even staggering. */
     @Override
     public List<String> columnNames() {
-        return List.of("n", "ln Z", "F", "U", "S/k", "mu", "addition energy", "odd-even staggering");
+        return List.of("n", "ln Z", "F", "U", "S/k", "C/k", "mu", "addition energy", "odd-even staggering");
     }
 
-    /** One row per n = 0..N; cells without a value (mu at n = 0, differences at the ends) are empty strings. */
+    /**
+     * One row per n = 0..N; cells without a value (mu at n = 0, differences at the ends, C where
+     * {@link #heatCapacity(int)} refuses) are empty strings.
+     */
     @Override
     public List<List<Object>> rows() {
         int top = lnZ.length - 1;
@@ -281,7 +339,9 @@ public final class CanonicalSweep implements Tabular {
             Object mu = n >= 1 ? chemicalPotential(n) : "";
             Object add = n >= 1 && n < top ? additionEnergy(n) : "";
             Object stag = n >= 1 && n < top ? oddEvenStaggering(n) : "";
-            r.add(List.of(n, lnZ[n], freeEnergy(n), energy[n], entropy(n), mu, add, stag));
+            double v = Math.max(0.0, energyVariance[n]);
+            Object c = varianceError[n] <= 1e-6 * Math.max(v, kT * kT) ? v / (kT * kT) : "";
+            r.add(List.of(n, lnZ[n], freeEnergy(n), energy[n], entropy(n), c, mu, add, stag));
         }
         return r;
     }

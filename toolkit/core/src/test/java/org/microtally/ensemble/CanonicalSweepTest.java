@@ -32,6 +32,9 @@ class CanonicalSweepTest {
         assertEquals(mu, sweep.chemicalPotential(200), 1e-9);
         double u = QBinomial.energy(b -> QBinomial.fermiLadder(levels, 200, b), 1 / kT);
         assertEquals(u, sweep.energy(200), 1e-8 * u);
+        // deep Fermi sea: Var E is tiny next to the mean excitation, so the sweep refuses it
+        assertTrue(sweep.energyVarianceError(400) > 1e-6 * kT * kT);
+        assertThrows(InvalidInputException.class, () -> sweep.heatCapacity(400));
     }
 
     @Test
@@ -43,6 +46,13 @@ class CanonicalSweepTest {
             // Source: Gaussian binomial closed form Z_n = [n+M-1 choose n]_q (Andrews, Thm 3.1; QBinomial)
             assertEquals(QBinomial.boseLadder(levels, n, 1 / kT), sweep.lnZ(n), 1e-10, "n=" + n);
         }
+        // Source: Var E = d^2 ln Z / d beta^2 of the same closed form, central second difference
+        double beta = 1 / kT;
+        double h = 1e-3 * beta;
+        double d2 = (QBinomial.boseLadder(levels, 300, beta + h) - 2 * QBinomial.boseLadder(levels, 300, beta)
+                + QBinomial.boseLadder(levels, 300, beta - h)) / (h * h);
+        assertEquals(d2, sweep.energyVariance(300), 1e-5 * d2);
+        assertEquals(d2 * beta * beta, sweep.heatCapacity(300), 1e-5 * d2 * beta * beta);
         // Source: common practice, no source (Z_0 = 1, U_0 = 0)
         assertEquals(0.0, sweep.lnZ(0));
         assertEquals(0.0, sweep.energy(0));
@@ -70,6 +80,7 @@ class CanonicalSweepTest {
                     String ctx = st + " n=" + n + " " + s.levels();
                     assertEquals(ref.lnZ(n), sweep.lnZ(n), 1e-12 * Math.max(1, Math.abs(ref.lnZ(n))), ctx);
                     assertEquals(ref.u, sweep.energy(n), 1e-11 * Math.max(1, Math.abs(ref.u)), ctx);
+                    assertEquals(ref.varE, sweep.energyVariance(n), 1e-9 * Math.max(1, ref.varE), ctx);
                 }
             }
         }
