@@ -57,6 +57,7 @@ public final class LabelledCanonical implements Tabular {
     private final int n;
     private final double kT;
     private final double field;
+    private final double scaleMu;
     private final int labelLo;
     private final double[] lnZL;
     private final double[] energyL;
@@ -65,7 +66,8 @@ public final class LabelledCanonical implements Tabular {
     private final double lnZ;
     private final List<String> warnings;
 
-    private LabelledCanonical(Spectrum spectrum, Statistics statistics, int n, double kT, double field, int labelLo,
+    private LabelledCanonical(Spectrum spectrum, Statistics statistics, int n, double kT, double field, double scaleMu,
+                              int labelLo,
                               double[] lnZL, double[] energyL, boolean[] resolved, boolean[] reached,
                               List<String> warnings) {
         this.spectrum = spectrum;
@@ -73,6 +75,7 @@ public final class LabelledCanonical implements Tabular {
         this.n = n;
         this.kT = kT;
         this.field = field;
+        this.scaleMu = scaleMu;
         this.labelLo = labelLo;
         this.lnZL = lnZL;
         this.energyL = energyL;
@@ -134,35 +137,17 @@ public final class LabelledCanonical implements Tabular {
         Spectrum shifted = shifted(spectrum, h);
         double beta = 1 / kT;
         double e0 = spectrum.groundEnergy();
-        LabelSeries z = new LabelSeries(n, minLabel, maxLabel);
         double mu;
         if (statistics.indistinguishable()) {
             mu = ChemicalPotential.forMeanNumber(shifted, statistics, kT,
                     Math.min(n, statistics.capped() ? capacity - 0.5 : n));
-            int cap = statistics.maxOccupancy();
-            for (Level l : spectrum.levels()) {
-                double lnY = -beta * (l.energy() - h * l.label() - mu);
-                for (int g = 0; g < l.degeneracy(); g++) {
-                    z.multiplyState(lnY, l.label(), cap, l.energy() - e0);
-                }
-            }
         } else {
             mu = Double.POSITIVE_INFINITY;
             for (int i = 0; i < shifted.size(); i++) {
                 mu = Math.min(mu, shifted.energy(i));
             }
-            int m = spectrum.size();
-            double[] y = new double[m];
-            int[] labels = new int[m];
-            double[] eps = new double[m];
-            for (int i = 0; i < m; i++) {
-                Level l = spectrum.level(i);
-                y[i] = l.degeneracy() * Math.exp(-beta * (l.energy() - h * l.label() - mu));
-                labels[i] = l.label();
-                eps[i] = l.energy() - e0;
-            }
-            z.labelledParticles(y, labels, eps);
         }
+        LabelSeries z = series(spectrum, statistics, n, beta, h, mu, -1);
         GrandCanonical gc = statistics.indistinguishable()
                 ? GrandCanonical.atChemicalPotential(shifted, statistics, kT, mu) : null;
         // the untruncated total the flushed mantissas are measured against: Xi at (mu*, h) for
@@ -219,8 +204,49 @@ public final class LabelledCanonical implements Tabular {
             warnings.add(unresolved + " label total(s) far in the tails are below the flushing tolerance and are "
                     + "refused by lnZAtLabel; a field h moves the label distribution's peak towards them");
         }
-        return new LabelledCanonical(spectrum, statistics, n, kT, h, z.lo, lnZL, energyL, resolved, reached,
+        return new LabelledCanonical(spectrum, statistics, n, kT, h, mu, z.lo, lnZL, energyL, resolved, reached,
                 warnings);
+    }
+
+    /**
+     * The series of all states (indistinguishable: one state of level {@code skipLevel} left out when
+     * it is >= 0), Boltzmann factors e^{-beta(e - h m - mu)}, energies from the ground level.
+     * Labelled particles: the rows Z_1^k, k = 0..n (skipLevel unused).
+     */
+    static LabelSeries series(Spectrum spectrum, Statistics statistics, int n, double beta, double h, double mu,
+                              int skipLevel) {
+        int minLabel = Integer.MAX_VALUE;
+        int maxLabel = Integer.MIN_VALUE;
+        for (Level l : spectrum.levels()) {
+            minLabel = Math.min(minLabel, l.label());
+            maxLabel = Math.max(maxLabel, l.label());
+        }
+        double e0 = spectrum.groundEnergy();
+        LabelSeries z = new LabelSeries(n, minLabel, maxLabel);
+        if (statistics.indistinguishable()) {
+            int cap = statistics.maxOccupancy();
+            for (int i = 0; i < spectrum.size(); i++) {
+                Level l = spectrum.level(i);
+                double lnY = -beta * (l.energy() - h * l.label() - mu);
+                int states = i == skipLevel ? l.degeneracy() - 1 : l.degeneracy();
+                for (int g = 0; g < states; g++) {
+                    z.multiplyState(lnY, l.label(), cap, l.energy() - e0);
+                }
+            }
+        } else {
+            int m = spectrum.size();
+            double[] y = new double[m];
+            int[] labels = new int[m];
+            double[] eps = new double[m];
+            for (int i = 0; i < m; i++) {
+                Level l = spectrum.level(i);
+                y[i] = l.degeneracy() * Math.exp(-beta * (l.energy() - h * l.label() - mu));
+                labels[i] = l.label();
+                eps[i] = l.energy() - e0;
+            }
+            z.labelledParticles(y, labels, eps);
+        }
+        return z;
     }
 
     /**
@@ -280,6 +306,11 @@ public final class LabelledCanonical implements Tabular {
     private int index(int labelTotal) {
         long i = (long) labelTotal - labelLo;
         return i < 0 || i >= lnZL.length ? -1 : (int) i;
+    }
+
+    /** The chemical potential that scales the Boltzmann factors of the series (package use). */
+    double scaleChemicalPotential() {
+        return scaleMu;
     }
 
     /** Whether some microstate has total label L (Z(L) &gt; 0 and resolved). */
