@@ -47,17 +47,17 @@ public final class MicrocanonicalLevelNumber implements Tabular {
     private final Statistics statistics;
     private final int n;
     private final int e;
-    private final int level;
+    private final int[] levels;
     private final BigInteger[] counts;
     private final BigInteger total;
 
-    private MicrocanonicalLevelNumber(Spectrum spectrum, Statistics statistics, int n, int e, int level,
+    private MicrocanonicalLevelNumber(Spectrum spectrum, Statistics statistics, int n, int e, int[] levels,
                                       BigInteger[] counts, BigInteger total) {
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.n = n;
         this.e = e;
-        this.level = level;
+        this.levels = levels;
         this.counts = counts;
         this.total = total;
     }
@@ -123,7 +123,68 @@ public final class MicrocanonicalLevelNumber implements Tabular {
             throw InvalidInputException.of("(N, E)", "(" + n + ", " + e + ")", "a macrostate with at least one microstate",
                     "Check CountTable.isZero(N, E) first; E must be reachable with N particles.");
         }
-        return new MicrocanonicalLevelNumber(spectrum, statistics, n, e, level, counts, total);
+        return new MicrocanonicalLevelNumber(spectrum, statistics, n, e, new int[] {level}, counts, total);
+    }
+
+    /**
+     * The distribution of the number of particles in a group of levels (all their states together),
+     * for example every level below the Fermi energy: Omega_G(j) = sum_e' Omega_G(j, e') Omega_R(N - j, E - e')
+     * (times C(N, j) for labelled particles, which j of them are in the group), with Omega_G and
+     * Omega_R the exact count tables of the group's and of the remaining levels. Exact; the sum over j
+     * is checked to equal Omega(N, E) from a third, independent route (the single-level formula).
+     * Cost: three count tables to (N, E).
+     *
+     * @throws InvalidInputException as for {@link #of}, or for an empty, repeated or out-of-range
+     *                               level index
+     */
+    public static MicrocanonicalLevelNumber ofLevels(Spectrum spectrum, Statistics statistics, int n, int e,
+                                                     int... levelIndices) {
+        Objects.requireNonNull(levelIndices, "levelIndices");
+        if (levelIndices.length == 0) {
+            throw InvalidInputException.of("number of levels in the group", 0, ">= 1", "");
+        }
+        boolean[] inGroup = new boolean[spectrum.size()];
+        for (int l : levelIndices) {
+            if (l < 0 || l >= spectrum.size() || inGroup[l]) {
+                throw InvalidInputException.of("level index in the group", l,
+                        "distinct indices in [0, " + (spectrum.size() - 1) + "]", "");
+            }
+            inGroup[l] = true;
+        }
+        // validates N, E, integer energies and the cutoff, and gives Omega(N, E) for the consistency check
+        BigInteger whole = of(spectrum, statistics, n, e, levelIndices[0]).totalCount();
+        List<Level> group = new ArrayList<>();
+        List<Level> others = new ArrayList<>();
+        for (int i = 0; i < spectrum.size(); i++) {
+            (inGroup[i] ? group : others).add(spectrum.level(i));
+        }
+        CountTable tg = CountTable.of(subset(spectrum, group), statistics, n, e);
+        CountTable tr = others.isEmpty() ? null : CountTable.of(subset(spectrum, others), statistics, n, e);
+        BigInteger[] counts = new BigInteger[n + 1];
+        BigInteger total = BigInteger.ZERO;
+        for (int j = 0; j <= n; j++) {
+            BigInteger c = BigInteger.ZERO;
+            for (int eg = 0; eg <= e; eg++) {
+                BigInteger a = tg.count(j, eg);
+                if (a.signum() == 0) {
+                    continue;
+                }
+                BigInteger b = tr == null ? (n - j == 0 && e - eg == 0 ? BigInteger.ONE : BigInteger.ZERO)
+                        : tr.count(n - j, e - eg);
+                c = c.add(a.multiply(b));
+            }
+            counts[j] = statistics.indistinguishable() ? c : c.multiply(Combinatorics.binomial(n, j));
+            total = total.add(counts[j]);
+        }
+        if (!total.equals(whole)) {
+            throw new IllegalStateException("group counts sum to " + total + ", not Omega(N, E) = " + whole
+                    + "; please report this input");
+        }
+        return new MicrocanonicalLevelNumber(spectrum, statistics, n, e, levelIndices.clone(), counts, total);
+    }
+
+    private static Spectrum subset(Spectrum s, List<Level> levels) {
+        return Spectrum.of(levels, s.scale(), s.isLabelled(), s.cutoffEnergy(), s.cutoffNote());
     }
 
     /** Ways to put j particles into the level's g states (distinguishable: choose the j of n, then a state each). */
@@ -216,9 +277,9 @@ public final class MicrocanonicalLevelNumber implements Tabular {
         return e;
     }
 
-    /** Index of the level in the spectrum. */
-    public int level() {
-        return level;
+    /** Indices of the level (or of the group of levels) counted. */
+    public int[] levels() {
+        return levels.clone();
     }
 
     /** The spectrum. */
@@ -251,7 +312,8 @@ public final class MicrocanonicalLevelNumber implements Tabular {
 
     @Override
     public String toString() {
-        return "MicrocanonicalLevelNumber[" + statistics + ", N=" + n + ", E=" + e + ", level " + level + ", <N_l>="
+        return "MicrocanonicalLevelNumber[" + statistics + ", N=" + n + ", E=" + e + ", levels "
+                + java.util.Arrays.toString(levels) + ", <N_l>="
                 + mean() + ", Var=" + variance() + "]";
     }
 }

@@ -70,6 +70,39 @@ class MicrocanonicalLevelNumberTest {
         }
     }
 
+    @Test
+    void groupsOfLevelsAgreeWithListedMicrostates() {
+        Spectrum s = Spectrum.of(List.of(new Level(0, 2), new Level(1, 1), new Level(2, 3), new Level(4, 2)));
+        for (Statistics st : List.of(Statistics.BOSE, Statistics.FERMI, Statistics.maxOccupancy(2),
+                Statistics.DISTINGUISHABLE)) {
+            int n = 4;
+            int total = 6;
+            MicrostateEnumerator en = MicrostateEnumerator.of(s, st);
+            int[] levelOf = en.stateLevels(total);
+            long[] tally = new long[n + 1];
+            // Source: independent brute force, every microstate listed (MicrostateEnumerator); group = levels 0 and 2
+            en.microstates(n, total).forEach(m -> {
+                int in = 0;
+                if (st.indistinguishable()) {
+                    for (int k = 0; k < m.length; k++) {
+                        in += levelOf[k] == 0 || levelOf[k] == 2 ? m[k] : 0;
+                    }
+                } else {
+                    for (int state : m) {
+                        in += levelOf[state] == 0 || levelOf[state] == 2 ? 1 : 0;
+                    }
+                }
+                tally[in]++;
+            });
+            MicrocanonicalLevelNumber d = MicrocanonicalLevelNumber.ofLevels(s, st, n, total, 0, 2);
+            for (int j = 0; j <= n; j++) {
+                assertEquals(BigInteger.valueOf(tally[j]), d.count(j), st + " j=" + j);
+            }
+        }
+        assertThrows(InvalidInputException.class, () -> MicrocanonicalLevelNumber.ofLevels(s, Statistics.BOSE, 2, 2, 1, 1));
+        assertThrows(InvalidInputException.class, () -> MicrocanonicalLevelNumber.ofLevels(s, Statistics.BOSE, 2, 2));
+    }
+
     /** p(n, k), partitions of n into exactly k parts, by the recurrence given in OEIS A008284. */
     private static BigInteger[][] partitionsIntoParts(int max) {
         BigInteger[][] p = new BigInteger[max + 1][max + 1];
