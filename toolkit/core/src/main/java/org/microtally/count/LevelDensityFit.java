@@ -113,6 +113,11 @@ public final class LevelDensityFit implements Tabular {
                     + "]: " + e.getMessage() + ". Choose a window well above the ground state.");
         }
         RealVector p = opt.getPoint();
+        if (!(p.getEntry(0) > 1e-9) || !(p.getEntry(1) < xMin - 1e-6)) {
+            throw new InvalidInputException("level-density fit on bins [" + fromBin + ", " + toBin + "] ran to the edge "
+                    + "of its domain (a = " + p.getEntry(0) + ", Delta = " + p.getEntry(1) + ", lowest excitation "
+                    + xMin + "): the counts do not follow the formula there. Choose a window well above the ground state.");
+        }
         return new LevelDensityFit(p.getEntry(0), p.getEntry(1), eGs, opt.getRMS(), x.length);
     }
 

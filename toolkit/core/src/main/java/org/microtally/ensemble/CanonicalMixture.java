@@ -220,11 +220,21 @@ public final class CanonicalMixture implements Tabular {
         return lnZ() + energy() / kT;
     }
 
-    /** Var E = sum_a Var E_a (independent species). */
+    /**
+     * Var E = sum_a Var E_a (independent species).
+     *
+     * @throws IllegalStateException if a species' variance came back negative or not finite (a failed
+     *                               computation must not pass silently into the total)
+     */
     public double energyVariance() {
         double s = 0;
-        for (Canonical c : parts) {
-            s += c.energyVariance();
+        for (int a = 0; a < parts.size(); a++) {
+            double v = parts.get(a).energyVariance();
+            if (!(v >= 0) || !Double.isFinite(v)) {
+                throw new IllegalStateException("energy variance of species " + species.get(a).name() + " is " + v
+                        + ": the canonical variance pass failed for this input; please report it");
+            }
+            s += v;
         }
         return s;
     }
@@ -258,11 +268,19 @@ public final class CanonicalMixture implements Tabular {
         for (int a = 0; a < parts.size(); a++) {
             Canonical c = parts.get(a);
             Species s = species.get(a);
+            double ca = c.heatCapacity();
             r.add(List.of(s.name(), s.statistics().toString(), s.particles(), c.lnZ(), c.energy(), c.entropy(),
-                    c.heatCapacity(), c.groundLevelDistribution().mean(), c.groundLevelDistribution().variance(),
+                    Double.isFinite(ca) ? ca : "failed", c.groundLevelDistribution().mean(),
+                    c.groundLevelDistribution().variance(),
                     String.join("; ", c.warnings())));
         }
-        r.add(List.of("total", "", particleNumber(), lnZ(), energy(), entropy(), heatCapacity(), "", "",
+        Object total;
+        try {
+            total = heatCapacity();
+        } catch (IllegalStateException e) {
+            total = "failed";
+        }
+        r.add(List.of("total", "", particleNumber(), lnZ(), energy(), entropy(), total, "", "",
                 warnings.isEmpty() ? "" : warnings.size() + " warning(s)"));
         return r;
     }
