@@ -11,8 +11,8 @@ import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
 /**
- * The grand canonical ensemble (T, mu, field h) of capped particles (Fermi or at most k per state) on a
- * finite labelled spectrum, resolved by the total label L: Xi(L), and at fixed L the mean particle
+ * The grand canonical ensemble (T, mu, field h) of indistinguishable particles on a complete finite
+ * labelled spectrum (a shell, a spinor condensate's m_F states), resolved by the total label L: Xi(L), and at fixed L the mean particle
  * number, its variance and the mean energy. Immutable.
  *
  * <h2>Definitions</h2>
@@ -24,14 +24,19 @@ import org.microtally.spectrum.Statistics;
  * <h2>Method</h2>
  * The two-variable positive-term series of {@link LabelledCanonical} in particle number and label,
  * built with the unscaled factors y_s = e^{-beta (e_s - h m_s - mu)} (capped factors with y &gt; 1
- * divided by y^k first), taken to every particle number up to the spectrum's capacity k S, so nothing
- * is truncated: Xi(L) = sum_n c[n][L]. Memory 2 (kS + 1) W doubles with W = kS x (label range) + 1,
- * refused above half the heap; that is why only finite capped spectra (shells, small dots) are taken.
+ * divided by y^k first), taken to every particle number up to the spectrum's capacity k S (capped
+ * statistics: nothing is truncated) or, for bosons, up to n_max = (K + 60)/theta where the Chernoff
+ * bound P(N &gt; n_max) &lt;= e^{K - theta (n_max + 1)} with theta = beta (e'_min - mu)/2 and
+ * K = sum_s ln[(1 - y_s)/(1 - y_s e^theta)] is below e^-60 (e'_min the lowest field-shifted level; the
+ * bound is the exponential Markov inequality for independent geometric occupations, common practice,
+ * no source): Xi(L) = sum_n c[n][L]. Memory 2 (n_max + 1) W doubles with W = n_max x (label range) + 1,
+ * refused above half the heap; that is why only complete finite spectra are taken.
  *
  * <h2>Accuracy</h2>
  * Sums of non-negative terms: relative rounding error below (S + kS) 2^-53; flushed mantissas add at
- * most S (kS + 1) W 2^-1073 / P(L) relative (P(L) = Xi(L)/Xi); labels where that exceeds 1e-12, and
- * labels no microstate reaches, are refused by the accessors ({@link #hasLabel} tells which).
+ * most S (n_max + 1) W 2^-1073 / P(L) relative (P(L) = Xi(L)/Xi), the bosonic truncation at most
+ * e^{K - theta(n_max+1)} / P(L); labels where either exceeds 1e-12, and labels no microstate reaches
+ * (up to n_max), are refused by the accessors ({@link #hasLabel} tells which).
  */
 public final class LabelResolvedGrandCanonical implements Tabular {
     private static final double FLUSH_TOLERANCE = 1e-12;
@@ -71,16 +76,39 @@ public final class LabelResolvedGrandCanonical implements Tabular {
                                                  double h) {
         Objects.requireNonNull(spectrum, "spectrum");
         Objects.requireNonNull(statistics, "statistics");
-        if (!statistics.capped()) {
-            throw InvalidInputException.of("statistics", statistics, "FERMI or maxOccupancy(k)",
-                    "Uncapped particle numbers have no finite upper end; use LabelledCanonical at each N.");
+        if (!statistics.indistinguishable()) {
+            throw InvalidInputException.of("statistics", statistics, "BOSE, FERMI or maxOccupancy(k)",
+                    "Labelled particles have no grand canonical ensemble here; use LabelledCanonical at each N.");
         }
         if (spectrum.isTruncated()) {
             throw InvalidInputException.of("spectrum cutoff", spectrum.cutoffEnergy(), "none (a complete, finite spectrum)",
                     "Every particle number up to the capacity is summed, so omitted levels would be missed.");
         }
         LabelledGrandCanonical field = LabelledGrandCanonical.inField(spectrum, statistics, kT, mu, h);
-        long capacity = (long) statistics.maxOccupancy() * spectrum.stateCount();
+        double beta = 1 / kT;
+        double lnTail = Double.NEGATIVE_INFINITY;
+        long capacity;
+        if (statistics.capped()) {
+            capacity = (long) statistics.maxOccupancy() * spectrum.stateCount();
+        } else {
+            // bosons: truncate the particle number where a Chernoff bound puts the rest below e^-60
+            double gap = Double.POSITIVE_INFINITY;
+            for (Level l : spectrum.levels()) {
+                gap = Math.min(gap, beta * (l.energy() - h * l.label() - mu));
+            }
+            double theta = gap / 2;
+            double k = 0;
+            for (Level l : spectrum.levels()) {
+                double lnY = -beta * (l.energy() - h * l.label() - mu);
+                k += l.degeneracy() * (Math.log(-Math.expm1(lnY)) - Math.log(-Math.expm1(lnY + theta)));
+            }
+            capacity = (long) Math.ceil((k + 60) / theta);
+            if (capacity > 100_000) {
+                throw InvalidInputException.of("particle numbers to sum for bosons", capacity, "at most 100000",
+                        "mu is too close to the lowest (field-shifted) level; lower mu or raise kT.");
+            }
+            lnTail = k - theta * (capacity + 1);
+        }
         int minLabel = Integer.MAX_VALUE;
         int maxLabel = Integer.MIN_VALUE;
         for (Level l : spectrum.levels()) {
@@ -95,7 +123,6 @@ public final class LabelResolvedGrandCanonical implements Tabular {
                             limit / (1 << 20)), "Use a smaller spectrum, or LabelledCanonical at fixed N.");
         }
         int nMax = (int) capacity;
-        double beta = 1 / kT;
         double e0 = spectrum.groundEnergy();
         LabelSeries z = new LabelSeries(nMax, minLabel, maxLabel);
         for (Level l : spectrum.levels()) {
@@ -104,10 +131,7 @@ public final class LabelResolvedGrandCanonical implements Tabular {
                 z.multiplyState(lnY, l.label(), statistics.maxOccupancy(), l.energy() - e0);
             }
         }
-        BigInteger[] reach = new BigInteger[nMax + 1];
-        for (int n = 0; n <= nMax; n++) {
-            reach[n] = LabelledCanonical.reachableLabels(spectrum, statistics, n, z.lo);
-        }
+        BigInteger[] reach = LabelledCanonical.reachableRows(spectrum, statistics, nMax, z.lo);
         double lnBase = Math.log((double) spectrum.stateCount() * (nMax + 1.0) * z.width) - 1073 * Math.log(2.0)
                 - Math.log(FLUSH_TOLERANCE);
         double[] lnXiL = new double[z.width];
@@ -128,7 +152,9 @@ public final class LabelResolvedGrandCanonical implements Tabular {
                 reached |= reach[n].testBit(i);
             }
             lnXiL[i] = s0 > 0 ? Math.log(s0) + z.logScale : Double.NEGATIVE_INFINITY;
-            usable[i] = reached && s0 > 0 && lnBase - (lnXiL[i] - field.ensemble().lnXi()) <= 0;
+            double lnP = lnXiL[i] - field.ensemble().lnXi();
+            // flushing, and (bosons) the particle numbers beyond nMax, each below 1e-12 relative
+            usable[i] = reached && s0 > 0 && lnBase - lnP <= 0 && lnTail - lnP <= Math.log(FLUSH_TOLERANCE);
             if (s0 > 0) {
                 meanN[i] = s1 / s0;
                 double v = 0;

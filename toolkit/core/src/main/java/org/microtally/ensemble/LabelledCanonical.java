@@ -255,6 +255,11 @@ public final class LabelledCanonical implements Tabular {
      * flushed one.
      */
     static BigInteger reachableLabels(Spectrum s, Statistics st, int n, int lo) {
+        return reachableRows(s, st, n, lo)[n];
+    }
+
+    /** As {@link #reachableLabels}, for every particle number 0..n at once (row k: k particles). */
+    static BigInteger[] reachableRows(Spectrum s, Statistics st, int n, int lo) {
         BigInteger[] row = new BigInteger[n + 1];
         java.util.Arrays.fill(row, BigInteger.ZERO);
         row[0] = BigInteger.ONE.shiftLeft(-lo);
@@ -266,7 +271,7 @@ public final class LabelledCanonical implements Tabular {
                 }
                 row[k] = acc;
             }
-            return row[n];
+            return row;
         }
         int cap = st.maxOccupancy();
         for (Level l : s.levels()) {
@@ -284,7 +289,7 @@ public final class LabelledCanonical implements Tabular {
                 }
             }
         }
-        return row[n];
+        return row;
     }
 
     private static BigInteger shift(BigInteger bits, int by) {

@@ -8,6 +8,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.count.LabelledCountTable;
+import org.microtally.spectrum.Level;
 import org.microtally.spectrum.ShellOrbits;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
@@ -57,8 +58,31 @@ class LabelResolvedGrandCanonicalTest {
     }
 
     @Test
+    void twoBosonModesOfOppositeLabelFollowTheGeometricSums() {
+        Spectrum modes = Spectrum.of(List.of(new Level(0.2, 1, 1), new Level(0.5, 1, -1)),
+                EnergyScale.abstractUnit("unit"), true, Double.POSITIVE_INFINITY, "");
+        double kT = 1.0;
+        double mu = -0.3;
+        LabelResolvedGrandCanonical g = LabelResolvedGrandCanonical.of(modes, Statistics.BOSE, kT, mu, 0.0);
+        double y1 = Math.exp(-(0.2 - mu) / kT);
+        double y2 = Math.exp(-(0.5 - mu) / kT);
+        double x = y1 * y2;
+        for (int l = -6; l <= 6; l++) {
+            // Source: closed form, Xi(L) = sum_b y1^(L+b) y2^b = y1^L / (1 - y1 y2) for L >= 0 (y2^|L| for L < 0),
+            // <N>_L = |L| + 2 x / (1 - x) with x = y1 y2 (geometric series; common practice, no source)
+            double lnXi = (l >= 0 ? l * Math.log(y1) : -l * Math.log(y2)) - Math.log1p(-x);
+            assertEquals(lnXi, g.lnXiAtLabel(l), 1e-12 * Math.max(1, Math.abs(lnXi)), "L=" + l);
+            assertEquals(Math.abs(l) + 2 * x / (1 - x), g.meanNumberAtLabel(l), 1e-11, "L=" + l);
+        }
+        // Source: closed form ln Xi = -ln(1 - y1) - ln(1 - y2) summed over all labels
+        assertEquals(-Math.log1p(-y1) - Math.log1p(-y2), g.lnXi(), 1e-14);
+    }
+
+    @Test
     void uncappedOrTruncatedInputsAreRefused() {
-        assertThrows(InvalidInputException.class, () -> LabelResolvedGrandCanonical.of(SD, Statistics.BOSE, 1, -1, 0));
+        assertThrows(InvalidInputException.class, () -> LabelResolvedGrandCanonical.of(SD, Statistics.DISTINGUISHABLE, 1,
+                -1, 0));
+        assertThrows(InvalidInputException.class, () -> LabelResolvedGrandCanonical.of(SD, Statistics.BOSE, 1, 0.5, 0));
         assertThrows(InvalidInputException.class, () -> LabelResolvedGrandCanonical.of(
                 Spectra.oscillator2dByAngularMomentum(4), Statistics.FERMI, 1, 1, 0));
         LabelResolvedGrandCanonical g = LabelResolvedGrandCanonical.of(SD, Statistics.FERMI, 1, 1, 0);
