@@ -49,18 +49,15 @@ public final class CanonicalMixture implements Tabular {
         this.species = species;
         this.parts = parts;
         this.kT = kT;
-        List<List<String>> each = new ArrayList<>();
-        for (Canonical c : parts) {
-            each.add(c.warnings());
-        }
-        this.warnings = prefixedWarnings(species, each);
+        this.warnings = prefixedWarnings(species, parts, Canonical::warnings);
     }
 
     /** Every species' warnings, each prefixed with the species' name (shared with the grand canonical mixture). */
-    static List<String> prefixedWarnings(List<Species> species, List<List<String>> warnings) {
+    static <T> List<String> prefixedWarnings(List<Species> species, List<T> parts,
+                                             java.util.function.Function<T, List<String>> warningsOf) {
         List<String> w = new ArrayList<>();
         for (int a = 0; a < species.size(); a++) {
-            for (String s : warnings.get(a)) {
+            for (String s : warningsOf.apply(parts.get(a))) {
                 w.add(species.get(a).name() + ": " + s);
             }
         }

@@ -40,11 +40,7 @@ public final class GrandCanonicalMixture implements Tabular {
         this.species = species;
         this.parts = parts;
         this.kT = kT;
-        List<List<String>> each = new ArrayList<>();
-        for (GrandCanonical g : parts) {
-            each.add(g.warnings());
-        }
-        this.warnings = CanonicalMixture.prefixedWarnings(species, each);
+        this.warnings = CanonicalMixture.prefixedWarnings(species, parts, GrandCanonical::warnings);
     }
 
     /**

@@ -124,13 +124,7 @@ public final class LabelResolvedGrandCanonical implements Tabular {
         }
         int nMax = (int) capacity;
         double e0 = spectrum.groundEnergy();
-        LabelSeries z = new LabelSeries(nMax, minLabel, maxLabel);
-        for (Level l : spectrum.levels()) {
-            double lnY = -beta * (l.energy() - h * l.label() - mu);
-            for (int g = 0; g < l.degeneracy(); g++) {
-                z.multiplyState(lnY, l.label(), statistics.maxOccupancy(), l.energy() - e0);
-            }
-        }
+        LabelSeries z = LabelledCanonical.series(spectrum, statistics, nMax, beta, h, mu, -1);
         BigInteger[] reach = LabelledCanonical.reachableRows(spectrum, statistics, nMax, z.lo);
         double lnBase = Math.log((double) spectrum.stateCount() * (nMax + 1.0) * z.width) - 1073 * Math.log(2.0)
                 - Math.log(FLUSH_TOLERANCE);
