@@ -88,6 +88,11 @@ class ShellDimensionsTest {
             // Source: independent brute force over all pairs of proton and neutron m-states
             assertEquals(BigInteger.valueOf(sum), ne.mScheme(twoM), "2M=" + twoM);
         }
+        // Source: common practice, no source (basis dimensions do not depend on the single-particle
+        // energies; with all three orbits degenerate their m-states merge into degenerate levels)
+        ShellOrbits flat = ShellOrbits.sdShell(MEV, 0, 0, 0);
+        assertEquals(BigInteger.valueOf(640), ShellDimensions.of(flat, 2, flat, 2).mScheme(0));
+        assertEquals(ne.jProjected(4), ShellDimensions.of(flat, 2, flat, 2).jProjected(4));
         // Source: closed form, total Slater determinants C(12, 2)^2 = 4356
         assertEquals(BigInteger.valueOf(66L * 66), ne.totalDimension());
         BigInteger weighted = BigInteger.ZERO;
