@@ -2,6 +2,7 @@ package org.microtally.count;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -35,6 +36,48 @@ class SingleNumberCountsTest {
                 // Source: the full exact table (CountTable, an independent level-by-level recursion)
                 assertEquals(full.count(n, k), single.count(k), levels + " n=" + n + " e=" + k);
             }
+        }
+    }
+
+    @Test
+    void indistinguishableRowsAgreeWithTheFullTable() {
+        Random rnd = new Random(777L);
+        for (Statistics st : List.of(Statistics.BOSE, Statistics.FERMI, Statistics.maxOccupancy(3))) {
+            for (int trial = 0; trial < 6; trial++) {
+                List<Level> levels = new ArrayList<>();
+                int e = rnd.nextInt(2);
+                for (int i = 0; i < 3 + rnd.nextInt(5); i++) {
+                    levels.add(new Level(e, 1 + rnd.nextInt(4)));
+                    e += 1 + rnd.nextInt(2);
+                }
+                Spectrum s = Spectrum.of(levels);
+                int n = 1 + rnd.nextInt(9);
+                int maxE = 40;
+                SingleNumberCounts single = SingleNumberCounts.of(s, st, n, maxE);
+                CountTable full = CountTable.of(s, st, n, maxE);
+                for (int k = 0; k <= maxE; k++) {
+                    // Source: the full exact table (CountTable: 61-bit primes in parallel or plain BigInteger)
+                    assertEquals(full.count(n, k), single.count(k), st + " " + levels + " n=" + n + " e=" + k);
+                }
+            }
+        }
+        // large counts need several primes: 30 bosons on a 3D oscillator, against the full table
+        Spectrum osc = Spectra.harmonicOscillator(3, 30);
+        SingleNumberCounts big = SingleNumberCounts.of(osc, Statistics.BOSE, 30, 60);
+        // Source: the full exact table (CountTable)
+        assertEquals(CountTable.of(osc, Statistics.BOSE, 30, 60).count(30, 60), big.count(60));
+        assertTrue(big.count(60).bitLength() > 60);
+    }
+
+    @Test
+    void spinOneBosonsFollowTheClosedForm() {
+        int n = 400;
+        SingleNumberCounts t = SingleNumberCounts.of(Spectrum.ofEnergies(0, 1, 2), Statistics.BOSE, n, 2 * n);
+        for (int e = 0; e <= 2 * n; e += 37) {
+            // Source: closed form, (n0, n1, n2) with n0 + n1 + n2 = N and n1 + 2 n2 = e:
+            // floor(e/2) - max(0, e - N) + 1 choices of n2 (common practice, no source)
+            long expected = e / 2 - Math.max(0, e - n) + 1;
+            assertEquals(BigInteger.valueOf(expected), t.count(e), "e=" + e);
         }
     }
 
@@ -91,8 +134,6 @@ class SingleNumberCountsTest {
 
     @Test
     void refusesWhatItDoesNotCover() {
-        assertThrows(InvalidInputException.class,
-                () -> SingleNumberCounts.of(Spectra.twoLevel(1), Statistics.BOSE, 3, 3));
         assertThrows(InvalidInputException.class,
                 () -> SingleNumberCounts.of(Spectrum.ofEnergies(0, 0.5), Statistics.DISTINGUISHABLE, 3, 3));
         assertThrows(InvalidInputException.class, () -> ClosedFormBlocks.einsteinSolid(0, 3));
