@@ -23,7 +23,8 @@ import org.microtally.Tabular;
  * (H. A. Bethe, Phys. Rev. 50, 332 (1936); T. Ericson, Adv. Phys. 9, 425 (1960)) with the
  * excitation energy shifted by Delta (the back-shifted Fermi gas: W. Dilg, W. Schantl, H. Vonach and
  * M. Uhl, Nucl. Phys. A217, 269 (1973)); all from memory. For equally spaced single-particle levels
- * of total density g (both kinds), a = pi^2 g / 6. Immutable.
+ * of total density g (both kinds), a = pi^2 g / 6. {@link #fit} fits a and Delta (back-shifted Fermi
+ * gas); {@link #fitBethe} fits a alone with Delta = 0 (the Bethe formula). Immutable.
  *
  * <p><b>Method.</b> Least squares on the logarithm, sum over non-empty bins K in the window of
  * (ln omega(E_K) - ln(Omega_K / delta))^2, by Levenberg-Marquardt (J. J. More, Lecture Notes in
@@ -67,6 +68,18 @@ public final class LevelDensityFit implements Tabular {
      *                               window beyond the cutoff-complete bins, or a fit that does not converge
      */
     public static LevelDensityFit fit(BinnedCounts counts, int fromBin, int toBin) {
+        return fit(counts, fromBin, toBin, true);
+    }
+
+    /**
+     * The plain Bethe formula (Delta = 0, a fitted alone) on bins {@code fromBin..toBin}; refusals as
+     * for {@link #fit(BinnedCounts, int, int)}.
+     */
+    public static LevelDensityFit fitBethe(BinnedCounts counts, int fromBin, int toBin) {
+        return fit(counts, fromBin, toBin, false);
+    }
+
+    private static LevelDensityFit fit(BinnedCounts counts, int fromBin, int toBin, boolean withShift) {
         if (fromBin < 0 || toBin > counts.bins() || fromBin >= toBin) {
             throw InvalidInputException.of("fit window", "[" + fromBin + ", " + toBin + "]",
                     "within [0, " + counts.bins() + "] with from < to", "");
@@ -102,8 +115,8 @@ public final class LevelDensityFit implements Tabular {
         LeastSquaresOptimizer.Optimum opt;
         try {
             opt = new LevenbergMarquardtOptimizer().optimize(new LeastSquaresBuilder()
-                    .start(new double[] {a0, 0.0})
-                    .model(p -> model(p, x, xMin))
+                    .start(withShift ? new double[] {a0, 0.0} : new double[] {a0})
+                    .model(p -> model(p, x, xMin, withShift))
                     .target(y)
                     .maxEvaluations(1000)
                     .maxIterations(1000)
@@ -113,25 +126,28 @@ public final class LevelDensityFit implements Tabular {
                     + "]: " + e.getMessage() + ". Choose a window well above the ground state.");
         }
         RealVector p = opt.getPoint();
-        if (!(p.getEntry(0) > 1e-9) || !(p.getEntry(1) < xMin - 1e-6)) {
+        double shift = withShift ? p.getEntry(1) : 0.0;
+        if (!(p.getEntry(0) > 1e-9) || !(shift < xMin - 1e-6)) {
             throw new InvalidInputException("level-density fit on bins [" + fromBin + ", " + toBin + "] ran to the edge "
-                    + "of its domain (a = " + p.getEntry(0) + ", Delta = " + p.getEntry(1) + ", lowest excitation "
+                    + "of its domain (a = " + p.getEntry(0) + ", Delta = " + shift + ", lowest excitation "
                     + xMin + "): the counts do not follow the formula there. Choose a window well above the ground state.");
         }
-        return new LevelDensityFit(p.getEntry(0), p.getEntry(1), eGs, opt.getRMS(), x.length);
+        return new LevelDensityFit(p.getEntry(0), shift, eGs, opt.getRMS(), x.length);
     }
 
     /** Model values and Jacobian; parameters are kept in the domain a &gt; 0, Delta &lt; smallest x. */
-    private static Pair<RealVector, RealMatrix> model(RealVector p, double[] x, double xMin) {
+    private static Pair<RealVector, RealMatrix> model(RealVector p, double[] x, double xMin, boolean withShift) {
         double a = Math.max(1e-12, p.getEntry(0));
-        double d = Math.min(p.getEntry(1), xMin - 1e-9);
+        double d = withShift ? Math.min(p.getEntry(1), xMin - 1e-9) : 0.0;
         double[] v = new double[x.length];
-        double[][] j = new double[x.length][2];
+        double[][] j = new double[x.length][withShift ? 2 : 1];
         for (int i = 0; i < x.length; i++) {
             double u = x[i] - d;
             v[i] = lnStateDensity(a, d, x[i]);
             j[i][0] = Math.sqrt(u / a) - 0.25 / a;
-            j[i][1] = -Math.sqrt(a / u) + 1.25 / u;
+            if (withShift) {
+                j[i][1] = -Math.sqrt(a / u) + 1.25 / u;
+            }
         }
         return new Pair<>(new ArrayRealVector(v, false), new Array2DRowRealMatrix(j, false));
     }

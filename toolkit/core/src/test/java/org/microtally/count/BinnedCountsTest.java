@@ -91,6 +91,11 @@ class BinnedCountsTest {
         assertEquals(Math.PI * Math.PI / 3, fit.a(), 0.01 * Math.PI * Math.PI / 3);
         assertTrue(fit.rmsResidual() < 0.01, "rms " + fit.rmsResidual());
         assertEquals(fit.lnStateDensityAt(100), LevelDensityFit.lnStateDensity(fit.a(), fit.backShift(), 100), 1e-12);
+        LevelDensityFit bethe = LevelDensityFit.fitBethe(b, 40, u);
+        // Source: the same theoretical a (Bethe 1936); without the shift the fit absorbs the finite-U
+        // corrections into a, so it is looser (5 %)
+        assertEquals(Math.PI * Math.PI / 3, bethe.a(), 0.05 * Math.PI * Math.PI / 3);
+        assertEquals(0.0, bethe.backShift());
     }
 
     @Test
