@@ -15,9 +15,9 @@ import org.microtally.spectrum.Spectrum;
  *
  * <p><b>Method.</b> Every level energy e of species s is replaced by its nearest grid point
  * e_0s + k delta (k = round((e - e_0s) / delta), e_0s the species' lowest level), and the microstates
- * of the rounded spectra are counted exactly (one {@link CountTable} per species, whose rows are
- * convolved in BigInteger: the product rule for the independent species). Bin K then holds the
- * microstates whose rounded total energy is E_K = sum_s N_s e_0s + K delta.
+ * of the rounded spectra are counted exactly (one exact row per species, the rows convolved in
+ * BigInteger: the product rule for the independent species). Bin K then holds the microstates whose
+ * rounded total energy is E_K = E_gs + K delta, E_gs the rounded ground-state energy.
  *
  * <p><b>Effect of the bin width (stated, not estimated).</b> Each particle's energy moves by at most
  * r = the largest rounding |e - e_0s - k delta| over the levels (r &lt;= delta / 2), so a microstate
@@ -27,8 +27,11 @@ import org.microtally.spectrum.Spectrum;
  * delta -&gt; 0 (at the cost of more bins). Spectra whose energies are multiples of delta from their
  * ground level give r = 0 and exact energies.
  *
- * <p>Bins start at sum_s N_s e_0s, so a large Fermi sea puts its ground state at a high bin K_gs
- * and the tables must reach K_gs + the excitations wanted: cost and memory grow with (N+1)(K_gs + bins).
+ * <p>Bins start at the rounded ground state of the whole system: bin K = 0 is the lowest rounded
+ * N-particle energy (for capped statistics the filled lowest rounded levels of each species), so
+ * {@code bins} counts excitations. The counting still runs from each species' ground level up
+ * (cost and memory grow with (N+1)(K_gs + bins) for a Fermi sea at K_gs); tables above 2 x 10^5 entries
+ * use the memory-lean single-N rows of {@link SingleNumberCounts} (8 bytes per entry).
  *
  * <p><b>Cutoffs.</b> Bins are complete (equal to the untruncated spectra's counts) only while the
  * rounded excitation of any one particle stays below every species' cutoff; {@link #completeThroughBin()}
@@ -71,9 +74,11 @@ public final class BinnedCounts implements Tabular {
             throw InvalidInputException.of("number of bins", bins, "an integer >= 0", "");
         }
         List<Species> rounded = new ArrayList<>();
+        List<Integer> grounds = new ArrayList<>();
         double ground = 0;
         double maxRounding = 0;
         long particles = 0;
+        long groundBins = 0;
         double complete = Double.POSITIVE_INFINITY;
         for (Species s : species) {
             Spectrum sp = s.spectrum();
@@ -88,23 +93,51 @@ public final class BinnedCounts implements Tabular {
                 maxRounding = Math.max(maxRounding, Math.abs(l.energy() - e0 - k * binWidth));
                 levels.add(new Level(k, l.degeneracy()));
             }
+            // the rounded N-particle ground state: fill the lowest rounded levels (capped statistics)
+            long k0 = 0;
+            long kTop = 0;
+            if (s.statistics().capped()) {
+                long left = s.particles();
+                for (Level l : levels) {
+                    long put = Math.min(left, (long) s.statistics().maxOccupancy() * l.degeneracy());
+                    if (put > 0) {
+                        k0 += put * (long) l.energy();
+                        kTop = (long) l.energy();
+                    }
+                    left -= put;
+                }
+                if (left > 0) {
+                    throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),
+                            "at most the capacity of its spectrum", "Raise the spectrum's cutoff.");
+                }
+            }
+            if (k0 + bins > Integer.MAX_VALUE - 1) {
+                throw InvalidInputException.of("ground-state energy of species " + s.name() + " in bins", k0,
+                        "below 2^31 - 1 - bins", "Use a wider bin.");
+            }
             double cut = sp.isTruncated() ? (sp.cutoffEnergy() - e0) / binWidth : Double.POSITIVE_INFINITY;
-            complete = Math.min(complete, Math.floor(cut - 0.5));
+            // a microstate using an omitted level (rounded >= floor(cut - 0.5) + 1) lies at least that far
+            // minus the top of the ground-state filling above the species' ground state
+            complete = Math.min(complete, Math.floor(cut - 0.5) - kTop);
             rounded.add(new Species(s.name(), Spectrum.of(levels), s.statistics(), s.particles()));
+            grounds.add((int) k0);
             ground += s.particles() * e0;
+            groundBins += k0;
             particles += s.particles();
         }
-        // one exact table per species (its row N_s), then the exact convolution of the rows
+        // one exact row per species from its ground state up, then the exact convolution of the rows
         BigInteger[] counts = new BigInteger[bins + 1];
         java.util.Arrays.fill(counts, BigInteger.ZERO);
         counts[0] = BigInteger.ONE;
-        for (Species s : rounded) {
-            List<BigInteger> row = CountTable.of(s.spectrum(), s.statistics(), s.particles(), bins).row(s.particles());
+        for (int si = 0; si < rounded.size(); si++) {
+            Species s = rounded.get(si);
+            int k0 = grounds.get(si);
+            List<BigInteger> row = speciesRow(s, k0 + bins);
             BigInteger[] next = new BigInteger[bins + 1];
             for (int k = 0; k <= bins; k++) {
                 BigInteger acc = BigInteger.ZERO;
                 for (int j = 0; j <= k; j++) {
-                    BigInteger r = row.get(j);
+                    BigInteger r = row.get(k0 + j);
                     if (r.signum() != 0 && counts[k - j].signum() != 0) {
                         acc = acc.add(r.multiply(counts[k - j]));
                     }
@@ -114,8 +147,15 @@ public final class BinnedCounts implements Tabular {
             counts = next;
         }
         int completeThrough = complete >= bins ? bins : (int) Math.max(-1, complete);
-        return new BinnedCounts(List.copyOf(species), binWidth, ground, particles * maxRounding, counts,
-                completeThrough);
+        return new BinnedCounts(List.copyOf(species), binWidth, ground + groundBins * binWidth,
+                particles * maxRounding, counts, completeThrough);
+    }
+
+    /** Omega(N_s, 0..top) of one rounded species: the full table when small, else the memory-lean row. */
+    private static List<BigInteger> speciesRow(Species s, int top) {
+        double cells = (s.particles() + 1.0) * (top + 1.0);
+        return cells <= 2e5 ? CountTable.of(s.spectrum(), s.statistics(), s.particles(), top).row(s.particles())
+                : SingleNumberCounts.of(s.spectrum(), s.statistics(), s.particles(), top).row();
     }
 
     private void check(int k) {
@@ -130,7 +170,7 @@ public final class BinnedCounts implements Tabular {
         return counts[k];
     }
 
-    /** The bin's energy E_K = sum_s N_s e_0s + K delta. */
+    /** The bin's energy E_K = E_gs + K delta (E_gs the rounded ground-state energy, bin 0). */
     public double energy(int k) {
         check(k);
         return groundEnergy + k * binWidth;

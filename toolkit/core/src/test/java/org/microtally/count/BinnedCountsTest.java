@@ -62,12 +62,15 @@ class BinnedCountsTest {
         BinnedCounts b = BinnedCounts.of(List.of(new Species("e", dot, Statistics.FERMI, 6)), 1.0, 30);
         CountTable t = CountTable.of(dot, Statistics.FERMI, 6, 30);
         assertEquals(0.0, b.smearing());
-        for (int k = 0; k <= 30; k++) {
+        // the ground state of 6 fermions fills 0, 1, 1, 2, 2, 2: bin 0 is E = 8
+        assertEquals(8.0, b.energy(0));
+        for (int k = 0; k <= 22; k++) {
             // Source: the exact count table on the integer grid (CountTable)
-            assertEquals(t.count(6, k), b.count(k));
+            assertEquals(t.count(6, 8 + k), b.count(k));
         }
-        // Source: common practice, no source (an omitted level above the cutoff 12 may round down to 12)
-        assertEquals(11, b.completeThroughBin());
+        // Source: common practice, no source (an omitted level above the cutoff 12 may round down to 12;
+        // with five particles in their ground state (6 quanta) that microstate has 18 = bin 10)
+        assertEquals(9, b.completeThroughBin());
     }
 
     @Test
@@ -96,6 +99,35 @@ class BinnedCountsTest {
         // corrections into a, so it is looser (5 %)
         assertEquals(Math.PI * Math.PI / 3, bethe.a(), 0.05 * Math.PI * Math.PI / 3);
         assertEquals(0.0, bethe.backShift());
+    }
+
+    @Test
+    void twoKindFermiSeaExcitationsAreCountedFromTheGroundState() {
+        int n = 40;
+        Spectrum ladder = Spectra.equallySpaced(2 * n, 1.0);
+        BinnedCounts b = BinnedCounts.of(List.of(new Species("protons", ladder, Statistics.FERMI, n),
+                new Species("neutrons", ladder, Statistics.FERMI, n)), 1.0, n);
+        // Source: common practice, no source (two filled Fermi seas 0 + 1 + ... + 39)
+        assertEquals(2.0 * n * (n - 1) / 2, b.energy(0));
+        // partitions p(k) by the standard recurrence over parts, then the two-kind convolution
+        long[] p = new long[n + 1];
+        p[0] = 1;
+        for (int part = 1; part <= n; part++) {
+            for (int k = part; k <= n; k++) {
+                p[k] += p[k - part];
+            }
+        }
+        // Source: OEIS A000041, p(40) = 37338 (anchors the recurrence)
+        assertEquals(37338L, p[40]);
+        for (int k = 0; k <= n; k++) {
+            long two = 0;
+            for (int j = 0; j <= k; j++) {
+                two += p[j] * p[k - j];
+            }
+            // Source: OEIS A000712 (partitions into parts of 2 kinds) = excitations of two equidistant
+            // Fermi seas (Schoenhammer & Meden, Am. J. Phys. 64, 1168 (1996), from memory)
+            assertEquals(BigInteger.valueOf(two), b.count(k), "k=" + k);
+        }
     }
 
     @Test
