@@ -126,8 +126,7 @@ public final class LabelResolvedGrandCanonical implements Tabular {
         double e0 = spectrum.groundEnergy();
         LabelSeries z = LabelledCanonical.series(spectrum, statistics, nMax, beta, h, mu, -1);
         BigInteger[] reach = LabelledCanonical.reachableRows(spectrum, statistics, nMax, z.lo);
-        double lnBase = Math.log((double) spectrum.stateCount() * (nMax + 1.0) * z.width) - 1073 * Math.log(2.0)
-                - Math.log(FLUSH_TOLERANCE);
+        double lnBase = z.lnFlushThreshold(spectrum.stateCount());
         double[] lnXiL = new double[z.width];
         double[] meanN = new double[z.width];
         double[] varN = new double[z.width];

@@ -37,6 +37,15 @@ final class LabelSeries {
         c[0][-lo] = 1;
     }
 
+    /**
+     * ln of the flushing bound's numerator over the tolerance, ln(S (n + 1) W 2^-1073 / 1e-12): an entry
+     * whose probability P satisfies ln P &gt;= this value has a flushing error below 1e-12 relative
+     * (each flushed mantissa is below 2^-1073 of the series maximum, itself below the untruncated total).
+     */
+    double lnFlushThreshold(long states) {
+        return Math.log((double) states * (n + 1.0) * width) - 1073 * Math.log(2.0) - Math.log(1e-12);
+    }
+
     /** Entries as the number of cells, for memory checks. */
     static double cells(int n, int minLabel, int maxLabel) {
         return (n + 1.0) * ((double) n * (Math.max(0, maxLabel) - Math.min(0, minLabel)) + 1);

@@ -50,7 +50,6 @@ import org.microtally.spectrum.Statistics;
  * says so when h != 0 and the spectrum is truncated.
  */
 public final class LabelledCanonical implements Tabular {
-    private static final double FLUSH_TOLERANCE = 1e-12;
 
     private final Spectrum spectrum;
     private final Statistics statistics;
@@ -162,8 +161,7 @@ public final class LabelledCanonical implements Tabular {
             }
             lnTotal = Math.log(rowSum) + z.logScale;
         }
-        double lnBase = Math.log((double) spectrum.stateCount() * (n + 1.0) * z.width) - 1073 * Math.log(2.0)
-                - Math.log(FLUSH_TOLERANCE);
+        double lnBase = z.lnFlushThreshold(spectrum.stateCount());
         double[] lnZL = new double[z.width];
         double[] energyL = new double[z.width];
         boolean[] resolved = new boolean[z.width];
