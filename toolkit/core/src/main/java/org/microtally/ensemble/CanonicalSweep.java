@@ -11,8 +11,8 @@ import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
 /**
- * A canonical sweep over the particle number at one temperature: ln Z_n, F_n, U_n and S_n for every
- * n = 0..N of ideal particles on one spectrum, with the chemical potential mu_n = F_n - F_{n-1}, the
+ * A canonical sweep over the particle number at one temperature: ln Z_n, F_n, U_n, S_n, Var E_n and
+ * C_n for every n = 0..N of ideal particles on one spectrum, with the chemical potential mu_n = F_n - F_{n-1}, the
  * addition energy Delta_n = mu_{n+1} - mu_n = F_{n+1} - 2 F_n + F_{n-1} (the "charging" spectrum of
  * a quantum dot, shell closings) and the odd-even staggering
  * Delta3_n = (-1)^n (F_{n+1} - 2 F_n + F_{n-1}) / 2 (the three-point parity indicator of nuclear
@@ -32,8 +32,8 @@ import org.microtally.spectrum.Statistics;
  * Each pass also carries the first energy moment with energies measured from the ground level
  * (non-negative terms only), so U_n = n e_0 + u_n / c_n, and the second moment v_n (also
  * non-negative), so Var E_n = v_n / c_n - (u_n / c_n)^2 with its cancellation bounded (absolute
- * error 2 (S + n) 2^-53 (v_n/c_n + (u_n/c_n)^2), refused above 1e-6 max(Var, kT^2)); for Fermi and Gentile statistics the
- * states are multiplied in one at a time and the moment entries below the series' first non-zero
+ * error 2 (S + n) 2^-53 (v_n/c_n + (u_n/c_n)^2), refused above 1e-6 max(Var, kT^2)); for Fermi and
+ * Gentile statistics the states are multiplied in one at a time and the moment entries below the series' first non-zero
  * coefficient are zeroed after each (stale entries there would otherwise feed back into the moments
  * as the support moves up). Distinguishable particles use the closed form
  * Z_n = Z_1^n.
