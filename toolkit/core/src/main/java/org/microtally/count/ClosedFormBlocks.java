@@ -1,0 +1,65 @@
+package org.microtally.count;
+
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import org.microtally.InvalidInputException;
+
+/**
+ * Multiplicity sequences of standard blocks in closed form, for {@link SharedTotal#of(List, List, int)}
+ * without building a count table: exact BigInteger, each entry from the previous one by one exact
+ * multiplication and division (the ratio of consecutive binomial coefficients).
+ */
+public final class ClosedFormBlocks {
+    private ClosedFormBlocks() {
+    }
+
+    /**
+     * An Einstein solid of N oscillators holding q = 0..maxQuanta quanta: Omega(q) = C(q + N - 1, q)
+     * (D. V. Schroeder, <i>An Introduction to Thermal Physics</i> (2000), eq. 2.9).
+     *
+     * @throws InvalidInputException for N &lt; 1 or maxQuanta &lt; 0
+     */
+    public static List<BigInteger> einsteinSolid(int oscillators, int maxQuanta) {
+        if (oscillators < 1) {
+            throw InvalidInputException.of("number of oscillators", oscillators, "an integer >= 1", "");
+        }
+        if (maxQuanta < 0) {
+            throw InvalidInputException.of("largest number of quanta", maxQuanta, "an integer >= 0", "");
+        }
+        List<BigInteger> out = new ArrayList<>(maxQuanta + 1);
+        BigInteger c = BigInteger.ONE;
+        out.add(c);
+        for (int q = 1; q <= maxQuanta; q++) {
+            // C(q + N - 1, q) = C(q - 1 + N - 1, q - 1) (q + N - 1) / q, exact
+            c = c.multiply(BigInteger.valueOf((long) q + oscillators - 1)).divide(BigInteger.valueOf(q));
+            out.add(c);
+        }
+        return Collections.unmodifiableList(out);
+    }
+
+    /**
+     * N two-state elements (spin-1/2 moments in a field, two-level atoms) with k = 0..N of them
+     * excited: Omega(k) = C(N, k) (Schroeder, sect. 2.1); entries beyond N are 0 up to maxExcited.
+     *
+     * @throws InvalidInputException for N &lt; 1 or maxExcited &lt; 0
+     */
+    public static List<BigInteger> twoState(int elements, int maxExcited) {
+        if (elements < 1) {
+            throw InvalidInputException.of("number of two-state elements", elements, "an integer >= 1", "");
+        }
+        if (maxExcited < 0) {
+            throw InvalidInputException.of("largest number excited", maxExcited, "an integer >= 0", "");
+        }
+        List<BigInteger> out = new ArrayList<>(maxExcited + 1);
+        BigInteger c = BigInteger.ONE;
+        out.add(c);
+        for (int k = 1; k <= maxExcited; k++) {
+            c = k > elements ? BigInteger.ZERO
+                    : c.multiply(BigInteger.valueOf(elements - k + 1L)).divide(BigInteger.valueOf(k));
+            out.add(c);
+        }
+        return Collections.unmodifiableList(out);
+    }
+}
