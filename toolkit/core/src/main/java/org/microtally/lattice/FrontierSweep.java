@@ -1,0 +1,125 @@
+package org.microtally.lattice;
+
+/**
+ * One transfer-matrix sweep modulo one prime p: the vector of partial counts over the frontier
+ * states, each entry a table over (number of unequal bonds so far k, label so far u), updated one
+ * site at a time.
+ *
+ * <p>Adding a site with value a maps each frontier state s to s + a q^f and shifts its table by
+ * (dk, du): dk = number of added neighbours with a different value (Ising, Potts), du = 1 when the
+ * site is up/occupied and the label is tracked. The hard-core gas drops states with two occupied
+ * neighbours. Retiring a site sums its value out (modular additions). All weights are shifts, so
+ * the only arithmetic is addition modulo p (p &lt; 2^62, so a + b never overflows a long).
+ */
+final class FrontierSweep {
+    private final Schedule plan;
+    private final int q;
+    private final boolean hardCore;
+    private final boolean trackEnergy;
+    private final boolean trackLabel;
+    private final long[] pow;
+
+    FrontierSweep(Schedule plan, Model model, boolean trackLabel) {
+        this.plan = plan;
+        this.q = model.statesPerSite();
+        this.hardCore = model.kind() == Model.Kind.HARD_CORE;
+        this.trackEnergy = !hardCore;
+        this.trackLabel = trackLabel;
+        this.pow = new long[plan.maxFrontier + 2];
+        pow[0] = 1;
+        for (int i = 1; i < pow.length; i++) {
+            pow[i] = pow[i - 1] * q;
+        }
+    }
+
+    /** Width of the energy axis after all sites (k = 0..bonds). */
+    static int energyRange(Schedule plan, boolean trackEnergy) {
+        if (!trackEnergy) {
+            return 1;
+        }
+        int k = 1;
+        for (int[] nb : plan.neighbourSlots) {
+            k += nb.length;
+        }
+        return k;
+    }
+
+    private int digit(long s, int j) {
+        return q == 2 ? (int) ((s >>> j) & 1) : (int) ((s / pow[j]) % q);
+    }
+
+    /**
+     * Runs the sweep modulo p and returns the final table, index k * uRange + u with
+     * uRange = sites + 1 when the label is tracked (else 1).
+     */
+    long[] run(long p, Runnable afterSite) {
+        long[] vec = {1};
+        int kRange = 1;
+        int uRange = 1;
+        int f = 0;
+        for (int t = 0; t < plan.sites; t++) {
+            int[] nb = plan.neighbourSlots[t];
+            int nk = trackEnergy ? kRange + nb.length : 1;
+            int nu = trackLabel ? uRange + 1 : 1;
+            long states = pow[f];
+            long[] next = new long[Math.toIntExact(pow[f + 1] * nk * nu)];
+            int oldBlock = kRange * uRange;
+            int newBlock = nk * nu;
+            for (long s = 0; s < states; s++) {
+                int src = (int) (s * oldBlock);
+                for (int a = 0; a < q; a++) {
+                    int dk = 0;
+                    boolean forbidden = false;
+                    for (int j : nb) {
+                        int d = digit(s, j);
+                        if (hardCore) {
+                            forbidden |= a == 1 && d == 1;
+                        } else if (d != a) {
+                            dk++;
+                        }
+                    }
+                    if (forbidden) {
+                        continue;
+                    }
+                    int du = trackLabel && a == 1 ? 1 : 0;
+                    int dst = (int) ((s + a * pow[f]) * newBlock) + dk * nu + du;
+                    if (uRange == 1 && nu == 1) {
+                        System.arraycopy(vec, src, next, dst, kRange);
+                    } else {
+                        for (int k = 0; k < kRange; k++) {
+                            System.arraycopy(vec, src + k * uRange, next, dst + k * nu, uRange);
+                        }
+                    }
+                }
+            }
+            vec = next;
+            kRange = nk;
+            uRange = nu;
+            f++;
+            for (int slot : plan.retireSlots[t]) {
+                vec = retire(vec, f, slot, newBlock, p);
+                f--;
+            }
+            afterSite.run();
+        }
+        return vec;
+    }
+
+    private long[] retire(long[] vec, int f, int slot, int block, long p) {
+        long top = pow[f - 1];
+        long[] next = new long[Math.toIntExact(top * block)];
+        long states = pow[f];
+        for (long s = 0; s < states; s++) {
+            int dTop = digit(s, f - 1);
+            long low = s - dTop * top;
+            long target = slot == f - 1 ? low : low + (dTop - digit(s, slot)) * pow[slot];
+            int src = (int) (s * block);
+            int dst = (int) (target * block);
+            for (int i = 0; i < block; i++) {
+                long x = next[dst + i] + vec[src + i] - p;
+                next[dst + i] = x + ((x >> 63) & p);
+            }
+        }
+        return next;
+    }
+}
