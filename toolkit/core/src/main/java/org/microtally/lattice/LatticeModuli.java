@@ -42,6 +42,27 @@ final class LatticeModuli {
         return out;
     }
 
+    /**
+     * The first k primes p below 2^62 (each above 2^61) with p = 1 (mod step), descending; for
+     * these, F_p contains the roots of unity of every order dividing step.
+     */
+    static long[] primesCongruentToOne(long step, int k) {
+        long[] out = new long[k];
+        long t = ((1L << 62) - 1) / step;
+        int found = 0;
+        while (found < k) {
+            long p = t * step + 1;
+            if (p <= 1L << 61) {
+                throw new IllegalStateException("fewer than " + k + " primes = 1 mod " + step + " in (2^61, 2^62)");
+            }
+            if (isPrime(p)) {
+                out[found++] = p;
+            }
+            t--;
+        }
+        return out;
+    }
+
     static boolean isPrime(long n) {
         if (n < 2) {
             return false;

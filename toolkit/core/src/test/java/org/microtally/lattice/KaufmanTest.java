@@ -1,0 +1,19 @@
+package org.microtally.lattice;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.microtally.ProgressListener;
+import org.microtally.lattice.Model.Coupling;
+
+class KaufmanTest {
+    @ParameterizedTest
+    @CsvSource({"4, 4", "4, 3", "3, 4", "4, 5", "6, 4", "6, 6", "4, 7"})
+    void kaufmanEqualsTransferMatrix(int l, int m) {
+        Lattice torus = Lattice.square(l, m, Boundary.PERIODIC);
+        // Source: independent route, site-by-site transfer matrix on the same torus
+        assertEquals(TransferMatrix.densityOfStates(torus, Model.ising(Coupling.FERROMAGNETIC), ProgressListener.NONE).rows(),
+                Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
+    }
+}
