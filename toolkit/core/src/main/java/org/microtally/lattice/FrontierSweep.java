@@ -62,9 +62,21 @@ final class FrontierSweep {
             int nk = trackEnergy ? kRange + nb.length : 1;
             int nu = trackLabel ? uRange + 1 : 1;
             long states = pow[f];
-            long[] next = new long[Math.toIntExact(pow[f + 1] * nk * nu)];
             int oldBlock = kRange * uRange;
             int newBlock = nk * nu;
+            int replace = plan.replaceSlot[t];
+            if (replace >= 0) {
+                vec = replace(vec, states, replace, nb, kRange, uRange, nk, nu, p);
+                kRange = nk;
+                uRange = nu;
+                for (int slot : plan.retireSlots[t]) {
+                    vec = retire(vec, f, slot, newBlock, p);
+                    f--;
+                }
+                afterSite.run();
+                continue;
+            }
+            long[] next = new long[Math.toIntExact(pow[f + 1] * nk * nu)];
             for (long s = 0; s < states; s++) {
                 int src = (int) (s * oldBlock);
                 for (int a = 0; a < q; a++) {
@@ -103,6 +115,47 @@ final class FrontierSweep {
             afterSite.run();
         }
         return vec;
+    }
+
+    /**
+     * Fused update: the site in slot {@code slot} is summed out while the new site takes the slot.
+     * next[s with digit slot = a] += old[s] shifted by (dk, du), for every old state s and value a.
+     */
+    private long[] replace(long[] vec, long states, int slot, int[] nb, int kRange, int uRange, int nk, int nu, long p) {
+        int oldBlock = kRange * uRange;
+        int newBlock = nk * nu;
+        long[] next = new long[Math.toIntExact(states * newBlock)];
+        long place = pow[slot];
+        for (long s = 0; s < states; s++) {
+            int src = (int) (s * oldBlock);
+            long base = s - digit(s, slot) * place;
+            for (int a = 0; a < q; a++) {
+                int dk = 0;
+                boolean forbidden = false;
+                for (int j : nb) {
+                    int d = digit(s, j);
+                    if (hardCore) {
+                        forbidden |= a == 1 && d == 1;
+                    } else if (d != a) {
+                        dk++;
+                    }
+                }
+                if (forbidden) {
+                    continue;
+                }
+                int du = trackLabel && a == 1 ? 1 : 0;
+                int dst = (int) ((base + a * place) * newBlock) + dk * nu + du;
+                for (int k = 0; k < kRange; k++) {
+                    int from = src + k * uRange;
+                    int to = dst + k * nu;
+                    for (int u = 0; u < uRange; u++) {
+                        long x = next[to + u] + vec[from + u] - p;
+                        next[to + u] = x + ((x >> 63) & p);
+                    }
+                }
+            }
+        }
+        return next;
     }
 
     private long[] retire(long[] vec, int f, int slot, int block, long p) {

@@ -4,9 +4,12 @@ package org.microtally.lattice;
  * The site-by-site plan of a transfer-matrix sweep: for each site in the lattice's order, the
  * frontier slots of its already-added neighbours, and which frontier sites retire after it.
  *
- * <p>The frontier holds every added site that still has a neighbour to come. Adding site v puts it
- * in a new top slot; a site retires (its state is summed out) right after the last of its neighbours
- * has been added, and the top slot moves into the freed slot, so slots stay dense.
+ * <p>The frontier holds every added site that still has a neighbour to come. A site retires (its
+ * state is summed out) right after the last of its neighbours has been added. When some site w
+ * retires at the step that adds v, v takes over w's slot in one fused "replace" update (w summed
+ * out while v is added, so the vector never grows); otherwise v goes into a new top slot. Other
+ * retiring sites are summed out afterwards, the top slot moving into each freed slot, so slots
+ * stay dense.
  */
 final class Schedule {
     final int sites;
@@ -14,6 +17,8 @@ final class Schedule {
     final int[][] neighbourSlots;
     /** retireSlots[t] = slots to sum out after the t-th add, in order (each relative to the then-current frontier). */
     final int[][] retireSlots;
+    /** replaceSlot[t] = slot whose site is summed out while the t-th site takes it over, or -1 (new top slot). */
+    final int[] replaceSlot;
     /** frontier size before the t-th add. */
     final int[] frontierBefore;
     final int maxFrontier;
@@ -42,6 +47,7 @@ final class Schedule {
         neighbourSlots = new int[n][];
         retireSlots = new int[n][];
         frontierBefore = new int[n];
+        replaceSlot = new int[n];
         for (int t = 0; t < n; t++) {
             int v = order[t];
             frontierBefore[t] = f;
@@ -53,8 +59,21 @@ final class Schedule {
                 }
             }
             neighbourSlots[t] = java.util.Arrays.copyOf(nbSlots, c);
-            slotOf[v] = f;
-            slotSite[f++] = v;
+            int fused = -1;
+            for (int j = 0; j < c && fused < 0; j++) {
+                if (last[slotSite[nbSlots[j]]] == t) {
+                    fused = nbSlots[j];
+                }
+            }
+            replaceSlot[t] = fused;
+            if (fused >= 0) {
+                slotOf[slotSite[fused]] = -1;
+                slotSite[fused] = v;
+                slotOf[v] = fused;
+            } else {
+                slotOf[v] = f;
+                slotSite[f++] = v;
+            }
             maxF = Math.max(maxF, f);
             int[] retire = new int[f];
             int r = 0;

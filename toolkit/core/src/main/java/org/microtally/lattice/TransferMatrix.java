@@ -21,7 +21,8 @@ import org.microtally.ensemble.ExactDensityOfStates;
  *
  * <h2>Accuracy and cost</h2>
  * Exact (integer arithmetic throughout). Memory about 8 bytes x q^(f+1) x (table size) for the
- * largest frontier f (f = L + 1 for an L-wide free or cylindrical strip, 2L + 1 for a torus);
+ * largest frontier f (f = L for an L-wide free or cylindrical strip, 2L for a torus: each new
+ * site replaces the site it retires);
  * {@link #estimate} gives the numbers before any work starts, and the counting methods refuse
  * (with the estimate) when the largest state vector would not fit in the memory allowed.
  */
@@ -70,10 +71,17 @@ public final class TransferMatrix {
             if (withLabel) {
                 u += 1;
             }
-            f++;
-            double size = Math.pow(q, f) * k * u;
-            peak = Math.max(peak, 8 * (oldSize + size));
-            updates += size;
+            double size;
+            if (plan.replaceSlot[t] >= 0) {
+                size = Math.pow(q, f) * k * u;
+                peak = Math.max(peak, 8 * (oldSize + size));
+                updates += q * oldSize;
+            } else {
+                f++;
+                size = Math.pow(q, f) * k * u;
+                peak = Math.max(peak, 8 * (oldSize + size));
+                updates += size;
+            }
             for (int ignored : plan.retireSlots[t]) {
                 double smaller = size / q;
                 peak = Math.max(peak, 8 * (size + smaller));
