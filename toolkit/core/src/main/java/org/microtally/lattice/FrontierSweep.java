@@ -145,6 +145,10 @@ final class FrontierSweep {
                 }
                 int du = trackLabel && a == 1 ? 1 : 0;
                 int dst = (int) ((base + a * place) * newBlock) + dk * nu + du;
+                if (uRange == 1 && nu == 1) {
+                    addRow(next, dst, vec, src, kRange, p);
+                    continue;
+                }
                 for (int k = 0; k < kRange; k++) {
                     int from = src + k * uRange;
                     int to = dst + k * nu;
@@ -158,6 +162,14 @@ final class FrontierSweep {
         return next;
     }
 
+    /** next[to .. to+len) += vec[from .. from+len) mod p. */
+    private static void addRow(long[] next, int to, long[] vec, int from, int len, long p) {
+        for (int i = 0; i < len; i++) {
+            long x = next[to + i] + vec[from + i] - p;
+            next[to + i] = x + ((x >> 63) & p);
+        }
+    }
+
     private long[] retire(long[] vec, int f, int slot, int block, long p) {
         long top = pow[f - 1];
         long[] next = new long[Math.toIntExact(top * block)];
@@ -168,10 +180,7 @@ final class FrontierSweep {
             long target = slot == f - 1 ? low : low + (dTop - digit(s, slot)) * pow[slot];
             int src = (int) (s * block);
             int dst = (int) (target * block);
-            for (int i = 0; i < block; i++) {
-                long x = next[dst + i] + vec[src + i] - p;
-                next[dst + i] = x + ((x >> 63) & p);
-            }
+            addRow(next, dst, vec, src, block, p);
         }
         return next;
     }
