@@ -80,17 +80,8 @@ final class FrontierSweep {
             for (long s = 0; s < states; s++) {
                 int src = (int) (s * oldBlock);
                 for (int a = 0; a < q; a++) {
-                    int dk = 0;
-                    boolean forbidden = false;
-                    for (int j : nb) {
-                        int d = digit(s, j);
-                        if (hardCore) {
-                            forbidden |= a == 1 && d == 1;
-                        } else if (d != a) {
-                            dk++;
-                        }
-                    }
-                    if (forbidden) {
+                    int dk = shift(s, a, nb);
+                    if (dk < 0) {
                         continue;
                     }
                     int du = trackLabel && a == 1 ? 1 : 0;
@@ -130,17 +121,8 @@ final class FrontierSweep {
             int src = (int) (s * oldBlock);
             long base = s - digit(s, slot) * place;
             for (int a = 0; a < q; a++) {
-                int dk = 0;
-                boolean forbidden = false;
-                for (int j : nb) {
-                    int d = digit(s, j);
-                    if (hardCore) {
-                        forbidden |= a == 1 && d == 1;
-                    } else if (d != a) {
-                        dk++;
-                    }
-                }
-                if (forbidden) {
+                int dk = shift(s, a, nb);
+                if (dk < 0) {
                     continue;
                 }
                 int du = trackLabel && a == 1 ? 1 : 0;
@@ -160,6 +142,25 @@ final class FrontierSweep {
             }
         }
         return next;
+    }
+
+    /**
+     * The energy shift of giving value a to the new site in frontier state s: the number of its
+     * added neighbours (slots nb) with a different value; -1 when the hard-core gas forbids it.
+     */
+    private int shift(long s, int a, int[] nb) {
+        int dk = 0;
+        for (int j : nb) {
+            int d = digit(s, j);
+            if (hardCore) {
+                if (a == 1 && d == 1) {
+                    return -1;
+                }
+            } else if (d != a) {
+                dk++;
+            }
+        }
+        return dk;
     }
 
     /** next[to .. to+len) += vec[from .. from+len) mod p. */

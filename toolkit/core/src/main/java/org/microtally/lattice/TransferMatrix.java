@@ -113,8 +113,9 @@ public final class TransferMatrix {
     }
 
     /**
-     * The general entry: counts with or without the label, refusing when the estimate exceeds
-     * {@code memoryLimitBytes}.
+     * The general entry: counts with or without the label (the hard-core gas always carries its
+     * particle number), refusing when the estimate exceeds {@code memoryLimitBytes}. Ising and Potts
+     * counts are checked against sum g = q^N before they are returned (a failure throws).
      */
     public static ExactDensityOfStates count(Lattice lattice, Model model, boolean withLabel, long memoryLimitBytes,
                                              ProgressListener progress) {
@@ -125,6 +126,8 @@ public final class TransferMatrix {
             throw InvalidInputException.of("magnetisation resolution for the " + model, "requested", "an Ising model",
                     "Count g(E) of the Potts model instead.");
         }
+        boolean hardCore = model.kind() == Model.Kind.HARD_CORE;
+        withLabel |= hardCore;                     // the hard-core gas is always counted by particle number
         Schedule plan = new Schedule(lattice);
         Cost cost = estimate(plan, lattice, model, withLabel);
         double largestArray = cost.peakBytes() / 8;
@@ -142,6 +145,16 @@ public final class TransferMatrix {
             residues[i] = sweep.run(primes[i], throttle::step);
         }
         BigInteger[] counts = LatticeModuli.recombine(primes, residues);
+        if (!hardCore) {
+            BigInteger sum = BigInteger.ZERO;
+            for (BigInteger c : counts) {
+                sum = sum.add(c);
+            }
+            if (!sum.equals(BigInteger.valueOf(model.statesPerSite()).pow(lattice.sites()))) {
+                throw new IllegalStateException("transfer-matrix counts of the " + model + " on the " + lattice
+                        + " failed their own check sum g = q^N");
+            }
+        }
         int uRange = withLabel ? lattice.sites() + 1 : 1;
         return Tally.toDensityOfStates(lattice, model, withLabel, counts, uRange);
     }

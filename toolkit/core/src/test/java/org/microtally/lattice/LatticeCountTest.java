@@ -91,4 +91,20 @@ class LatticeCountTest {
         }
         assertTrue(lattice.bipartite());
     }
+
+    @Test
+    void progressReachesTheEndAndStaysThrottled() {
+        List<long[]> calls = new ArrayList<>();
+        ProgressListener record = (done, total, stage) -> calls.add(new long[] {done, total});
+        Lattice lattice = Lattice.square(12, 12, Boundary.FREE);
+        TransferMatrix.densityOfStates(lattice, FERRO, record);
+        // common practice, no source: at most ~200 reports, ending at done == total = sites x primes
+        long[] last = calls.get(calls.size() - 1);
+        assertEquals(144L * 3, last[1]);
+        assertEquals(last[1], last[0]);
+        assertTrue(calls.size() <= 201, "calls " + calls.size());
+        calls.clear();
+        Kaufman.densityOfStates(8, 8, record);
+        assertEquals(calls.get(calls.size() - 1)[1], calls.get(calls.size() - 1)[0]);
+    }
 }
