@@ -27,14 +27,15 @@ import org.openjdk.jmh.annotations.Warmup;
  *       {@code freeIsingMagnetisation10}: free 10 x 10 g(E, M) (1 min); {@code freePotts3By8}: free
  *       8 x 8 three-state Potts g(E) (1 min).</li>
  * </ul>
- * The update rate against a bare modular-add loop is in {@link LatticeRateBenchmark}; {@link LatticeRatio}
+ * Each run is seconds to minutes long, so there is no warm-up iteration (JIT warm-up is a
+ * small part of it). The update rate against a bare modular-add loop is in {@link LatticeRateBenchmark}; {@link LatticeRatio}
  * runs both and prints the numbers.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.SingleShotTime)
 @OutputTimeUnit(TimeUnit.SECONDS)
 @Fork(value = 1, jvmArgs = {"-Xmx3g"})
-@Warmup(iterations = 1)
+@Warmup(iterations = 0)
 @Measurement(iterations = 2)
 public class LatticeBenchmark {
     private static final Model ISING = Model.ising(Model.Coupling.FERROMAGNETIC);

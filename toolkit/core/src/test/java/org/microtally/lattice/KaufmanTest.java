@@ -16,4 +16,12 @@ class KaufmanTest {
         assertEquals(TransferMatrix.densityOfStates(torus, Model.ising(Coupling.FERROMAGNETIC), ProgressListener.NONE).rows(),
                 Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
     }
+
+    @ParameterizedTest
+    @CsvSource({"4, 4", "4, 5", "3, 6"})
+    void kaufmanEqualsGrayCodeEnumeration(int l, int m) {
+        // Source: independent brute force over all 2^N configurations of the torus
+        assertEquals(BruteForce.densityOfStates(Lattice.square(l, m, Boundary.PERIODIC), Model.ising(Coupling.FERROMAGNETIC)).rows(),
+                Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
+    }
 }
