@@ -30,7 +30,24 @@ final class FrontierSweep {
         for (int i = 1; i < pow.length; i++) {
             pow[i] = pow[i - 1] * q;
         }
+        long largest = 0;
+        long k = 1;
+        long u = 1;
+        int f = 0;
+        for (int t = 0; t < plan.sites; t++) {
+            k += trackEnergy ? plan.neighbourSlots[t].length : 0;
+            u += trackLabel ? 1 : 0;
+            if (plan.replaceSlot[t] >= 0) {
+                largest = Math.max(largest, pow[f] * k * u);
+            } else {
+                f++;
+            }
+            f -= plan.retireSlots[t].length;
+        }
+        this.largestReplace = Math.toIntExact(largest);
     }
+
+    private final int largestReplace;
 
     /** Width of the energy axis after all sites (k = 0..bonds). */
     static int energyRange(Schedule plan, boolean trackEnergy) {
@@ -105,43 +122,77 @@ final class FrontierSweep {
             }
             afterSite.run();
         }
-        return vec;
+        return java.util.Arrays.copyOf(vec, kRange * uRange);
     }
 
     /**
      * Fused update: the site in slot {@code slot} is summed out while the new site takes the slot.
-     * next[s with digit slot = a] += old[s] shifted by (dk, du), for every old state s and value a.
+     * Destination-major: for each new state t (slot digit a), next[t] = sum over the old slot
+     * digit b of old[t with digit b] shifted by (dk, du). The first contribution is copied into a
+     * zeroed frame, the rest added, so every entry is written without a separate clearing pass and
+     * the two vectors live in reused buffers.
      */
     private long[] replace(long[] vec, long states, int slot, int[] nb, int kRange, int uRange, int nk, int nu, long p) {
         int oldBlock = kRange * uRange;
         int newBlock = nk * nu;
-        long[] next = new long[Math.toIntExact(states * newBlock)];
+        long[] next = spare(vec, Math.toIntExact(states * newBlock));
         long place = pow[slot];
-        for (long s = 0; s < states; s++) {
-            int src = (int) (s * oldBlock);
-            long base = s - digit(s, slot) * place;
-            for (int a = 0; a < q; a++) {
+        boolean rows = uRange == 1 && nu == 1;
+        for (long t = 0; t < states; t++) {
+            int a = digit(t, slot);
+            long base = t - a * place;
+            int frame = (int) (t * newBlock);
+            boolean first = true;
+            for (int b = 0; b < q; b++) {
+                long s = base + b * place;
                 int dk = shift(s, a, nb);
                 if (dk < 0) {
                     continue;
                 }
                 int du = trackLabel && a == 1 ? 1 : 0;
-                int dst = (int) ((base + a * place) * newBlock) + dk * nu + du;
-                if (uRange == 1 && nu == 1) {
-                    addRow(next, dst, vec, src, kRange, p);
+                int src = (int) (s * oldBlock);
+                int dst = frame + dk * nu + du;
+                if (first && rows) {
+                    java.util.Arrays.fill(next, frame, dst, 0L);
+                    System.arraycopy(vec, src, next, dst, kRange);
+                    java.util.Arrays.fill(next, dst + kRange, frame + newBlock, 0L);
+                    first = false;
                     continue;
                 }
-                for (int k = 0; k < kRange; k++) {
-                    int from = src + k * uRange;
-                    int to = dst + k * nu;
-                    for (int u = 0; u < uRange; u++) {
-                        long x = next[to + u] + vec[from + u] - p;
-                        next[to + u] = x + ((x >> 63) & p);
+                if (first) {
+                    java.util.Arrays.fill(next, frame, frame + newBlock, 0L);
+                    first = false;
+                }
+                if (rows) {
+                    addRow(next, dst, vec, src, kRange, p);
+                } else {
+                    for (int k = 0; k < kRange; k++) {
+                        addRow(next, dst + k * nu, vec, src + k * uRange, uRange, p);
                     }
                 }
             }
+            if (first) {
+                java.util.Arrays.fill(next, frame, frame + newBlock, 0L);
+            }
         }
         return next;
+    }
+
+    private long[] bufferA = new long[0];
+    private long[] bufferB = new long[0];
+
+    /** A reused buffer of at least {@code size} entries that is not {@code inUse}. */
+    private long[] spare(long[] inUse, int size) {
+        if (inUse != bufferA) {
+            if (bufferA.length < size) {
+                bufferA = new long[Math.max(size, largestReplace)];
+            }
+            return bufferA;
+        }
+        if (bufferB.length < size) {
+            bufferB = new long[Math.max(size, largestReplace)];
+        }
+        return bufferB;
     }
 
     /**
