@@ -13,17 +13,18 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * The sites are added in the lattice's order ({@link Lattice#order()}); the state vector runs over
  * the values of the frontier (added sites with a neighbour still to come), each entry a table of
  * partial counts over (unequal bonds so far[, label so far]). Adding a site shifts tables; retiring
- * a site sums its value out ("one site at a time" sparse updates, as in the corner/row transfer
- * matrices of e.g. I. Jensen's series work, or H. W. J. Bl&ouml;te and M. P. Nightingale,
- * Physica A 112 (1982) 405). Every count is at most q^N (q values per site, N sites; 2^N for
+ * a site sums its value out ("one site at a time" sparse updates: the row transfer matrix factored
+ * into single-site steps, a standard technique cited here from memory rather than from one source).
+ * Each new site takes over the slot of the frontier site it retires, so the vector never grows
+ * beyond q^(frontier). Every count is at most q^N (q values per site, N sites; 2^N for
  * Ising and the hard-core gas), so the sweep runs modulo floor(N log2 q / 61) + 1 primes above
  * 2^61 and the counts are recovered exactly by Chinese remaindering (see {@code LatticeModuli}).
  *
  * <h2>Accuracy and cost</h2>
- * Exact (integer arithmetic throughout). Memory about 8 bytes x q^(f+1) x (table size) for the
- * largest frontier f (f = L for an L-wide free or cylindrical strip, 2L for a torus: each new
- * site replaces the site it retires);
- * {@link #estimate} gives the numbers before any work starts, and the counting methods refuse
+ * Exact (integer arithmetic throughout). Memory about 2 x 8 bytes x q^f x (table size) for the
+ * largest frontier f (f = L for an L-wide free or cylindrical strip, 2L for a torus); the table
+ * has (bonds + 1) entries, times (N + 1) with the label. Work: about q^(f+1) x (table) modular
+ * additions per site and prime. {@link #estimate} gives the numbers before any work starts, and the counting methods refuse
  * (with the estimate) when the largest state vector would not fit in the memory allowed.
  */
 public final class TransferMatrix {
