@@ -29,6 +29,7 @@ class LatticeCountTest {
         }
         out.add(Arguments.of(Lattice.square(5, 3, Boundary.FREE)));
         out.add(Arguments.of(Lattice.graph(7, new int[][] {{0, 1}, {1, 2}, {2, 0}, {2, 3}, {3, 4}, {4, 5}, {5, 6}, {6, 3}, {0, 5}})));
+        out.add(Arguments.of(Lattice.graph(6, new int[][] {{0, 2}, {2, 4}, {4, 5}})));   // sites 1 and 3 isolated
         return out.stream();
     }
 
