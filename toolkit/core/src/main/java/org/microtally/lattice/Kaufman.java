@@ -28,7 +28,8 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * integer polynomial, so any ring homomorphism from Z[zeta_2n] gives its residues). The polynomial
  * is evaluated at the S points c omega^j (omega of order S, c outside the subgroup so D never
  * vanishes), V_m by the doubling formulas V_2j = V_j^2 - 2, V_2j+1 = V_j V_j+1 - y, and the
- * coefficients come back by one inverse number-theoretic transform. Every g_k &lt;= 2^{nm}, so
+ * coefficients come back by one inverse number-theoretic transform (only even powers occur, as
+ * every site has four bonds, so half the points suffice: F(-x) = F(x)). Every g_k &lt;= 2^{nm}, so
  * floor(nm / 61) + 1 primes above 2^61 and Chinese remaindering give them exactly.
  *
  * <h2>Accuracy and limits</h2>
@@ -103,7 +104,11 @@ public final class Kaufman {
         long half = f.inverse(two);
         long[] values = new long[s];
         long x = c;
-        for (int j = 0; j < s; j++) {
+        // Every site has four bonds, so a spin flip changes the number of unequal bonds by an even
+        // number: only even powers of x occur, F(-x) = F(x), and the points c omega^{j + S/2} =
+        // -c omega^j need no second evaluation.
+        int points = s / 2;
+        for (int j = 0; j < points; j++) {
             long x2 = f.mul(x, x);
             long oneMinusX2 = f.sub(one, x2);
             long d = f.mul(x, oneMinusX2);
@@ -133,6 +138,7 @@ public final class Kaufman {
             long rMinus = f.sub(first, second);
             long total = f.add(f.add(oddPlus, oddMinus), f.add(f.mul(rPlus, evenPlus), f.mul(rMinus, evenMinus)));
             values[j] = f.mul(total, half);
+            values[j + s / 2] = values[j];
             x = f.mul(x, omega);
         }
         // Inverse transform: values[j] = sum_i h_i omega^{ij}, h_i = g_i c^i.
