@@ -61,6 +61,27 @@ class FisherZerosTest {
     }
 
     @Test
+    void pottsZerosApproachTheSelfDualPoint() {
+        // Source: closed form, the q-state Potts self-dual point e^{K_c} = 1 + sqrt q (F. Y. Wu, Rev. Mod. Phys. 54,
+        // 235 (1982)): z_c = e^{-K_c} = 1/(1 + sqrt 3) for q = 3; the leading zero in z = e^{-beta J} closes in on it,
+        // Im z_1 ~ L^{-1/nu} with nu = 5/6 (Wu 1982, Table of exponents)
+        double zc = 1 / (1 + Math.sqrt(3));
+        double previous = Double.POSITIVE_INFINITY;
+        double[] im = new double[3];
+        int[] sizes = {3, 4, 5};
+        for (int i = 0; i < 3; i++) {
+            ExactDensityOfStates g = TransferMatrix.densityOfStates(Lattice.square(sizes[i], sizes[i], Boundary.PERIODIC),
+                    Model.potts(3, Model.Coupling.FERROMAGNETIC), ProgressListener.NONE);
+            FisherZeros.Zero z = FisherZeros.of(g, 1, 20).leading();
+            double distance = Math.hypot(z.re().doubleValue() - zc, z.im().doubleValue());
+            assertTrue(z.re().doubleValue() > zc && distance < previous, "L = " + sizes[i] + ": " + z);
+            previous = distance;
+            im[i] = z.im().doubleValue();
+        }
+        assertEquals(Math.pow(5.0 / 3.0, 6.0 / 5.0), im[0] / im[2], 0.15 * im[0] / im[2]);
+    }
+
+    @Test
     void badInput() {
         ExactDensityOfStates g = Kaufman.densityOfStates(4, 4, ProgressListener.NONE);
         // common practice, no source
