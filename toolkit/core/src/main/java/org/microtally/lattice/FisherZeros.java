@@ -146,6 +146,26 @@ public final class FisherZeros implements Tabular {
         return best;
     }
 
+    /**
+     * Two-size estimate of the scaling exponent 1/nu from the leading zeros of lattices of linear
+     * sizes l1 &lt; l2: Im z_1 ~ L^{-1/nu} (C. Itzykson, R. B. Pearson, J. B. Zuber, Nucl. Phys. B 220
+     * (1983) 415) gives 1/nu = ln(Im z(l1) / Im z(l2)) / ln(l2 / l1). A finite-size estimate: its
+     * corrections fall off with L (for the square Ising torus: 1.08 from L = 4, 6 and 1.05 from 6, 8
+     * against the exact 1).
+     */
+    public static double scalingExponent(int l1, Zero z1, int l2, Zero z2) {
+        if (l1 < 1 || l2 <= l1) {
+            throw InvalidInputException.of("sizes l1, l2", l1 + ", " + l2, "1 <= l1 < l2", "");
+        }
+        double im1 = z1.im().doubleValue();
+        double im2 = z2.im().doubleValue();
+        if (!(im1 > 0 && im2 > 0)) {
+            throw InvalidInputException.of("Im z of the leading zeros", im1 + ", " + im2, "both > 0",
+                    "Pass the zeros returned by leading().");
+        }
+        return Math.log(im1 / im2) / Math.log((double) l2 / l1);
+    }
+
     @Override
     public List<String> columnNames() {
         return List.of("Re z", "Im z", "|z|", "error radius");

@@ -54,6 +54,8 @@ class FisherZerosTest {
         FisherZeros.Zero z6 = FisherZeros.of(Kaufman.densityOfStates(6, 6, ProgressListener.NONE), 2, 20).leading();
         assertTrue(z6.re().doubleValue() > xc && z6.re().doubleValue() < z4.re().doubleValue());
         assertEquals(6.0 / 4.0, z4.im().doubleValue() / z6.im().doubleValue(), 0.1);
+        assertEquals(1.0, FisherZeros.scalingExponent(4, z4, 6, z6), 0.1);
+        assertThrows(InvalidInputException.class, () -> FisherZeros.scalingExponent(6, z6, 4, z4));
         // The same zeros from the transfer-matrix count (independent route to the coefficients).
         ExactDensityOfStates tm = TransferMatrix.densityOfStates(Lattice.square(6, 6, Boundary.PERIODIC),
                 Model.ising(Model.Coupling.FERROMAGNETIC), ProgressListener.NONE);

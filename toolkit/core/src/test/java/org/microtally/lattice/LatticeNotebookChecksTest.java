@@ -57,5 +57,9 @@ class LatticeNotebookChecksTest {
         double im8 = FisherZeros.of(Kaufman.densityOfStates(8, 8, ProgressListener.NONE), 2, 25).leading().im().doubleValue();
         // Source: Onsager 1944, nu = 1, so Im x_1 ~ 1/L (Itzykson, Pearson, Zuber, Nucl. Phys. B 220 (1983) 415)
         assertEquals(2.0, im4 / im8, 0.15);
+        // Source: Onsager 1944, nu = 1: the two-size estimate from L = 6, 8 within 0.1
+        FisherZeros.Zero z6 = FisherZeros.of(Kaufman.densityOfStates(6, 6, ProgressListener.NONE), 2, 20).leading();
+        FisherZeros.Zero z8 = FisherZeros.of(Kaufman.densityOfStates(8, 8, ProgressListener.NONE), 2, 20).leading();
+        assertEquals(1.0, FisherZeros.scalingExponent(6, z6, 8, z8), 0.1);
     }
 }
