@@ -162,7 +162,13 @@ public final class ExactCanonical {
         double betaHi = 1 / kT[best - 1];
         double betaLo = 1 / kT[best + 1];
         BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-14 * betaHi, 1e-300, 5);
-        double beta = solver.solve(200, this::slope, betaLo, betaHi, AllowedSolution.ANY_SIDE);
+        double beta;
+        try {
+            beta = solver.solve(200, this::slope, betaLo, betaHi, AllowedSolution.ANY_SIDE);
+        } catch (org.apache.commons.math3.exception.MathIllegalStateException
+                 | org.apache.commons.math3.exception.MathIllegalArgumentException e) {
+            throw new IllegalStateException("heat-capacity peak near kT = " + kT[best] + " could not be refined: " + e.getMessage(), e);
+        }
         State s = atBeta(beta);
         return new Peak(1 / beta, beta, s.heatCapacity(), byEnergy.scale().name());
     }
@@ -217,25 +223,17 @@ public final class ExactCanonical {
     }
 
     /** A table of {@link State} rows, one per temperature kT (in the scale's unit). */
-    public Tabular sweep(double... kT) {
+    public Sweep sweep(double... kT) {
         List<List<Object>> rows = new ArrayList<>();
         for (double t : kT) {
             rows.add(atTemperature(t).rows().get(0));
         }
         List<String> names = atTemperature(kT.length == 0 ? 1 : kT[0]).columnNames();
-        List<List<Object>> frozen = Collections.unmodifiableList(rows);
-        return new Tabular() {
-            @Override
-            public List<String> columnNames() {
-                return names;
-            }
-
-            @Override
-            public List<List<Object>> rows() {
-                return frozen;
-            }
-        };
+        return new Sweep(names, Collections.unmodifiableList(rows));
     }
+
+    /** A table of canonical states, one row per temperature. */
+    public record Sweep(List<String> columnNames, List<List<Object>> rows) implements Tabular { }
 
     /**
      * One canonical state: ln Z, U, C, S, F at inverse temperature beta (energies in {@code unit}).

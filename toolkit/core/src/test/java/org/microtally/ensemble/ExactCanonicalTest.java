@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.math.BigInteger;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
@@ -39,6 +40,11 @@ class ExactCanonicalTest {
             assertEquals(Math.log(z) - beta * z1 / z, st.entropy(), 1e-12 * n);
             assertEquals(-Math.log(z) / beta, st.freeEnergy(), 1e-12 * n / Math.abs(beta));
         }
+        // Source: closed form as above, through the sweep table (kT = 2: K = 1/2)
+        ExactCanonical.Sweep sweep = ring.sweep(1.0, 2.0);
+        assertEquals(List.of("kT [|J|]", "ln Z", "U [|J|]", "C [k]", "S [k]", "F [|J|]"), sweep.columnNames());
+        double zHalf = Math.pow(2 * Math.cosh(0.5), n) + Math.pow(2 * Math.sinh(0.5), n);
+        assertEquals(Math.log(zHalf), (Double) sweep.rows().get(1).get(1), 1e-12);
     }
 
     @Test
