@@ -43,6 +43,22 @@ public final class Kaufman {
 
     /** g(E) of the ferromagnetic Ising model on the periodic L x M square lattice (E in units of J). */
     public static ExactDensityOfStates densityOfStates(int l, int m, ProgressListener progress) {
+        return densityOfStates(l, m, Model.Coupling.FERROMAGNETIC, progress);
+    }
+
+    /**
+     * g(E) of the Ising model with the given sign of J on the periodic L x M square lattice (E in
+     * units of |J|). The antiferromagnet needs both sides even: the torus is then bipartite and
+     * flipping one sublattice maps the antiferromagnet's E to the ferromagnet's, g_AF(E) = g_F(E);
+     * on an odd side the antiferromagnet is frustrated and has a different spectrum (use
+     * {@link TransferMatrix}).
+     */
+    public static ExactDensityOfStates densityOfStates(int l, int m, Model.Coupling coupling, ProgressListener progress) {
+        java.util.Objects.requireNonNull(coupling, "coupling");
+        if (coupling == Model.Coupling.ANTIFERROMAGNETIC && (l % 2 != 0 || m % 2 != 0)) {
+            throw InvalidInputException.of("L x M for the antiferromagnet", l + " x " + m, "both sides even (a bipartite torus)",
+                    "An odd period frustrates the antiferromagnet; use TransferMatrix for it.");
+        }
         Lattice lattice = Lattice.square(l, m, Boundary.PERIODIC);   // validates L, M >= 3
         if (l % 2 != 0 && m % 2 != 0) {
             throw InvalidInputException.of("L x M", l + " x " + m, "at least one even side for Kaufman's polynomial form",
@@ -58,7 +74,9 @@ public final class Kaufman {
         if (!sum.equals(BigInteger.TWO.pow(n * mm))) {
             throw new IllegalStateException("Kaufman expansion failed its own check sum g = 2^N for " + l + " x " + m);
         }
-        return Tally.toDensityOfStates(lattice, Model.ising(Model.Coupling.FERROMAGNETIC), false, g, 1);
+        // Bipartite torus: the sublattice flip maps k unequal bonds to B - k, and g_k = g_{B-k}, so the
+        // antiferromagnet has the same table g_k (energies E = B - 2k instead of 2k - B).
+        return Tally.toDensityOfStates(lattice, Model.ising(coupling), false, g, 1);
     }
 
     static BigInteger[] coefficients(int n, int m, ProgressListener progress) {

@@ -24,4 +24,16 @@ class KaufmanTest {
         assertEquals(BruteForce.densityOfStates(Lattice.square(l, m, Boundary.PERIODIC), Model.ising(Coupling.FERROMAGNETIC)).rows(),
                 Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
     }
+
+    @ParameterizedTest
+    @CsvSource({"4, 4", "6, 4"})
+    void antiferromagnetOnEvenToriEqualsTransferMatrix(int l, int m) {
+        Model anti = Model.ising(Coupling.ANTIFERROMAGNETIC);
+        // Source: independent route, transfer matrix of the antiferromagnet on the same torus
+        assertEquals(TransferMatrix.densityOfStates(Lattice.square(l, m, Boundary.PERIODIC), anti, ProgressListener.NONE).rows(),
+                Kaufman.densityOfStates(l, m, Coupling.ANTIFERROMAGNETIC, ProgressListener.NONE).rows());
+        // common practice, no source: an odd period is refused for the antiferromagnet
+        org.junit.jupiter.api.Assertions.assertThrows(org.microtally.InvalidInputException.class,
+                () -> Kaufman.densityOfStates(l, 5, Coupling.ANTIFERROMAGNETIC, ProgressListener.NONE));
+    }
 }
