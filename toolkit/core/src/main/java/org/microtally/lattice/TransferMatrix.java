@@ -16,7 +16,8 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * a site sums its value out ("one site at a time" sparse updates: the row transfer matrix factored
  * into single-site steps, a standard technique cited here from memory rather than from one source).
  * Each new site takes over the slot of the frontier site it retires, so the vector never grows
- * beyond q^(frontier). Every count is at most q^N (q values per site, N sites; 2^N for
+ * beyond q^(frontier). For Ising g(E) (no label) the spin-flip symmetry halves the stored states
+ * (a state and its complement have the same table). Every count is at most q^N (q values per site, N sites; 2^N for
  * Ising and the hard-core gas), so the sweep runs modulo floor(N log2 q / 61) + 1 primes above
  * 2^61 and the counts are recovered exactly by Chinese remaindering (see {@code LatticeModuli}).
  *
@@ -56,6 +57,11 @@ public final class TransferMatrix {
         return estimate(plan, lattice, model, withLabel);
     }
 
+    /** Ising g(E) without a label: the spin-flip symmetric sweep stores half the states. */
+    private static boolean flipSymmetric(Model model, boolean withLabel) {
+        return model.kind() == Model.Kind.ISING && !withLabel;
+    }
+
     private static Cost estimate(Schedule plan, Lattice lattice, Model model, boolean withLabel) {
         double q = model.statesPerSite();
         boolean energy = model.kind() != Model.Kind.HARD_CORE;
@@ -90,6 +96,10 @@ public final class TransferMatrix {
                 size = smaller;
                 f--;
             }
+        }
+        if (flipSymmetric(model, withLabel)) {
+            peak /= 2;
+            updates /= 2;
         }
         int primes = LatticeModuli.primesFor(lattice.sites() * Math.log(q) / Math.log(2));
         return new Cost(plan.maxFrontier, peak, updates, primes, updates * primes / ASSUMED_UPDATES_PER_SECOND);
@@ -139,11 +149,18 @@ public final class TransferMatrix {
                             + "Kaufman's solution for the periodic square Ising lattice, or a larger heap (-Xmx).");
         }
         long[] primes = LatticeModuli.primes(cost.primes());
-        FrontierSweep sweep = new FrontierSweep(plan, model, withLabel);
         long[][] residues = new long[primes.length][];
         Throttle throttle = new Throttle(progress, (long) primes.length * plan.sites, "lattice sites");
-        for (int i = 0; i < primes.length; i++) {
-            residues[i] = sweep.run(primes[i], throttle::step);
+        if (flipSymmetric(model, withLabel)) {
+            FlipSymmetricSweep sweep = new FlipSymmetricSweep(plan);
+            for (int i = 0; i < primes.length; i++) {
+                residues[i] = sweep.run(primes[i], throttle::step);
+            }
+        } else {
+            FrontierSweep sweep = new FrontierSweep(plan, model, withLabel);
+            for (int i = 0; i < primes.length; i++) {
+                residues[i] = sweep.run(primes[i], throttle::step);
+            }
         }
         BigInteger[] counts = LatticeModuli.recombine(primes, residues);
         if (!hardCore) {

@@ -42,6 +42,9 @@ class LatticeCountTest {
         Model anti = Model.ising(Coupling.ANTIFERROMAGNETIC);
         assertEquals(BruteForce.densityOfStates(lattice, anti).rows(),
                 TransferMatrix.densityOfStates(lattice, anti, ProgressListener.NONE).rows());
+        // Source: independent brute force; g(E) alone runs the spin-flip symmetric sweep
+        assertEquals(BruteForce.densityOfStates(lattice, FERRO).rows(),
+                TransferMatrix.densityOfStates(lattice, FERRO, ProgressListener.NONE).rows());
         // Source: closed form, every configuration counted once: sum g = 2^N
         assertEquals(BigInteger.TWO.pow(lattice.sites()),
                 TransferMatrix.densityOfStates(lattice, FERRO, ProgressListener.NONE).total());
