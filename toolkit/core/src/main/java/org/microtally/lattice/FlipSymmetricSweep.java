@@ -6,7 +6,7 @@ package org.microtally.lattice;
  * spin in slot 0 down (bit 0 clear) are stored, at index s / 2; a read of any state goes through
  * its stored representative. Every update is destination-major over the stored states, so the
  * vector and the work are halved against {@link FrontierSweep}; the arithmetic (modular additions
- * of shifted rows) is the same.
+ * of shifted rows) is the same, the first contribution to each destination being a plain copy.
  */
 final class FlipSymmetricSweep {
     private final Schedule plan;
@@ -64,18 +64,16 @@ final class FlipSymmetricSweep {
             for (long i = 0; i < destinations; i++) {
                 long dest = nf == 0 ? 0 : i << 1;
                 int frame = (int) (i * nk);
-                java.util.Arrays.fill(next, frame, frame + nk, 0L);
                 if (slot >= 0) {
                     int a = (int) ((dest >>> slot) & 1);
-                    long base = dest & ~(1L << slot);
-                    for (int b = 0; b < 2; b++) {
-                        long s = base | ((long) b << slot);
-                        add(next, frame + shift(s, a, nb), vec, (int) (index(s, f) * kRange), kRange, p);
-                    }
+                    long s0 = dest & ~(1L << slot);
+                    long s1 = s0 | (1L << slot);
+                    copy(next, frame, nk, shift(s0, a, nb), vec, (int) (index(s0, f) * kRange), kRange);
+                    add(next, frame + shift(s1, a, nb), vec, (int) (index(s1, f) * kRange), kRange, p);
                 } else {
                     int a = (int) ((dest >>> f) & 1);
                     long s = dest & ~(1L << f);
-                    add(next, frame + shift(s, a, nb), vec, (int) (index(s, f) * kRange), kRange, p);
+                    copy(next, frame, nk, shift(s, a, nb), vec, (int) (index(s, f) * kRange), kRange);
                 }
             }
             vec = next;
@@ -98,7 +96,6 @@ final class FlipSymmetricSweep {
         for (long i = 0; i < destinations; i++) {
             long dest = nf == 0 ? 0 : i << 1;
             int frame = (int) (i * block);
-            java.util.Arrays.fill(next, frame, frame + block, 0L);
             for (int d = 0; d < 2; d++) {
                 long s;
                 if (j == f - 1) {
@@ -107,10 +104,22 @@ final class FlipSymmetricSweep {
                     long top = (dest >>> j) & 1;                // the top site now sits in slot j
                     s = (dest & ~(1L << j)) | ((long) d << j) | (top << (f - 1));
                 }
-                add(next, frame, vec, (int) (index(s, f) * block), block, p);
+                int from = (int) (index(s, f) * block);
+                if (d == 0) {
+                    System.arraycopy(vec, from, next, frame, block);
+                } else {
+                    add(next, frame, vec, from, block, p);
+                }
             }
         }
         return next;
+    }
+
+    /** Frame [frame, frame + width) := zeros with vec[from .. from + len) copied in at offset dk. */
+    private static void copy(long[] next, int frame, int width, int dk, long[] vec, int from, int len) {
+        java.util.Arrays.fill(next, frame, frame + dk, 0L);
+        System.arraycopy(vec, from, next, frame + dk, len);
+        java.util.Arrays.fill(next, frame + dk + len, frame + width, 0L);
     }
 
     private static void add(long[] next, int to, long[] vec, int from, int len, long p) {
