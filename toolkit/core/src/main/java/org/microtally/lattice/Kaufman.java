@@ -1,0 +1,221 @@
+package org.microtally.lattice;
+
+import java.math.BigInteger;
+import org.microtally.InvalidInputException;
+import org.microtally.ProgressListener;
+import org.microtally.ensemble.ExactDensityOfStates;
+
+/**
+ * The exact density of states g(E) of the ferromagnetic Ising model on the periodic n x m square
+ * lattice from Kaufman's finite-lattice partition function.
+ *
+ * <h2>Formula</h2>
+ * B. Kaufman, Phys. Rev. 76, 1232 (1949), in the form of P. D. Beale, Phys. Rev. Lett. 76, 78
+ * (1996): with K = beta J,
+ * Z = (1/2) (2 sinh 2K)^{nm/2} (Z_1 + Z_2 + Z_3 + Z_4), Z_1,2 = prod_{r=0}^{n-1} 2 cosh, sinh
+ * (m gamma_{2r+1} / 2), Z_3,4 = the same over gamma_{2r}, where cosh gamma_k = cosh 2K coth 2K -
+ * cos(pi k / n) and gamma_0 = 2K + ln tanh K (its sign matters). In x = e^{-2K} and for even n,
+ * pairing k with 2n - k (equal gamma) turns every factor into a polynomial:
+ * x^{nm} Z = (1/2) [prod_{odd k &lt; n} Q_k^+ + prod_{odd k &lt; n} Q_k^- + R^+ prod_{even 0 &lt; k &lt; n} Q_k^+
+ * + R^- prod_{even 0 &lt; k &lt; n} Q_k^-], with D = x (1 - x^2), Q_k^&plusmn; = D^m (V_m(y_k) &plusmn; 2),
+ * y_k = (1 + x^2)^2 / D - 2 cos(pi k / n), V_m the Lucas/Dickson polynomial V_m(w + 1/w) = w^m + w^-m,
+ * and R^&plusmn; = (1 - x^2)^m (1 + x^{2m}) &plusmn; x^m ((1 - x)^{2m} + (1 + x)^{2m}) from the unpaired
+ * k = 0 and k = n factors. Then x^{nm} Z = sum_k g_k x^k, g_k = g(E = 2k - 2nm).
+ *
+ * <h2>Method (ours)</h2>
+ * Modulo primes p = 1 (mod lcm(2n, S)), S the power of two above 4nm, 2 cos(pi k / n) becomes
+ * zeta^k + zeta^-k with zeta a primitive 2n-th root of unity in F_p (the right-hand side is an
+ * integer polynomial, so any ring homomorphism from Z[zeta_2n] gives its residues). The polynomial
+ * is evaluated at the S points c omega^j (omega of order S, c outside the subgroup so D never
+ * vanishes), V_m by the doubling formulas V_2j = V_j^2 - 2, V_2j+1 = V_j V_j+1 - y, and the
+ * coefficients come back by one inverse number-theoretic transform (only even powers occur, as
+ * every site has four bonds, so half the points suffice: F(-x) = F(x)). Every g_k &lt;= 2^{nm}, so
+ * floor(nm / 61) + 1 primes above 2^61 and Chinese remaindering give them exactly.
+ *
+ * <h2>Accuracy and limits</h2>
+ * Exact integers; the result is checked against sum g = 2^{nm} before it is returned (a failed
+ * check throws). One side must be even (with both odd the unpaired factors need square roots; use
+ * {@link TransferMatrix}). Cost about nm (n log2 m) modular multiplications per point, S points per
+ * prime, nm/61 primes: O((nm)^2 n log m / 61).
+ */
+public final class Kaufman {
+    private Kaufman() { }
+
+    /** g(E) of the ferromagnetic Ising model on the periodic L x M square lattice (E in units of J). */
+    public static ExactDensityOfStates densityOfStates(int l, int m, ProgressListener progress) {
+        return densityOfStates(l, m, Model.Coupling.FERROMAGNETIC, progress);
+    }
+
+    /**
+     * g(E) of the Ising model with the given sign of J on the periodic L x M square lattice (E in
+     * units of |J|). The antiferromagnet needs both sides even: the torus is then bipartite and
+     * flipping one sublattice maps the antiferromagnet's E to the ferromagnet's, g_AF(E) = g_F(E);
+     * on an odd side the antiferromagnet is frustrated and has a different spectrum (use
+     * {@link TransferMatrix}).
+     */
+    public static ExactDensityOfStates densityOfStates(int l, int m, Model.Coupling coupling, ProgressListener progress) {
+        java.util.Objects.requireNonNull(coupling, "coupling");
+        if (coupling == Model.Coupling.ANTIFERROMAGNETIC && (l % 2 != 0 || m % 2 != 0)) {
+            throw InvalidInputException.of("L x M for the antiferromagnet", l + " x " + m, "both sides even (a bipartite torus)",
+                    "An odd period frustrates the antiferromagnet; use TransferMatrix for it.");
+        }
+        Lattice lattice = Lattice.square(l, m, Boundary.PERIODIC);   // validates L, M >= 3
+        if (l % 2 != 0 && m % 2 != 0) {
+            throw InvalidInputException.of("L x M", l + " x " + m, "at least one even side for Kaufman's polynomial form",
+                    "Use TransferMatrix for odd x odd tori (a narrow one), or an even side.");
+        }
+        int n = l % 2 == 0 ? l : m;
+        int mm = n == l ? m : l;
+        BigInteger[] g = coefficients(n, mm, progress);
+        BigInteger sum = BigInteger.ZERO;
+        for (BigInteger c : g) {
+            sum = sum.add(c);
+        }
+        if (!sum.equals(BigInteger.TWO.pow(n * mm))) {
+            throw new IllegalStateException("Kaufman expansion failed its own check sum g = 2^N for " + l + " x " + m);
+        }
+        // Bipartite torus: the sublattice flip maps k unequal bonds to B - k, and g_k = g_{B-k}, so the
+        // antiferromagnet has the same table g_k (energies E = B - 2k instead of 2k - B).
+        return Tally.toDensityOfStates(lattice, Model.ising(coupling), false, g, 1);
+    }
+
+    static BigInteger[] coefficients(int n, int m, ProgressListener progress) {
+        int sites = n * m;
+        int degree = 2 * sites;
+        int s = Integer.highestOneBit(degree) << 1;          // S > 2nm
+        long step = lcm(2L * n, s);
+        int k = LatticeModuli.primesFor(sites);
+        long[] primes = LatticeModuli.primesCongruentToOne(step, k);
+        long[][] residues = new long[k][];
+        Throttle throttle = new Throttle(progress, k, "Kaufman primes");
+        for (int i = 0; i < k; i++) {
+            residues[i] = java.util.Arrays.copyOf(modular(n, m, s, primes[i]), degree + 1);
+            throttle.step();
+        }
+        return LatticeModuli.recombine(primes, residues);
+    }
+
+    private static long lcm(long a, long b) {
+        return a / BigInteger.valueOf(a).gcd(BigInteger.valueOf(b)).longValueExact() * b;
+    }
+
+    /** Coefficients of x^{nm} Z modulo p (plain residues), indices 0..S-1. */
+    static long[] modular(int n, int m, int s, long p) {
+        Montgomery f = new Montgomery(p);
+        long omega = rootOfOrder(f, s);
+        long zeta = rootOfOrder(f, 2L * n);
+        long[] t = new long[n];                             // t[k] = zeta^k + zeta^-k
+        long zk = f.one;
+        long zinv = f.inverse(zeta);
+        long zik = f.one;
+        for (int kk = 0; kk < n; kk++) {
+            t[kk] = f.add(zk, zik);
+            zk = f.mul(zk, zeta);
+            zik = f.mul(zik, zinv);
+        }
+        long c = f.in(3);
+        while (f.pow(c, s) == f.one) {
+            c = f.add(c, f.one);
+        }
+        long one = f.one;
+        long two = f.add(one, one);
+        long half = f.inverse(two);
+        long[] values = new long[s];
+        long x = c;
+        // Every site has four bonds, so a spin flip changes the number of unequal bonds by an even
+        // number: only even powers of x occur, F(-x) = F(x), and the points c omega^{j + S/2} =
+        // -c omega^j need no second evaluation.
+        int points = s / 2;
+        for (int j = 0; j < points; j++) {
+            long x2 = f.mul(x, x);
+            long oneMinusX2 = f.sub(one, x2);
+            long d = f.mul(x, oneMinusX2);
+            long onePlusX2 = f.add(one, x2);
+            long a = f.mul(f.mul(onePlusX2, onePlusX2), f.inverse(d));
+            long dm = f.pow(d, m);
+            long oddPlus = one;
+            long oddMinus = one;
+            long evenPlus = one;
+            long evenMinus = one;
+            for (int kk = 1; kk < n; kk++) {
+                long v = lucas(f, f.sub(a, t[kk]), m, two);
+                long plus = f.mul(dm, f.add(v, two));
+                long minus = f.mul(dm, f.sub(v, two));
+                if (kk % 2 == 1) {
+                    oddPlus = f.mul(oddPlus, plus);
+                    oddMinus = f.mul(oddMinus, minus);
+                } else {
+                    evenPlus = f.mul(evenPlus, plus);
+                    evenMinus = f.mul(evenMinus, minus);
+                }
+            }
+            long xm = f.pow(x, m);
+            long first = f.mul(f.pow(oneMinusX2, m), f.add(one, f.mul(xm, xm)));
+            long second = f.mul(xm, f.add(f.pow(f.sub(one, x), 2L * m), f.pow(f.add(one, x), 2L * m)));
+            long rPlus = f.add(first, second);
+            long rMinus = f.sub(first, second);
+            long total = f.add(f.add(oddPlus, oddMinus), f.add(f.mul(rPlus, evenPlus), f.mul(rMinus, evenMinus)));
+            values[j] = f.mul(total, half);
+            values[j + s / 2] = values[j];
+            x = f.mul(x, omega);
+        }
+        // Inverse transform: values[j] = sum_i h_i omega^{ij}, h_i = g_i c^i.
+        Ntt.transform(f, values, f.inverse(omega));
+        long scale = f.inverse(f.in(s));
+        long cInv = f.inverse(c);
+        long w = scale;
+        for (int i = 0; i < s; i++) {
+            values[i] = f.out(f.mul(values[i], w));
+            w = f.mul(w, cInv);
+        }
+        return values;
+    }
+
+    /** V_e(y) in Montgomery form (V_0 = 2, V_1 = y, V_{j+1} = y V_j - V_{j-1}) by doubling. */
+    private static long lucas(Montgomery f, long y, int e, long two) {
+        long v0 = two;
+        long v1 = y;
+        for (int bit = 31 - Integer.numberOfLeadingZeros(e); bit >= 0; bit--) {
+            long cross = f.sub(f.mul(v0, v1), y);
+            if (((e >>> bit) & 1) == 0) {
+                v0 = f.sub(f.mul(v0, v0), two);
+                v1 = cross;
+            } else {
+                v0 = cross;
+                v1 = f.sub(f.mul(v1, v1), two);
+            }
+        }
+        return v0;
+    }
+
+    /** An element of exact multiplicative order {@code order} (which divides p - 1), in Montgomery form. */
+    static long rootOfOrder(Montgomery f, long order) {
+        long[] primeFactors = primeFactors(order);
+        for (long g = 2; ; g++) {
+            long z = f.pow(f.in(g), (f.p - 1) / order);
+            boolean exact = true;
+            for (long r : primeFactors) {
+                exact &= f.pow(z, order / r) != f.one;
+            }
+            if (exact) {
+                return z;
+            }
+        }
+    }
+
+    private static long[] primeFactors(long v) {
+        java.util.List<Long> out = new java.util.ArrayList<>();
+        for (long r = 2; r * r <= v; r++) {
+            if (v % r == 0) {
+                out.add(r);
+                while (v % r == 0) {
+                    v /= r;
+                }
+            }
+        }
+        if (v > 1) {
+            out.add(v);
+        }
+        return out.stream().mapToLong(Long::longValue).toArray();
+    }
+}

@@ -1,0 +1,39 @@
+package org.microtally.lattice;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
+import org.microtally.ProgressListener;
+import org.microtally.lattice.Model.Coupling;
+
+class KaufmanTest {
+    @ParameterizedTest
+    @CsvSource({"4, 4", "4, 3", "3, 4", "4, 5", "6, 4", "6, 6", "4, 7"})
+    void kaufmanEqualsTransferMatrix(int l, int m) {
+        Lattice torus = Lattice.square(l, m, Boundary.PERIODIC);
+        // Source: independent route, site-by-site transfer matrix on the same torus
+        assertEquals(TransferMatrix.densityOfStates(torus, Model.ising(Coupling.FERROMAGNETIC), ProgressListener.NONE).rows(),
+                Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
+    }
+
+    @ParameterizedTest
+    @CsvSource({"4, 4", "4, 5", "3, 6"})
+    void kaufmanEqualsGrayCodeEnumeration(int l, int m) {
+        // Source: independent brute force over all 2^N configurations of the torus
+        assertEquals(BruteForce.densityOfStates(Lattice.square(l, m, Boundary.PERIODIC), Model.ising(Coupling.FERROMAGNETIC)).rows(),
+                Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
+    }
+
+    @ParameterizedTest
+    @CsvSource({"4, 4", "6, 4"})
+    void antiferromagnetOnEvenToriEqualsTransferMatrix(int l, int m) {
+        Model anti = Model.ising(Coupling.ANTIFERROMAGNETIC);
+        // Source: independent route, transfer matrix of the antiferromagnet on the same torus
+        assertEquals(TransferMatrix.densityOfStates(Lattice.square(l, m, Boundary.PERIODIC), anti, ProgressListener.NONE).rows(),
+                Kaufman.densityOfStates(l, m, Coupling.ANTIFERROMAGNETIC, ProgressListener.NONE).rows());
+        // common practice, no source: an odd period is refused for the antiferromagnet
+        org.junit.jupiter.api.Assertions.assertThrows(org.microtally.InvalidInputException.class,
+                () -> Kaufman.densityOfStates(l, 5, Coupling.ANTIFERROMAGNETIC, ProgressListener.NONE));
+    }
+}
