@@ -1,7 +1,6 @@
 package org.microtally.structure;
 
 import java.util.List;
-import org.apache.commons.math3.ode.FirstOrderDifferentialEquations;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 
@@ -74,7 +73,7 @@ public final class LaneEmden implements Tabular {
         double[] y = start(n, START);
         var integrator = new org.apache.commons.math3.ode.nonstiff.DormandPrince853Integrator(1e-12, xi, TOLERANCE, TOLERANCE);
         double[] out = new double[2];
-        integrator.integrate(system(n), START, y, xi, out);
+        integrator.integrate(SurfaceIntegration.equations(system(n), 2), START, y, xi, out);
         if (out[0] < 0.0) {
             throw InvalidInputException.of("Lane-Emden radius xi (n = " + n + ")", xi,
                     "at most the first zero xi_1 = " + solve(n).firstZero(), "");
@@ -89,18 +88,10 @@ public final class LaneEmden implements Tabular {
         return new double[] {theta, slope};
     }
 
-    private static FirstOrderDifferentialEquations system(double n) {
-        return new FirstOrderDifferentialEquations() {
-            @Override
-            public int getDimension() {
-                return 2;
-            }
-
-            @Override
-            public void computeDerivatives(double xi, double[] y, double[] dy) {
-                dy[0] = y[1];
-                dy[1] = -Math.pow(Math.max(y[0], 0.0), n) - 2.0 * y[1] / xi;
-            }
+    private static SurfaceIntegration.Rhs system(double n) {
+        return (xi, y, dy) -> {
+            dy[0] = y[1];
+            dy[1] = -Math.pow(Math.max(y[0], 0.0), n) - 2.0 * y[1] / xi;
         };
     }
 

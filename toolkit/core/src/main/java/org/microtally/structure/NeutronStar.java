@@ -1,7 +1,6 @@
 package org.microtally.structure;
 
 import java.util.List;
-import org.apache.commons.math3.ode.FirstOrderDifferentialEquations;
 import org.apache.commons.math3.optim.MaxEval;
 import org.apache.commons.math3.optim.nonlinear.scalar.GoalType;
 import org.apache.commons.math3.optim.univariate.BrentOptimizer;
@@ -86,20 +85,12 @@ public final class NeutronStar implements Tabular {
         double scale = Math.sqrt(lnyc / curvature);
         double s0 = 1e-5 * scale;
         double[] start = {lnyc - 0.5 * curvature * s0 * s0, ec * s0 * s0 * s0 / 3};
-        FirstOrderDifferentialEquations system = new FirstOrderDifferentialEquations() {
-            @Override
-            public int getDimension() {
-                return 2;
-            }
-
-            @Override
-            public void computeDerivatives(double s, double[] y, double[] dy) {
-                double x = Math.sqrt(Math.max(Math.expm1(2 * y[0]), 0.0));
-                double p = ColdFermiGas.reducedPressure(x);
-                double e = ColdFermiGas.reducedKineticEnergy(x) + 8 * x * x * x;
-                dy[0] = -(y[1] + s * s * s * p) / (s * s * (1 - 2 * y[1] / s));
-                dy[1] = s * s * e;
-            }
+        SurfaceIntegration.Rhs system = (s, y, dy) -> {
+            double x = Math.sqrt(Math.max(Math.expm1(2 * y[0]), 0.0));
+            double p = ColdFermiGas.reducedPressure(x);
+            double e = ColdFermiGas.reducedKineticEnergy(x) + 8 * x * x * x;
+            dy[0] = -(y[1] + s * s * s * p) / (s * s * (1 - 2 * y[1] / s));
+            dy[1] = s * s * e;
         };
         SurfaceIntegration.Surface surface = SurfaceIntegration.toSurface(system, s0, start, 0, 0.0, 100 * scale, tolerance,
                 new double[] {lnyc, ec * scale * scale * scale / 3});

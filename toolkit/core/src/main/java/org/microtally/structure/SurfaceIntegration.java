@@ -23,10 +23,30 @@ final class SurfaceIntegration {
     /** Cap on right-hand-side evaluations per model (a model in the stated ranges needs a few thousand). */
     static final int MAX_EVALUATIONS = 2_000_000;
 
+    /** The right-hand side dy/ds of a structure system. */
+    interface Rhs {
+        void derivatives(double s, double[] y, double[] dy);
+    }
+
+    /** The system in the integrator's form. */
+    static FirstOrderDifferentialEquations equations(Rhs rhs, int dimension) {
+        return new FirstOrderDifferentialEquations() {
+            @Override
+            public int getDimension() {
+                return dimension;
+            }
+
+            @Override
+            public void computeDerivatives(double s, double[] y, double[] dy) {
+                rhs.derivatives(s, y, dy);
+            }
+        };
+    }
+
     /** The state at the surface: the radius variable and every component. */
     record Surface(double radius, double[] state) { }
 
-    static Surface toSurface(FirstOrderDifferentialEquations system, double r0, double[] y0, int component,
+    static Surface toSurface(Rhs rhs, double r0, double[] y0, int component,
             double surfaceValue, double rMax, double tolerance, double[] magnitudes) {
         double scale = Math.abs(rMax);
         double[] absolute = new double[magnitudes.length];
@@ -60,7 +80,7 @@ final class SurfaceIntegration {
         double[] y = y0.clone();
         double end;
         try {
-            end = integrator.integrate(system, r0, y0.clone(), rMax, y);
+            end = integrator.integrate(equations(rhs, y0.length), r0, y0.clone(), rMax, y);
         } catch (org.apache.commons.math3.exception.MaxCountExceededException e) {
             throw new IllegalStateException("the structure integration did not reach the surface within " + MAX_EVALUATIONS
                     + " right-hand-side evaluations (an extreme central condition); no result is returned", e);

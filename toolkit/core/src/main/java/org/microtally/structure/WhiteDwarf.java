@@ -2,7 +2,6 @@ package org.microtally.structure;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.apache.commons.math3.ode.FirstOrderDifferentialEquations;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.limit.ColdFermiGas;
@@ -87,18 +86,10 @@ public final class WhiteDwarf implements Tabular {
         double s0 = 1e-4 * scale;
         double s2 = s0 * s0;
         double[] start = {wc - fc * s2 / 6 + fc * slope * s2 * s2 / 120, fc * s2 * s0 / 3 - fc * slope * s2 * s2 * s0 / 30};
-        FirstOrderDifferentialEquations system = new FirstOrderDifferentialEquations() {
-            @Override
-            public int getDimension() {
-                return 2;
-            }
-
-            @Override
-            public void computeDerivatives(double s, double[] y, double[] dy) {
-                double x2 = Math.max(y[0] * (y[0] + 2), 0.0);
-                dy[0] = -y[1] / (s * s);
-                dy[1] = s * s * x2 * Math.sqrt(x2);
-            }
+        SurfaceIntegration.Rhs system = (s, y, dy) -> {
+            double x2 = Math.max(y[0] * (y[0] + 2), 0.0);
+            dy[0] = -y[1] / (s * s);
+            dy[1] = s * s * x2 * Math.sqrt(x2);
         };
         double[] magnitudes = {wc, fc * scale * scale * scale / 3};
         SurfaceIntegration.Surface surface = SurfaceIntegration.toSurface(system, s0, start, 0, 0.0, 100 * scale, tolerance,
