@@ -154,8 +154,8 @@ public final class RelativisticFermiGas implements Tabular {
             double y = Math.sqrt(1 + xF * xF);
             e = fermiOverKT - Math.PI * Math.PI / 6 * beta * (y / (xF * xF) + 1 / y);
         } else {
-            // non-relativistic inversion of F_1/2 bridging the Maxwell-Boltzmann and degenerate limits (of the form of
-            // H. M. Antia, ApJS 84, 101 (1993), sec. 2; only a start: Newton makes it exact), with u = n / (K_n beta^3/2
+            // non-relativistic inversion of F_1/2 bridging the Maxwell-Boltzmann and degenerate limits (N. G. Nilsson,
+            // Phys. Status Solidi A 19, K75 (1973), from memory; only a start: Newton makes it exact), with u = n / (K_n beta^3/2
             // Gamma(3/2) (1 + 15 beta/8)), the last factor the first relativistic correction of int x^1/2 (1 + 5 beta x/4) e^-x dx
             double u = netDensity / (kn * b15 * (Math.sqrt(Math.PI) / 2) * (1 + 15 * beta / 8));
             double nu = Math.pow(0.75 * Math.sqrt(Math.PI) * u, 2.0 / 3.0);
