@@ -121,6 +121,28 @@ class RelativisticFermiDiracTest {
     }
 
     @Test
+    void quadratureAndSommerfeldSeriesAgreeWhereTheyMeet() {
+        // common practice, no source: two independent routes (Gauss quadrature below eta = 50, the Sommerfeld series from
+        // 50 on) must agree across the switch, 2e-12 apart: F is carried to eta = 50 with its eta-derivative; the other
+        // values move by at most (k + 2) 2e-12 / eta < 2e-13 relative across the gap, inside the 1e-12 allowed
+        double d = 1e-12;
+        double below = RelativisticFermiDirac.SOMMERFELD_FROM - d;
+        double above = RelativisticFermiDirac.SOMMERFELD_FROM + d;
+        for (double beta : new double[] {0.0, 1e-3, 0.3, 10.0, 3000.0}) {
+            FermiDiracValues q = RelativisticFermiDirac.evaluate(below, beta, true);
+            FermiDiracValues s = RelativisticFermiDirac.evaluate(above, beta, true);
+            for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+                double fq = q.integral(k) + d * q.etaDerivative(k);
+                double fs = s.integral(k) - d * s.etaDerivative(k);
+                assertTrue(Math.abs(fq / fs - 1) <= 1e-12, "F_" + k + " beta " + beta + ": " + fq + " vs " + fs);
+                assertTrue(Math.abs(q.etaDerivative(k) / s.etaDerivative(k) - 1) <= 1e-12, "dF/deta " + k + " beta " + beta);
+                assertTrue(Math.abs(q.betaDerivative(k) / s.betaDerivative(k) - 1) <= 1e-12, "dF/dbeta " + k + " beta " + beta);
+                assertTrue(Math.abs(q.entropyIntegral(k) / s.entropyIntegral(k) - 1) <= 1e-12, "S " + k + " beta " + beta);
+            }
+        }
+    }
+
+    @Test
     void refusesOutsideTheDomain() {
         // common practice, no source
         assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(0.5, -800, 1));
