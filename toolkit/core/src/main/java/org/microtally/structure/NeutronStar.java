@@ -8,10 +8,8 @@ import org.apache.commons.math3.optim.univariate.SearchInterval;
 import org.apache.commons.math3.optim.univariate.UnivariateObjectiveFunction;
 import org.apache.commons.math3.optim.univariate.UnivariatePointValuePair;
 import org.microtally.InvalidInputException;
-import org.microtally.Tabular;
 import org.microtally.limit.ColdFermiGas;
 import org.microtally.units.Codata2018;
-import org.microtally.units.Iau2015;
 
 /**
  * A neutron star of the ideal cold neutron gas in general relativity: the Tolman-Oppenheimer-Volkoff
@@ -32,23 +30,15 @@ import org.microtally.units.Iau2015;
  * non-rotating, cold. Its maximum mass (about 0.71 M_sun) is far below that of observed neutron stars;
  * the models beyond the maximum-mass density are unstable. Not for engineering or safety use.
  */
-public final class NeutronStar implements Tabular {
+public final class NeutronStar extends CompactStar {
     /** Smallest accepted central density, kg/m^3 (1e14 g/cm^3). */
     public static final double MIN_CENTRAL_DENSITY = 1e17;
     /** Largest accepted central density, kg/m^3 (1e18 g/cm^3). */
     public static final double MAX_CENTRAL_DENSITY = 1e21;
     static final double TOLERANCE = 1e-12;
 
-    private final double centralDensity;
-    private final double centralX;
-    private final double mass;
-    private final double radius;
-
     private NeutronStar(double centralDensity, double centralX, double mass, double radius) {
-        this.centralDensity = centralDensity;
-        this.centralX = centralX;
-        this.mass = mass;
-        this.radius = radius;
+        super(centralDensity, centralX, mass, radius);
     }
 
     /**
@@ -104,30 +94,10 @@ public final class NeutronStar implements Tabular {
                 / ColdFermiGas.reducedPressure(1.0);
     }
 
-    /** Central rest-mass density m_n n_c in kg/m^3. */
-    public double centralDensity() {
-        return centralDensity;
-    }
 
-    /** Central relativity parameter x_c = p_F/(m_n c). */
-    public double centralRelativityParameter() {
-        return centralX;
-    }
 
-    /** Gravitational mass in kg. */
-    public double mass() {
-        return mass;
-    }
 
-    /** Gravitational mass in IAU 2015 nominal solar masses. */
-    public double solarMasses() {
-        return mass / Iau2015.SOLAR_MASS;
-    }
 
-    /** Radius (circumferential) in km. */
-    public double radiusKm() {
-        return radius / 1e3;
-    }
 
     @Override
     public List<String> columnNames() {
@@ -136,7 +106,7 @@ public final class NeutronStar implements Tabular {
 
     @Override
     public List<List<Object>> rows() {
-        return List.of(List.of(centralDensity / 1e3, centralX, solarMasses(), radiusKm(),
+        return List.of(List.of(centralDensity() / 1e3, centralRelativityParameter(), solarMasses(), radiusKm(),
                 "ideal cold neutron gas, TOV; a toy: no nuclear forces, no protons"));
     }
 }

@@ -3,10 +3,8 @@ package org.microtally.structure;
 import java.util.ArrayList;
 import java.util.List;
 import org.microtally.InvalidInputException;
-import org.microtally.Tabular;
 import org.microtally.limit.ColdFermiGas;
 import org.microtally.units.Codata2018;
-import org.microtally.units.Iau2015;
 
 /**
  * A white dwarf in Newtonian hydrostatic equilibrium on the exact T = 0 ideal electron equation of
@@ -33,7 +31,7 @@ import org.microtally.units.Iau2015;
  * and a maximum mass somewhat below M_Ch. Results are a research baseline, not for engineering or
  * safety use.
  */
-public final class WhiteDwarf implements Tabular {
+public final class WhiteDwarf extends CompactStar {
     /** Central densities accepted, kg/m^3 (1e3 to 1e11 g/cm^3). */
     public static final double MIN_CENTRAL_DENSITY = 1e6;
     /** Largest accepted central density, kg/m^3 (1e11 g/cm^3). */
@@ -41,17 +39,10 @@ public final class WhiteDwarf implements Tabular {
     static final double TOLERANCE = 1e-12;
 
     private final double muE;
-    private final double centralDensity;
-    private final double centralX;
-    private final double mass;
-    private final double radius;
 
     private WhiteDwarf(double muE, double centralDensity, double centralX, double mass, double radius) {
+        super(centralDensity, centralX, mass, radius);
         this.muE = muE;
-        this.centralDensity = centralDensity;
-        this.centralX = centralX;
-        this.mass = mass;
-        this.radius = radius;
     }
 
     /**
@@ -147,35 +138,11 @@ public final class WhiteDwarf implements Tabular {
         return muE;
     }
 
-    /** Central mass density in kg/m^3. */
-    public double centralDensity() {
-        return centralDensity;
-    }
 
-    /** Central relativity parameter x_c = p_F/(m_e c). */
-    public double centralRelativityParameter() {
-        return centralX;
-    }
 
-    /** Mass in kg. */
-    public double mass() {
-        return mass;
-    }
 
-    /** Mass in nominal solar masses (IAU 2015 M_sun). */
-    public double solarMasses() {
-        return mass / Iau2015.SOLAR_MASS;
-    }
 
-    /** Radius in m. */
-    public double radius() {
-        return radius;
-    }
 
-    /** Radius in km. */
-    public double radiusKm() {
-        return radius / 1e3;
-    }
 
     @Override
     public List<String> columnNames() {
@@ -188,7 +155,7 @@ public final class WhiteDwarf implements Tabular {
     }
 
     List<Object> row() {
-        return List.of(muE, centralDensity / 1e3, centralX, solarMasses(), radiusKm(), mass / chandrasekharMassOf(muE));
+        return List.of(muE, centralDensity() / 1e3, centralRelativityParameter(), solarMasses(), radiusKm(), mass() / chandrasekharMassOf(muE));
     }
 
     /** omega_3, solved once on first use. */
