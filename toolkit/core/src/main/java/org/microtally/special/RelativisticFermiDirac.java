@@ -35,13 +35,24 @@ import org.microtally.InvalidInputException;
  *       24 nodes, or 12 when the tail starts beyond x = 400.</li>
  * </ul>
  * Every integrand is positive, so no digits are lost to cancellation; all four orders and all four
- * integral families are accumulated in one pass over about 200 nodes.
+ * integral families are accumulated in one pass over 120 to 230 nodes.
+ *
+ * <p>For eta &gt;= {@value #SOMMERFELD_FROM} the pieces about the Fermi level are replaced by the
+ * Sommerfeld series (A. Sommerfeld, Z. Phys. 47, 1 (1928)): the step-function integral int_0^eta g
+ * by the first rule (g = x^k sqrt(1 + beta x/2)), plus sum_n 2 eta_D(2n) g^(2n-1)(eta) with the
+ * Dirichlet eta function eta_D; likewise dF/deta = g(eta) + sum_n 2 eta_D(2n) g^(2n)(eta), the
+ * beta-derivative with d g/d beta in place of g, and S_k = sum_m 4 (m + 1) eta_D(2m + 2) g^(2m)(eta).
+ * The derivatives come from the product of two binomial series, all terms of one sign or bounded
+ * by the result; the remainder, of order e^-eta and (2N+1)!/eta^(2N+1), is kept below 1e-19
+ * relative by the number of terms N &lt;= 12.
  *
  * <p><b>Accuracy.</b> {@value #RELATIVE_ACCURACY} relative or better for every value over the whole
  * stated domain, tested against a 20-digit mpmath table
- * ({@code special/relativistic-fd-mpmath.csv}, generator beside it) that spans
- * eta from -300 to 1e6 and beta from 0 to 2000. For eta &lt; -700 the values fall below about
- * 1e-304 and the call is refused rather than underflowing.
+ * ({@code special/relativistic-fd-mpmath.csv}, 3088 values, generator beside it) that spans
+ * eta from -300 to 1e6 and beta from 0 to 2000 (worst deviation 1.6e-13), against the complete
+ * integrals of {@link FermiDirac} at beta = 0 on a dense eta grid, and across the switch to the
+ * Sommerfeld series. For eta &lt; -700 the values fall below about 1e-304 and the call is refused
+ * rather than underflowing.
  */
 public final class RelativisticFermiDirac {
     private RelativisticFermiDirac() { }
