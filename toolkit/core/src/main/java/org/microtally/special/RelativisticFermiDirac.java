@@ -42,8 +42,8 @@ import org.microtally.InvalidInputException;
  * by the first rule (g = x^k sqrt(1 + beta x/2)), plus sum_n 2 eta_D(2n) g^(2n-1)(eta) with the
  * Dirichlet eta function eta_D; likewise dF/deta = g(eta) + sum_n 2 eta_D(2n) g^(2n)(eta), the
  * beta-derivative with d g/d beta in place of g, and S_k = sum_m 4 (m + 1) eta_D(2m + 2) g^(2m)(eta).
- * The derivatives come from the product of two binomial series, all terms of one sign or bounded
- * by the result; the remainder, of order e^-eta and (2N+1)!/eta^(2N+1), is kept below 1e-19
+ * The derivatives come from the product of two binomial series (the Taylor series of x^k and of
+ * the square root about eta, both of radius of convergence at least eta); the remainder, of order e^-eta and (2N+1)!/eta^(2N+1), is kept below 1e-19
  * relative by the number of terms N &lt;= 12.
  *
  * <p><b>Accuracy.</b> {@value #RELATIVE_ACCURACY} relative or better for every value over the whole
