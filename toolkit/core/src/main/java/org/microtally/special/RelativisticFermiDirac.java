@@ -72,7 +72,7 @@ public final class RelativisticFermiDirac {
     private static final double U_MAP_BELOW = 1e-3; // beta * x0 below this: u = sqrt(x) map
     private static final double THETA_PIECE = 1.0;
     /** From this eta on, the Sommerfeld series replaces the quadrature about the Fermi level. */
-    static final double SOMMERFELD_FROM = 50.0;
+    public static final double SOMMERFELD_FROM = 50.0;
     private static final int SOMMERFELD_TERMS = 12;
     /** Dirichlet eta(2n), n = 0 .. SOMMERFELD_TERMS + 1. */
     private static final double[] ETA_EVEN = new double[SOMMERFELD_TERMS + 2];
