@@ -27,4 +27,8 @@ public final class Codata2018 {
     public static final double ATOMIC_MASS_UNIT = 1.66053906660e-27;
     /** Electron mass m_e in kg; standard uncertainty 0.0000000028e-31 kg. */
     public static final double ELECTRON_MASS = 9.1093837015e-31;
+    /** Newtonian constant of gravitation G in m^3 kg^-1 s^-2; standard uncertainty 0.00015e-11. */
+    public static final double GRAVITATION = 6.67430e-11;
+    /** Neutron mass m_n in kg; standard uncertainty 0.00000000095e-27 kg. */
+    public static final double NEUTRON_MASS = 1.67492749804e-27;
 }

@@ -38,4 +38,22 @@ class UnitsTest {
         Energy sum = Energy.of(1, EnergyUnit.MILLIELECTRONVOLT).plus(Energy.ofTemperature(11.60451812));
         assertEquals(2.0, sum.in(EnergyUnit.MILLIELECTRONVOLT), 1e-9);
     }
+
+    @Test
+    void astronomicalAndNuclearConstants() {
+        // Source: IAU 2015 Resolution B3 (Prsa et al., AJ 152, 41 (2016)): nominal GM_sun = 1.3271244e20 m^3/s^2,
+        // R_sun = 6.957e8 m
+        assertEquals(1.3271244e20, Iau2015.SOLAR_MASS_PARAMETER, 0.0);
+        assertEquals(6.957e8, Iau2015.SOLAR_RADIUS, 0.0);
+        // Source: from memory, M_sun = 1.98847(7)e30 kg (2014 G); with CODATA 2018 G = 6.67430e-11 it is 1.98841e30
+        assertEquals(1.9884e30, Iau2015.SOLAR_MASS, 1e-4 * 1.9884e30);
+        // Source: CODATA 2018 neutron-electron mass ratio 1838.68366173 and m_n c^2 = 939.56542052 MeV
+        assertEquals(1838.68366173, Codata2018.NEUTRON_MASS / Codata2018.ELECTRON_MASS, 2e-8);
+        double mev = Codata2018.NEUTRON_MASS * Codata2018.SPEED_OF_LIGHT * Codata2018.SPEED_OF_LIGHT
+                / Codata2018.ELEMENTARY_CHARGE / 1e6;
+        assertEquals(939.56542052, mev, 1e-6);
+        // Source: CODATA 2018 G = 6.67430(15)e-11 m^3 kg^-1 s^-2; Planck length sqrt(hbar G/c^3) = 1.616255e-35 m
+        assertEquals(1.616255e-35, Math.sqrt(Codata2018.HBAR * Codata2018.GRAVITATION / Math.pow(Codata2018.SPEED_OF_LIGHT, 3)),
+                2e-41);
+    }
 }

@@ -1,0 +1,95 @@
+package org.microtally.special;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.microtally.Tabular;
+
+/**
+ * The relativistic Fermi-Dirac integrals of {@link RelativisticFermiDirac} at one (eta, beta), for
+ * the four orders k = -1/2, 1/2, 3/2, 5/2: F_k, dF_k/deta, dF_k/dbeta and, when requested, the
+ * entropy integrals S_k. Immutable; every value carries the accuracy
+ * {@value RelativisticFermiDirac#RELATIVE_ACCURACY} (relative).
+ */
+public final class FermiDiracValues implements Tabular {
+    private final double eta;
+    private final double beta;
+    private final double[] f;
+    private final double[] dEta;
+    private final double[] dBeta;
+    private final double[] entropy; // null when not computed
+
+    FermiDiracValues(double eta, double beta, double[] f, double[] dEta, double[] dBeta, double[] entropy) {
+        this.eta = eta;
+        this.beta = beta;
+        this.f = f.clone();
+        this.dEta = dEta.clone();
+        this.dBeta = dBeta.clone();
+        this.entropy = entropy == null ? null : entropy.clone();
+    }
+
+    /** The eta these values belong to. */
+    public double eta() {
+        return eta;
+    }
+
+    /** The beta these values belong to. */
+    public double beta() {
+        return beta;
+    }
+
+    /** F_k(eta, beta). */
+    public double integral(double k) {
+        return f[index(k)];
+    }
+
+    /** dF_k/deta. */
+    public double etaDerivative(double k) {
+        return dEta[index(k)];
+    }
+
+    /** dF_k/dbeta. */
+    public double betaDerivative(double k) {
+        return dBeta[index(k)];
+    }
+
+    /**
+     * S_k = int x^k sqrt(1 + beta x/2) [-f ln f - (1-f) ln(1-f)] dx.
+     *
+     * @throws IllegalStateException if the values were evaluated without entropy
+     */
+    public double entropyIntegral(double k) {
+        if (entropy == null) {
+            throw new IllegalStateException("entropy integrals were not computed: call RelativisticFermiDirac.evaluate(eta, beta, true)");
+        }
+        return entropy[index(k)];
+    }
+
+    private static int index(double k) {
+        if (k == -0.5) {
+            return 0;
+        } else if (k == 0.5) {
+            return 1;
+        } else if (k == 1.5) {
+            return 2;
+        } else if (k == 2.5) {
+            return 3;
+        }
+        throw org.microtally.InvalidInputException.of("relativistic Fermi-Dirac order k", k, "one of -0.5, 0.5, 1.5, 2.5",
+                "Other orders are not provided.");
+    }
+
+    @Override
+    public List<String> columnNames() {
+        return List.of("k", "F_k", "dF_k/deta", "dF_k/dbeta", "S_k");
+    }
+
+    @Override
+    public List<List<Object>> rows() {
+        List<List<Object>> rows = new ArrayList<>();
+        for (int i = 0; i < 4; i++) {
+            Object s = entropy == null ? "not computed" : (Object) entropy[i];
+            rows.add(List.of(i - 0.5, f[i], dEta[i], dBeta[i], s));
+        }
+        return List.copyOf(rows);
+    }
+}

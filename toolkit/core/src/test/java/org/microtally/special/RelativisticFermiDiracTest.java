@@ -1,0 +1,154 @@
+package org.microtally.special;
+
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.math.BigDecimal;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import org.apache.commons.math3.special.Gamma;
+import org.junit.jupiter.api.Test;
+import org.microtally.InvalidInputException;
+
+/**
+ * RelativisticFermiDirac against the committed 20-digit mpmath table and against closed forms.
+ *
+ * <p>Source: special/relativistic-fd-mpmath.csv, written by special/generate_relativistic_fd.py with
+ * mpmath 1.3.0 (each value confirmed by mpmath's tanh-sinh and Gauss-Legendre quadratures to 16 digits).
+ */
+class RelativisticFermiDiracTest {
+
+    record Row(String quantity, double k, double eta, double beta, BigDecimal value) { }
+
+    static List<Row> table() throws IOException {
+        List<Row> rows = new ArrayList<>();
+        try (InputStream in = RelativisticFermiDiracTest.class.getResourceAsStream("/special/relativistic-fd-mpmath.csv");
+             BufferedReader r = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
+            String line;
+            while ((line = r.readLine()) != null) {
+                if (line.isBlank() || line.startsWith("#")) {
+                    continue;
+                }
+                String[] c = line.split(",");
+                rows.add(new Row(c[0], Double.parseDouble(c[1]), Double.parseDouble(c[2]), Double.parseDouble(c[3]),
+                        new BigDecimal(c[4])));
+            }
+        }
+        return rows;
+    }
+
+    @Test
+    void tableIsLargeAndCoversTheDomainCorners() throws IOException {
+        List<Row> rows = table();
+        assertTrue(rows.size() >= 3000, "rows: " + rows.size());
+        assertTrue(rows.stream().anyMatch(r -> r.eta() >= 1e6 && r.beta() >= 2000));
+        assertTrue(rows.stream().anyMatch(r -> r.eta() <= -300 && r.beta() == 0.0));
+        for (String q : new String[] {"F", "dEta", "dBeta", "S"}) {
+            assertTrue(rows.stream().filter(r -> r.quantity().equals(q)).count() >= 750, q);
+        }
+    }
+
+    /** Every row, one assertion listing all failures (a loop rather than 3000 parameterized cases, for speed). */
+    @Test
+    void matchesMpmath() throws IOException {
+        List<String> failures = new ArrayList<>();
+        double worst = 0;
+        for (Row row : table()) {
+            FermiDiracValues v = RelativisticFermiDirac.evaluate(row.eta(), row.beta(), true);
+            double got = switch (row.quantity()) {
+                case "F" -> v.integral(row.k());
+                case "dEta" -> v.etaDerivative(row.k());
+                case "dBeta" -> v.betaDerivative(row.k());
+                case "S" -> v.entropyIntegral(row.k());
+                default -> throw new AssertionError(row.quantity());
+            };
+            double expected = row.value().doubleValue();
+            double rel = Math.abs(got - expected) / expected;
+            worst = Math.max(worst, rel);
+            // Source: special/relativistic-fd-mpmath.csv (mpmath 1.3.0, 20 digits)
+            if (!(rel <= RelativisticFermiDirac.RELATIVE_ACCURACY)) {
+                failures.add(row + ": got " + got + ", rel " + rel);
+            }
+        }
+        assertTrue(failures.isEmpty(), failures.size() + " rows outside 1e-12, e.g. " + failures.subList(0, Math.min(5, failures.size())));
+        assertTrue(worst > 0, "a table that matches to the last bit everywhere is suspicious: is it our own output?");
+    }
+
+    @Test
+    void betaZeroIsGammaTimesTheCompleteIntegral() {
+        // Source: DLMF 25.12.14: int_0^inf x^k/(e^(x-eta)+1) dx = Gamma(k+1) F_k(eta); F_k from the existing
+        // FermiDirac routine (a different method: series, tanh-sinh, Sommerfeld)
+        // a dense grid across every switch of the piece layout (eta = -10, 0, 34, 50, ...) and a few far values
+        List<Double> etas = new ArrayList<>();
+        for (double eta = -25.0; eta <= 70.0; eta += 0.37) {
+            etas.add(eta);
+        }
+        etas.addAll(List.of(-300.0, 250.0, 1e4, 3e6));
+        for (double eta : etas) {
+            for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+                double expected = Math.exp(Gamma.logGamma(k + 1)) * FermiDirac.integral(k, eta);
+                double got = RelativisticFermiDirac.integral(k, eta, 0.0);
+                assertTrue(Math.abs(got / expected - 1) <= 1e-12, "k=" + k + " eta=" + eta + ": " + got + " vs " + expected);
+                // Source: DLMF 25.12.16 (dF_j/deta = F_{j-1}) with the Gamma normalisation: dF_k/deta = k F_{k-1}
+                if (k > 0) {
+                    double d = RelativisticFermiDirac.etaDerivative(k, eta, 0.0);
+                    double dExpected = k * RelativisticFermiDirac.integral(k - 1, eta, 0.0);
+                    assertTrue(Math.abs(d / dExpected - 1) <= 1e-12, "derivative k=" + k + " eta=" + eta);
+                }
+            }
+        }
+    }
+
+    @Test
+    void zeroTemperatureLimitIsTheFermiSphere() {
+        // Source: closed form (counting states in the Fermi sphere, S. Chandrasekhar, An Introduction to the Study of
+        // Stellar Structure (1939), ch. X): with p/(mc) = sqrt(2 beta x + beta^2 x^2), p^2 dp is proportional to
+        // x^{1/2} (1 + beta x) sqrt(1 + beta x/2) dx, so for a step Fermi factor at x = eta
+        // F_{1/2} + beta F_{3/2} -> (2 beta eta + beta^2 eta^2)^{3/2} / (3 sqrt(2) beta^{3/2}); the thermal correction is of
+        // relative order (pi^2/6) / eta^2 = 2e-12 at eta = 1e6 (Sommerfeld)
+        double eta = 1e6;
+        for (double beta : new double[] {1e-9, 1e-6, 1e-4, 2e-3}) {
+            double be = beta * eta;
+            double step = Math.pow(2 * be + be * be, 1.5) / (3 * Math.sqrt(2) * Math.pow(beta, 1.5));
+            double got = RelativisticFermiDirac.integral(0.5, eta, beta) + beta * RelativisticFermiDirac.integral(1.5, eta, beta);
+            assertTrue(Math.abs(got / step - 1) <= 1e-11, "beta " + beta + ": " + got + " vs " + step);
+        }
+    }
+
+    @Test
+    void quadratureAndSommerfeldSeriesAgreeWhereTheyMeet() {
+        // common practice, no source: two independent routes (Gauss quadrature below eta = 50, the Sommerfeld series from
+        // 50 on) must agree across the switch, 2e-12 apart: F is carried to eta = 50 with its eta-derivative; the other
+        // values move by at most (k + 2) 2e-12 / eta < 2e-13 relative across the gap, inside the 1e-12 allowed
+        double d = 1e-12;
+        double below = RelativisticFermiDirac.SOMMERFELD_FROM - d;
+        double above = RelativisticFermiDirac.SOMMERFELD_FROM + d;
+        for (double beta : new double[] {0.0, 1e-3, 0.3, 10.0, 3000.0}) {
+            FermiDiracValues q = RelativisticFermiDirac.evaluate(below, beta, true);
+            FermiDiracValues s = RelativisticFermiDirac.evaluate(above, beta, true);
+            for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+                double fq = q.integral(k) + d * q.etaDerivative(k);
+                double fs = s.integral(k) - d * s.etaDerivative(k);
+                assertTrue(Math.abs(fq / fs - 1) <= 1e-12, "F_" + k + " beta " + beta + ": " + fq + " vs " + fs);
+                assertTrue(Math.abs(q.etaDerivative(k) / s.etaDerivative(k) - 1) <= 1e-12, "dF/deta " + k + " beta " + beta);
+                assertTrue(Math.abs(q.betaDerivative(k) / s.betaDerivative(k) - 1) <= 1e-12, "dF/dbeta " + k + " beta " + beta);
+                assertTrue(Math.abs(q.entropyIntegral(k) / s.entropyIntegral(k) - 1) <= 1e-12, "S " + k + " beta " + beta);
+            }
+        }
+    }
+
+    @Test
+    void refusesOutsideTheDomain() {
+        // common practice, no source
+        assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(0.5, -800, 1));
+        assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(0.5, Double.NaN, 1));
+        assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(0.5, 1, -1e-3));
+        assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(1.0, 1, 1));
+        assertThrows(IllegalStateException.class, () -> RelativisticFermiDirac.evaluate(1, 1, false).entropyIntegral(0.5));
+    }
+}
