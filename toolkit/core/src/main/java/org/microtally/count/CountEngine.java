@@ -94,9 +94,11 @@ final class CountEngine {
         long steps = (long) primes.length * (stats.indistinguishable() ? levels : maxN);
         Ticker ticker = new Ticker(progress, steps, stats.indistinguishable() ? "levels x primes" : "particles x primes");
         Runnable tick = ticker::step;
+        boolean fma = fitsFma(primes);
         // primes are independent: one task each, run on the common fork-join pool
         java.util.stream.IntStream.range(0, primes.length).parallel().forEach(pi ->
-                res[pi] = residues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick));
+                res[pi] = fma ? toLong(fmaResidues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick))
+                        : residues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick));
         Moduli.Crt crt = new Moduli.Crt(primes);
         long[] scratch = new long[primes.length];
         BigInteger[] out = new BigInteger[size];
@@ -106,7 +108,93 @@ final class CountEngine {
         return out;
     }
 
-    /** The whole table modulo one prime p. */
+    /** True when every prime lies in (2^49, 2^50), the range of {@link FmaModulus}. */
+    static boolean fitsFma(long[] primes) {
+        for (long p : primes) {
+            if (p <= Moduli.FMA_FLOOR || p >= FmaModulus.LIMIT) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * The whole table modulo one prime p, row-major (N+1) x (E+1), entries in [0, p): the per-prime
+     * entry point (any prime below 2^62; primes in (2^49, 2^50) take the vectorised loop).
+     */
+    static long[] residuesModulo(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long p) {
+        int levels = relevantLevels(energy, maxE);
+        BigInteger[][] coef = new BigInteger[levels][];
+        if (stats.indistinguishable()) {
+            for (int l = 0; l < levels; l++) {
+                coef[l] = LevelSeries.coefficients(stats, deg[l], maxJ(energy[l], maxN, maxE));
+            }
+        }
+        Runnable none = () -> { };
+        return fitsFma(new long[] {p}) ? toLong(fmaResidues(energy, deg, stats, maxN, maxE, levels, coef, p, none))
+                : residues(energy, deg, stats, maxN, maxE, levels, coef, p, none);
+    }
+
+    private static long[] toLong(double[] t) {
+        long[] out = new long[t.length];
+        for (int i = 0; i < t.length; i++) {
+            out[i] = (long) t[i];
+        }
+        return out;
+    }
+
+    /** The whole table modulo one prime 2^49 &lt; p &lt; 2^50, in doubles ({@link FmaModulus}). */
+    private static double[] fmaResidues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
+                                        BigInteger[][] coef, long p, Runnable tick) {
+        int w = maxE + 1;
+        double[] t = new double[(maxN + 1) * w];
+        t[0] = 1;
+        double dp = p;
+        double pinv = 1.0 / dp;
+        BigInteger bp = BigInteger.valueOf(p);
+        if (stats.indistinguishable()) {
+            int[] lo = groundEnergies(energy, deg, stats, maxN, maxE, levels);
+            for (int l = 0; l < levels; l++) {
+                BigInteger[] c = coef[l];
+                double[] cm = new double[c.length];
+                for (int j = 0; j < c.length; j++) {
+                    cm[j] = c[j].mod(bp).longValue();
+                }
+                int el = energy[l];
+                int prevTop = l == 0 ? -1 : energy[l - 1];
+                for (int n = maxN; n >= 1; n--) {
+                    int jTop = Math.min(n, cm.length - 1);
+                    for (int j = 1; j <= jTop; j++) {
+                        int off = j * el;
+                        if (off > maxE) {
+                            break;
+                        }
+                        if (cm[j] == 0) {
+                            continue;
+                        }
+                        int m = n - j;
+                        int from = lo[m];
+                        int to = (int) Math.min(maxE - off, sourceTop(m, prevTop));
+                        if (to >= from) {
+                            FmaModulus.mulAddRow(t, n * w + off + from, t, m * w + from, to - from + 1, cm[j], dp, pinv);
+                        }
+                    }
+                }
+                tick.run();
+            }
+        } else {
+            for (int n = 1; n <= maxN; n++) {
+                for (int l = 0; l < levels; l++) {
+                    int el = energy[l];
+                    FmaModulus.mulAddRow(t, n * w + el, t, (n - 1) * w, maxE - el + 1, deg[l] % p, dp, pinv);
+                }
+                tick.run();
+            }
+        }
+        return t;
+    }
+
+    /** The whole table modulo one prime p (62-bit Shoup arithmetic). */
     private static long[] residues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
                                    BigInteger[][] coef, long p, Runnable tick) {
         int w = maxE + 1;

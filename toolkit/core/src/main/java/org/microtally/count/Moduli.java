@@ -7,7 +7,9 @@ import java.util.List;
 /**
  * Word-size modular arithmetic for the multi-modular counting path.
  *
- * <p>Moduli are the largest primes below 2^62 (all &gt; 2^61), proven prime by deterministic
+ * <p>Two sets of moduli: the largest primes below 2^62 (all &gt; 2^61, {@link #primes}, Shoup
+ * arithmetic in longs) and the largest primes below 2^50 (all &gt; 2^49, {@link #fmaPrimes}, the
+ * vectorised double arithmetic of {@link FmaModulus} that count tables use). Both are proven prime by deterministic
  * Miller-Rabin with the first twelve prime bases, which is exact for every n &lt; 3.18e23
  * (J. Sorenson, J. Webster, "Strong pseudoprimes to twelve prime bases", Math. Comp. 86 (2017) 985-1003). Products by a fixed multiplier use
  * V. Shoup's precomputed-quotient method (as described in D. Harvey, "Faster arithmetic for
@@ -25,20 +27,40 @@ final class Moduli {
     /** Every modulus exceeds 2^61, so k of them cover any value below 2^(61 k). */
     static final int BITS_PER_PRIME = 61;
 
-    /** The first {@code k} primes below 2^62, descending. */
-    static synchronized long[] primes(int k) {
-        long candidate = PRIMES.isEmpty() ? (1L << 62) - 1 : PRIMES.get(PRIMES.size() - 1) - 2;
-        while (PRIMES.size() < k) {
+    private static final List<Long> FMA_PRIMES = new ArrayList<>();
+
+    /** Every modulus of {@link #fmaPrimes} exceeds this, 2^49. */
+    static final long FMA_FLOOR = 1L << 49;
+
+    /** Every modulus of {@link #fmaPrimes} exceeds 2^49, so k of them cover any value below 2^(49 k). */
+    static final int FMA_BITS_PER_PRIME = 49;
+
+    /**
+     * The first {@code k} primes below 2^50, descending (all above 2^49, the range of
+     * {@link FmaModulus}); proven prime as in {@link #primes}.
+     */
+    static synchronized long[] fmaPrimes(int k) {
+        return firstPrimesBelow(FMA_PRIMES, FmaModulus.LIMIT, k);
+    }
+
+    private static long[] firstPrimesBelow(List<Long> cache, long limit, int k) {
+        long candidate = cache.isEmpty() ? limit - 1 : cache.get(cache.size() - 1) - 2;
+        while (cache.size() < k) {
             if (isPrime(candidate)) {
-                PRIMES.add(candidate);
+                cache.add(candidate);
             }
             candidate -= 2;
         }
         long[] out = new long[k];
         for (int i = 0; i < k; i++) {
-            out[i] = PRIMES.get(i);
+            out[i] = cache.get(i);
         }
         return out;
+    }
+
+    /** The first {@code k} primes below 2^62, descending. */
+    static synchronized long[] primes(int k) {
+        return firstPrimesBelow(PRIMES, 1L << 62, k);
     }
 
     static boolean isPrime(long n) {
