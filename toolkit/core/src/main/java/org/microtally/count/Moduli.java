@@ -120,6 +120,7 @@ final class Moduli {
         private final long[][] inv;       // inv[i][j] = p_j^-1 mod p_i, j < i
         private final long[][] invShoup;
         private final BigInteger[] bigP;
+        private static final long LIMB = 0xFFFFFFFFL;
 
         Crt(long[] primes) {
             this.p = primes.clone();
@@ -164,11 +165,49 @@ final class Moduli {
             while (top > 0 && scratch[top] == 0) {
                 top--;
             }
-            BigInteger v = BigInteger.valueOf(scratch[top]);
-            for (int i = top - 1; i >= 0; i--) {
-                v = v.multiply(bigP[i]).add(BigInteger.valueOf(scratch[i]));
+            if (top == 0) {
+                return BigInteger.valueOf(scratch[0]);
             }
-            return v;
+            return horner(scratch, top);
+        }
+
+        /**
+         * v = a_top, then v = v p_i + a_i for i = top-1 .. 0, in 32-bit limbs held in longs (one
+         * 64 x 64 -&gt; 128-bit product per limb via Math.multiplyHigh), turned into a BigInteger once.
+         */
+        private BigInteger horner(long[] a, int top) {
+            long[] mag = new long[2 * (top + 1) + 2];
+            mag[0] = a[top] & LIMB;
+            mag[1] = a[top] >>> 32;
+            int len = mag[1] == 0 ? 1 : 2;
+            for (int i = top - 1; i >= 0; i--) {
+                long q = p[i];
+                long carry = a[i]; // < 2^62
+                for (int l = 0; l < len; l++) {
+                    long lo = mag[l] * q;
+                    long hi = Math.multiplyHigh(mag[l], q); // limb < 2^32, q < 2^62: product < 2^94
+                    long sum = lo + carry;
+                    if (Long.compareUnsigned(sum, lo) < 0) {
+                        hi++;
+                    }
+                    mag[l] = sum & LIMB;
+                    carry = (hi << 32) | (sum >>> 32); // < 2^62
+                }
+                while (carry != 0) {
+                    mag[len++] = carry & LIMB;
+                    carry >>>= 32;
+                }
+            }
+            byte[] bytes = new byte[4 * len];
+            for (int l = 0; l < len; l++) {
+                long limb = mag[l];
+                int at = 4 * (len - 1 - l);
+                bytes[at] = (byte) (limb >>> 24);
+                bytes[at + 1] = (byte) (limb >>> 16);
+                bytes[at + 2] = (byte) (limb >>> 8);
+                bytes[at + 3] = (byte) limb;
+            }
+            return new BigInteger(1, bytes);
         }
     }
 }
