@@ -93,6 +93,20 @@ public final class FermiDirac {
         return value + 0.0; // no negative zero after underflow
     }
 
+    /**
+     * F_j(eta_i) for every eta_i of a grid at one order j (for charts): the same values as
+     * {@link #integral(double, double)} element by element, in a new array.
+     *
+     * @throws InvalidInputException as {@link #integral(double, double)}, for the first bad eta_i
+     */
+    public static double[] integral(double j, double[] eta) {
+        double[] out = new double[eta.length];
+        for (int i = 0; i < eta.length; i++) {
+            out[i] = integral(j, eta[i]);
+        }
+        return out;
+    }
+
     static double asymptoticThreshold(double j) {
         return 40.0 + 2.0 * Math.max(j, 0.0);
     }

@@ -60,6 +60,16 @@ public final class Polylog {
             java.util.Arrays.fill(values, Double.NaN);
         }
 
+        private double gammaOneMinusS = Double.NaN;
+
+        /** Gamma(1 - s), computed once per order. */
+        double gammaOneMinusS() {
+            if (Double.isNaN(gammaOneMinusS)) {
+                gammaOneMinusS = SpecialMath.gamma(1.0 - s);
+            }
+            return gammaOneMinusS;
+        }
+
         double get(int k) {
             if (k >= values.length) {
                 return compute(k);
@@ -139,6 +149,20 @@ public final class Polylog {
         return -FermiDirac.integral(s - 1.0, mu);
     }
 
+    /**
+     * Li_s(z_i) for every z_i of a grid at one order s (for charts): the same values as
+     * {@link #li(double, double)} element by element, in a new array.
+     *
+     * @throws InvalidInputException as {@link #li(double, double)}, for the first bad z_i
+     */
+    public static double[] li(double s, double[] z) {
+        double[] out = new double[z.length];
+        for (int i = 0; i < z.length; i++) {
+            out[i] = li(s, z[i]);
+        }
+        return out;
+    }
+
     /** Per-thread scratch for the powers k^-s of the power series. */
     private static final ThreadLocal<double[]> POWERS =
             ThreadLocal.withInitial(() -> new double[SpecialMath.MAX_POWER_BASE + 1]);
@@ -182,13 +206,14 @@ public final class Polylog {
         double eps = s - n;
         int singularK = -1;
         double sum = 0.0;
+        Coefficients c = coefficients(s, false);
         if (n >= 1.0 && Math.abs(eps) < 0.05) {
             singularK = (int) n - 1;
             sum += singularPair(singularK, eps, mu);
         } else {
-            sum += SpecialMath.gamma(1.0 - s) * Math.pow(-mu, s - 1.0);
+            sum += c.gammaOneMinusS() * Math.pow(-mu, s - 1.0);
         }
-        return exponentialSeries(coefficients(s, false), s, mu, singularK, sum);
+        return exponentialSeries(c, s, mu, singularK, sum);
     }
 
     /**

@@ -73,6 +73,20 @@ public final class Zeta {
         return zetaAnyReal(s);
     }
 
+    /**
+     * zeta(s_i) for every s_i of a grid (for charts): the same values as {@link #zeta(double)}
+     * element by element, in a new array.
+     *
+     * @throws InvalidInputException as {@link #zeta(double)}, for the first bad s_i
+     */
+    public static double[] zeta(double[] s) {
+        double[] out = new double[s.length];
+        for (int i = 0; i < s.length; i++) {
+            out[i] = zeta(s[i]);
+        }
+        return out;
+    }
+
     /** zeta(x) for every real x != 1 (package-private: analytic continuation used by Polylog). */
     static double zetaAnyReal(double x) {
         if (x >= DIRECT_FROM) {
