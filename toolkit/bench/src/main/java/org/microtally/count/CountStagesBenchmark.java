@@ -25,12 +25,13 @@ import org.openjdk.jmh.annotations.Warmup;
  * {@code wholeTable} (CountTable.of, every stage, residues on one thread), {@code bound} (the
  * prime-count bound alone) and {@code crt} (Chinese remaindering of every entry from residues
  * prepared in the set-up). Lives in the count package to reach the package-private stages; benchmark
- * code only. Run with {@code -Djava.util.concurrent.ForkJoinPool.common.parallelism=1} for one core.
+ * code only. Its fork sets {@code -Djava.util.concurrent.ForkJoinPool.common.parallelism=0}, so the
+ * per-prime tasks run one after another on the calling thread: one core.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
-@Fork(value = 1, jvmArgsAppend = "-Djava.util.concurrent.ForkJoinPool.common.parallelism=1")
+@Fork(value = 1, jvmArgsAppend = "-Djava.util.concurrent.ForkJoinPool.common.parallelism=0")
 @Warmup(iterations = 2)
 @Measurement(iterations = 5)
 public class CountStagesBenchmark {
