@@ -17,6 +17,11 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Distinguishable particles: row n is the polynomial Z1(q)^n truncated at q^E, Z1 = sum_l g_l q^(e_l),
  * obtained as row n = row (n-1) * Z1. Cost O(N E L) for L levels below E.
+ *
+ * <p>Modulo one prime the recursion runs on one of two row kernels: primes in (2^49, 2^50), the ones
+ * {@link CountTable} asks for, in doubles with the FMA reduction of {@link FmaModulus} (the JIT
+ * turns the row loop into SIMD code); any other prime below 2^62 (such as {@link Moduli#primes}) in
+ * longs with Shoup's precomputed quotients. Both give the same exact table after Chinese remaindering.
  */
 final class CountEngine {
     private CountEngine() { }
