@@ -34,6 +34,22 @@ package org.microtally.count;
 final class FmaModulus {
     private FmaModulus() { }
 
+    /**
+     * True when HotSpot reports a hardware fused multiply-add (flag UseFMA). Without it Math.fma is
+     * exact but emulated in software, far slower than the long arithmetic, so count tables then use
+     * primes below 2^62 instead (same exact results). False on JVMs that do not report the flag.
+     */
+    static final boolean HARDWARE = hardwareFma();
+
+    private static boolean hardwareFma() {
+        try {
+            return Boolean.parseBoolean(java.lang.management.ManagementFactory
+                    .getPlatformMXBean(com.sun.management.HotSpotDiagnosticMXBean.class).getVMOption("UseFMA").getValue());
+        } catch (RuntimeException | LinkageError e) {
+            return false;
+        }
+    }
+
     /** Largest modulus allowed (exclusive): the error analysis above needs p &lt; 2^50. */
     static final long LIMIT = 1L << 50;
 

@@ -58,6 +58,19 @@ final class Moduli {
         return out;
     }
 
+    /**
+     * How many of {@link #tablePrimes} cover every value below 2^log2Bound: primes below 2^50 when
+     * the JVM uses a hardware fused multiply-add ({@link FmaModulus#HARDWARE}), else below 2^62.
+     */
+    static int tablePrimeCount(double log2Bound) {
+        return FmaModulus.HARDWARE ? CountBound.fmaPrimesFor(log2Bound) : CountBound.primesFor(log2Bound);
+    }
+
+    /** The first {@code k} primes of the set count tables use (see {@link #tablePrimeCount}). */
+    static long[] tablePrimes(int k) {
+        return FmaModulus.HARDWARE ? fmaPrimes(k) : primes(k);
+    }
+
     /** The first {@code k} primes below 2^62, descending. */
     static synchronized long[] primes(int k) {
         return firstPrimesBelow(PRIMES, 1L << 62, k);

@@ -111,8 +111,8 @@ class FmaModulusTest {
         int[] g = s.degeneracies();
         BigInteger[] ref = CountEngine.bigInteger(en, g, Statistics.BOSE, 30, 100, ProgressListener.NONE);
         CountTable t = CountTable.of(s, Statistics.BOSE, 30, 100);
-        // precondition of this test, not a result check: several 50-bit primes are in use
-        assertTrue(t.primesUsed() >= 3, "primes used: " + t.primesUsed());
+        // precondition of this test, not a result check: several primes are in use
+        assertTrue(t.primesUsed() >= 2, "primes used: " + t.primesUsed());
         for (int n = 0; n <= 30; n++) {
             for (int e = 0; e <= 100; e++) {
                 // Source: independent arithmetic (exact BigInteger recursion)
