@@ -163,9 +163,26 @@ public final class Polylog {
         return out;
     }
 
-    /** Per-thread scratch for the powers k^-s of the power series. */
-    private static final ThreadLocal<double[]> POWERS =
-            ThreadLocal.withInitial(() -> new double[SpecialMath.MAX_POWER_BASE + 1]);
+    /**
+     * Per-thread memo of the powers k^-s of the power series for the last order s used (like the
+     * series coefficients above: each power is the same whether memoised or recomputed).
+     */
+    private static final class Powers {
+        double s = Double.NaN;
+        int filled;
+        final double[] values = new double[SpecialMath.MAX_POWER_BASE + 1];
+
+        double[] upTo(double order, int count) {
+            if (Double.compare(order, s) != 0 || count > filled) {
+                SpecialMath.inversePowers(order, values, count);
+                s = order;
+                filled = count;
+            }
+            return values;
+        }
+    }
+
+    private static final ThreadLocal<Powers> POWERS = ThreadLocal.withInitial(Powers::new);
 
     /** sum_{k>=1} z^k k^-s, for |z| &lt;= 1/2 (or large s with 0 &lt; z &lt; 1). */
     static double powerSeries(double s, double z) {
@@ -175,8 +192,7 @@ public final class Polylog {
         if (s >= 0 && az <= HALF) {
             int terms = 1 + (int) Math.ceil(Math.log(1e-18) / Math.log(az));
             if (terms <= SpecialMath.MAX_POWER_BASE) {
-                double[] pw = POWERS.get();
-                SpecialMath.inversePowers(s, pw, terms);
+                double[] pw = POWERS.get().upTo(s, terms);
                 double sum = 0.0;
                 for (int k = terms; k >= 1; k--) { // Horner: z (pw[1] + z (pw[2] + ...))
                     sum = (sum + pw[k]) * z;
