@@ -91,14 +91,7 @@ public class ModularLoopBenchmark {
         long csh = cShoup;
         int d = ROW + 7;
         for (int e = 0; e < ROW; e++) {
-            long x = t[e];
-            long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
-            long r = cm * x - q * p;
-            if (r >= p) {
-                r -= p;
-            }
-            long s = t[d + e] + r;
-            t[d + e] = s >= p ? s - p : s;
+            t[d + e] = Moduli.add(t[d + e], Moduli.mulShoup(cm, csh, t[e], p), p);
         }
         return t;
     }

@@ -1,11 +1,9 @@
 package org.microtally.count;
 
-import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.math.BigInteger;
-import java.util.Arrays;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.microtally.ProgressListener;
@@ -72,35 +70,6 @@ class FmaModulusTest {
             long want = (i >= 1700 && i < 2811) ? reference((long) a[i], (long) c, (long) a[i - 1697], p) : (long) a[i];
             // Source: independent arithmetic (BigInteger, element by element)
             assertEquals(want, (long) b[i], "index " + i);
-        }
-    }
-
-    @Test
-    void countTablesModuloSmallPrimesEqualTheBigIntegerRecursion() {
-        Random rnd = new Random(52L);
-        Statistics[] all = {Statistics.BOSE, Statistics.FERMI, Statistics.DISTINGUISHABLE, Statistics.maxOccupancy(2),
-            Statistics.maxOccupancy(3)};
-        for (int trial = 0; trial < 40; trial++) {
-            Spectrum s = trial % 2 == 0 ? Spectra.harmonicOscillator(1 + rnd.nextInt(3), 5 + rnd.nextInt(20))
-                    : CountTableTest.irregular(rnd);
-            int[] en = s.integerEnergies();
-            int[] g = s.degeneracies();
-            Statistics st = all[trial % all.length];
-            int maxN = 1 + rnd.nextInt(25);
-            int maxE = rnd.nextInt(40);
-            BigInteger[] ref = CountEngine.bigInteger(en, g, st, maxN, maxE, ProgressListener.NONE);
-            long[] primes = Moduli.fmaPrimes(CountBound.fmaPrimesFor(CountBound.log2Bound(en, g, st, maxN, maxE)));
-            BigInteger[] mm = CountEngine.multiModular(en, g, st, maxN, maxE, primes, ProgressListener.NONE);
-            // Source: independent arithmetic (exact BigInteger recursion) vs residues modulo 50-bit primes + Garner CRT
-            assertEquals(Arrays.asList(ref), Arrays.asList(mm), "trial " + trial + " " + st);
-            long p = primes[primes.length - 1];
-            long[] one = CountEngine.residuesModulo(en, g, st, maxN, maxE, p);
-            long[] want = new long[ref.length];
-            for (int i = 0; i < ref.length; i++) {
-                want[i] = ref[i].mod(BigInteger.valueOf(p)).longValueExact();
-            }
-            // Source: independent arithmetic (exact BigInteger recursion, reduced mod p)
-            assertArrayEquals(want, one, "per-prime residues, trial " + trial);
         }
     }
 
