@@ -19,8 +19,7 @@ import org.microtally.spectrum.Statistics;
  * obtained as row n = row (n-1) * Z1. Cost O(N E L) for L levels below E.
  *
  * <p>Modulo one prime the recursion runs on one of two row kernels: primes in (2^49, 2^50), the ones
- * {@link CountTable} asks for, in doubles with the FMA reduction of {@link FmaModulus} (the JIT
- * turns the row loop into SIMD code); any other prime below 2^62 (such as {@link Moduli#primes}) in
+ * {@link CountTable} asks for, in doubles with the FMA reduction of {@link FmaModulus}; any other prime below 2^62 (such as {@link Moduli#primes}) in
  * longs with Shoup's precomputed quotients. Both give the same exact table after Chinese remaindering.
  */
 final class CountEngine {
@@ -123,7 +122,7 @@ final class CountEngine {
 
     /**
      * The whole table modulo one prime p, row-major (N+1) x (E+1), entries in [0, p): the per-prime
-     * entry point (any prime below 2^62; primes in (2^49, 2^50) take the vectorised loop).
+     * entry point (any prime below 2^62; primes in (2^49, 2^50) take the FMA loop).
      */
     static long[] residuesModulo(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long p) {
         int levels = relevantLevels(energy, maxE);
@@ -146,7 +145,7 @@ final class CountEngine {
         void mulAdd(int dst, int src, int len, int index);
     }
 
-    /** Primes in (2^49, 2^50) held in doubles ({@link FmaModulus}, vectorised by the JIT). */
+    /** Primes in (2^49, 2^50) held in doubles ({@link FmaModulus}). */
     private static final class FmaKernel implements RowKernel {
         final double[] t;
         final double p;
@@ -226,7 +225,7 @@ final class CountEngine {
         }
     }
 
-    /** The whole table modulo one prime p: the vectorised kernel for primes in (2^49, 2^50), Shoup's otherwise. */
+    /** The whole table modulo one prime p: the FMA kernel for primes in (2^49, 2^50), Shoup's otherwise. */
     private static long[] residues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
                                    BigInteger[][] coef, long p, Runnable tick) {
         int size = (maxN + 1) * (maxE + 1);

@@ -33,7 +33,7 @@ import org.microtally.spectrum.Statistics;
  * (1 + x q^e_l)^g (Fermi) or (1 + x q^e_l + ... + (x q^e_l)^k)^g (Gentile), applied as one truncated
  * binomial series with j &lt;= min(N, E / e_l) terms, not as g single-state passes; cost
  * O(N E sum_l min(N, E/e_l)) word operations per prime. Counting is done modulo the largest primes below
- * 2^50, held in doubles so the inner loop compiles to SIMD code (below 2^62 in longs on a processor
+ * 2^50, held in doubles with an exact FMA reduction (below 2^62 in longs on a processor
  * without a fused multiply-add; one parallel task per prime on the common fork-join pool), and reconstructed by Chinese
  * remaindering; the number of primes comes from a proven
  * saddle-point upper bound on every entry (see {@link #primesUsed()}), so the result is exact. Small

@@ -9,7 +9,7 @@ import java.util.List;
  *
  * <p>Two sets of moduli: the largest primes below 2^62 (all &gt; 2^61, {@link #primes}, Shoup
  * arithmetic in longs) and the largest primes below 2^50 (all &gt; 2^49, {@link #fmaPrimes}, the
- * vectorised double arithmetic of {@link FmaModulus} that count tables use). Both are proven prime by deterministic
+ * double arithmetic of {@link FmaModulus} that count tables use). Both are proven prime by deterministic
  * Miller-Rabin with the first twelve prime bases, which is exact for every n &lt; 3.18e23
  * (J. Sorenson, J. Webster, "Strong pseudoprimes to twelve prime bases", Math. Comp. 86 (2017) 985-1003). Products by a fixed multiplier use
  * V. Shoup's precomputed-quotient method (as described in D. Harvey, "Faster arithmetic for
