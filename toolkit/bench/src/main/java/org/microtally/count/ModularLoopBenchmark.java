@@ -23,7 +23,7 @@ import org.openjdk.jmh.annotations.Warmup;
  *   <li>{@code shoupScalar}: the multiply-add as the library did it before, 62-bit primes with
  *       Shoup's precomputed quotient (kept here as the reference the new loop is measured against);</li>
  *   <li>{@code fmaRow}: the library's loop now, {@link FmaModulus#mulAddRow}, primes below 2^50 in
- *       doubles, compiled to SIMD code by C2.</li>
+ *       doubles (meant for SIMD code; C2 on JDK 17 leaves it scalar, see FmaModulus).</li>
  * </ul>
  * Rows of {@value #ROW} entries, source and destination rows in one array as in the table.
  */
