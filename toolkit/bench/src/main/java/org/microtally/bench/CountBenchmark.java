@@ -27,6 +27,8 @@ import org.openjdk.jmh.annotations.Warmup;
  *   <li>{@code groupedSmall} vs {@code perStateSmall}: N = 100, E = 100, the library's grouped
  *       generating-function update against one pass per single-particle state
  *       ({@link PerStateCounter}), same arithmetic. {@link CountRatio} runs the pair and prints the ratio.</li>
+ *   <li>{@code smallTable}: N = 40, E = 200, the size where fixed overheads show (see also
+ *       {@code org.microtally.count.CountStagesBenchmark}, one core).</li>
  * </ul>
  */
 @State(Scope.Benchmark)
@@ -47,6 +49,7 @@ public class CountBenchmark {
     private Statistics stats;
     private Spectrum full;
     private Spectrum small;
+    private Spectrum small40;
     private int smallPrimes;
 
     @Setup(Level.Trial)
@@ -54,6 +57,7 @@ public class CountBenchmark {
         stats = "BOSE".equals(statistics) ? Statistics.BOSE : Statistics.FERMI;
         full = Spectra.harmonicOscillator(3, 600);
         small = Spectra.harmonicOscillator(3, SMALL_E);
+        small40 = Spectra.harmonicOscillator(3, 200);
         CountTable grouped = CountTable.of(small, stats, SMALL_N, SMALL_E);
         smallPrimes = Math.max(1, grouped.primesUsed());
         BigInteger[] base = PerStateCounter.count(small, stats, SMALL_N, SMALL_E, smallPrimes);
@@ -69,6 +73,11 @@ public class CountBenchmark {
     @Benchmark
     public CountTable fullTable() {
         return CountTable.of(full, stats, 100, 600);
+    }
+
+    @Benchmark
+    public CountTable smallTable() {
+        return CountTable.of(small40, stats, 40, 200);
     }
 
     @Benchmark

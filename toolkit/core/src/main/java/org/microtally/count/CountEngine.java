@@ -17,6 +17,10 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Distinguishable particles: row n is the polynomial Z1(q)^n truncated at q^E, Z1 = sum_l g_l q^(e_l),
  * obtained as row n = row (n-1) * Z1. Cost O(N E L) for L levels below E.
+ *
+ * <p>Modulo one prime the recursion runs on one of two row kernels: primes in (2^49, 2^50), the ones
+ * {@link CountTable} asks for, in doubles with the FMA reduction of {@link FmaModulus}; any other prime below 2^62 (such as {@link Moduli#primes}) in
+ * longs with Shoup's precomputed quotients. Both give the same exact table after Chinese remaindering.
  */
 final class CountEngine {
     private CountEngine() { }
@@ -106,93 +110,180 @@ final class CountEngine {
         return out;
     }
 
-    /** The whole table modulo one prime p. */
-    private static long[] residues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
-                                   BigInteger[][] coef, long p, Runnable tick) {
-        int w = maxE + 1;
-        long[] t = new long[(maxN + 1) * w];
-        t[0] = 1;
-        BigInteger bp = BigInteger.valueOf(p);
-        if (stats.indistinguishable()) {
-            int[] lo = groundEnergies(energy, deg, stats, maxN, maxE, levels);
-            for (int l = 0; l < levels; l++) {
-                BigInteger[] c = coef[l];
-                long[] cm = new long[c.length];
-                long[] cs = new long[c.length];
-                for (int j = 0; j < c.length; j++) {
-                    cm[j] = c[j].mod(bp).longValue();
-                    cs[j] = Moduli.shoup(cm[j], p);
-                }
-                applyLevel(t, w, maxN, maxE, energy[l], l == 0 ? -1 : energy[l - 1], lo, cm, cs, p);
-                tick.run();
-            }
-        } else {
-            long[] gm = new long[levels];
-            long[] gs = new long[levels];
-            for (int l = 0; l < levels; l++) {
-                gm[l] = deg[l] % p;
-                gs[l] = Moduli.shoup(gm[l], p);
-            }
-            for (int n = 1; n <= maxN; n++) {
-                int dst = n * w;
-                int src = (n - 1) * w;
-                for (int l = 0; l < levels; l++) {
-                    int el = energy[l];
-                    long g = gm[l];
-                    long gsh = gs[l];
-                    for (int e = el; e <= maxE; e++) {
-                        long x = t[src + e - el];
-                        long q = (Math.multiplyHigh(gsh, x) << 1) | ((gsh * x) >>> 63);
-                        long r = g * x - q * p;
-                        if (r >= p) {
-                            r -= p;
-                        }
-                        long s = t[dst + e] + r;
-                        t[dst + e] = s >= p ? s - p : s;
-                    }
-                }
-                tick.run();
+    /** True when every prime lies in (2^49, 2^50), the range of {@link FmaModulus}. */
+    static boolean fitsFma(long[] primes) {
+        for (long p : primes) {
+            if (p <= Moduli.FMA_FLOOR || p >= FmaModulus.LIMIT) {
+                return false;
             }
         }
-        return t;
+        return true;
     }
 
     /**
-     * One level, in place, modulo p: T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending. Source
-     * row m = n - j can be non-zero only for lo[m] &lt;= e' &lt;= m * prevTop (prevTop = energy of the
-     * last level already applied, -1 before the first), so only that window is swept.
+     * The whole table modulo one prime p, row-major (N+1) x (E+1), entries in [0, p): the per-prime
+     * entry point (any prime below 2^62; primes in (2^49, 2^50) take the FMA loop).
      */
-    private static void applyLevel(long[] t, int w, int maxN, int maxE, int el, int prevTop, int[] lo,
-                                   long[] cm, long[] cs, long p) {
-        for (int n = maxN; n >= 1; n--) {
-            int jTop = Math.min(n, cm.length - 1);
-            int dst = n * w;
-            for (int j = 1; j <= jTop; j++) {
-                int off = j * el;
-                if (off > maxE) {
-                    break;
+    static long[] residuesModulo(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long p) {
+        int levels = relevantLevels(energy, maxE);
+        BigInteger[][] coef = new BigInteger[levels][];
+        if (stats.indistinguishable()) {
+            for (int l = 0; l < levels; l++) {
+                coef[l] = LevelSeries.coefficients(stats, deg[l], maxJ(energy[l], maxN, maxE));
+            }
+        }
+        return residues(energy, deg, stats, maxN, maxE, levels, coef, p, () -> { });
+    }
+
+    /**
+     * Row multiply-add in one modular arithmetic on a table it owns: T[dst + i] += c T[src + i] mod p
+     * for i &lt; len, with c the multiplier at {@code index} of the last {@link #multipliers} call.
+     */
+    private interface RowKernel {
+        void multipliers(BigInteger[] c);
+
+        void mulAdd(int dst, int src, int len, int index);
+    }
+
+    /** Primes in (2^49, 2^50) held in doubles ({@link FmaModulus}). */
+    private static final class FmaKernel implements RowKernel {
+        final double[] t;
+        final double p;
+        final double pinv;
+        final BigInteger bp;
+        double[] c = new double[0];
+
+        FmaKernel(int size, long p) {
+            this.t = new double[size];
+            this.p = p;
+            this.pinv = 1.0 / p;
+            this.bp = BigInteger.valueOf(p);
+            t[0] = 1;
+        }
+
+        @Override
+        public void multipliers(BigInteger[] coef) {
+            c = new double[coef.length];
+            for (int j = 0; j < coef.length; j++) {
+                c[j] = coef[j].mod(bp).longValue();
+            }
+        }
+
+        @Override
+        public void mulAdd(int dst, int src, int len, int index) {
+            FmaModulus.mulAddRow(t, dst, t, src, len, c[index], p, pinv);
+        }
+
+        long[] residues() {
+            long[] out = new long[t.length];
+            for (int i = 0; i < t.length; i++) {
+                out[i] = (long) t[i];
+            }
+            return out;
+        }
+    }
+
+    /** Any prime below 2^62, in longs with Shoup's precomputed quotients ({@link Moduli#mulShoup}). */
+    private static final class ShoupKernel implements RowKernel {
+        final long[] t;
+        final long p;
+        final BigInteger bp;
+        long[] c = new long[0];
+        long[] cs = new long[0];
+
+        ShoupKernel(int size, long p) {
+            this.t = new long[size];
+            this.p = p;
+            this.bp = BigInteger.valueOf(p);
+            t[0] = 1;
+        }
+
+        @Override
+        public void multipliers(BigInteger[] coef) {
+            c = new long[coef.length];
+            cs = new long[coef.length];
+            for (int j = 0; j < coef.length; j++) {
+                c[j] = coef[j].mod(bp).longValue();
+                cs[j] = Moduli.shoup(c[j], p);
+            }
+        }
+
+        @Override
+        public void mulAdd(int dst, int src, int len, int index) {
+            long cm = c[index];
+            long csh = cs[index];
+            for (int i = 0; i < len; i++) {
+                long x = t[src + i];
+                long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
+                long r = cm * x - q * p;
+                if (r >= p) {
+                    r -= p;
                 }
-                long c = cm[j];
-                long csh = cs[j];
-                if (c == 0) {
-                    continue;
+                long s = t[dst + i] + r;
+                t[dst + i] = s >= p ? s - p : s;
+            }
+        }
+    }
+
+    /** The whole table modulo one prime p: the FMA kernel for primes in (2^49, 2^50), Shoup's otherwise. */
+    private static long[] residues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
+                                   BigInteger[][] coef, long p, Runnable tick) {
+        int size = (maxN + 1) * (maxE + 1);
+        if (fitsFma(new long[] {p})) {
+            FmaKernel k = new FmaKernel(size, p);
+            sweep(k, energy, deg, stats, maxN, maxE, levels, coef, tick);
+            return k.residues();
+        }
+        ShoupKernel k = new ShoupKernel(size, p);
+        sweep(k, energy, deg, stats, maxN, maxE, levels, coef, tick);
+        return k.t;
+    }
+
+    /**
+     * The recursion of the class description on kernel k. Indistinguishable: one level at a time,
+     * T[n][e] += sum_{j>=1} c_j T[n-j][e - j el], n descending; source row m = n - j can be non-zero
+     * only for lo[m] &lt;= e' &lt;= m * prevTop (prevTop = energy of the last level already applied, -1
+     * before the first), so only that window is swept. Distinguishable: row n += g_l row (n-1) shifted by e_l.
+     */
+    private static void sweep(RowKernel k, int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
+                              BigInteger[][] coef, Runnable tick) {
+        int w = maxE + 1;
+        if (!stats.indistinguishable()) {
+            BigInteger[] g = new BigInteger[levels];
+            for (int l = 0; l < levels; l++) {
+                g[l] = BigInteger.valueOf(deg[l]);
+            }
+            k.multipliers(g);
+            for (int n = 1; n <= maxN; n++) {
+                for (int l = 0; l < levels; l++) {
+                    k.mulAdd(n * w + energy[l], (n - 1) * w, maxE - energy[l] + 1, l);
                 }
-                int m = n - j;
-                int from = lo[m];
-                int to = (int) Math.min(maxE - off, sourceTop(m, prevTop));
-                int src = m * w;
-                int d = dst + off;
-                for (int e = from; e <= to; e++) {
-                    long x = t[src + e];
-                    long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
-                    long r = c * x - q * p;
-                    if (r >= p) {
-                        r -= p;
+                tick.run();
+            }
+            return;
+        }
+        int[] lo = groundEnergies(energy, deg, stats, maxN, maxE, levels);
+        for (int l = 0; l < levels; l++) {
+            BigInteger[] c = coef[l];
+            k.multipliers(c);
+            int el = energy[l];
+            int prevTop = l == 0 ? -1 : energy[l - 1];
+            for (int n = maxN; n >= 1; n--) {
+                int jTop = Math.min(n, c.length - 1);
+                for (int j = 1; j <= jTop; j++) {
+                    int off = j * el;
+                    if (off > maxE) {
+                        break;
                     }
-                    long s = t[d + e] + r;
-                    t[d + e] = s >= p ? s - p : s;
+                    int m = n - j;
+                    int from = lo[m];
+                    int to = (int) Math.min(maxE - off, sourceTop(m, prevTop));
+                    if (to >= from) {
+                        k.mulAdd(n * w + off + from, m * w + from, to - from + 1, j);
+                    }
                 }
             }
+            tick.run();
         }
     }
 

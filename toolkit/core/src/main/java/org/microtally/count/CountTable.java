@@ -34,7 +34,8 @@ import org.microtally.spectrum.Statistics;
  * (1 + x q^e_l)^g (Fermi) or (1 + x q^e_l + ... + (x q^e_l)^k)^g (Gentile), applied as one truncated
  * binomial series with j &lt;= min(N, E / e_l) terms, not as g single-state passes; cost
  * O(N E sum_l min(N, E/e_l)) word operations per prime. Counting is done modulo the largest primes below
- * 2^62 (one parallel task per prime on the common fork-join pool) and reconstructed by Chinese
+ * 2^50, held in doubles with an exact FMA reduction (below 2^62 in longs on a processor
+ * without a fused multiply-add; one parallel task per prime on the common fork-join pool), and reconstructed by Chinese
  * remaindering; the number of primes comes from a proven
  * saddle-point upper bound on every entry (see {@link #primesUsed()}), so the result is exact. Small
  * tables (under 2e5 word operations) run the same recursion directly in BigInteger; the two paths
@@ -105,7 +106,7 @@ public final class CountTable implements Tabular {
         Input in = Input.validate(spectrum, statistics, maxParticles, maxEnergy, progress);
         requireMemory(maxParticles, maxEnergy, 0, 1);
         double bits = CountBound.log2Bound(in.energy, in.deg, statistics, maxParticles, maxEnergy);
-        int primes = CountBound.primesFor(bits);
+        int primes = Moduli.tablePrimeCount(bits);
         requireMemory(maxParticles, maxEnergy, bits, primes);
         BigInteger[] counts;
         if (work(in.energy, statistics, maxParticles, maxEnergy) <= BIG_INTEGER_WORK_LIMIT) {
@@ -113,7 +114,7 @@ public final class CountTable implements Tabular {
             primes = 0;
         } else {
             counts = CountEngine.multiModular(in.energy, in.deg, statistics, maxParticles, maxEnergy,
-                    Moduli.primes(primes), progress);
+                    Moduli.tablePrimes(primes), progress);
         }
         return new CountTable(spectrum, statistics, maxParticles, maxEnergy, counts, primes);
     }
@@ -251,7 +252,10 @@ public final class CountTable implements Tabular {
         return c >= maxE ? maxE : (int) Math.max(-1, Math.floor(c));
     }
 
-    /** Number of ~62-bit primes used by the multi-modular path (0 when plain BigInteger was used). */
+    /**
+     * Number of primes used by the multi-modular path (0 when plain BigInteger was used): primes
+     * between 2^49 and 2^50 where the processor has a fused multiply-add, else between 2^61 and 2^62.
+     */
     public int primesUsed() {
         return primesUsed;
     }

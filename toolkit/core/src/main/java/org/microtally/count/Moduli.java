@@ -7,7 +7,9 @@ import java.util.List;
 /**
  * Word-size modular arithmetic for the multi-modular counting path.
  *
- * <p>Moduli are the largest primes below 2^62 (all &gt; 2^61), proven prime by deterministic
+ * <p>Two sets of moduli: the largest primes below 2^62 (all &gt; 2^61, {@link #primes}, Shoup
+ * arithmetic in longs) and the largest primes below 2^50 (all &gt; 2^49, {@link #fmaPrimes}, the
+ * double arithmetic of {@link FmaModulus} that count tables use). Both are proven prime by deterministic
  * Miller-Rabin with the first twelve prime bases, which is exact for every n &lt; 3.18e23
  * (J. Sorenson, J. Webster, "Strong pseudoprimes to twelve prime bases", Math. Comp. 86 (2017) 985-1003). Products by a fixed multiplier use
  * V. Shoup's precomputed-quotient method (as described in D. Harvey, "Faster arithmetic for
@@ -25,20 +27,53 @@ final class Moduli {
     /** Every modulus exceeds 2^61, so k of them cover any value below 2^(61 k). */
     static final int BITS_PER_PRIME = 61;
 
-    /** The first {@code k} primes below 2^62, descending. */
-    static synchronized long[] primes(int k) {
-        long candidate = PRIMES.isEmpty() ? (1L << 62) - 1 : PRIMES.get(PRIMES.size() - 1) - 2;
-        while (PRIMES.size() < k) {
+    private static final List<Long> FMA_PRIMES = new ArrayList<>();
+
+    /** Every modulus of {@link #fmaPrimes} exceeds this, 2^49. */
+    static final long FMA_FLOOR = 1L << 49;
+
+    /** Every modulus of {@link #fmaPrimes} exceeds 2^49, so k of them cover any value below 2^(49 k). */
+    static final int FMA_BITS_PER_PRIME = 49;
+
+    /**
+     * The first {@code k} primes below 2^50, descending (all above 2^49, the range of
+     * {@link FmaModulus}); proven prime as in {@link #primes}.
+     */
+    static synchronized long[] fmaPrimes(int k) {
+        return firstPrimesBelow(FMA_PRIMES, FmaModulus.LIMIT, k);
+    }
+
+    private static long[] firstPrimesBelow(List<Long> cache, long limit, int k) {
+        long candidate = cache.isEmpty() ? limit - 1 : cache.get(cache.size() - 1) - 2;
+        while (cache.size() < k) {
             if (isPrime(candidate)) {
-                PRIMES.add(candidate);
+                cache.add(candidate);
             }
             candidate -= 2;
         }
         long[] out = new long[k];
         for (int i = 0; i < k; i++) {
-            out[i] = PRIMES.get(i);
+            out[i] = cache.get(i);
         }
         return out;
+    }
+
+    /**
+     * How many of {@link #tablePrimes} cover every value below 2^log2Bound: primes below 2^50 when
+     * the JVM uses a hardware fused multiply-add ({@link FmaModulus#HARDWARE}), else below 2^62.
+     */
+    static int tablePrimeCount(double log2Bound) {
+        return FmaModulus.HARDWARE ? CountBound.fmaPrimesFor(log2Bound) : CountBound.primesFor(log2Bound);
+    }
+
+    /** The first {@code k} primes of the set count tables use (see {@link #tablePrimeCount}). */
+    static long[] tablePrimes(int k) {
+        return FmaModulus.HARDWARE ? fmaPrimes(k) : primes(k);
+    }
+
+    /** The first {@code k} primes below 2^62, descending. */
+    static synchronized long[] primes(int k) {
+        return firstPrimesBelow(PRIMES, 1L << 62, k);
     }
 
     static boolean isPrime(long n) {
@@ -98,6 +133,7 @@ final class Moduli {
         private final long[][] inv;       // inv[i][j] = p_j^-1 mod p_i, j < i
         private final long[][] invShoup;
         private final BigInteger[] bigP;
+        private static final long LIMB = 0xFFFFFFFFL;
 
         Crt(long[] primes) {
             this.p = primes.clone();
@@ -142,11 +178,49 @@ final class Moduli {
             while (top > 0 && scratch[top] == 0) {
                 top--;
             }
-            BigInteger v = BigInteger.valueOf(scratch[top]);
-            for (int i = top - 1; i >= 0; i--) {
-                v = v.multiply(bigP[i]).add(BigInteger.valueOf(scratch[i]));
+            if (top == 0) {
+                return BigInteger.valueOf(scratch[0]);
             }
-            return v;
+            return horner(scratch, top);
+        }
+
+        /**
+         * v = a_top, then v = v p_i + a_i for i = top-1 .. 0, in 32-bit limbs held in longs (one
+         * 64 x 64 -&gt; 128-bit product per limb via Math.multiplyHigh), turned into a BigInteger once.
+         */
+        private BigInteger horner(long[] a, int top) {
+            long[] mag = new long[2 * (top + 1) + 2];
+            mag[0] = a[top] & LIMB;
+            mag[1] = a[top] >>> 32;
+            int len = mag[1] == 0 ? 1 : 2;
+            for (int i = top - 1; i >= 0; i--) {
+                long q = p[i];
+                long carry = a[i]; // < 2^62
+                for (int l = 0; l < len; l++) {
+                    long lo = mag[l] * q;
+                    long hi = Math.multiplyHigh(mag[l], q); // limb < 2^32, q < 2^62: product < 2^94
+                    long sum = lo + carry;
+                    if (Long.compareUnsigned(sum, lo) < 0) {
+                        hi++;
+                    }
+                    mag[l] = sum & LIMB;
+                    carry = (hi << 32) | (sum >>> 32); // < 2^62
+                }
+                while (carry != 0) {
+                    mag[len++] = carry & LIMB;
+                    carry >>>= 32;
+                }
+            }
+            byte[] bytes = new byte[4 * len];
+            for (int l = 0; l < len; l++) {
+                long limb = mag[l];
+                int at = 4 * (len - 1 - l);
+                bytes[at] = (byte) (limb >>> 24);
+                bytes[at + 1] = (byte) (limb >>> 16);
+                bytes[at + 2] = (byte) (limb >>> 8);
+                bytes[at + 3] = (byte) limb;
+            }
+            return new BigInteger(1, bytes);
         }
     }
 }

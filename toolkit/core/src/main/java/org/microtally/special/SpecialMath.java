@@ -1,5 +1,7 @@
 package org.microtally.special;
 
+import java.math.BigDecimal;
+import java.math.MathContext;
 import org.apache.commons.math3.special.Gamma;
 
 /**
@@ -32,6 +34,74 @@ final class SpecialMath {
         -0.0003521233538030395096020522,
         -0.00003439477441808804817791462,
     };
+
+    /** Largest k for which {@link #inversePowers} can fill k^-x. */
+    static final int MAX_POWER_BASE = 64;
+
+    /** SMALLEST_FACTOR[k] = least prime factor of k, 2 &lt;= k &lt;= MAX_POWER_BASE. */
+    private static final int[] SMALLEST_FACTOR = new int[MAX_POWER_BASE + 1];
+
+    /** ln p = LN_HI[p] + LN_LO[p] to about 32 digits for the primes p &lt;= MAX_POWER_BASE. */
+    private static final double[] LN_HI = new double[MAX_POWER_BASE + 1];
+    private static final double[] LN_LO = new double[MAX_POWER_BASE + 1];
+
+    static {
+        MathContext mc = new MathContext(40);
+        BigDecimal ln2 = atanhTimesTwo(BigDecimal.ONE.divide(BigDecimal.valueOf(3), mc), mc);
+        for (int k = 2; k <= MAX_POWER_BASE; k++) {
+            if (SMALLEST_FACTOR[k] != 0) {
+                continue;
+            }
+            for (int m = k; m <= MAX_POWER_BASE; m += k) {
+                if (SMALLEST_FACTOR[m] == 0) {
+                    SMALLEST_FACTOR[m] = k;
+                }
+            }
+            // ln k = e ln 2 + 2 atanh((a - 1)/(a + 1)), a = k / 2^e in [1, 2)
+            int e = 31 - Integer.numberOfLeadingZeros(k);
+            BigDecimal a = BigDecimal.valueOf(k).divide(BigDecimal.valueOf(1L << e), mc);
+            BigDecimal y = a.subtract(BigDecimal.ONE).divide(a.add(BigDecimal.ONE), mc);
+            BigDecimal ln = ln2.multiply(BigDecimal.valueOf(e), mc).add(atanhTimesTwo(y, mc), mc);
+            LN_HI[k] = ln.doubleValue();
+            LN_LO[k] = ln.subtract(new BigDecimal(LN_HI[k]), mc).doubleValue();
+        }
+    }
+
+    /** 2 atanh(y) = 2 sum_k y^(2k+1)/(2k+1) for 0 &lt;= y &lt;= 1/3, to the precision of mc. */
+    private static BigDecimal atanhTimesTwo(BigDecimal y, MathContext mc) {
+        BigDecimal y2 = y.multiply(y, mc);
+        BigDecimal power = y;
+        BigDecimal sum = BigDecimal.ZERO;
+        BigDecimal tiny = BigDecimal.ONE.movePointLeft(mc.getPrecision() + 2);
+        for (int k = 0; power.compareTo(tiny) > 0; k++) {
+            sum = sum.add(power.divide(BigDecimal.valueOf(2L * k + 1), mc), mc);
+            power = power.multiply(y2, mc);
+        }
+        return sum.add(sum, mc);
+    }
+
+    /**
+     * out[k] = k^-x for k = 1 .. count (out[0] is set to 0), count &lt;= {@link #MAX_POWER_BASE}.
+     * Method: for each prime p, p^-x = exp(-x ln p) with x ln p carried in double-double
+     * (the product's rounding error recovered by fma, ln p to 32 digits), so each prime power is within
+     * about 1 ulp of exp's own error; composite k = p m as p^-x m^-x (k &lt;= 64 takes at most five such
+     * products, so each entry is within about 6 ulp). One exp per prime instead of one pow per k.
+     */
+    static void inversePowers(double x, double[] out, int count) {
+        out[0] = 0.0;
+        out[1] = 1.0;
+        for (int k = 2; k <= count; k++) {
+            int p = SMALLEST_FACTOR[k];
+            if (p == k) {
+                double hi = x * LN_HI[k];
+                double lo = Math.fma(x, LN_HI[k], -hi) + x * LN_LO[k];
+                double e = Math.exp(-hi);
+                out[k] = Math.fma(-e, lo, e);
+            } else {
+                out[k] = out[p] * out[k / p];
+            }
+        }
+    }
 
     /** sin(pi x) with exact argument reduction; exactly 0 at every integer. */
     static double sinPi(double x) {

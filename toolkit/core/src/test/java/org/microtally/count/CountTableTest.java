@@ -202,6 +202,16 @@ class CountTableTest {
             BigInteger[] mm = CountEngine.multiModular(en, g, st, maxN, maxE, Moduli.primes(primes), ProgressListener.NONE);
             // Source: independent arithmetic (exact BigInteger recursion) vs residues + Garner CRT
             assertEquals(java.util.Arrays.asList(ref), java.util.Arrays.asList(mm), "trial " + trial + " " + st);
+            long[] small = Moduli.fmaPrimes(CountBound.fmaPrimesFor(CountBound.log2Bound(en, g, st, maxN, maxE)));
+            BigInteger[] viaFma = CountEngine.multiModular(en, g, st, maxN, maxE, small, ProgressListener.NONE);
+            // Source: independent arithmetic (exact BigInteger recursion) vs residues modulo 50-bit primes + Garner CRT
+            assertEquals(java.util.Arrays.asList(ref), java.util.Arrays.asList(viaFma), "50-bit primes, trial " + trial);
+            long p = small[small.length - 1];
+            long[] one = CountEngine.residuesModulo(en, g, st, maxN, maxE, p);
+            for (int i = 0; i < ref.length; i++) {
+                // Source: independent arithmetic (exact BigInteger recursion, reduced mod p)
+                assertEquals(ref[i].mod(BigInteger.valueOf(p)).longValueExact(), one[i], "per-prime residue " + i);
+            }
             // Source: the proven saddle-point bound must dominate every exact entry (Flajolet-Sedgewick, Ch. VIII)
             double bound = CountBound.log2Bound(en, g, st, maxN, maxE);
             for (BigInteger v : ref) {

@@ -1,0 +1,90 @@
+package org.microtally.bench;
+
+import java.util.concurrent.TimeUnit;
+import org.microtally.count.CountTable;
+import org.microtally.ensemble.Canonical;
+import org.microtally.occupation.ChemicalPotential;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Fork;
+import org.openjdk.jmh.annotations.Level;
+import org.openjdk.jmh.annotations.Measurement;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Param;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.Setup;
+import org.openjdk.jmh.annotations.State;
+import org.openjdk.jmh.annotations.Warmup;
+
+/**
+ * Time against work at four sizes each, for {@link ScalingChart}: the exact Bose count table of a
+ * 3D oscillator (work N x E x levels), the canonical boson solver (work N x states) and the chemical
+ * potential solve for distinct levels (work levels x temperatures).
+ */
+@State(Scope.Benchmark)
+@BenchmarkMode(Mode.AverageTime)
+@OutputTimeUnit(TimeUnit.MILLISECONDS)
+@Fork(1)
+@Warmup(iterations = 1)
+@Measurement(iterations = 3)
+public class ScalingBenchmark {
+    /** Size index 0 .. 3. */
+    @Param({"0", "1", "2", "3"})
+    public int scale;
+
+    static final int[] COUNT_N = {20, 40, 60, 80};
+    static final int[] COUNT_E = {100, 200, 300, 400};
+    static final int[] CANONICAL_N = {1000, 2000, 5000, 10000};
+    static final int[] CANONICAL_CUT = {40, 50, 65, 83};
+    static final int[] MU_LEVELS = {10_000, 30_000, 100_000, 300_000};
+    static final int TEMPERATURES = 100;
+
+    private Spectrum countSpectrum;
+    private Spectrum canonicalSpectrum;
+    private ChemicalPotential.Solver muSolver;
+
+    @Setup(Level.Trial)
+    public void setUp() {
+        countSpectrum = Spectra.harmonicOscillator(3, COUNT_E[scale]);
+        canonicalSpectrum = Spectra.harmonicOscillator(3, CANONICAL_CUT[scale]);
+        muSolver = ChemicalPotential.solver(Spectra.equallySpaced(MU_LEVELS[scale], 1e-3), Statistics.FERMI);
+    }
+
+    /** Work of each benchmark at a size index, in the units the chart states. */
+    static double work(String benchmark, int scale) {
+        switch (benchmark) {
+            case "countTable":
+                // N x E x levels (the E + 1 oscillator levels up to E)
+                return (double) COUNT_N[scale] * COUNT_E[scale] * (COUNT_E[scale] + 1);
+            case "canonicalBosons":
+                return (double) CANONICAL_N[scale] * Spectra.harmonicOscillator(3, CANONICAL_CUT[scale]).stateCount();
+            case "muSolve":
+                return (double) MU_LEVELS[scale] * TEMPERATURES;
+            default:
+                throw new IllegalArgumentException(benchmark);
+        }
+    }
+
+    @Benchmark
+    public CountTable countTable() {
+        return CountTable.of(countSpectrum, Statistics.BOSE, COUNT_N[scale], COUNT_E[scale]);
+    }
+
+    @Benchmark
+    public double canonicalBosons() {
+        return Canonical.of(canonicalSpectrum, Statistics.BOSE, CANONICAL_N[scale], 10.0).lnZ();
+    }
+
+    @Benchmark
+    public double muSolve() {
+        double s = 0;
+        for (int t = 0; t < TEMPERATURES; t++) {
+            s += muSolver.forMeanNumber(0.5 + 0.05 * t, MU_LEVELS[scale] / 10.0);
+        }
+        return s;
+    }
+}

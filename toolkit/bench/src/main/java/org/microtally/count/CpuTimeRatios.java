@@ -1,0 +1,146 @@
+package org.microtally.count;
+
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
+import java.math.BigInteger;
+import java.util.Arrays;
+import java.util.Random;
+import java.util.function.DoubleSupplier;
+import org.microtally.special.FermiDirac;
+import org.microtally.special.Polylog;
+import org.microtally.special.Zeta;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+/**
+ * The same cases as the JMH benchmarks, timed by the CPU time of the measuring thread
+ * ({@link ThreadMXBean#getCurrentThreadCpuTime}) instead of wall time, for a shared machine where
+ * other processes take most of the wall clock: median of seven rounds after warm-up, on one thread
+ * (the common fork-join pool gets parallelism 0, so the per-prime tasks run on the caller). Prints
+ * each figure with its ratio to a baseline measured in the same run. Run:
+ * {@code java -cp toolkit/bench/target/benchmarks.jar org.microtally.count.CpuTimeRatios}.
+ */
+public final class CpuTimeRatios {
+    private CpuTimeRatios() { }
+
+    private static final ThreadMXBean CPU = ManagementFactory.getThreadMXBean();
+    private static double sink;
+
+    /** Median CPU nanoseconds per call of f over seven rounds of {@code calls} calls, after two warm-up rounds. */
+    static double cpuNanos(DoubleSupplier f, int calls) {
+        double[] r = new double[9];
+        for (int round = 0; round < r.length; round++) {
+            long t0 = CPU.getCurrentThreadCpuTime();
+            double s = 0;
+            for (int i = 0; i < calls; i++) {
+                s += f.getAsDouble();
+            }
+            r[round] = (CPU.getCurrentThreadCpuTime() - t0) / (double) calls;
+            sink += s;
+        }
+        double[] counted = Arrays.copyOfRange(r, 2, r.length);
+        Arrays.sort(counted);
+        return counted[counted.length / 2];
+    }
+
+    public static void main(String[] args) {
+        System.setProperty("java.util.concurrent.ForkJoinPool.common.parallelism", "0");
+        countTables();
+        modularLoop();
+        specialFunctions();
+        System.out.println(sink == 42 ? "" : "done");
+    }
+
+    private static void countTables() {
+        for (int[] size : new int[][] {{40, 200}, {100, 600}}) {
+            int n = size[0];
+            int e = size[1];
+            Spectrum s = Spectra.harmonicOscillator(3, e);
+            int[] en = s.integerEnergies();
+            int[] g = s.degeneracies();
+            int calls = n == 40 ? 5 : 1;
+            double whole = cpuNanos(() -> CountTable.of(s, Statistics.BOSE, n, e).primesUsed(), calls);
+            double bound = cpuNanos(() -> CountBound.log2Bound(en, g, Statistics.BOSE, n, e), calls);
+            CountTable t = CountTable.of(s, Statistics.BOSE, n, e);
+            long[] primes = Moduli.tablePrimes(t.primesUsed());
+            long[][] res = new long[primes.length][(n + 1) * (e + 1)];
+            for (int i = 0; i < primes.length; i++) {
+                BigInteger bp = BigInteger.valueOf(primes[i]);
+                for (int m = 0; m <= n; m++) {
+                    for (int q = 0; q <= e; q++) {
+                        res[i][m * (e + 1) + q] = t.count(m, q).mod(bp).longValue();
+                    }
+                }
+            }
+            double crt = cpuNanos(() -> {
+                Moduli.Crt c = new Moduli.Crt(primes);
+                long[] scratch = new long[primes.length];
+                double bits = 0;
+                for (int i = 0; i < res[0].length; i++) {
+                    bits += c.reconstruct(res, i, scratch).bitLength();
+                }
+                return bits;
+            }, calls);
+            System.out.printf("count table %dx%d Bose, one thread, %d primes: %.1f ms CPU; bound %.2f ms (%.1f%%), "
+                    + "CRT %.2f ms (%.1f%%)%n", n, e, primes.length, whole / 1e6, bound / 1e6, 100 * bound / whole,
+                    crt / 1e6, 100 * crt / whole);
+        }
+    }
+
+    private static void modularLoop() {
+        int row = 601;
+        long p62 = Moduli.primes(1)[0];
+        long p50 = Moduli.fmaPrimes(1)[0];
+        Random rnd = new Random(1);
+        long[] t = new long[2 * row + 7];
+        double[] d = new double[t.length];
+        for (int i = 0; i < t.length; i++) {
+            t[i] = Math.floorMod(rnd.nextLong(), p62);
+            d[i] = Math.floorMod(rnd.nextLong(), p50);
+        }
+        long c = Math.floorMod(rnd.nextLong(), p62);
+        long cs = Moduli.shoup(c, p62);
+        double dc = Math.floorMod(rnd.nextLong(), p50);
+        int calls = 20_000;
+        double bare = cpuNanos(() -> {
+            for (int i = 0; i < row; i++) {
+                long s = t[row + 7 + i] + t[i];
+                t[row + 7 + i] = s >= p62 ? s - p62 : s;
+            }
+            return t[row];
+        }, calls) / row;
+        double shoup = cpuNanos(() -> {
+            for (int i = 0; i < row; i++) {
+                t[row + 7 + i] = Moduli.add(t[row + 7 + i], Moduli.mulShoup(c, cs, t[i], p62), p62);
+            }
+            return t[row];
+        }, calls) / row;
+        double fma = cpuNanos(() -> {
+            FmaModulus.mulAddRow(d, row + 7, d, 0, row, dc, p50, 1.0 / p50);
+            return d[row];
+        }, calls) / row;
+        System.out.printf("modular multiply-add, rows of %d: bare 62-bit add %.3f ns, Shoup 62-bit %.3f ns, "
+                + "FMA 50-bit %.3f ns per entry; FMA is %.2fx Shoup's throughput, %.2fx the bare add's%n",
+                row, bare, shoup, fma, shoup / fma, bare / fma);
+    }
+
+    private static void specialFunctions() {
+        int calls = 200_000;
+        double[] wiggle = {1e-12};
+        DoubleSupplier next = () -> {
+            wiggle[0] = -wiggle[0];
+            return wiggle[0];
+        };
+        double base = cpuNanos(() -> Math.exp(0.5 + next.getAsDouble()) + Math.pow(2.5 + next.getAsDouble(), 1.5), calls);
+        double zeta = cpuNanos(() -> Zeta.zeta(1.5 + next.getAsDouble()), calls);
+        double liNear = cpuNanos(() -> Polylog.li(1.5, 0.99 + next.getAsDouble()), calls);
+        double liSeries = cpuNanos(() -> Polylog.li(2.5, 0.3 + next.getAsDouble()), calls);
+        System.out.printf("baseline exp + pow %.1f ns; zeta(1.5) %.1f ns (%.1fx); Li_1.5(0.99) %.1f ns (%.1fx); "
+                + "Li_2.5(0.3) %.1f ns (%.1fx)%n", base, zeta, zeta / base, liNear, liNear / base, liSeries, liSeries / base);
+        for (double eta : new double[] {-5, 0.5, 10, 100}) {
+            double fd = cpuNanos(() -> FermiDirac.integral(0.5, eta + next.getAsDouble()), calls);
+            System.out.printf("F_1/2(%s) %.1f ns (%.1fx the baseline)%n", eta, fd, fd / base);
+        }
+    }
+}

@@ -1,0 +1,75 @@
+package org.microtally.count;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.math.BigInteger;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.microtally.ProgressListener;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+class CountBoundTest {
+
+    /** Exact level coefficients as doubles (no shared code with the bound beyond the series itself). */
+    private static double[][] coefficients(int[] en, int[] g, Statistics st, int maxN, int maxE) {
+        int levels = CountEngine.relevantLevels(en, maxE);
+        double[][] c = new double[levels][];
+        for (int l = 0; l < levels; l++) {
+            BigInteger[] b = LevelSeries.coefficients(st, g[l], CountEngine.maxJ(en[l], maxN, maxE));
+            c[l] = new double[b.length];
+            for (int j = 0; j < b.length; j++) {
+                c[l][j] = b[j].doubleValue();
+            }
+        }
+        return c;
+    }
+
+    /** ln G(e^u, e^v) - N u - E v. */
+    private static double saddle(double[][] c, int[] en, int maxN, int maxE, double u, double v) {
+        double f = -maxN * u - maxE * v;
+        for (int l = 0; l < c.length; l++) {
+            double y = Math.exp(u + en[l] * v);
+            double s = 0;
+            for (int j = c[l].length - 1; j >= 0; j--) {
+                s = s * y + c[l][j];
+            }
+            f += Math.log(s);
+        }
+        return f;
+    }
+
+    @Test
+    void newtonBoundIsValidAndAsTightAsAGridSearch() {
+        Random rnd = new Random(49L);
+        Statistics[] all = {Statistics.BOSE, Statistics.FERMI, Statistics.maxOccupancy(2)};
+        for (int trial = 0; trial < 24; trial++) {
+            Spectrum s = trial % 2 == 0 ? Spectra.harmonicOscillator(1 + rnd.nextInt(3), 40)
+                    : CountTableTest.irregular(rnd);
+            int[] en = s.integerEnergies();
+            int[] g = s.degeneracies();
+            Statistics st = all[trial % all.length];
+            int maxN = 1 + rnd.nextInt(30);
+            int maxE = 1 + rnd.nextInt(40);
+            double bits = CountBound.log2Bound(en, g, st, maxN, maxE);
+            BigInteger[] exact = CountEngine.bigInteger(en, g, st, maxN, maxE, ProgressListener.NONE);
+            int largest = 0;
+            for (BigInteger x : exact) {
+                largest = Math.max(largest, x.bitLength());
+            }
+            // Source: Flajolet & Sedgewick, Analytic Combinatorics, Ch. VIII (saddle-point bounds dominate every coefficient)
+            assertTrue(largest <= bits + 1, "trial " + trial + ": bound " + bits + " vs " + largest + " bits");
+            double[][] c = coefficients(en, g, st, maxN, maxE);
+            double grid = Double.POSITIVE_INFINITY;
+            for (double u = -12; u <= 0; u += 0.08) {
+                for (double v = -6; v <= 0; v += 0.04) {
+                    grid = Math.min(grid, saddle(c, en, maxN, maxE, u, v));
+                }
+            }
+            double gridBits = Math.max(grid / Math.log(2), 0) + 2;
+            // Source: independent brute force (grid search of the same saddle-point function)
+            assertTrue(bits <= gridBits + 0.01, "trial " + trial + ": Newton " + bits + " vs grid " + gridBits);
+        }
+    }
+}
