@@ -36,7 +36,7 @@ import scala.Tuple2;
  * every entry). Cost: the {@link CountTable} work per prime spread over the executors, plus shipping
  * 8 (N+1)(E+1) bytes per prime to the driver and the driver's reconstruction.
  */
-public final class DistributedCountTable implements Tabular {
+public final class DistributedCountTable implements Tabular, CountGrid {
     /** Redundant primes added to every plan for the consistency check. */
     public static final int REDUNDANT_PRIMES = 1;
 
@@ -96,6 +96,7 @@ public final class DistributedCountTable implements Tabular {
     }
 
     /** Omega(n, e). */
+    @Override
     public BigInteger count(int n, int e) {
         if (n < 0 || n > maxN) {
             throw InvalidInputException.of("particle number n", n, "in [0, " + maxN + "]", "Build a larger table.");
@@ -107,23 +108,15 @@ public final class DistributedCountTable implements Tabular {
     }
 
     /**
-     * The first entry (n-major order) where this table and {@code local} differ, as a sentence, or
-     * empty when they have the same shape, statistics and every entry equal.
+     * The first entry where this table and {@code local} differ, as a sentence, or empty when they have
+     * the same statistics, shape and every entry equal.
      */
     public Optional<String> firstDifference(CountTable local) {
         Objects.requireNonNull(local, "local");
-        if (local.maxParticles() != maxN || local.maxEnergy() != maxE || !local.statistics().equals(statistics)) {
-            return Optional.of("shapes differ: distributed " + this + ", local " + local);
+        if (!local.statistics().equals(statistics)) {
+            return Optional.of("statistics differ: distributed " + statistics + ", local " + local.statistics());
         }
-        for (int n = 0; n <= maxN; n++) {
-            for (int e = 0; e <= maxE; e++) {
-                if (!local.count(n, e).equals(counts[n * (maxE + 1) + e])) {
-                    return Optional.of("Omega(" + n + ", " + e + "): distributed " + counts[n * (maxE + 1) + e]
-                            + ", local " + local.count(n, e));
-                }
-            }
-        }
-        return Optional.empty();
+        return firstDifference(CountGrid.of(local));
     }
 
     /** The row Omega(n, 0..E). */
@@ -143,11 +136,13 @@ public final class DistributedCountTable implements Tabular {
     }
 
     /** N. */
+    @Override
     public int maxParticles() {
         return maxN;
     }
 
     /** E. */
+    @Override
     public int maxEnergy() {
         return maxE;
     }
