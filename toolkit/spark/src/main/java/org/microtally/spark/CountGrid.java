@@ -1,15 +1,20 @@
 package org.microtally.spark;
 
 import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
+import org.microtally.Tabular;
 import org.microtally.count.CountTable;
 
 /**
  * A read-only view of an exact table Omega(n, e), n &lt;= N, e &lt;= E, whatever computed it, so two
- * tables from different methods can be compared entry by entry.
+ * tables from different methods can be compared entry by entry; shown as a table with the columns of
+ * {@link CountTable} (n, E, Omega).
  */
-public interface CountGrid {
+public interface CountGrid extends Tabular {
     /** N. */
     int maxParticles();
 
@@ -60,5 +65,36 @@ public interface CountGrid {
             }
         }
         return Optional.empty();
+    }
+
+    /** Columns n, E, Omega, as {@link CountTable}. */
+    @Override
+    default List<String> columnNames() {
+        return List.of("n", "E", "Omega");
+    }
+
+    /** One row per (n, e), n-major, Omega as an exact BigInteger. */
+    @Override
+    default List<List<Object>> rows() {
+        List<List<Object>> out = new ArrayList<>((maxParticles() + 1) * (maxEnergy() + 1));
+        for (int n = 0; n <= maxParticles(); n++) {
+            for (int e = 0; e <= maxEnergy(); e++) {
+                out.add(List.of(n, e, count(n, e)));
+            }
+        }
+        return Collections.unmodifiableList(out);
+    }
+
+    /** Refuses a cell outside 0 &lt;= n &lt;= N, 0 &lt;= e &lt;= E; otherwise returns its row-major index. */
+    static int cellIndex(int n, int e, int maxN, int maxE) {
+        if (n < 0 || n > maxN) {
+            throw org.microtally.InvalidInputException.of("particle number n", n, "in [0, " + maxN + "]",
+                    "Build a larger table.");
+        }
+        if (e < 0 || e > maxE) {
+            throw org.microtally.InvalidInputException.of("total energy e", e, "in [0, " + maxE + "]",
+                    "Build a larger table.");
+        }
+        return n * (maxE + 1) + e;
     }
 }

@@ -1,7 +1,6 @@
 package org.microtally.spark;
 
 import java.math.BigInteger;
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Collections;
 import java.util.List;
@@ -13,7 +12,6 @@ import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.sql.SparkSession;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
-import org.microtally.Tabular;
 import org.microtally.count.CountTable;
 import org.microtally.count.PrimePlan;
 import org.microtally.spectrum.Spectrum;
@@ -36,7 +34,7 @@ import scala.Tuple2;
  * every entry). Cost: the {@link CountTable} work per prime spread over the executors, plus shipping
  * 8 (N+1)(E+1) bytes per prime to the driver and the driver's reconstruction.
  */
-public final class DistributedCountTable implements Tabular, CountGrid {
+public final class DistributedCountTable implements CountGrid {
     /** Redundant primes added to every plan for the consistency check. */
     public static final int REDUNDANT_PRIMES = 1;
 
@@ -98,13 +96,7 @@ public final class DistributedCountTable implements Tabular, CountGrid {
     /** Omega(n, e). */
     @Override
     public BigInteger count(int n, int e) {
-        if (n < 0 || n > maxN) {
-            throw InvalidInputException.of("particle number n", n, "in [0, " + maxN + "]", "Build a larger table.");
-        }
-        if (e < 0 || e > maxE) {
-            throw InvalidInputException.of("total energy e", e, "in [0, " + maxE + "]", "Build a larger table.");
-        }
-        return counts[n * (maxE + 1) + e];
+        return counts[CountGrid.cellIndex(n, e, maxN, maxE)];
     }
 
     /**
@@ -150,24 +142,6 @@ public final class DistributedCountTable implements Tabular, CountGrid {
     /** The statistics counted. */
     public Statistics statistics() {
         return statistics;
-    }
-
-    /** Columns n, E, Omega, as {@link CountTable}. */
-    @Override
-    public List<String> columnNames() {
-        return List.of("n", "E", "Omega");
-    }
-
-    /** One row per (n, e), n-major, Omega as an exact BigInteger. */
-    @Override
-    public List<List<Object>> rows() {
-        List<List<Object>> out = new ArrayList<>(counts.length);
-        for (int n = 0; n <= maxN; n++) {
-            for (int e = 0; e <= maxE; e++) {
-                out.add(List.of(n, e, counts[n * (maxE + 1) + e]));
-            }
-        }
-        return Collections.unmodifiableList(out);
     }
 
     @Override

@@ -175,11 +175,7 @@ public final class PrefixEnumeration implements CountGrid {
     /** The number of enumerated microstates with n particles and energy e. */
     @Override
     public BigInteger count(int n, int e) {
-        if (n < 0 || n > maxN || e < 0 || e > maxE) {
-            throw InvalidInputException.of("cell (n, e)", "(" + n + ", " + e + ")",
-                    "0 <= n <= " + maxN + ", 0 <= e <= " + maxE, "");
-        }
-        return BigInteger.valueOf(counts[n * (maxE + 1) + e]);
+        return BigInteger.valueOf(counts[CountGrid.cellIndex(n, e, maxN, maxE)]);
     }
 
     /** P: the number of leading states whose occupations form the prefixes. */
