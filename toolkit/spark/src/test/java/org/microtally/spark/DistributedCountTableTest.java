@@ -100,6 +100,7 @@ class DistributedCountTableTest {
     void refusesBadInputBeforeStartingAnyTask() {
         InvalidInputException ex = assertThrows(InvalidInputException.class, () -> DistributedCountTable.of(spark,
                 Spectra.harmonicOscillator(1, 10), Statistics.BOSE, -1, 10));
+        // common practice, no source: the refusal names the offending value
         assertTrue(ex.getMessage().contains("-1"), ex.getMessage());
     }
 }

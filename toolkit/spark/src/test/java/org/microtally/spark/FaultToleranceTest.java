@@ -73,6 +73,7 @@ class FaultToleranceTest {
         };
         assertThrows(IllegalStateException.class,
                 () -> DistributedCountTable.compute(spark, plan, ProgressListener.NONE, corruptRedundant));
+        // (common practice, no source: a wrong redundant residue disagrees with the correct reconstruction)
     }
 
     @Test
@@ -82,6 +83,7 @@ class FaultToleranceTest {
         for (int i = 0; i < r.length; i++) {
             r[i] = plan.residues(i, ProgressListener.NONE);
         }
+        // common practice, no source: (N + 1)(E + 1) entries; malformed residue arrays are refused, not recombined
         assertEquals(plan.entries(), plan.recombine(r).length);
         long[][] tooFew = {r[0]};
         assertThrows(InvalidInputException.class, () -> plan.recombine(tooFew));

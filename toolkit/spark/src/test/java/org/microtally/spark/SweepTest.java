@@ -106,6 +106,7 @@ class SweepTest {
         SweepResult r = Sweep.run(spark, SweepGrid.of(List.of(SpectrumSpec.equallySpaced(3, 1.0)), new int[] {2, 4},
                 new double[] {1.0}, List.of(Statistics.FERMI), List.of(Ensemble.CANONICAL)));
         List<List<Object>> rows = r.rows();
+        // common practice, no source: at most one fermion per state, so 4 fermions on 3 states have no microstate
         assertEquals(2, rows.size());
         assertTrue(rows.get(0).get(column(r, "lnZ")) instanceof Double);
         assertNull(rows.get(1).get(column(r, "lnZ")));
@@ -169,6 +170,7 @@ class SweepTest {
 
     @Test
     void gridsRefuseEmptyAxesAndBadTemperatures() {
+        // common practice, no source: inputs outside the domain are refused with the value named
         assertThrows(InvalidInputException.class, () -> SweepGrid.of(List.of(), new int[] {1}, new double[] {1},
                 List.of(Statistics.BOSE), List.of(Ensemble.CANONICAL)));
         InvalidInputException ex = assertThrows(InvalidInputException.class, () -> SweepGrid.of(
