@@ -37,10 +37,23 @@ public final class Clusters {
         return connect("local[" + threads + "," + maxAttempts + "]", "microtally");
     }
 
-    /** A session on {@code master} (any Spark master URL) named {@code appName}, or the running one. */
+    /**
+     * A session on {@code master} (any Spark master URL) named {@code appName}, or the running one if it has
+     * this master.
+     *
+     * @throws InvalidInputException when this JVM already runs a session on another master (Spark allows
+     *         one context per JVM and would silently hand back the running one)
+     */
     public static SparkSession connect(String master, String appName) {
         Objects.requireNonNull(master, "master");
         Objects.requireNonNull(appName, "appName");
+        scala.Option<SparkSession> running = SparkSession.getDefaultSession();
+        if (running.isDefined() && !running.get().sparkContext().isStopped()
+                && !running.get().sparkContext().master().equals(master)) {
+            throw InvalidInputException.of("Spark master", master,
+                    "the master of the session already running in this JVM, " + running.get().sparkContext().master(),
+                    "Stop that session first (spark.stop()); Spark runs one context per JVM.");
+        }
         SparkSession.Builder b = SparkSession.builder().master(master).appName(appName)
                 .config("spark.ui.enabled", "false")
                 .config("spark.ui.showConsoleProgress", "false")

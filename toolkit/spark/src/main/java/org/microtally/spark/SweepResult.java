@@ -82,10 +82,13 @@ public final class SweepResult implements Tabular {
      */
     @Override
     public List<List<Object>> rows() {
-        return collect(rows, Runtime.getRuntime().maxMemory());
+        return collect(rows.orderBy("point"), Runtime.getRuntime().maxMemory());
     }
 
-    /** The rows of any Dataset (e.g. a {@link #sql} result) as a Tabular, with the same memory check. */
+    /**
+     * The rows of any Dataset (e.g. a {@link #sql} result), in the Dataset's own order, as a Tabular, with the
+     * same memory check as {@link #rows()}.
+     */
     public static Tabular tabular(Dataset<Row> dataset) {
         List<String> names = Arrays.asList(dataset.schema().fieldNames());
         List<List<Object>> data = collect(dataset, Runtime.getRuntime().maxMemory());
@@ -104,9 +107,8 @@ public final class SweepResult implements Tabular {
 
     static List<List<Object>> collect(Dataset<Row> dataset, long maxHeap) {
         Sweep.requireDriverMemory(dataset.count(), maxHeap, "collect it");
-        Dataset<Row> ordered = Arrays.asList(dataset.columns()).contains("point") ? dataset.orderBy("point") : dataset;
         List<List<Object>> out = new ArrayList<>();
-        for (Row r : ordered.collectAsList()) {
+        for (Row r : dataset.collectAsList()) {
             Object[] cells = new Object[r.size()];
             for (int i = 0; i < cells.length; i++) {
                 cells[i] = r.get(i);

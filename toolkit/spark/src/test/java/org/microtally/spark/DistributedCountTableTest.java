@@ -97,6 +97,15 @@ class DistributedCountTableTest {
     }
 
     @Test
+    void aSecondSessionOnAnotherMasterIsRefusedNotSilentlyReplaced() {
+        // common practice, no source: Spark keeps one context per JVM; asking for another master must not
+        // quietly return the running local[2,2] session
+        InvalidInputException ex = assertThrows(InvalidInputException.class, () -> Clusters.local(1));
+        assertTrue(ex.getMessage().contains("local[2,2]"), ex.getMessage());
+        assertEquals(spark, Clusters.localWithRetries(2, 2));
+    }
+
+    @Test
     void refusesBadInputBeforeStartingAnyTask() {
         InvalidInputException ex = assertThrows(InvalidInputException.class, () -> DistributedCountTable.of(spark,
                 Spectra.harmonicOscillator(1, 10), Statistics.BOSE, -1, 10));

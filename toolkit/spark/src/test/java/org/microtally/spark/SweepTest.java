@@ -119,7 +119,7 @@ class SweepTest {
         String pq = dir.resolve("sweep.parquet").toString();
         twoLevel.writeParquet(pq);
         assertTrue(Files.exists(dir.resolve("sweep.parquet/_SUCCESS")));
-        Tabular back = SweepResult.tabular(spark.read().parquet(pq));
+        Tabular back = new SweepResult(spark, spark.read().parquet(pq), twoLevel.size());
         // common practice, no source: a round trip through a file format loses no row and changes no value
         assertEquals(twoLevel.columnNames(), back.columnNames());
         assertEquals(twoLevel.rows(), back.rows());
