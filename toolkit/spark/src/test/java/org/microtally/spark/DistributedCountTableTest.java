@@ -52,6 +52,15 @@ class DistributedCountTableTest {
     }
 
     @Test
+    void degenerateShapesNoParticlesOrNoEnergyMatchTheLocalTable() {
+        Spectrum s = Spectra.harmonicOscillator(3, 5);
+        assertSameAsLocal(s, Statistics.BOSE, 0, 5);
+        assertSameAsLocal(s, Statistics.FERMI, 4, 0);
+        // Source: definition: the empty microstate is the only one with n = 0, so Omega(0, 0) = 1
+        assertEquals(BigInteger.ONE, DistributedCountTable.of(spark, s, Statistics.BOSE, 0, 0).count(0, 0));
+    }
+
+    @Test
     void oneDimensionalOscillatorGivesPartitionNumbers() {
         DistributedCountTable d = DistributedCountTable.of(spark, Spectra.harmonicOscillator(1, 100),
                 Statistics.BOSE, 100, 100);
