@@ -19,8 +19,9 @@ import org.microtally.spectrum.Statistics;
  * {@code spark-submit}; the master, executors and memory come from the submit line. Two jobs, with
  * arguments as {@code key=value} words:
  * <pre>
- *   sweep out=DIR [format=parquet|csv] ratios=4,4,1 cutoff=60 N=500,1000,2000 kT=FROM:TO:COUNT
- *         [statistics=BOSE,FERMI,DISTINGUISHABLE,GENTILE:k] [ensembles=CANONICAL,GRAND_CANONICAL]
+ *   sweep out=DIR [format=parquet|csv] ratios=4,4,1 cutoff=60 [cutoff-per-kT=15] N=500,1000,2000
+ *         kT=FROM:TO:COUNT [statistics=BOSE,FERMI,DISTINGUISHABLE,GENTILE:k] [ensembles=CANONICAL,GRAND_CANONICAL]
+ *         (with cutoff-per-kT the cutoff is max(cutoff, ceil(cutoff-per-kT * kT)) at each point)
  *   count-table ratios=1,1,1 cutoff=600 N=100 E=600 [statistics=BOSE] [check-local=true]
  * </pre>
  * Progress (finished tasks) goes to stderr; the result summary to stdout; exit code 1 on a failed
@@ -31,7 +32,7 @@ public final class SparkJob {
 
     public static void main(String[] args) {
         if (args.length == 0) {
-            System.err.println("usage: sweep out=DIR ratios=A,B,C cutoff=Q N=n1,n2 kT=FROM:TO:COUNT [format=parquet|csv]"
+            System.err.println("usage: sweep out=DIR ratios=A,B,C cutoff=Q [cutoff-per-kT=C] N=n1,n2 kT=FROM:TO:COUNT [format=parquet|csv]"
                     + " [statistics=...] [ensembles=...]\n       count-table ratios=A,B,C cutoff=Q N=n E=e"
                     + " [statistics=BOSE] [check-local=true]");
             System.exit(2);
@@ -59,7 +60,12 @@ public final class SparkJob {
     }
 
     static int sweep(SparkSession spark, Map<String, String> kv) {
-        SweepGrid grid = SweepGrid.of(List.of(SpectrumSpec.oscillator(ints(req(kv, "ratios")), Integer.parseInt(req(kv, "cutoff")))),
+        int[] ratios = ints(req(kv, "ratios"));
+        int cutoff = Integer.parseInt(req(kv, "cutoff"));
+        SpectrumSpec trap = kv.containsKey("cutoff-per-kT")
+                ? SpectrumSpec.oscillatorFollowingKT(ratios, cutoff, Double.parseDouble(kv.get("cutoff-per-kT")))
+                : SpectrumSpec.oscillator(ratios, cutoff);
+        SweepGrid grid = SweepGrid.of(List.of(trap),
                 ints(req(kv, "N")), range(req(kv, "kT")), statistics(kv.getOrDefault("statistics", "BOSE")),
                 ensembles(kv.getOrDefault("ensembles", "CANONICAL")));
         long t0 = System.nanoTime();

@@ -139,7 +139,7 @@ public final class Sweep {
 
     /** One grid point's row, computed where the task runs. */
     static Row evaluate(SweepPoint p) {
-        Spectrum s = p.spectrum().build();
+        Spectrum s = p.spectrum().build(p.kT());
         Object[] head = {p.id(), p.spectrum().toString(), s.stateCount(), p.particles(), p.kT(),
             p.statistics().toString(), p.ensemble().name()};
         Double lnZ;

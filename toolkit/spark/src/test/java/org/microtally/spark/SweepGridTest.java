@@ -41,9 +41,23 @@ class SweepGridTest {
     void spectrumSpecsBuildTheirBuildersSpectrumAndDescribeThemselves() {
         SpectrumSpec trap = SpectrumSpec.oscillator(new int[] {4, 4, 1}, 12);
         // common practice, no source: the spec is the builder's arguments, so it builds the same spectrum
-        assertEquals(org.microtally.spectrum.Spectra.harmonicOscillator(new int[] {4, 4, 1}, 12), trap.build());
+        assertEquals(org.microtally.spectrum.Spectra.harmonicOscillator(new int[] {4, 4, 1}, 12), trap.build(1.0));
         assertEquals("oscillator 4:4:1 cutoff 12", trap.toString());
         assertThrows(InvalidInputException.class, () -> SpectrumSpec.oscillator(new int[] {0, 1}, 5));
         assertThrows(InvalidInputException.class, () -> SpectrumSpec.equallySpaced(3, Double.POSITIVE_INFINITY));
+    }
+
+    @Test
+    void aCutoffFollowingKTKeepsItsMinimumAndGrowsWithTheTemperature() {
+        SpectrumSpec trap = SpectrumSpec.oscillatorFollowingKT(new int[] {4, 4, 1}, 20, 15);
+        // common practice, no source: cutoff = max(minimum, ceil(15 kT))
+        assertEquals(20, trap.cutoffAt(1.0));
+        assertEquals(61, trap.cutoffAt(4.01));
+        assertEquals("oscillator 4:4:1 cutoff max(20, 15.0 kT)", trap.toString());
+        // the sweep row's state count is that of the builder's spectrum at this point's cutoff
+        SweepPoint p = new SweepPoint(0, trap, 10, 4.01, Statistics.BOSE, Ensemble.GRAND_CANONICAL);
+        assertEquals(org.microtally.spectrum.Spectra.harmonicOscillator(new int[] {4, 4, 1}, 61).stateCount(),
+                Sweep.evaluate(p).getLong(2));
+        assertThrows(InvalidInputException.class, () -> SpectrumSpec.oscillatorFollowingKT(new int[] {1}, 5, 0));
     }
 }
