@@ -23,9 +23,10 @@ public final class Main {
             "  run NOTEBOOK... [--out DIR] [--keep-going] [--cell-timeout SECONDS]",
             "        execute each notebook in a fresh session (no Python needed), write DIR/NAME.ipynb (executed)",
             "        and DIR/NAME.html (default DIR: ./microtally-out); exit 1 naming the first failing cell",
-            "  install-kernel [--user | --prefix DIR | --sys-prefix]",
+            "  install-kernel [--user | --prefix DIR | --sys-prefix] [--with-spark]",
             "        install the Jupyter kernelspec 'microtally' (default --user); uses 'jupyter kernelspec install'",
-            "        when jupyter is on the PATH, else writes the kernelspec directory itself",
+            "        when jupyter is on the PATH, else writes the kernelspec directory itself; --with-spark also",
+            "        installs 'microtally-spark', the kernel with the Spark module on its class path",
             "  kernel CONNECTION_FILE",
             "        run the Jupyter kernel (Jupyter starts this itself through the kernelspec)",
             "  --help       this text",
@@ -127,9 +128,12 @@ public final class Main {
         KernelSpec.Scope scope = KernelSpec.Scope.USER;
         Path prefix = null;
         int chosen = 0;
+        boolean withSpark = false;
         for (int i = 0; i < args.size(); i++) {
             String a = args.get(i);
-            if (a.equals("--user")) {
+            if (a.equals(SparkKernelSpec.OPTION)) {
+                withSpark = true;
+            } else if (a.equals("--user")) {
                 scope = KernelSpec.Scope.USER;
                 chosen++;
             } else if (a.equals("--sys-prefix")) {
@@ -145,7 +149,7 @@ public final class Main {
                 prefix = Path.of(value);
                 chosen++;
             } else {
-                throw new UsageException("install-kernel: unknown option '" + a + "'; allowed: --user, --prefix DIR, --sys-prefix");
+                throw new UsageException("install-kernel: unknown option '" + a + "'; allowed: --user, --prefix DIR, --sys-prefix, --with-spark");
             }
         }
         if (chosen > 1) {
@@ -159,6 +163,9 @@ public final class Main {
         }
         try {
             KernelSpec.install(scope, prefix, jar.get(), out);
+            if (withSpark) {
+                SparkKernelSpec.install(scope, prefix, jar.get(), out);
+            }
             return 0;
         } catch (IOException | IllegalStateException e) {
             err.println("microtally: install-kernel failed: " + e.getMessage());

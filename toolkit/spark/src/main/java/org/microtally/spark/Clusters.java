@@ -1,0 +1,74 @@
+package org.microtally.spark;
+
+import java.util.Objects;
+import org.apache.spark.sql.SparkSession;
+import org.microtally.InvalidInputException;
+
+/**
+ * Spark sessions with the toolkit's defaults: no web UI, few shuffle partitions (results here are
+ * small), the driver bound to the loopback address in local mode, and Spark's own log level at WARN.
+ *
+ * <p>{@link #local(int)} is the embedded default (no cluster needed); {@link #connect(String, String)}
+ * takes any master URL ({@code local[*]}, {@code spark://host:7077}, {@code yarn}, ...). When the code
+ * runs under {@code spark-submit} the master comes from the submit line and {@link #submitted(String)}
+ * takes the session Spark already configured.
+ */
+public final class Clusters {
+    private Clusters() { }
+
+    /** A local session with {@code threads} worker threads ({@code local[threads]}). */
+    public static SparkSession local(int threads) {
+        if (threads < 1 || threads > 1024) {
+            throw InvalidInputException.of("local worker threads", threads, "in [1, 1024]",
+                    "Use Clusters.connect(\"local[*]\", name) for one thread per core.");
+        }
+        return connect("local[" + threads + "]", "microtally");
+    }
+
+    /**
+     * A local session in which every task may be attempted {@code maxAttempts} times before the job
+     * fails ({@code local[threads,maxAttempts]}); plain {@code local[n]} never retries.
+     */
+    public static SparkSession localWithRetries(int threads, int maxAttempts) {
+        if (threads < 1 || maxAttempts < 1) {
+            throw InvalidInputException.of("local threads and attempts", threads + ", " + maxAttempts,
+                    "both >= 1", "");
+        }
+        return connect("local[" + threads + "," + maxAttempts + "]", "microtally");
+    }
+
+    /**
+     * A session on {@code master} (any Spark master URL) named {@code appName}, or the running one if it has
+     * this master.
+     *
+     * @throws InvalidInputException when this JVM already runs a session on another master (Spark allows
+     *         one context per JVM and would silently hand back the running one)
+     */
+    public static SparkSession connect(String master, String appName) {
+        Objects.requireNonNull(master, "master");
+        Objects.requireNonNull(appName, "appName");
+        scala.Option<SparkSession> running = SparkSession.getDefaultSession();
+        if (running.isDefined() && !running.get().sparkContext().isStopped()
+                && !running.get().sparkContext().master().equals(master)) {
+            throw InvalidInputException.of("Spark master", master,
+                    "the master of the session already running in this JVM, " + running.get().sparkContext().master(),
+                    "Stop that session first (spark.stop()); Spark runs one context per JVM.");
+        }
+        SparkSession.Builder b = SparkSession.builder().master(master).appName(appName)
+                .config("spark.ui.enabled", "false")
+                .config("spark.ui.showConsoleProgress", "false")
+                .config("spark.sql.shuffle.partitions", "4")
+                .config("spark.sql.adaptive.enabled", "false");
+        if (master.startsWith("local")) {
+            b = b.config("spark.driver.host", "127.0.0.1").config("spark.driver.bindAddress", "127.0.0.1");
+        }
+        SparkSession s = b.getOrCreate();
+        s.sparkContext().setLogLevel("WARN");
+        return s;
+    }
+
+    /** The session configured by {@code spark-submit} (master and resources from the submit line). */
+    public static SparkSession submitted(String appName) {
+        return SparkSession.builder().appName(Objects.requireNonNull(appName, "appName")).getOrCreate();
+    }
+}

@@ -1,0 +1,152 @@
+package org.microtally.spark;
+
+import java.math.BigInteger;
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.stream.IntStream;
+import org.apache.spark.TaskContext;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.sql.SparkSession;
+import org.microtally.InvalidInputException;
+import org.microtally.ProgressListener;
+import org.microtally.count.CountTable;
+import org.microtally.count.PrimePlan;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+import scala.Tuple2;
+
+/**
+ * The exact table Omega(n, e) of {@link CountTable} computed on Spark: one task per prime of the
+ * multi-modular method, Chinese remaindering on the driver. Immutable.
+ *
+ * <p><b>Method.</b> {@link PrimePlan} fixes the primes from the proven bound on every entry and adds
+ * one redundant prime; each Spark task computes the whole table modulo its prime by the same
+ * recursion {@link CountTable} uses (the class notes there give the formula and cost); the driver
+ * collects the residues, reconstructs every entry by Garner's algorithm (Knuth, TAOCP Vol. 2,
+ * Sec. 4.3.2) and checks it modulo the redundant prime. A task that fails is retried by Spark (up to
+ * {@code spark.task.maxFailures} attempts, or the {@code local[n,attempts]} form); a task that returns
+ * a wrong residue makes the check fail and the table is refused with an {@link IllegalStateException}.
+ *
+ * <p><b>Accuracy.</b> Exact, entry by entry identical to {@link CountTable#of} (tested by comparing
+ * every entry). Cost: the {@link CountTable} work per prime spread over the executors, plus shipping
+ * 8 (N+1)(E+1) bytes per prime to the driver and the driver's reconstruction.
+ */
+public final class DistributedCountTable implements CountGrid {
+    /** Redundant primes added to every plan for the consistency check. */
+    public static final int REDUNDANT_PRIMES = 1;
+
+    private final Statistics statistics;
+    private final int maxN;
+    private final int maxE;
+    private final BigInteger[] counts;
+    private final int requiredPrimes;
+    private final int redundantPrimes;
+
+    private DistributedCountTable(PrimePlan plan, BigInteger[] counts) {
+        this.statistics = plan.statistics();
+        this.maxN = plan.maxParticles();
+        this.maxE = plan.maxEnergy();
+        this.counts = counts;
+        this.requiredPrimes = plan.requiredPrimes();
+        this.redundantPrimes = plan.redundantPrimes();
+    }
+
+    /** As {@link #of(SparkSession, Spectrum, Statistics, int, int, ProgressListener)} without progress. */
+    public static DistributedCountTable of(SparkSession spark, Spectrum spectrum, Statistics statistics,
+                                           int maxParticles, int maxEnergy) {
+        return of(spark, spectrum, statistics, maxParticles, maxEnergy, ProgressListener.NONE);
+    }
+
+    /**
+     * Computes Omega(n, e) for n &lt;= maxParticles, e &lt;= maxEnergy on {@code spark}, reporting the
+     * finished prime tasks (stage {@code "primes"}) through {@code progress}.
+     *
+     * @throws InvalidInputException as {@link CountTable#of}
+     * @throws IllegalStateException when a task's residues fail the redundant-prime check
+     * @throws org.apache.spark.SparkException when a task fails more often than Spark allows
+     */
+    public static DistributedCountTable of(SparkSession spark, Spectrum spectrum, Statistics statistics,
+                                           int maxParticles, int maxEnergy, ProgressListener progress) {
+        return compute(spark, PrimePlan.of(spectrum, statistics, maxParticles, maxEnergy, REDUNDANT_PRIMES),
+                progress, TaskFault.NONE);
+    }
+
+    static DistributedCountTable compute(SparkSession spark, PrimePlan plan, ProgressListener progress,
+                                         TaskFault fault) {
+        Objects.requireNonNull(spark, "spark");
+        JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
+        int k = plan.primeCount();
+        List<Integer> tasks = IntStream.range(0, k).boxed().toList();
+        List<Tuple2<Integer, long[]>> parts = SparkProgress.run(spark.sparkContext(), progress, k, "primes",
+                () -> jsc.parallelize(tasks, k).map(i -> {
+                    long[] r = plan.residues(i, ProgressListener.NONE);
+                    TaskContext tc = TaskContext.get();
+                    return new Tuple2<>(i, fault.apply(i, tc == null ? 0 : tc.attemptNumber(), r));
+                }).collect());
+        long[][] residues = new long[k][];
+        for (Tuple2<Integer, long[]> p : parts) {
+            residues[p._1()] = p._2();
+        }
+        return new DistributedCountTable(plan, plan.recombine(residues));
+    }
+
+    /** Omega(n, e). */
+    @Override
+    public BigInteger count(int n, int e) {
+        return counts[CountGrid.cellIndex(n, e, maxN, maxE)];
+    }
+
+    /**
+     * The first entry where this table and {@code local} differ, as a sentence, or empty when they have
+     * the same statistics, shape and every entry equal.
+     */
+    public Optional<String> firstDifference(CountTable local) {
+        Objects.requireNonNull(local, "local");
+        if (!local.statistics().equals(statistics)) {
+            return Optional.of("statistics differ: distributed " + statistics + ", local " + local.statistics());
+        }
+        return firstDifference(CountGrid.of(local));
+    }
+
+    /** The row Omega(n, 0..E). */
+    public List<BigInteger> row(int n) {
+        count(n, 0);
+        return Collections.unmodifiableList(Arrays.asList(Arrays.copyOfRange(counts, n * (maxE + 1), (n + 1) * (maxE + 1))));
+    }
+
+    /** Primes whose product the bound proves exceeds every entry (one Spark task each). */
+    public int requiredPrimes() {
+        return requiredPrimes;
+    }
+
+    /** Extra primes (one Spark task each) that verified the reconstruction. */
+    public int redundantPrimes() {
+        return redundantPrimes;
+    }
+
+    /** N. */
+    @Override
+    public int maxParticles() {
+        return maxN;
+    }
+
+    /** E. */
+    @Override
+    public int maxEnergy() {
+        return maxE;
+    }
+
+    /** The statistics counted. */
+    public Statistics statistics() {
+        return statistics;
+    }
+
+    @Override
+    public String toString() {
+        return "DistributedCountTable[" + statistics + ", N = " + maxN + ", E = " + maxE + ", "
+                + requiredPrimes + " + " + redundantPrimes + " primes]";
+    }
+}

@@ -1,0 +1,9 @@
+package org.microtally.spark;
+
+/** Which ensemble a sweep point runs. */
+public enum Ensemble {
+    /** {@link org.microtally.ensemble.Canonical}: exactly N particles. */
+    CANONICAL,
+    /** {@link org.microtally.ensemble.GrandCanonical#atMeanNumber}: mean particle number N. */
+    GRAND_CANONICAL
+}

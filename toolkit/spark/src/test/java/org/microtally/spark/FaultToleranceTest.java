@@ -1,0 +1,94 @@
+package org.microtally.spark;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.Optional;
+import org.apache.spark.sql.SparkSession;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.microtally.InvalidInputException;
+import org.microtally.ProgressListener;
+import org.microtally.count.CountTable;
+import org.microtally.count.PrimePlan;
+import org.microtally.spectrum.Spectra;
+import org.microtally.spectrum.Spectrum;
+import org.microtally.spectrum.Statistics;
+
+class FaultToleranceTest {
+    private static SparkSession spark;
+    private static final Spectrum SPECTRUM = Spectra.harmonicOscillator(3, 40);
+
+    @BeforeAll
+    static void start() {
+        spark = SharedSpark.get();
+    }
+
+    private static PrimePlan plan() {
+        return PrimePlan.of(SPECTRUM, Statistics.BOSE, 24, 40, 1);
+    }
+
+    @Test
+    void aTaskThatThrowsOnItsFirstAttemptIsRetriedAndTheTableIsUnchanged() {
+        PrimePlan plan = plan();
+        // every task fails its first attempt; with local[2,2] the job only completes if Spark retried each
+        TaskFault firstAttemptFails = (task, attempt, result) -> {
+            if (attempt == 0) {
+                throw new IllegalStateException("injected failure of task " + task + ", attempt 0");
+            }
+            return result;
+        };
+        DistributedCountTable d = DistributedCountTable.compute(spark, plan, ProgressListener.NONE, firstAttemptFails);
+        // Source: independent computation, the local CountTable (every entry compared)
+        Optional<String> diff = d.firstDifference(CountTable.of(SPECTRUM, Statistics.BOSE, 24, 40));
+        assertTrue(diff.isEmpty(), () -> diff.get());
+    }
+
+    @Test
+    void aCorruptedRequiredResidueIsDetectedByTheRedundantPrime() {
+        PrimePlan plan = plan();
+        int entry = 20 * 41 + 33;
+        TaskFault corruptFirstPrime = (task, attempt, result) -> {
+            if (task == 0) {
+                result[entry] = (result[entry] + 1) % plan.prime(0);
+            }
+            return result;
+        };
+        IllegalStateException ex = assertThrows(IllegalStateException.class,
+                () -> DistributedCountTable.compute(spark, plan, ProgressListener.NONE, corruptFirstPrime));
+        // common practice, no source: the message names the entry that failed the check
+        assertTrue(ex.getMessage().contains("Omega(20, 33)"), ex.getMessage());
+    }
+
+    @Test
+    void aCorruptedRedundantResidueIsDetectedToo() {
+        PrimePlan plan = plan();
+        int last = plan.primeCount() - 1;
+        TaskFault corruptRedundant = (task, attempt, result) -> {
+            if (task == last) {
+                result[5] = (result[5] + 7) % plan.prime(last);
+            }
+            return result;
+        };
+        assertThrows(IllegalStateException.class,
+                () -> DistributedCountTable.compute(spark, plan, ProgressListener.NONE, corruptRedundant));
+        // (common practice, no source: a wrong redundant residue disagrees with the correct reconstruction)
+    }
+
+    @Test
+    void recombineRefusesResiduesOutOfRangeOrOfTheWrongShape() {
+        PrimePlan plan = PrimePlan.of(Spectra.harmonicOscillator(1, 10), Statistics.BOSE, 5, 10, 1);
+        long[][] r = new long[plan.primeCount()][];
+        for (int i = 0; i < r.length; i++) {
+            r[i] = plan.residues(i, ProgressListener.NONE);
+        }
+        // common practice, no source: (N + 1)(E + 1) entries; malformed residue arrays are refused, not recombined
+        assertEquals(plan.entries(), plan.recombine(r).length);
+        long[][] tooFew = {r[0]};
+        assertThrows(InvalidInputException.class, () -> plan.recombine(tooFew));
+        r[0] = r[0].clone();
+        r[0][3] = -1;
+        assertThrows(InvalidInputException.class, () -> plan.recombine(r));
+    }
+}
