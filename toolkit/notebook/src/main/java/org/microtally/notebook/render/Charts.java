@@ -8,14 +8,10 @@ import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.math.BigInteger;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Base64;
 import java.util.List;
 import java.util.Objects;
-import de.erichseifert.vectorgraphics2d.VectorGraphics2D;
-import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
-import de.erichseifert.vectorgraphics2d.util.PageSize;
 import javax.imageio.ImageIO;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
@@ -25,7 +21,6 @@ import org.microtally.count.MacrostateHistogram;
 import org.microtally.count.SharedTotal;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
-import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.CategoryChart;
 import org.knowm.xchart.CategoryChartBuilder;
 import org.knowm.xchart.XYChart;
@@ -62,10 +57,6 @@ public final class Charts {
 
     private static final Color INK = new Color(0x23343a);
     private static final Color GRID = new Color(0xe1e8ea);
-
-    static {
-        DisplayEnvironment.prepare();
-    }
 
     private Charts() { }
 
@@ -307,59 +298,74 @@ public final class Charts {
         return chart;
     }
 
-    /** The chart drawn as PNG at its own width and height (headless, off-screen, antialiased by XChart). */
-    public static byte[] png(Chart<?, ?> chart) {
-        DisplayEnvironment.prepare();
-        return encodePng(BitmapEncoder.getBufferedImage(chart));
-    }
-
     /**
-     * The chart drawn as an SVG document (UTF-8 XML text) at its own width and height: the chart
-     * paints itself onto a VectorGraphics2D canvas, whose SVG processor writes the document (text is
-     * drawn as outlines, so no markup from titles or names can reach the SVG).
+     * The chart drawn as PNG at twice its width and height (for high-resolution screens and print;
+     * shown at its own size by {@link #asPng}), headless and off-screen, by XChart's own Java2D
+     * painter in our style. Charts are shown as SVG by default ({@link #bundle}); PNG is on request.
      */
-    public static String svg(Chart<?, ?> chart) {
-        DisplayEnvironment.prepare();
-        VectorGraphics2D g = new VectorGraphics2D();
-        chart.paint(g, chart.getWidth(), chart.getHeight());
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
+    public static byte[] png(Chart<?, ?> chart) {
+        BufferedImage image = new BufferedImage(2 * chart.getWidth(), 2 * chart.getHeight(), BufferedImage.TYPE_INT_RGB);
+        java.awt.Graphics2D g = image.createGraphics();
         try {
-            new SVGProcessor().getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth(), chart.getHeight()))
-                    .writeTo(out);
-        } catch (IOException e) {
-            throw new UncheckedIOException("could not encode the chart as SVG", e);
+            g.scale(2, 2);
+            chart.paint(g, chart.getWidth(), chart.getHeight());
         } finally {
             g.dispose();
         }
-        return out.toString(StandardCharsets.UTF_8);
-    }
-
-    /** A display bundle for the chart: image/png (base64), image/svg+xml and a one-line text/plain. */
-    public static MimeBundle bundle(Chart<?, ?> chart) {
-        return MimeBundle.builder(describe(chart))
-                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(chart)))
-                .put(MimeBundle.IMAGE_SVG, svg(chart))
-                .build();
+        return encodePng(image);
     }
 
     /**
-     * A table bundle with charts under it: the HTML shows the table and then each chart as an
-     * embedded PNG ({@code <img class="mt-chart" src="data:image/png;base64,...">}); the plain text
-     * is the table text followed by each chart's one-line description. Other representations of
-     * {@code table} are kept.
+     * The chart as one bare SVG element (no XML declaration or DOCTYPE), drawn by our own writer:
+     * one path per series, coordinates on a tenth-pixel grid, thinned markers, real text. See
+     * {@link SvgChart} for the method. The same element can be placed inline in HTML.
+     */
+    public static String svg(Chart<?, ?> chart) {
+        return SvgChart.of(chart);
+    }
+
+    /**
+     * The display of a chart: {@code text/html} holding the SVG inline (in
+     * {@code <figure class="mt-figure">}) and a one-line {@code text/plain}. One picture format per
+     * output: inline SVG in HTML is what Jupyter's notebook, its lab interface and its HTML exporter
+     * all show as is (an {@code image/svg+xml} output is passed through an HTML cleaner by the
+     * exporter, which drops every drawing element). For a bitmap use {@link #asPng}.
+     */
+    public static MimeBundle bundle(Chart<?, ?> chart) {
+        return MimeBundle.builder(describe(chart)).put(MimeBundle.TEXT_HTML, figure(chart)).build();
+    }
+
+    /**
+     * The chart as a PNG display, on request: {@code text/html} with an {@code <img>} of the 2x bitmap
+     * shown at the chart's own size, and {@code image/png} for tools that want the bitmap itself.
+     */
+    public static MimeBundle asPng(Chart<?, ?> chart) {
+        String b64 = Base64.getEncoder().encodeToString(png(chart));
+        return MimeBundle.builder(describe(chart))
+                .put(MimeBundle.TEXT_HTML, "<figure class=\"mt-figure\"><img alt=\"" + Markup.escape(describe(chart))
+                        + "\" width=\"" + chart.getWidth() + "\" height=\"" + chart.getHeight()
+                        + "\" src=\"data:image/png;base64," + b64 + "\"/></figure>")
+                .put(MimeBundle.IMAGE_PNG, b64)
+                .build();
+    }
+
+    private static String figure(Chart<?, ?> chart) {
+        return "<figure class=\"mt-figure\" style=\"margin:0.4em 0\">" + svg(chart) + "</figure>";
+    }
+
+    /**
+     * A table bundle with charts under it: the HTML shows the table and then each chart as inline
+     * SVG ({@link #bundle}); the plain text is the table text followed by each chart's one-line
+     * description. Other representations of {@code table} are kept.
      */
     public static MimeBundle combine(MimeBundle table, Chart<?, ?>... charts) {
         StringBuilder plain = new StringBuilder(table.plain());
         String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
-                : "<pre>" + Html.escape(table.plain()) + "</pre>";
+                : "<pre>" + Markup.escape(table.plain()) + "</pre>";
         StringBuilder figures = new StringBuilder(html);
         for (Chart<?, ?> chart : charts) {
-            String description = describe(chart);
-            plain.append('\n').append(description);
-            figures.append("<div class=\"mt-chart\"><img alt=\"").append(Html.escape(description))
-                    .append("\" width=\"").append(chart.getWidth()).append("\" height=\"").append(chart.getHeight())
-                    .append("\" src=\"data:image/png;base64,").append(Base64.getEncoder().encodeToString(png(chart)))
-                    .append("\"/></div>");
+            plain.append('\n').append(describe(chart));
+            figures.append(figure(chart));
         }
         MimeBundle.Builder b = MimeBundle.builder(plain.toString());
         for (var e : table.data().entrySet()) {
@@ -378,7 +384,6 @@ public final class Charts {
     }
 
     private static byte[] encodePng(BufferedImage image) {
-        DisplayEnvironment.prepare();
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try {
             if (!ImageIO.write(image, "png", out)) {

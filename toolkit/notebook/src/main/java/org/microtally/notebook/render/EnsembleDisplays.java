@@ -19,18 +19,18 @@ import org.microtally.spectrum.Statistics;
 final class EnsembleDisplays {
     private EnsembleDisplays() { }
 
-    static void registerAll() {
-        Renderers.register(Canonical.class, EnsembleDisplays::canonical);
-        Renderers.register(GrandCanonical.class, EnsembleDisplays::grandCanonical);
-        Renderers.register(Microcanonical.class, EnsembleDisplays::microcanonical);
-        Renderers.register(EnsembleComparison.class, EnsembleDisplays::comparison);
-        Renderers.register(EnsembleComparison.ConvergenceSweep.class, EnsembleDisplays::convergence);
-        Renderers.register(LevelOccupations.class, o -> Charts.combine(
+    static void registerAll(Renderers r) {
+        r.put(Canonical.class, EnsembleDisplays::canonical);
+        r.put(GrandCanonical.class, EnsembleDisplays::grandCanonical);
+        r.put(Microcanonical.class, EnsembleDisplays::microcanonical);
+        r.put(EnsembleComparison.class, EnsembleDisplays::comparison);
+        r.put(EnsembleComparison.ConvergenceSweep.class, EnsembleDisplays::convergence);
+        r.put(LevelOccupations.class, o -> Charts.combine(
                 TableDisplay.bundle(o, String.format("Mean occupations of %d levels, %s particles in all", o.size(),
                         CellText.floating(o.total(), 8)), List.of()),
                 Charts.occupations(java.util.Map.of("<n> per state", o))));
-        Renderers.register(CondensateDistribution.class, EnsembleDisplays::condensate);
-        Renderers.register(GroundState.class, EnsembleDisplays::groundState);
+        r.put(CondensateDistribution.class, EnsembleDisplays::condensate);
+        r.put(GroundState.class, EnsembleDisplays::groundState);
     }
 
     static MimeBundle canonical(Canonical c) {

@@ -25,12 +25,12 @@ final class ResultDisplays {
 
     private ResultDisplays() { }
 
-    static void registerAll() {
-        Renderers.register(CountTable.class, ResultDisplays::countTable);
-        Renderers.register(LabelledCountTable.class, ResultDisplays::labelledCountTable);
-        Renderers.register(MacrostateHistogram.class, ResultDisplays::histogram);
-        Renderers.register(SharedTotal.class, ResultDisplays::sharedTotal);
-        Renderers.register(ReferenceTable.class, ResultDisplays::referenceTable);
+    static void registerAll(Renderers r) {
+        r.put(CountTable.class, ResultDisplays::countTable);
+        r.put(LabelledCountTable.class, ResultDisplays::labelledCountTable);
+        r.put(MacrostateHistogram.class, ResultDisplays::histogram);
+        r.put(SharedTotal.class, ResultDisplays::sharedTotal);
+        r.put(ReferenceTable.class, ResultDisplays::referenceTable);
     }
 
     // ---- count tables

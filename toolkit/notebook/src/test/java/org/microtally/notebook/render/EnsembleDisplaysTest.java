@@ -74,7 +74,7 @@ class EnsembleDisplaysTest {
         MimeBundle b = Renderers.render(m);
         assertTrue(b.plain().startsWith("Microcanonical ensemble: N = 20, E <= 40 (DISTINGUISHABLE)"), b.plain());
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(1, d.getElementsByTagName("img").getLength());
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
         XYChart chart = Charts.line(m, "E", "S_B", "S_G");
         XYSeries sb = chart.getSeries("S_B");
         for (int i = 0; i < sb.getXData().length; i++) {
@@ -91,7 +91,7 @@ class EnsembleDisplaysTest {
         EnsembleComparison c = EnsembleComparison.overTemperatures(trap, Statistics.BOSE, 50, 1.0, 2.0, 3.0);
         MimeBundle b = Renderers.render(c);
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(2, d.getElementsByTagName("img").getLength());
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
         XYChart u = Charts.grouped(c, "ensemble", "kT", "U");
         assertEquals(List.of("canonical", "grand canonical"),
                 u.getSeriesCollection().stream().map(XYSeries::getName).toList());
@@ -138,6 +138,6 @@ class EnsembleDisplaysTest {
         MimeBundle b = Renderers.render(c.condensate());
         assertTrue(b.plain().startsWith("Ground-level number distribution: <N_0> = "
                 + CellText.floating(c.condensate().mean(), 8)), b.plain());
-        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<img"));
+        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<svg"));
     }
 }

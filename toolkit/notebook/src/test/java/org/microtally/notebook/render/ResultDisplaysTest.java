@@ -66,7 +66,7 @@ class ResultDisplaysTest {
                     : CellText.shown(binomial(30 + ns[k] - 1, 30), ResultDisplays.GRID_FORMAT);
             assertEquals(expected, row.get(k + 1), "n = " + ns[k]);
         }
-        assertEquals(1, d.getElementsByTagName("img").getLength());
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
         assertTrue(b.plain().contains("Closed form: Omega(n, E) = C(E + n - 1, E)"), b.plain());
         assertTrue(b.plain().endsWith("series n = 50, n = 100, n = 150, n = 200"), b.plain());
     }
@@ -151,7 +151,7 @@ class ResultDisplaysTest {
             assertEquals(expected, p.getYData()[qa], 1e-15);
         }
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(1, d.getElementsByTagName("img").getLength());
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
     }
 
     @Test
@@ -196,7 +196,7 @@ class ResultDisplaysTest {
         assertEquals(List.of("fugacity", "condensate fraction", "C/(N k)"), ys);
         MimeBundle b = Renderers.render(sweep);
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(1, d.getElementsByTagName("img").getLength());
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
         // Source: closed form for a harmonic trap, condensate fraction 1 - (T/Tc)^3 below Tc: 1 - 0.125 = 0.875
         assertEquals("0.875", rowStartingWith(d, CellText.shown(0.5 * tc, TableFormat.DEFAULT)).get(3));
     }
