@@ -58,7 +58,38 @@ public final class Charts {
     private static final Color INK = new Color(0x23343a);
     private static final Color GRID = new Color(0xe1e8ea);
 
+    private static final java.util.Map<Chart<?, ?>, double[]> X_TICKS =
+            java.util.Collections.synchronizedMap(new java.util.WeakHashMap<>());
+
     private Charts() { }
+
+    /**
+     * Puts the x-axis ticks of {@code chart} at the given positions (for example the shell closings
+     * 2, 6, 12, 20, 30, 42) instead of round numbers; returns the chart. Used by the SVG writer.
+     *
+     * @throws InvalidInputException unless 1 to 20 finite, strictly increasing positions are given
+     */
+    public static <C extends Chart<?, ?>> C xTicks(C chart, double... positions) {
+        Objects.requireNonNull(chart, "chart");
+        if (positions == null || positions.length < 1 || positions.length > 20) {
+            throw InvalidInputException.of("number of tick positions", positions == null ? 0 : positions.length,
+                    "1 to 20", "Give the positions in increasing order.");
+        }
+        for (int i = 0; i < positions.length; i++) {
+            if (!Double.isFinite(positions[i]) || (i > 0 && positions[i] <= positions[i - 1])) {
+                throw InvalidInputException.of("tick position " + i, positions[i],
+                        "finite and greater than the one before", "Give the positions in increasing order.");
+            }
+        }
+        X_TICKS.put(chart, positions.clone());
+        return chart;
+    }
+
+    /** The positions set by {@link #xTicks}, or null. */
+    static double[] xTicksOf(Chart<?, ?> chart) {
+        double[] t = X_TICKS.get(chart);
+        return t == null ? null : t.clone();
+    }
 
     /** Lines with small markers, one series per y column, against the x column. */
     public static XYChart line(Tabular table, String xColumn, String... yColumns) {
@@ -144,123 +175,6 @@ public final class Charts {
         chart.getStyler().setOverlapped(false);
         chart.getStyler().setLegendVisible(valueColumns.length > 1);
         chart.getStyler().setXAxisLabelRotation(xsRotation(table.rows().size()));
-        return chart;
-    }
-
-    /**
-     * The spectrum as a stick chart: one vertical line per level from 0 up to its degeneracy, at its
-     * energy; the x axis is titled with the spectrum's energy unit.
-     */
-    public static XYChart spectrum(Spectrum spectrum) {
-        Objects.requireNonNull(spectrum, "spectrum");
-        int n = spectrum.size();
-        double[] xs = new double[3 * n];
-        double[] ys = new double[3 * n];
-        for (int i = 0; i < n; i++) {
-            double e = spectrum.energy(i);
-            xs[3 * i] = e;
-            xs[3 * i + 1] = e;
-            xs[3 * i + 2] = e;
-            ys[3 * i + 1] = spectrum.degeneracy(i);
-        }
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .xAxisTitle("energy [" + spectrum.scale().name() + "]").yAxisTitle("degeneracy").build();
-        XYSeries s = chart.addSeries("levels", xs, ys);
-        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
-        s.setMarker(SeriesMarkers.NONE);
-        style(chart);
-        chart.getStyler().setLegendVisible(false);
-        chart.getStyler().setYAxisMin(0.0);
-        return chart;
-    }
-
-    /**
-     * ln Omega(n, E) against E for the given particle numbers (default: up to four evenly spaced n
-     * ending at N), one series per n; empty macrostates (Omega = 0) are left out. ln Omega is
-     * computed by the table from the exact integer ({@link CountTable#lnCount}).
-     */
-    public static XYChart counts(CountTable table, int... particleNumbers) {
-        Objects.requireNonNull(table, "table");
-        int[] ns = particleNumbers.length > 0 ? particleNumbers : defaultParticleNumbers(table.maxParticles());
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .xAxisTitle("E [" + table.spectrum().scale().name() + "]").yAxisTitle("ln Omega").build();
-        for (int n : ns) {
-            if (n < 0 || n > table.maxParticles()) {
-                throw InvalidInputException.of("particle number to plot", n, "in [0, " + table.maxParticles() + "]", "");
-            }
-            List<Double> xs = new ArrayList<>();
-            List<Double> ys = new ArrayList<>();
-            for (int e = 0; e <= table.maxEnergy(); e++) {
-                if (!table.isZero(n, e)) {
-                    xs.add((double) e);
-                    ys.add(table.lnCount(n, e));
-                }
-            }
-            if (!xs.isEmpty()) {
-                XYSeries series = chart.addSeries("n = " + n, xs, ys);
-                series.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
-            }
-        }
-        if (chart.getSeriesCollection().isEmpty()) {
-            throw InvalidInputException.of("particle numbers to plot", java.util.Arrays.toString(ns),
-                    "at least one with a non-empty macrostate for E <= " + table.maxEnergy(), "");
-        }
-        style(chart);
-        chart.getStyler().setLegendVisible(chart.getSeriesCollection().size() > 1);
-        return chart;
-    }
-
-    static int[] defaultParticleNumbers(int maxN) {
-        if (maxN <= 0) {
-            return new int[] {0};
-        }
-        int k = Math.min(4, maxN);
-        java.util.TreeSet<Integer> set = new java.util.TreeSet<>();
-        for (int i = 1; i <= k; i++) {
-            set.add((int) Math.round((double) i * maxN / k));
-        }
-        return set.stream().mapToInt(Integer::intValue).toArray();
-    }
-
-    /** The exact probability of every total of a macrostate histogram (as bars for up to 60 totals, else a line). */
-    public static Chart<?, ?> histogram(MacrostateHistogram histogram) {
-        Objects.requireNonNull(histogram, "histogram");
-        int span = histogram.maxTotal() - histogram.minTotal() + 1;
-        if (span <= 60) {
-            return bars(histogram, "total", "probability");
-        }
-        return line(histogram, "total", "probability");
-    }
-
-    /** The exact probability of every split q_A of a shared total, against q_A. */
-    public static XYChart split(SharedTotal shared) {
-        XYChart chart = line(Objects.requireNonNull(shared, "shared"), "q_A", "probability");
-        chart.setTitle("q = " + shared.total() + " shared: P(q_A)");
-        return chart;
-    }
-
-    /**
-     * Mean occupation of one state of each level against the level energy, one series per entry
-     * (for example the same spectrum under several statistics, or canonical next to grand
-     * canonical), in the map's iteration order.
-     */
-    public static XYChart occupations(java.util.Map<String, LevelOccupations> byName) {
-        Objects.requireNonNull(byName, "byName");
-        if (byName.isEmpty()) {
-            throw InvalidInputException.of("number of occupation profiles", 0, ">= 1", "");
-        }
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .xAxisTitle("level energy").yAxisTitle("<n> per state").build();
-        for (var e : byName.entrySet()) {
-            LevelOccupations o = e.getValue();
-            double[] xs = new double[o.size()];
-            for (int i = 0; i < xs.length; i++) {
-                xs[i] = o.energy(i);
-            }
-            chart.addSeries(e.getKey(), xs, o.perStateArray()).setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
-        }
-        style(chart);
-        chart.getStyler().setLegendVisible(byName.size() > 1);
         return chart;
     }
 

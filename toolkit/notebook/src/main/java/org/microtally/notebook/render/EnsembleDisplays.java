@@ -28,7 +28,7 @@ final class EnsembleDisplays {
         r.put(LevelOccupations.class, o -> Charts.combine(
                 TableDisplay.bundle(o, String.format("Mean occupations of %d levels, %s particles in all", o.size(),
                         CellText.floating(o.total(), 8)), List.of()),
-                Charts.occupations(java.util.Map.of("<n> per state", o))));
+                OccupationCharts.occupations(java.util.Map.of("<n> per state", o))));
         r.put(CondensateDistribution.class, EnsembleDisplays::condensate);
         r.put(GroundState.class, EnsembleDisplays::groundState);
     }

@@ -95,7 +95,7 @@ final class ResultDisplays {
         }
         String caption = String.format("Exact counts Omega(n, E): %s, n <= %d, E <= %d, %s", t.statistics(),
                 t.maxParticles(), t.maxEnergy(), t.spectrum());
-        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes, GRID_FORMAT), Charts.counts(t));
+        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes, GRID_FORMAT), CountCharts.counts(t));
         return einstein ? withLatex(both, "$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$") : both;
     }
 
@@ -170,13 +170,13 @@ final class ResultDisplays {
         String caption = String.format("Macrostate histogram: totals %d..%d, %s microstates in all, most probable %s",
                 h.minTotal(), h.maxTotal(), CellText.shown(h.totalMultiplicity(), TableFormat.DEFAULT),
                 h.mostProbableTotals());
-        return Charts.combine(TableDisplay.bundle(h, caption, List.of()), Charts.histogram(h));
+        return Charts.combine(TableDisplay.bundle(h, caption, List.of()), CountCharts.histogram(h));
     }
 
     static MimeBundle sharedTotal(SharedTotal s) {
         String caption = String.format("Shared total q = %d: most probable q_A = %d, mean %s, width %s",
                 s.total(), s.mostProbableSplit(), CellText.floating(s.mean(), 8), CellText.floating(s.width(), 8));
-        return Charts.combine(TableDisplay.bundle(s, caption, List.of()), Charts.split(s));
+        return Charts.combine(TableDisplay.bundle(s, caption, List.of()), CountCharts.split(s));
     }
 
     // ---- thermodynamic-limit references

@@ -66,7 +66,9 @@ final class SvgChart {
         xr = limits(xr, st.getXAxisMin(), st.getXAxisMax());
         yr = limits(yr, st.getYAxisMin(), st.getYAxisMax());
         Ticks yt = st.isYAxisLogarithmic() ? Ticks.logarithmic(yr[0], yr[1]) : Ticks.linear(yr[0], yr[1], 8);
-        Ticks xt = bars ? null : st.isXAxisLogarithmic() ? Ticks.logarithmic(xr[0], xr[1]) : Ticks.linear(xr[0], xr[1], 10);
+        double[] chosen = Charts.xTicksOf(chart);
+        Ticks xt = bars ? null : chosen != null ? Ticks.at(chosen, xr[0], xr[1], st.isXAxisLogarithmic())
+                : st.isXAxisLogarithmic() ? Ticks.logarithmic(xr[0], xr[1]) : Ticks.linear(xr[0], xr[1], 10);
 
         String title = chart.getTitle() == null ? "" : chart.getTitle();
         boolean legend = st.isLegendVisible() && series.size() > 1;

@@ -121,6 +121,22 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
         return new Ticks(v, labels.toArray(new String[0]), v[0], v[v.length - 1], true, 0);
     }
 
+    /** Ticks at chosen positions (increasing, finite) on an axis spanning them and [min, max]. */
+    static Ticks at(double[] positions, double min, double max, boolean log) {
+        String[] labels = new String[positions.length];
+        for (int i = 0; i < positions.length; i++) {
+            labels[i] = CellText.floating(positions[i], 6);
+        }
+        double lo = Math.min(min, positions[0]);
+        double hi = Math.max(max, positions[positions.length - 1]);
+        if (!log && hi > lo) {
+            double pad = 0.02 * (hi - lo);
+            lo -= pad;
+            hi += pad;
+        }
+        return new Ticks(positions.clone(), labels, lo, hi == lo ? lo + 1 : hi, log, 0);
+    }
+
     /** {@code m} times ten to the {@code d}: plain from 0.001 to 10000, else {@code 10⁻⁷} or {@code 5×10⁻⁷}. */
     static String decadeLabel(int m, int d) {
         if (d >= -3 && d <= 4) {

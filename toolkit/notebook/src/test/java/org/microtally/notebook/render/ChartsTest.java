@@ -168,7 +168,7 @@ class ChartsTest {
     @Test
     void spectrumSticksRiseToTheDegeneracies() throws Exception {
         Spectrum s = Spectra.harmonicOscillator(3, 5);
-        XYChart chart = Charts.spectrum(s);
+        XYChart chart = SpectrumCharts.levels(s);
         XYSeries levels = chart.getSeries("levels");
         assertEquals("energy [hbar*omega]", chart.getXAxisTitle());
         for (int n = 0; n <= 5; n++) {

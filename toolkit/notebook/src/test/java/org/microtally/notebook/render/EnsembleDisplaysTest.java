@@ -106,7 +106,7 @@ class EnsembleDisplaysTest {
         for (Statistics st : List.of(Statistics.FERMI, Statistics.BOSE, Statistics.DISTINGUISHABLE)) {
             profiles.put(st.toString(), GrandCanonical.atChemicalPotential(s, st, 1.0, -0.5).occupations());
         }
-        XYChart chart = Charts.occupations(profiles);
+        XYChart chart = OccupationCharts.occupations(profiles);
         assertEquals(3, chart.getSeriesCollection().size());
         double[] fd = chart.getSeries("FERMI").getYData();
         double[] be = chart.getSeries("BOSE").getYData();
