@@ -34,7 +34,8 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
  * Charts of tabular results (XChart), in one consistent look of our own, and their encodings for
- * notebooks: PNG (drawn off-screen, headless) and SVG (drawn by VectorGraphics2D), both in memory.
+ * notebooks: compact SVG written by our own {@link SvgChart} (the default display) and, on request,
+ * PNG at twice the size painted by XChart off-screen (headless); both in memory.
  *
  * <p>Columns are chosen by name. Cells are converted to double for plotting only (a chart is a
  * picture): exact integers and fractions beyond the double range are refused with a message that
@@ -83,6 +84,42 @@ public final class Charts {
         }
         X_TICKS.put(chart, positions.clone());
         return chart;
+    }
+
+    /**
+     * Adds a reference curve without markers: {@code f} evaluated at every x in {@code xs} (give a
+     * dense grid, so that jumps and kinks of a limit law are drawn where they are); returns the chart.
+     * Values that are not finite are left out of the drawing and counted in a note on the chart.
+     */
+    public static XYChart curve(XYChart chart, String name, double[] xs, java.util.function.DoubleUnaryOperator f) {
+        Objects.requireNonNull(chart, "chart");
+        Objects.requireNonNull(f, "f");
+        if (xs == null || xs.length < 2) {
+            throw InvalidInputException.of("number of x values", xs == null ? 0 : xs.length, ">= 2",
+                    "Give a dense grid of x values.");
+        }
+        double[] ys = new double[xs.length];
+        for (int i = 0; i < xs.length; i++) {
+            ys[i] = f.applyAsDouble(xs[i]);
+        }
+        XYSeries s = chart.addSeries(name, xs.clone(), ys);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        s.setMarker(SeriesMarkers.NONE);
+        chart.getStyler().setLegendVisible(chart.getSeriesCollection().size() > 1);
+        return chart;
+    }
+
+    /** {@code n} evenly spaced values from {@code from} to {@code to}, both included (n >= 2). */
+    public static double[] grid(double from, double to, int n) {
+        if (n < 2 || !(from < to)) {
+            throw InvalidInputException.of("grid", from + ".." + to + " in " + n + " points",
+                    "from < to and n >= 2", "");
+        }
+        double[] g = new double[n];
+        for (int i = 0; i < n; i++) {
+            g[i] = i == n - 1 ? to : from + (to - from) * i / (n - 1);
+        }
+        return g;
     }
 
     /** The positions set by {@link #xTicks}, or null. */

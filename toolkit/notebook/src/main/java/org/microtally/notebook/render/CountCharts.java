@@ -29,6 +29,7 @@ public final class CountCharts {
         int[] ns = particleNumbers.length > 0 ? particleNumbers : defaultParticleNumbers(table.maxParticles());
         XYChart chart = new XYChartBuilder().width(Charts.WIDTH).height(Charts.HEIGHT)
                 .xAxisTitle("E [" + table.spectrum().scale().name() + "]").yAxisTitle("ln Omega").build();
+        chart.setTitle("ln Omega(n, E), " + table.statistics());
         for (int n : ns) {
             if (n < 0 || n > table.maxParticles()) {
                 throw InvalidInputException.of("particle number to plot", n, "in [0, " + table.maxParticles() + "]", "");
@@ -80,7 +81,8 @@ public final class CountCharts {
     /** The exact probability of every split q_A of a shared total, against q_A. */
     public static XYChart split(SharedTotal shared) {
         XYChart chart = Charts.line(Objects.requireNonNull(shared, "shared"), "q_A", "probability");
-        chart.setTitle("q = " + shared.total() + " shared: P(q_A)");
+        chart.setTitle("Probability of each split of q = " + shared.total() + " quanta");
+        chart.setXAxisTitle("q_A (quanta in the first part)");
         return chart;
     }
 

@@ -73,17 +73,53 @@ final class EnsembleDisplays {
         String caption = String.format("Microcanonical ensemble: N = %d, E <= %d (%s)", m.particleNumber(),
                 m.maxEnergy(), m.table().statistics());
         MimeBundle table = TableDisplay.bundle(m, caption, m.warnings());
-        return Charts.combine(table, Charts.line(m, "E", "S_B", "S_G"));
+        var chart = Charts.line(m, "E", "S_B", "S_G");
+        chart.setTitle("Microcanonical entropy, N = " + m.particleNumber());
+        chart.setYAxisTitle("S / k");
+        return Charts.combine(table, chart);
     }
 
     static MimeBundle comparison(EnsembleComparison c) {
         MimeBundle table = TableDisplay.bundle(c, "Ensemble comparison", c.notes());
-        return Charts.combine(table, Charts.grouped(c, "ensemble", "kT", "U"), Charts.grouped(c, "ensemble", "kT", "C/k"));
+        var u = Charts.grouped(c, "ensemble", "kT", "U");
+        u.setTitle("Mean energy in each ensemble");
+        var heat = Charts.grouped(c, "ensemble", "kT", "C/k");
+        heat.setTitle("Heat capacity in each ensemble");
+        return Charts.combine(table, u, heat);
     }
 
+    /**
+     * A convergence sweep: its table (captioned with the temperature range), the size of the relative
+     * differences of U and C on log-log axes, and Var N_0 in both ensembles against N (log-log).
+     */
     static MimeBundle convergence(EnsembleComparison.ConvergenceSweep s) {
-        MimeBundle table = TableDisplay.bundle(s, "Canonical vs grand canonical as N grows", List.of());
-        return Charts.combine(table, Charts.line(s, "N", "rel. diff U", "rel. diff C"));
+        var points = s.points();
+        var first = points.get(0);
+        var last = points.get(points.size() - 1);
+        String caption = String.format("Canonical vs grand canonical as N grows: N = %d..%d, kT = %s..%s",
+                first.n(), last.n(), CellText.floating(first.kT(), 4), CellText.floating(last.kT(), 4));
+        MimeBundle table = TableDisplay.bundle(s, caption, List.of());
+        List<List<Object>> rows = new ArrayList<>();
+        for (var p : points) {
+            rows.add(java.util.Arrays.asList(p.n(), Math.abs(p.grandCanonical().relEnergy()),
+                    Math.abs(p.grandCanonical().relHeatCapacity()), p.canonical().groundVariance(),
+                    p.grandCanonical().groundVariance()));
+        }
+        var abs = Tables.tabular(List.of("N", "|rel. diff U|", "|rel. diff C|", "Var N_0 canonical",
+                "Var N_0 grand canonical"), rows);
+        var diff = Charts.line(abs, "N", "|rel. diff U|", "|rel. diff C|");
+        diff.setTitle("Grand canonical minus canonical, relative");
+        diff.setXAxisTitle("N (particles)");
+        diff.setYAxisTitle("|relative difference|");
+        diff.getStyler().setXAxisLogarithmic(true);
+        diff.getStyler().setYAxisLogarithmic(true);
+        var var0 = Charts.line(abs, "N", "Var N_0 canonical", "Var N_0 grand canonical");
+        var0.setTitle("Fluctuation of the ground-level number");
+        var0.setXAxisTitle("N (particles)");
+        var0.setYAxisTitle("Var N_0");
+        var0.getStyler().setXAxisLogarithmic(true);
+        var0.getStyler().setYAxisLogarithmic(true);
+        return Charts.combine(table, diff, var0);
     }
 
     static MimeBundle groundState(GroundState g) {
@@ -97,6 +133,8 @@ final class EnsembleDisplays {
     static MimeBundle condensate(CondensateDistribution d) {
         String caption = String.format("Ground-level number distribution: <N_0> = %s, Var N_0 = %s",
                 CellText.floating(d.mean(), 8), CellText.floating(d.variance(), 8));
-        return Charts.combine(TableDisplay.bundle(d, caption, List.of()), Charts.line(d, "N0", "probability"));
+        var chart = Charts.line(d, "N0", "probability");
+        chart.setTitle("Distribution of the ground-level number N_0");
+        return Charts.combine(TableDisplay.bundle(d, caption, List.of()), chart);
     }
 }

@@ -181,6 +181,11 @@ final class ResultDisplays {
 
     // ---- thermodynamic-limit references
 
+    /**
+     * A reference sweep: its table and one chart per dimensionless quantity (at most two; a column
+     * named "q Sommerfeld" or "q exact" shares the chart of "q"), against the
+     * reduced temperature, on a log axis where the temperatures span more than two decades.
+     */
     static MimeBundle referenceTable(ReferenceTable t) {
         MimeBundle table = TableDisplay.bundle(t, "Thermodynamic-limit reference values", List.of());
         List<String> ys = new ArrayList<>();
@@ -188,7 +193,39 @@ final class ResultDisplays {
         if (x == null || ys.isEmpty() || t.rows().size() < 2) {
             return table;
         }
-        return Charts.combine(table, Charts.line(t, x, ys.toArray(new String[0])));
+        int xc = t.columnNames().indexOf(x);
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = 0;
+        for (List<Object> r : t.rows()) {
+            if (r.get(xc) instanceof Number n && n.doubleValue() > 0) {
+                lo = Math.min(lo, n.doubleValue());
+                hi = Math.max(hi, n.doubleValue());
+            }
+        }
+        boolean logX = lo > 0 && hi / lo > 100;
+        // one chart per quantity: a column "q Sommerfeld" (any "q <variant>") is drawn with "q"
+        java.util.Map<String, List<String>> groups = new java.util.LinkedHashMap<>();
+        for (String y : ys) {
+            String base = y;
+            for (String other : ys) {
+                if (y.startsWith(other + " ")) {
+                    base = other;
+                }
+            }
+            groups.computeIfAbsent(base, k -> new ArrayList<>()).add(y);
+        }
+        List<org.knowm.xchart.XYChart> charts = new ArrayList<>();
+        for (var g : groups.entrySet()) {
+            if (charts.size() == 2) {
+                break;
+            }
+            var c = Charts.line(t, x, g.getValue().toArray(new String[0]));
+            c.setTitle(g.getKey() + " against " + x);
+            c.setYAxisTitle(g.getKey());
+            c.getStyler().setXAxisLogarithmic(logX);
+            charts.add(c);
+        }
+        return Charts.combine(table, charts.toArray(new org.knowm.xchart.XYChart[0]));
     }
 
     /**

@@ -196,7 +196,9 @@ class ResultDisplaysTest {
         assertEquals(List.of("fugacity", "condensate fraction", "C/(N k)"), ys);
         MimeBundle b = Renderers.render(sweep);
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(1, d.getElementsByTagName("svg").getLength());
+        // one chart per quantity, at most two
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
+        assertTrue(b.get(MimeBundle.TEXT_HTML).contains(">fugacity against T/Tc</text>"));
         // Source: closed form for a harmonic trap, condensate fraction 1 - (T/Tc)^3 below Tc: 1 - 0.125 = 0.875
         assertEquals("0.875", rowStartingWith(d, CellText.shown(0.5 * tc, TableFormat.DEFAULT)).get(3));
     }
