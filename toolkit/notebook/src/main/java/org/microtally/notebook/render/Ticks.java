@@ -97,6 +97,7 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
         }
         List<Double> values = new ArrayList<>();
         List<String> labels = new ArrayList<>();
+        boolean plain = d0 >= -3 && d1 <= 4;   // one label style per axis
         if (d1 - d0 <= 2) {
             for (int d = d0; d <= d1; d++) {
                 for (int m : new int[] {1, 2, 5}) {
@@ -105,7 +106,7 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
                         break;
                     }
                     values.add(v);
-                    labels.add(decadeLabel(m, d));
+                    labels.add(decadeLabel(m, d, plain));
                 }
             }
         } else {
@@ -114,7 +115,7 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
             d1 = -Math.floorDiv(-d1, k) * k;
             for (int d = d0; d <= d1; d += k) {
                 values.add(Math.pow(10, d));
-                labels.add(decadeLabel(1, d));
+                labels.add(decadeLabel(1, d, plain));
             }
         }
         double[] v = values.stream().mapToDouble(Double::doubleValue).toArray();
@@ -137,9 +138,9 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
         return new Ticks(positions.clone(), labels, lo, hi == lo ? lo + 1 : hi, log, 0);
     }
 
-    /** {@code m} times ten to the {@code d}: plain from 0.001 to 10000, else {@code 10⁻⁷} or {@code 5×10⁻⁷}. */
-    static String decadeLabel(int m, int d) {
-        if (d >= -3 && d <= 4) {
+    /** {@code m} times ten to the {@code d}: plain ({@code 0.005}), or as {@code 10⁻⁷} and {@code 5×10⁻⁷}. */
+    static String decadeLabel(int m, int d, boolean plain) {
+        if (plain) {
             return BigDecimal.valueOf(m).scaleByPowerOfTen(d).stripTrailingZeros().toPlainString();
         }
         return (m == 1 ? "" : m + "\u00d7") + "10" + superscript(d);
