@@ -66,4 +66,25 @@ class PageMarkdownTest {
         assertTrue(html.contains("<code class=\"mt-tex\" title=\"not rendered: \\begin is not in the supported TeX subset"), html);
         assertFalse(html.contains("<math"), html);
     }
+
+    @Test
+    void everyFormulaOfTheWorkedNotebooksIsInTheSupportedSubset() throws Exception {
+        java.nio.file.Path dir = java.nio.file.Path.of("../../notebooks");
+        int formulas = 0;
+        try (var files = java.nio.file.Files.list(dir)) {
+            for (java.nio.file.Path f : files.filter(p -> p.getFileName().toString().matches("0[1-6]-.*\\.ipynb")).sorted().toList()) {
+                var doc = com.google.gson.JsonParser.parseString(java.nio.file.Files.readString(f)).getAsJsonObject();
+                for (var c : doc.getAsJsonArray("cells")) {
+                    var cell = c.getAsJsonObject();
+                    if (!cell.get("cell_type").getAsString().equals("markdown")) {
+                        continue;
+                    }
+                    String html = PageMarkdown.toHtml(Notebook.text(cell.get("source")));
+                    assertFalse(html.contains("mt-tex"), f.getFileName() + ": a formula is outside the TeX subset: " + html);
+                    formulas += html.split("<math ", -1).length - 1;
+                }
+            }
+        }
+        assertTrue(formulas > 50, "only " + formulas + " formulas found in the notebooks");
+    }
 }
