@@ -76,6 +76,8 @@ public final class Renderers {
         r.put(Markdown.class, m -> MimeBundle.builder(m.source()).put(MimeBundle.TEXT_MARKDOWN, m.source()).build());
         r.put(Latex.class, l -> MimeBundle.builder(l.source()).put(MimeBundle.TEXT_LATEX, l.source()).build());
         r.put(Tabular.class, t -> TableDisplay.bundle(t, caption(t), List.of()));
+        r.put(Tables.AllRows.class, a -> TableDisplay.bundle(a.table(), caption(a.table()), List.of(),
+                TableFormat.DEFAULT.allRows()));
         r.put(Table.class, t -> TableDisplay.bundle(Tables.asTabular(t), t.name(), List.of()));
         r.put(Spectrum.class, Renderers::spectrum);
         r.put(Energy.class, Renderers::energy);

@@ -21,7 +21,7 @@ final class ResultDisplays {
     /** Most particle-number columns in the grid view of a count table. */
     static final int GRID_COLUMNS = 9;
     /** The grid of a count table has up to 10 columns (E and 9 particle numbers) of exact integers: shown in full up to 20 digits. */
-    static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 8, 20, 5);
+    static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 6, 60, 20);
 
     private ResultDisplays() { }
 

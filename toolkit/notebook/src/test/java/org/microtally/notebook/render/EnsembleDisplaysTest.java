@@ -35,7 +35,7 @@ class EnsembleDisplaysTest {
         MimeBundle b = Renderers.render(c);
         assertTrue(b.plain().startsWith("Canonical ensemble: N = 1, DISTINGUISHABLE, kT = 0.5 unit"), b.plain());
         // Source: closed form for a two-level system with gap 1 at kT = 1/2: U = 1/(e^2 + 1)
-        assertEquals(CellText.floating(1 / (Math.exp(2) + 1), 8), valueOf(b, "U"));
+        assertEquals(CellText.floating(1 / (Math.exp(2) + 1), TableFormat.DEFAULT.significantDigits()), valueOf(b, "U"));
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<table class=\"mt-table\">"));
     }
 

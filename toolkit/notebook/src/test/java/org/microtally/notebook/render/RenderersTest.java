@@ -115,7 +115,7 @@ class RenderersTest {
     void tablesawTableIsShownAsATable() {
         Table t = Table.create("levels", DoubleColumn.create("energy", 0.0, 1.0), IntColumn.create("g", 1, 3));
         MimeBundle b = Renderers.render(t);
-        assertEquals(String.join("\n", "levels", "energy  g", "------  -", "     0  1", "     1  3"), b.plain());
+        assertEquals(String.join("\n", "levels", "energy  g", "\u2500\u2500\u2500\u2500\u2500\u2500  \u2500", "     0  1", "     1  3"), b.plain());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<div class=\"mt-caption\">levels</div>"));
     }
 
@@ -242,7 +242,7 @@ class RenderersTest {
         });
         MimeBundle b = Renderers.render(new FancyTable());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<table class=\"mt-table\">"));
-        assertTrue(b.plain().startsWith("FancyTable\nx\n-\n1\n2\n"), b.plain());
+        assertTrue(b.plain().startsWith("FancyTable\nx\n\u2500\n1\n2\n"), b.plain());
         assertTrue(b.plain().endsWith("(rich display failed: java.lang.IllegalStateException: no chart today; "
                 + "shown as a plain table)"), b.plain());
     }
