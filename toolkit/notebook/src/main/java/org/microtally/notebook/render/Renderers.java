@@ -185,19 +185,23 @@ public final class Renderers {
         return null;
     }
 
+    private static final java.util.regex.Pattern OBJECT_HASH = java.util.regex.Pattern.compile("\\w@[0-9a-f]{5,8}\\b");
+
     /** Longest {@code toString()} used as a table caption. */
     static final int MAX_CAPTION = 160;
 
     /**
-     * The caption of a generic table: the value's own {@code toString()} when its class defines one
-     * and it is short (at most {@value #MAX_CAPTION} characters, one line), else its class's simple
+     * The caption of a generic table: the value's own {@code toString()} when its class defines one,
+     * it shows no object hash, and it is short (at most {@value #MAX_CAPTION} characters, one line), else its class's simple
      * name (none for anonymous classes).
      */
     static String caption(Object value) {
         try {
             if (value.getClass().getMethod("toString").getDeclaringClass() != Object.class) {
                 String s = value.toString();
-                if (s != null && s.length() <= MAX_CAPTION && s.indexOf('\n') < 0) {
+                // an object hash (ClassName@1b6d3586, as in a record holding a value without its own
+                // toString) says nothing to a reader: not a caption
+                if (s != null && s.length() <= MAX_CAPTION && s.indexOf('\n') < 0 && !OBJECT_HASH.matcher(s).find()) {
                     return s;
                 }
             }
@@ -254,8 +258,8 @@ public final class Renderers {
     }
 
     private static String collection(Collection<?> c) {
-        StringBuilder sb = new StringBuilder(c.getClass().getSimpleName().isEmpty() ? "Collection"
-                : c.getClass().getSimpleName()).append(" of ").append(c.size()).append(": [");
+        String kind = c instanceof List ? "List" : c instanceof Set ? "Set" : "Collection";
+        StringBuilder sb = new StringBuilder(kind).append(" of ").append(c.size()).append(": [");
         Iterator<?> it = c.iterator();
         for (int i = 0; i < MAX_ELEMENTS && it.hasNext(); i++) {
             if (i > 0) {

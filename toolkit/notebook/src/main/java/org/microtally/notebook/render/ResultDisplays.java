@@ -94,7 +94,7 @@ final class ResultDisplays {
             notes.add("Closed form: Omega(n, E) = C(E + n - 1, E), n distinguishable oscillators sharing E quanta.");
         }
         String caption = String.format("Exact counts Omega(n, E): %s, n <= %d, E <= %d, %s", t.statistics(),
-                t.maxParticles(), t.maxEnergy(), t.spectrum());
+                t.maxParticles(), t.maxEnergy(), levels(t.spectrum()));
         MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes, GRID_FORMAT), CountCharts.counts(t));
         return einstein ? withLatex(both, "$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$") : both;
     }
@@ -160,7 +160,7 @@ final class ResultDisplays {
             notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles() + " shown.");
         }
         String caption = String.format("Label-resolved counts: %s, n <= %d%s, %s", t.statistics(), t.maxParticles(),
-                t.energyIgnored() ? "" : ", E <= " + t.maxEnergy(), t.spectrum());
+                t.energyIgnored() ? "" : ", E <= " + t.maxEnergy(), levels(t.spectrum()));
         return TableDisplay.bundle(Tables.tabular(names, rows), caption, notes, GRID_FORMAT);
     }
 
@@ -253,6 +253,11 @@ final class ResultDisplays {
     }
 
     // ---- helpers
+
+    /** A spectrum in a caption: {@code 41 levels (861 states) in hbar*omega}. */
+    static String levels(Spectrum s) {
+        return String.format("%,d levels (%,d states) in %s", s.size(), s.stateCount(), s.scale().name());
+    }
 
     /** {@code bundle} with a text/latex representation added. */
     static MimeBundle withLatex(MimeBundle bundle, String latex) {

@@ -133,7 +133,7 @@ class RenderersTest {
             list.add(i);
         }
         String lp = Renderers.render(list).plain();
-        assertTrue(lp.startsWith("ArrayList of 150: [0, 1,"), lp);
+        assertTrue(lp.startsWith("List of 150: [0, 1,"), lp);
         assertTrue(lp.endsWith("99, \u2026 50 more]"), lp);
         Map<String, Integer> m = new LinkedHashMap<>();
         m.put("N", 42);
@@ -208,6 +208,24 @@ class RenderersTest {
         public List<String> columnNames() {
             return List.of("x");
         }
+    }
+
+    record Holder(Object inner) implements Tabular {
+        @Override
+        public List<String> columnNames() {
+            return List.of("x");
+        }
+
+        @Override
+        public List<List<Object>> rows() {
+            return List.of(List.of(1));
+        }
+    }
+
+    @Test
+    void captionNeverShowsAnObjectHash() {
+        String first = Renderers.render(new Holder(new Object())).plain().lines().findFirst().get();
+        assertEquals("Holder", first);
     }
 
     @Test
