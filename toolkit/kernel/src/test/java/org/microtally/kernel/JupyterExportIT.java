@@ -75,14 +75,17 @@ class JupyterExportIT {
         JupyterIT.Ran run = JupyterIT.exec(cmd, Map.of(), 600);
         assertEquals(0, run.exit(), "the runner failed:\n" + run.output());
 
+        // one nbconvert run for all notebooks (one Python start-up)
+        List<String> conv = new ArrayList<>(List.of("jupyter", "nbconvert", "--to", "html", "--output-dir", htmlDir.toString()));
+        for (Path nb : notebooks) {
+            conv.add(executedDir.resolve(nb.getFileName()).toString());
+        }
+        JupyterIT.Ran converted = JupyterIT.exec(conv, Map.of("JUPYTER_PLATFORM_DIRS", "1"), 300);
+        assertEquals(0, converted.exit(), "nbconvert --to html failed:\n" + converted.output());
         int total = 0;
         for (Path nb : notebooks) {
             String base = nb.getFileName().toString().replaceFirst("\\.ipynb$", "");
-            Path executed = executedDir.resolve(base + ".ipynb");
-            int charts = chartsIn(executed);
-            JupyterIT.Ran conv = JupyterIT.exec(List.of("jupyter", "nbconvert", "--to", "html", "--output-dir",
-                    htmlDir.toString(), executed.toString()), Map.of("JUPYTER_PLATFORM_DIRS", "1"), 170);
-            assertEquals(0, conv.exit(), "nbconvert --to html failed on " + executed + ":\n" + conv.output());
+            int charts = chartsIn(executedDir.resolve(base + ".ipynb"));
             String html = Files.readString(htmlDir.resolve(base + ".html"), StandardCharsets.UTF_8);
             int visible = 0;
             Matcher svg = SVG.matcher(html);

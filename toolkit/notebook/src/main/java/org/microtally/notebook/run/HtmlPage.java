@@ -30,8 +30,9 @@ final class HtmlPage {
             .stream.stderr pre { background: #fbeeee; }
             .error pre { background: #fbe4e1; color: #7a1f12; border-left: 3px solid #b23a26; }
             .output img { max-width: 100%; }
-            .output table { border-collapse: collapse; font: 0.85rem monospace; }
-            .output th, .output td { border: 1px solid #c9cfc9; padding: 0.15rem 0.5rem; text-align: right; }
+            .output table:not(.mt-table) { border-collapse: collapse; font: 0.85rem monospace; }
+            .output table:not(.mt-table) th, .output table:not(.mt-table) td { border: 1px solid #c9cfc9; padding: 0.15rem 0.5rem; text-align: right; }
+            .output math[display="block"] { margin: 0.4rem 0; }
             .markdown code { background: #eef1ee; padding: 0 0.2rem; font-size: 0.9em; }
             .markdown pre code { padding: 0; background: none; }
             .markdown pre { background: #eef1ee; }
