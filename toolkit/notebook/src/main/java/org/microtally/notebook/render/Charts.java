@@ -7,20 +7,13 @@ import java.awt.image.BufferedImage;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Base64;
 import java.util.List;
 import java.util.Objects;
 import javax.imageio.ImageIO;
-import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
-import org.microtally.count.CountTable;
-import org.microtally.count.MacrostateHistogram;
-import org.microtally.count.SharedTotal;
-import org.microtally.occupation.LevelOccupations;
-import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.CategoryChart;
 import org.knowm.xchart.CategoryChartBuilder;
 import org.knowm.xchart.XYChart;
@@ -145,9 +138,9 @@ public final class Charts {
      */
     public static XYChart grouped(Tabular table, String groupColumn, String xColumn, String yColumn) {
         Objects.requireNonNull(table, "table");
-        int gc = columnIndex(table, groupColumn);
-        int xc = columnIndex(table, xColumn);
-        int yc = columnIndex(table, yColumn);
+        int gc = ChartCells.columnIndex(table, groupColumn);
+        int xc = ChartCells.columnIndex(table, xColumn);
+        int yc = ChartCells.columnIndex(table, yColumn);
         java.util.Map<String, List<double[]>> groups = new java.util.LinkedHashMap<>();
         List<List<Object>> rows = table.rows();
         for (int r = 0; r < rows.size(); r++) {
@@ -159,7 +152,7 @@ public final class Charts {
             }
             String g = CellText.shown(row.get(gc), TableFormat.DEFAULT);
             groups.computeIfAbsent(g, k -> new ArrayList<>())
-                    .add(new double[] {toDouble(x, r, xColumn), toDouble(y, r, yColumn)});
+                    .add(new double[] {ChartCells.toDouble(x, r, xColumn), ChartCells.toDouble(y, r, yColumn)});
         }
         if (groups.isEmpty()) {
             throw InvalidInputException.of("number of points", 0, ">= 1 (rows with both '" + xColumn + "' and '"
@@ -189,11 +182,11 @@ public final class Charts {
     public static CategoryChart bars(Tabular table, String categoryColumn, String... valueColumns) {
         Objects.requireNonNull(table, "table");
         requireSeries(valueColumns);
-        int cat = columnIndex(table, categoryColumn);
+        int cat = ChartCells.columnIndex(table, categoryColumn);
         CategoryChart chart = new CategoryChartBuilder().width(WIDTH).height(HEIGHT)
                 .xAxisTitle(categoryColumn).yAxisTitle(axisTitle(valueColumns)).build();
         for (String name : valueColumns) {
-            int c = columnIndex(table, name);
+            int c = ChartCells.columnIndex(table, name);
             List<String> xs = new ArrayList<>();
             List<Double> ys = new ArrayList<>();
             List<List<Object>> rows = table.rows();
@@ -201,7 +194,7 @@ public final class Charts {
                 Object x = rows.get(r).get(cat);
                 Object y = rows.get(r).get(c);
                 xs.add(x == null ? "" : CellText.shown(x, TableFormat.DEFAULT));
-                ys.add(CellText.isMissing(y) ? 0.0 : toDouble(y, r, name));
+                ys.add(CellText.isMissing(y) ? 0.0 : ChartCells.toDouble(y, r, name));
             }
             if (xs.isEmpty()) {
                 throw InvalidInputException.of("number of rows", 0, ">= 1 to draw a bar chart", "");
@@ -358,12 +351,12 @@ public final class Charts {
                               String... yColumns) {
         Objects.requireNonNull(table, "table");
         requireSeries(yColumns);
-        int xc = columnIndex(table, xColumn);
+        int xc = ChartCells.columnIndex(table, xColumn);
         XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
                 .xAxisTitle(xColumn).yAxisTitle(axisTitle(yColumns)).build();
         List<List<Object>> rows = table.rows();
         for (String name : yColumns) {
-            int yc = columnIndex(table, name);
+            int yc = ChartCells.columnIndex(table, name);
             double[] xs = new double[rows.size()];
             double[] ys = new double[rows.size()];
             int k = 0;
@@ -373,8 +366,8 @@ public final class Charts {
                 if (CellText.isMissing(x) || CellText.isMissing(y)) {
                     continue;
                 }
-                xs[k] = toDouble(x, r, xColumn);
-                ys[k] = toDouble(y, r, name);
+                xs[k] = ChartCells.toDouble(x, r, xColumn);
+                ys[k] = ChartCells.toDouble(y, r, name);
                 k++;
             }
             if (k == 0) {
@@ -401,44 +394,5 @@ public final class Charts {
 
     private static int xsRotation(int categories) {
         return categories > 16 ? 90 : 0;
-    }
-
-    static int columnIndex(Tabular table, String name) {
-        int i = table.columnNames().indexOf(name);
-        if (i < 0) {
-            throw InvalidInputException.of("column", "'" + name + "'", "one of " + table.columnNames(), "");
-        }
-        return i;
-    }
-
-    /** A cell as a double for plotting; exact values beyond the double range are refused. */
-    static double toDouble(Object v, int row, String column) {
-        double d;
-        if (v instanceof BigFraction f) {
-            d = CellText.decimalValue(f.getNumerator(), f.getDenominator());
-        } else if (v instanceof Number n) {
-            d = n.doubleValue();
-        } else if (v instanceof Boolean b) {
-            d = b ? 1 : 0;
-        } else if (v instanceof CharSequence cs) {
-            String s = cs.toString().strip();
-            try {
-                BigFraction f = s.indexOf('/') > 0 ? Tables.exactFraction(s) : null;
-                d = f != null ? CellText.decimalValue(f.getNumerator(), f.getDenominator())
-                        : s.matches("-?[0-9]+") ? new BigInteger(s).doubleValue() : Double.parseDouble(s);
-            } catch (NumberFormatException e) {
-                throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",
-                        "\"" + s + "\"", "a number to plot", "Choose a numeric column.");
-            }
-        } else {
-            throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'", v,
-                    "a number to plot", "Choose a numeric column.");
-        }
-        if (Double.isInfinite(d) && !(v instanceof Double || v instanceof Float)) {
-            throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",
-                    CellText.shown(v, TableFormat.DEFAULT), "at most 1.8e308 in magnitude to plot",
-                    "Plot its logarithm instead (for example ln Omega).");
-        }
-        return d;
     }
 }

@@ -11,7 +11,6 @@ import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.internal.chartpart.Chart;
-import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
  * Charts of exact counts ({@code org.microtally.count}): ln Omega curves, macrostate histograms, shared-total splits; in the look of {@link Charts}.

@@ -1,15 +1,11 @@
 package org.microtally.notebook.render;
 
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
 import org.microtally.occupation.LevelOccupations;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
-import org.knowm.xchart.internal.chartpart.Chart;
-import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
  * Charts of occupation numbers ({@code org.microtally.occupation}), in the look of {@link Charts}.

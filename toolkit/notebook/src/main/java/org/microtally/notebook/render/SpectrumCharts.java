@@ -1,14 +1,10 @@
 package org.microtally.notebook.render;
 
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Objects;
-import org.microtally.InvalidInputException;
 import org.microtally.spectrum.Spectrum;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
-import org.knowm.xchart.internal.chartpart.Chart;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
