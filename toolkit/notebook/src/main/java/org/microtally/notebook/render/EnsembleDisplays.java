@@ -107,19 +107,22 @@ final class EnsembleDisplays {
         }
         var abs = Tables.tabular(List.of("N", "|rel. diff U|", "|rel. diff C|", "Var N_0 canonical",
                 "Var N_0 grand canonical"), rows);
-        var diff = Charts.line(abs, "N", "|rel. diff U|", "|rel. diff C|");
-        diff.setTitle("Grand canonical minus canonical, relative");
-        diff.setXAxisTitle("N (particles)");
-        diff.setYAxisTitle("|relative difference|");
-        diff.getStyler().setXAxisLogarithmic(true);
-        diff.getStyler().setYAxisLogarithmic(true);
-        var var0 = Charts.line(abs, "N", "Var N_0 canonical", "Var N_0 grand canonical");
-        var0.setTitle("Fluctuation of the ground-level number");
-        var0.setXAxisTitle("N (particles)");
-        var0.setYAxisTitle("Var N_0");
-        var0.getStyler().setXAxisLogarithmic(true);
-        var0.getStyler().setYAxisLogarithmic(true);
+        var diff = logLog(abs, "Grand canonical minus canonical, relative", "|relative difference|",
+                "|rel. diff U|", "|rel. diff C|");
+        var var0 = logLog(abs, "Fluctuation of the ground-level number", "Var N_0",
+                "Var N_0 canonical", "Var N_0 grand canonical");
         return Charts.combine(table, diff, var0);
+    }
+
+    /** A titled chart of columns against N on log-log axes. */
+    private static org.knowm.xchart.XYChart logLog(org.microtally.Tabular t, String title, String yTitle, String... ys) {
+        var c = Charts.line(t, "N", ys);
+        c.setTitle(title);
+        c.setXAxisTitle("N (particles)");
+        c.setYAxisTitle(yTitle);
+        c.getStyler().setXAxisLogarithmic(true);
+        c.getStyler().setYAxisLogarithmic(true);
+        return c;
     }
 
     static MimeBundle groundState(GroundState g) {
