@@ -131,7 +131,7 @@ class SvgChartTest {
 
     @Test
     void compactForALongSeries() {
-        // the former export drew 2,001 points with glyph outlines at about 180 KB per series
+        // the former export (VectorGraphics2D, text as outlines) wrote 543 KB for 01 cell 10: three series of 401 points
         int bytes = Charts.svg(Charts.line(curve(2000), "x", "sin x", "2x")).length();
         assertTrue(bytes < 12_000, "SVG of 2 x 2000 points: " + bytes + " bytes");
     }
