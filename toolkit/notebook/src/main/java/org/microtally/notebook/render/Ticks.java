@@ -118,6 +118,15 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
                 labels.add(decadeLabel(1, d, plain));
             }
         }
+        // keep the ticks from the last one at or below min to the first one at or above max
+        while (values.size() > 2 && values.get(values.size() - 2) >= max * (1 - 1e-12)) {
+            values.remove(values.size() - 1);
+            labels.remove(labels.size() - 1);
+        }
+        while (values.size() > 2 && values.get(1) <= min * (1 + 1e-12)) {
+            values.remove(0);
+            labels.remove(0);
+        }
         double[] v = values.stream().mapToDouble(Double::doubleValue).toArray();
         return new Ticks(v, labels.toArray(new String[0]), v[0], v[v.length - 1], true, 0);
     }

@@ -59,7 +59,9 @@ class TicksTest {
         Ticks n = Ticks.logarithmic(10, 2000);
         assertArrayEquals(new String[] {"10", "100", "1000", "10000"}, n.labels());
         Ticks few = Ticks.logarithmic(2, 30);
-        assertArrayEquals(new String[] {"1", "2", "5", "10", "20", "50", "100"}, few.labels());
+        assertArrayEquals(new String[] {"2", "5", "10", "20", "50"}, few.labels());
+        // the axis ends at the first tick past the data, not at the next decade
+        assertArrayEquals(new String[] {"10", "20", "50", "100", "200"}, Ticks.logarithmic(10, 200).labels());
         assertEquals(0.5, Ticks.logarithmic(1, 100).fraction(10), 1e-12);
     }
 }
