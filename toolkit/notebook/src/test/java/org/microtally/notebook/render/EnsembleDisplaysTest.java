@@ -140,4 +140,24 @@ class EnsembleDisplaysTest {
                 + CellText.floating(c.condensate().mean(), 8)), b.plain());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<svg"));
     }
+
+    @Test
+    void convergenceSweepIsCaptionedWithItsRangeAndChartedOnLogLogAxes() throws Exception {
+        Spectrum s = Spectra.harmonicOscillator(3, 40);
+        var sweep = EnsembleComparison.convergence(s, Statistics.BOSE, new int[] {5, 10, 20}, n -> 2.0);
+        MimeBundle b = Renderers.render(sweep);
+        assertTrue(b.plain().startsWith("Canonical vs grand canonical as N grows: N = 5..20, kT = 2..2"), b.plain());
+        String html = b.get(MimeBundle.TEXT_HTML);
+        Document d = TableDisplayTest.parse(html);
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
+        assertTrue(html.contains(">Fluctuation of the ground-level number</text>"), html);
+        assertTrue(html.contains(">N (particles)</text>"), html);
+        // absolute differences on a log axis: every point is drawn
+        assertTrue(!html.contains("not drawn"), html);
+        for (var p : sweep.points()) {
+            double n0 = p.grandCanonical().groundMean();
+            // Source: closed form, grand canonical variance of one Bose state n0 (n0 + 1)
+            assertEquals(n0 * (n0 + 1), p.grandCanonical().groundVariance(), 1e-9 * n0 * (n0 + 1));
+        }
+    }
 }
