@@ -71,10 +71,10 @@ public final class CountCharts {
     public static Chart<?, ?> histogram(MacrostateHistogram histogram) {
         Objects.requireNonNull(histogram, "histogram");
         int span = histogram.maxTotal() - histogram.minTotal() + 1;
-        if (span <= 60) {
-            return Charts.bars(histogram, "total", "probability");
-        }
-        return Charts.line(histogram, "total", "probability");
+        Chart<?, ?> chart = span <= 60 ? Charts.bars(histogram, "total", "probability")
+                : Charts.line(histogram, "total", "probability");
+        chart.setTitle("Exact probability of each total");
+        return chart;
     }
 
     /** The exact probability of every split q_A of a shared total, against q_A. */

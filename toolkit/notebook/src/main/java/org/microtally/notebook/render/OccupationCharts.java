@@ -33,6 +33,7 @@ public final class OccupationCharts {
             }
             chart.addSeries(e.getKey(), xs, o.perStateArray()).setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
         }
+        chart.setTitle("Mean occupation of one state of each level");
         Charts.style(chart);
         chart.getStyler().setLegendVisible(byName.size() > 1);
         return chart;

@@ -34,6 +34,7 @@ public final class SpectrumCharts {
         XYSeries s = chart.addSeries("levels", xs, ys);
         s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
         s.setMarker(SeriesMarkers.NONE);
+        chart.setTitle("Levels and their degeneracies, " + spectrum.size() + " levels");
         Charts.style(chart);
         chart.getStyler().setLegendVisible(false);
         chart.getStyler().setYAxisMin(0.0);
