@@ -33,7 +33,6 @@ import org.knowm.xchart.style.markers.None;
 final class SvgChart {
     static final int MARKER_LIMIT = 50;
     static final int MARKER_SHOWN = 25;
-    private static final double SIMPLIFY_PX = 0.25;
     private static final String INK = "#23343a";
     private static final String GRID = "#e1e8ea";
     private static final String FONT = "font-family=\"DejaVu Sans,Helvetica,Arial,sans-serif\"";
@@ -68,7 +67,8 @@ final class SvgChart {
         Ticks yt = st.isYAxisLogarithmic() ? Ticks.logarithmic(yr[0], yr[1]) : Ticks.linear(yr[0], yr[1], 8);
         double[] chosen = Charts.xTicksOf(chart);
         Ticks xt = bars ? null : chosen != null ? Ticks.at(chosen, xr[0], xr[1], st.isXAxisLogarithmic())
-                : st.isXAxisLogarithmic() ? Ticks.logarithmic(xr[0], xr[1]) : Ticks.linear(xr[0], xr[1], 10);
+                : st.isXAxisLogarithmic() ? Ticks.logarithmic(xr[0], xr[1])
+                : Ticks.linear(xr[0], xr[1], 10, integral(series));
 
         String title = chart.getTitle() == null ? "" : chart.getTitle();
         boolean legend = st.isLegendVisible() && series.size() > 1;
@@ -145,7 +145,7 @@ final class SvgChart {
                 continue;
             }
             if (se.line()) {
-                sb.append("<path d=\"").append(polyline(px, py, ok)).append("\" fill=\"none\" stroke=\"")
+                sb.append("<path d=\"").append(SvgPath.polyline(px, py, ok)).append("\" fill=\"none\" stroke=\"")
                         .append(se.colour()).append("\" stroke-width=\"1.8\" stroke-linejoin=\"round\"/>");
             }
             if (se.markers()) {
@@ -217,6 +217,18 @@ final class SvgChart {
         return new double[] {lo, hi};
     }
 
+    /** Whether every finite x of every series is a whole number. */
+    private static boolean integral(List<Series> series) {
+        for (Series s : series) {
+            for (double x : s.xs()) {
+                if (Double.isFinite(x) && x != Math.rint(x)) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+
     private static double[] limits(double[] r, Double min, Double max) {
         return new double[] {min != null ? min : r[0], max != null ? Math.max(max, min != null ? min : r[0]) : r[1]};
     }
@@ -233,77 +245,6 @@ final class SvgChart {
             }
         }
         sb.append("<path d=\"").append(d).append("\" fill=\"").append(se.colour()).append("\"/>");
-    }
-
-    /** The visible points as one path: absolute move at each start, relative line steps, simplified. */
-    static String polyline(double[] px, double[] py, boolean[] ok) {
-        StringBuilder d = new StringBuilder();
-        int i = 0;
-        while (i < px.length) {
-            while (i < px.length && !ok[i]) {
-                i++;
-            }
-            int start = i;
-            while (i < px.length && ok[i]) {
-                i++;
-            }
-            if (i - start == 0) {
-                continue;
-            }
-            boolean[] keep = new boolean[i - start];
-            simplify(px, py, start, i - 1, keep, start);
-            keep[0] = true;
-            keep[keep.length - 1] = true;
-            long lastX = 0;
-            long lastY = 0;
-            boolean first = true;
-            for (int j = start; j < i; j++) {
-                if (!keep[j - start]) {
-                    continue;
-                }
-                long x = Math.round(px[j] * 10);
-                long y = Math.round(py[j] * 10);
-                if (first) {
-                    d.append('M').append(tenths(x)).append(' ').append(tenths(y));
-                    if (i - start == 1) {
-                        d.append("h0.1");
-                    }
-                    first = false;
-                } else if (x != lastX || y != lastY) {
-                    d.append('l').append(tenths(x - lastX)).append(y - lastY < 0 ? "" : " ").append(tenths(y - lastY));
-                }
-                lastX = x;
-                lastY = y;
-            }
-        }
-        return d.toString();
-    }
-
-    /** Ramer-Douglas-Peucker: marks the points of [a, b] that stay within {@value #SIMPLIFY_PX} px. */
-    private static void simplify(double[] px, double[] py, int a, int b, boolean[] keep, int offset) {
-        java.util.ArrayDeque<int[]> stack = new java.util.ArrayDeque<>();
-        stack.push(new int[] {a, b});
-        while (!stack.isEmpty()) {
-            int[] seg = stack.pop();
-            double dx = px[seg[1]] - px[seg[0]];
-            double dy = py[seg[1]] - py[seg[0]];
-            double len = Math.hypot(dx, dy);
-            double worst = -1;
-            int at = -1;
-            for (int j = seg[0] + 1; j < seg[1]; j++) {
-                double dist = len == 0 ? Math.hypot(px[j] - px[seg[0]], py[j] - py[seg[0]])
-                        : Math.abs(dy * (px[j] - px[seg[0]]) - dx * (py[j] - py[seg[0]])) / len;
-                if (dist > worst) {
-                    worst = dist;
-                    at = j;
-                }
-            }
-            if (worst > SIMPLIFY_PX) {
-                keep[at - offset] = true;
-                stack.push(new int[] {seg[0], at});
-                stack.push(new int[] {at, seg[1]});
-            }
-        }
     }
 
     private static void marker(StringBuilder m, int shape, double x, double y) {

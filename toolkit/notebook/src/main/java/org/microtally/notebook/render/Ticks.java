@@ -34,6 +34,14 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
 
     /** Ticks for data in [min, max] on a linear axis, at most {@code maxTicks} (2..10). */
     static Ticks linear(double min, double max, int maxTicks) {
+        return linear(min, max, maxTicks, false);
+    }
+
+    /**
+     * As {@link #linear(double, double, int)}; with {@code integral} (data that are whole numbers, such
+     * as particle numbers or quanta) no fractional step is used.
+     */
+    static Ticks linear(double min, double max, int maxTicks, boolean integral) {
         if (!(min <= max) || !Double.isFinite(min) || !Double.isFinite(max)) {
             throw new IllegalArgumentException("axis range [" + min + ", " + max + "] is not a finite interval");
         }
@@ -52,6 +60,9 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
                 BigDecimal candidate = new BigDecimal(s).multiply(BigDecimal.valueOf(mag)).scaleByPowerOfTen(e)
                         .stripTrailingZeros();
                 double st = candidate.doubleValue();
+                if (integral && candidate.stripTrailingZeros().scale() > 0) {
+                    continue;
+                }
                 if (Math.ceil(max / st - 1e-9) - Math.floor(min / st + 1e-9) + 1 <= n) {
                     step = candidate;
                     break;

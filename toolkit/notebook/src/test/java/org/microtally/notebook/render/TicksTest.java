@@ -49,6 +49,9 @@ class TicksTest {
             assertEquals(decimals, l.length() - l.indexOf('.'), l);
         }
         assertEquals("0.5", Ticks.linear(0, 2.5, 6).labels()[1]);
+        // whole-number data (quanta, particle numbers) never get a fractional step such as 2.5
+        assertArrayEquals(new String[] {"0", "5", "10", "15", "20"}, Ticks.linear(0, 20, 10, true).labels());
+        assertEquals("2.5", Ticks.linear(0, 20, 10, false).labels()[1]);
     }
 
     @Test
