@@ -324,14 +324,10 @@ final class SvgChart {
     }
 
     private static String n(double v) {
-        return tenths(Math.round(v * 10));
+        return SvgPath.tenths(Math.round(v * 10));
     }
 
-    private static String tenths(long t) {
-        long a = Math.abs(t);
-        String s = (t < 0 ? "-" : "") + a / 10;
-        return a % 10 == 0 ? s : s + "." + a % 10;
-    }
+
 
     private static String hex(Color c) {
         return String.format(Locale.ROOT, "#%02x%02x%02x", c.getRed(), c.getGreen(), c.getBlue());

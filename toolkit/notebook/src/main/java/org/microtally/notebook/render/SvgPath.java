@@ -82,7 +82,8 @@ final class SvgPath {
         }
     }
 
-    private static String tenths(long t) {
+    /** {@code t} tenths as the shortest decimal: 12 -> "1.2", -30 -> "-3". */
+    static String tenths(long t) {
         long a = Math.abs(t);
         String s = (t < 0 ? "-" : "") + a / 10;
         return a % 10 == 0 ? s : s + "." + a % 10;
