@@ -10,29 +10,33 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.util.Objects;
+import java.math.BigDecimal;
+import java.math.BigInteger;
+import java.util.List;
+import org.apache.commons.math3.fraction.BigFraction;
+import org.apache.commons.math3.fraction.Fraction;
+import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
-import org.microtally.notebook.render.DisplayEnvironment;
-import org.microtally.notebook.render.Tables;
 import tech.tablesaw.api.Table;
 
 /**
- * CSV export (RFC 4180 style, comma separated, header row, UTF-8), written by Tablesaw.
+ * CSV export (RFC 4180: comma separated, header row, fields with commas, quotes or line breaks
+ * quoted and their quotes doubled; UTF-8, lines ended by LF).
  *
- * <p>A {@link Tabular} is first converted by {@link Tables#of(Tabular)}, so exact integers and
- * fractions are written with all their digits ({@code p/q} for fractions) and doubles in Java's
- * shortest round-trip form; nothing is rounded. Files are written to a temporary file beside the
+ * <p>A {@link Tabular} is written directly, independent of the display layer: exact integers and
+ * fractions with all their digits ({@code p/q} for fractions), doubles as {@link Double#toString}
+ * (which reads back to the same double), missing cells ({@code null} or the core's marker
+ * {@code "n/a"}) as empty fields; nothing is rounded. A Tablesaw {@link Table} is written by Tablesaw. Files are written to a temporary file beside the
  * target and moved into place, so a failed export never leaves a half-written file.
  */
 public final class Csv {
-    static {
-        DisplayEnvironment.prepare();
-    }
-
     private Csv() { }
 
     /** The CSV text of a result. */
     public static String text(Tabular table) {
-        return text(Tables.of(table));
+        StringWriter w = new StringWriter();
+        write(table, w);
+        return w.toString();
     }
 
     /** The CSV text of a Tablesaw table. */
@@ -44,12 +48,21 @@ public final class Csv {
 
     /** Writes a result as CSV to {@code file} (replacing it); returns the file. */
     public static Path write(Tabular table, Path file) {
-        return write(Tables.of(table), file);
+        Objects.requireNonNull(table, "table");
+        return replace(file, w -> write(table, w));
     }
 
     /** Writes a Tablesaw table as CSV to {@code file} (replacing it); returns the file. */
     public static Path write(Table table, Path file) {
         Objects.requireNonNull(table, "table");
+        return replace(file, w -> write(table, w));
+    }
+
+    private interface Body {
+        void writeTo(Writer w) throws IOException;
+    }
+
+    private static Path replace(Path file, Body body) {
         Path target = file.toAbsolutePath();
         Path dir = target.getParent();
         Path tmp = null;
@@ -59,7 +72,7 @@ public final class Csv {
             }
             tmp = Files.createTempFile(dir, "." + target.getFileName(), ".tmp");
             try (Writer w = Files.newBufferedWriter(tmp, StandardCharsets.UTF_8)) {
-                write(table, w);
+                body.writeTo(w);
             }
             try {
                 Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
@@ -90,5 +103,62 @@ public final class Csv {
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }
+    }
+
+    /** Writes a result as CSV to {@code out} (not closed). */
+    public static void write(Tabular table, Writer out) {
+        Objects.requireNonNull(table, "table");
+        Objects.requireNonNull(out, "out");
+        List<String> names = table.columnNames();
+        StringBuilder sb = new StringBuilder();
+        line(sb, names);
+        List<List<Object>> rows = table.rows();
+        for (int r = 0; r < rows.size(); r++) {
+            List<Object> row = rows.get(r);
+            if (row.size() != names.size()) {
+                throw InvalidInputException.of("number of cells in row " + r, row.size(),
+                        "equal to the number of columns (" + names.size() + ")", "Fix the Tabular implementation.");
+            }
+            line(sb, row);
+        }
+        try {
+            out.write(sb.toString());
+            out.flush();
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
+    private static void line(StringBuilder sb, List<?> cells) {
+        for (int c = 0; c < cells.size(); c++) {
+            if (c > 0) {
+                sb.append(',');
+            }
+            String f = field(cells.get(c));
+            if (f.indexOf(',') >= 0 || f.indexOf('"') >= 0 || f.indexOf('\n') >= 0 || f.indexOf('\r') >= 0) {
+                sb.append('"').append(f.replace("\"", "\"\"")).append('"');
+            } else {
+                sb.append(f);
+            }
+        }
+        sb.append('\n');
+    }
+
+    /** The exact text of one cell: all digits of exact numbers, p/q for fractions, empty when missing. */
+    static String field(Object v) {
+        if (v == null || "n/a".equals(v)) {
+            return "";
+        }
+        if (v instanceof BigFraction f) {
+            return f.getDenominator().equals(BigInteger.ONE) ? f.getNumerator().toString()
+                    : f.getNumerator() + "/" + f.getDenominator();
+        }
+        if (v instanceof Fraction f) {
+            return f.getDenominator() == 1 ? Integer.toString(f.getNumerator()) : f.getNumerator() + "/" + f.getDenominator();
+        }
+        if (v instanceof BigDecimal d) {
+            return d.toString();
+        }
+        return String.valueOf(v);
     }
 }

@@ -17,7 +17,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
-import org.microtally.notebook.render.DisplayEnvironment;
 import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.units.EnergyScale;
@@ -56,10 +55,6 @@ public final class SpectrumReader {
     private static final String ENERGY = "energy";
     private static final String DEGENERACY = "degeneracy";
     private static final String LABEL = "label";
-
-    static {
-        DisplayEnvironment.prepare();
-    }
 
     private SpectrumReader() { }
 

@@ -7,25 +7,13 @@ import java.awt.image.BufferedImage;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.math.BigInteger;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.Base64;
 import java.util.List;
 import java.util.Objects;
-import de.erichseifert.vectorgraphics2d.VectorGraphics2D;
-import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
-import de.erichseifert.vectorgraphics2d.util.PageSize;
 import javax.imageio.ImageIO;
-import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
-import org.microtally.count.CountTable;
-import org.microtally.count.MacrostateHistogram;
-import org.microtally.count.SharedTotal;
-import org.microtally.occupation.LevelOccupations;
-import org.microtally.spectrum.Spectrum;
-import org.knowm.xchart.BitmapEncoder;
 import org.knowm.xchart.CategoryChart;
 import org.knowm.xchart.CategoryChartBuilder;
 import org.knowm.xchart.XYChart;
@@ -39,7 +27,8 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
  * Charts of tabular results (XChart), in one consistent look of our own, and their encodings for
- * notebooks: PNG (drawn off-screen, headless) and SVG (drawn by VectorGraphics2D), both in memory.
+ * notebooks: compact SVG written by our own {@link SvgChart} (the default display) and, on request,
+ * PNG at twice the size painted by XChart off-screen (headless); both in memory.
  *
  * <p>Columns are chosen by name. Cells are converted to double for plotting only (a chart is a
  * picture): exact integers and fractions beyond the double range are refused with a message that
@@ -63,11 +52,74 @@ public final class Charts {
     private static final Color INK = new Color(0x23343a);
     private static final Color GRID = new Color(0xe1e8ea);
 
-    static {
-        DisplayEnvironment.prepare();
-    }
+    private static final java.util.Map<Chart<?, ?>, double[]> X_TICKS =
+            java.util.Collections.synchronizedMap(new java.util.WeakHashMap<>());
 
     private Charts() { }
+
+    /**
+     * Puts the x-axis ticks of {@code chart} at the given positions (for example the shell closings
+     * 2, 6, 12, 20, 30, 42) instead of round numbers; returns the chart. Used by the SVG writer.
+     *
+     * @throws InvalidInputException unless 1 to 20 finite, strictly increasing positions are given
+     */
+    public static <C extends Chart<?, ?>> C xTicks(C chart, double... positions) {
+        Objects.requireNonNull(chart, "chart");
+        if (positions == null || positions.length < 1 || positions.length > 20) {
+            throw InvalidInputException.of("number of tick positions", positions == null ? 0 : positions.length,
+                    "1 to 20", "Give the positions in increasing order.");
+        }
+        for (int i = 0; i < positions.length; i++) {
+            if (!Double.isFinite(positions[i]) || (i > 0 && positions[i] <= positions[i - 1])) {
+                throw InvalidInputException.of("tick position " + i, positions[i],
+                        "finite and greater than the one before", "Give the positions in increasing order.");
+            }
+        }
+        X_TICKS.put(chart, positions.clone());
+        return chart;
+    }
+
+    /**
+     * Adds a reference curve without markers: {@code f} evaluated at every x in {@code xs} (give a
+     * dense grid, so that jumps and kinks of a limit law are drawn where they are); returns the chart.
+     * Values that are not finite are left out of the drawing and counted in a note on the chart.
+     */
+    public static XYChart curve(XYChart chart, String name, double[] xs, java.util.function.DoubleUnaryOperator f) {
+        Objects.requireNonNull(chart, "chart");
+        Objects.requireNonNull(f, "f");
+        if (xs == null || xs.length < 2) {
+            throw InvalidInputException.of("number of x values", xs == null ? 0 : xs.length, ">= 2",
+                    "Give a dense grid of x values.");
+        }
+        double[] ys = new double[xs.length];
+        for (int i = 0; i < xs.length; i++) {
+            ys[i] = f.applyAsDouble(xs[i]);
+        }
+        XYSeries s = chart.addSeries(name, xs.clone(), ys);
+        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        s.setMarker(SeriesMarkers.NONE);
+        chart.getStyler().setLegendVisible(chart.getSeriesCollection().size() > 1);
+        return chart;
+    }
+
+    /** {@code n} evenly spaced values from {@code from} to {@code to}, both included (n >= 2). */
+    public static double[] grid(double from, double to, int n) {
+        if (n < 2 || !(from < to)) {
+            throw InvalidInputException.of("grid", from + ".." + to + " in " + n + " points",
+                    "from < to and n >= 2", "");
+        }
+        double[] g = new double[n];
+        for (int i = 0; i < n; i++) {
+            g[i] = i == n - 1 ? to : from + (to - from) * i / (n - 1);
+        }
+        return g;
+    }
+
+    /** The positions set by {@link #xTicks}, or null. */
+    static double[] xTicksOf(Chart<?, ?> chart) {
+        double[] t = X_TICKS.get(chart);
+        return t == null ? null : t.clone();
+    }
 
     /** Lines with small markers, one series per y column, against the x column. */
     public static XYChart line(Tabular table, String xColumn, String... yColumns) {
@@ -86,9 +138,9 @@ public final class Charts {
      */
     public static XYChart grouped(Tabular table, String groupColumn, String xColumn, String yColumn) {
         Objects.requireNonNull(table, "table");
-        int gc = columnIndex(table, groupColumn);
-        int xc = columnIndex(table, xColumn);
-        int yc = columnIndex(table, yColumn);
+        int gc = ChartCells.columnIndex(table, groupColumn);
+        int xc = ChartCells.columnIndex(table, xColumn);
+        int yc = ChartCells.columnIndex(table, yColumn);
         java.util.Map<String, List<double[]>> groups = new java.util.LinkedHashMap<>();
         List<List<Object>> rows = table.rows();
         for (int r = 0; r < rows.size(); r++) {
@@ -100,7 +152,7 @@ public final class Charts {
             }
             String g = CellText.shown(row.get(gc), TableFormat.DEFAULT);
             groups.computeIfAbsent(g, k -> new ArrayList<>())
-                    .add(new double[] {toDouble(x, r, xColumn), toDouble(y, r, yColumn)});
+                    .add(new double[] {ChartCells.toDouble(x, r, xColumn), ChartCells.toDouble(y, r, yColumn)});
         }
         if (groups.isEmpty()) {
             throw InvalidInputException.of("number of points", 0, ">= 1 (rows with both '" + xColumn + "' and '"
@@ -130,11 +182,11 @@ public final class Charts {
     public static CategoryChart bars(Tabular table, String categoryColumn, String... valueColumns) {
         Objects.requireNonNull(table, "table");
         requireSeries(valueColumns);
-        int cat = columnIndex(table, categoryColumn);
+        int cat = ChartCells.columnIndex(table, categoryColumn);
         CategoryChart chart = new CategoryChartBuilder().width(WIDTH).height(HEIGHT)
                 .xAxisTitle(categoryColumn).yAxisTitle(axisTitle(valueColumns)).build();
         for (String name : valueColumns) {
-            int c = columnIndex(table, name);
+            int c = ChartCells.columnIndex(table, name);
             List<String> xs = new ArrayList<>();
             List<Double> ys = new ArrayList<>();
             List<List<Object>> rows = table.rows();
@@ -142,7 +194,7 @@ public final class Charts {
                 Object x = rows.get(r).get(cat);
                 Object y = rows.get(r).get(c);
                 xs.add(x == null ? "" : CellText.shown(x, TableFormat.DEFAULT));
-                ys.add(CellText.isMissing(y) ? 0.0 : toDouble(y, r, name));
+                ys.add(CellText.isMissing(y) ? 0.0 : ChartCells.toDouble(y, r, name));
             }
             if (xs.isEmpty()) {
                 throw InvalidInputException.of("number of rows", 0, ">= 1 to draw a bar chart", "");
@@ -153,123 +205,6 @@ public final class Charts {
         chart.getStyler().setOverlapped(false);
         chart.getStyler().setLegendVisible(valueColumns.length > 1);
         chart.getStyler().setXAxisLabelRotation(xsRotation(table.rows().size()));
-        return chart;
-    }
-
-    /**
-     * The spectrum as a stick chart: one vertical line per level from 0 up to its degeneracy, at its
-     * energy; the x axis is titled with the spectrum's energy unit.
-     */
-    public static XYChart spectrum(Spectrum spectrum) {
-        Objects.requireNonNull(spectrum, "spectrum");
-        int n = spectrum.size();
-        double[] xs = new double[3 * n];
-        double[] ys = new double[3 * n];
-        for (int i = 0; i < n; i++) {
-            double e = spectrum.energy(i);
-            xs[3 * i] = e;
-            xs[3 * i + 1] = e;
-            xs[3 * i + 2] = e;
-            ys[3 * i + 1] = spectrum.degeneracy(i);
-        }
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .xAxisTitle("energy [" + spectrum.scale().name() + "]").yAxisTitle("degeneracy").build();
-        XYSeries s = chart.addSeries("levels", xs, ys);
-        s.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
-        s.setMarker(SeriesMarkers.NONE);
-        style(chart);
-        chart.getStyler().setLegendVisible(false);
-        chart.getStyler().setYAxisMin(0.0);
-        return chart;
-    }
-
-    /**
-     * ln Omega(n, E) against E for the given particle numbers (default: up to four evenly spaced n
-     * ending at N), one series per n; empty macrostates (Omega = 0) are left out. ln Omega is
-     * computed by the table from the exact integer ({@link CountTable#lnCount}).
-     */
-    public static XYChart counts(CountTable table, int... particleNumbers) {
-        Objects.requireNonNull(table, "table");
-        int[] ns = particleNumbers.length > 0 ? particleNumbers : defaultParticleNumbers(table.maxParticles());
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .xAxisTitle("E [" + table.spectrum().scale().name() + "]").yAxisTitle("ln Omega").build();
-        for (int n : ns) {
-            if (n < 0 || n > table.maxParticles()) {
-                throw InvalidInputException.of("particle number to plot", n, "in [0, " + table.maxParticles() + "]", "");
-            }
-            List<Double> xs = new ArrayList<>();
-            List<Double> ys = new ArrayList<>();
-            for (int e = 0; e <= table.maxEnergy(); e++) {
-                if (!table.isZero(n, e)) {
-                    xs.add((double) e);
-                    ys.add(table.lnCount(n, e));
-                }
-            }
-            if (!xs.isEmpty()) {
-                XYSeries series = chart.addSeries("n = " + n, xs, ys);
-                series.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
-            }
-        }
-        if (chart.getSeriesCollection().isEmpty()) {
-            throw InvalidInputException.of("particle numbers to plot", java.util.Arrays.toString(ns),
-                    "at least one with a non-empty macrostate for E <= " + table.maxEnergy(), "");
-        }
-        style(chart);
-        chart.getStyler().setLegendVisible(chart.getSeriesCollection().size() > 1);
-        return chart;
-    }
-
-    static int[] defaultParticleNumbers(int maxN) {
-        if (maxN <= 0) {
-            return new int[] {0};
-        }
-        int k = Math.min(4, maxN);
-        java.util.TreeSet<Integer> set = new java.util.TreeSet<>();
-        for (int i = 1; i <= k; i++) {
-            set.add((int) Math.round((double) i * maxN / k));
-        }
-        return set.stream().mapToInt(Integer::intValue).toArray();
-    }
-
-    /** The exact probability of every total of a macrostate histogram (as bars for up to 60 totals, else a line). */
-    public static Chart<?, ?> histogram(MacrostateHistogram histogram) {
-        Objects.requireNonNull(histogram, "histogram");
-        int span = histogram.maxTotal() - histogram.minTotal() + 1;
-        if (span <= 60) {
-            return bars(histogram, "total", "probability");
-        }
-        return line(histogram, "total", "probability");
-    }
-
-    /** The exact probability of every split q_A of a shared total, against q_A. */
-    public static XYChart split(SharedTotal shared) {
-        XYChart chart = line(Objects.requireNonNull(shared, "shared"), "q_A", "probability");
-        chart.setTitle("q = " + shared.total() + " shared: P(q_A)");
-        return chart;
-    }
-
-    /**
-     * Mean occupation of one state of each level against the level energy, one series per entry
-     * (for example the same spectrum under several statistics, or canonical next to grand
-     * canonical), in the map's iteration order.
-     */
-    public static XYChart occupations(java.util.Map<String, LevelOccupations> byName) {
-        Objects.requireNonNull(byName, "byName");
-        if (byName.isEmpty()) {
-            throw InvalidInputException.of("number of occupation profiles", 0, ">= 1", "");
-        }
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .xAxisTitle("level energy").yAxisTitle("<n> per state").build();
-        for (var e : byName.entrySet()) {
-            LevelOccupations o = e.getValue();
-            double[] xs = new double[o.size()];
-            for (int i = 0; i < xs.length; i++) {
-                xs[i] = o.energy(i);
-            }
-            chart.addSeries(e.getKey(), xs, o.perStateArray()).setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
-        }
-        style(chart);
-        chart.getStyler().setLegendVisible(byName.size() > 1);
         return chart;
     }
 
@@ -307,59 +242,74 @@ public final class Charts {
         return chart;
     }
 
-    /** The chart drawn as PNG at its own width and height (headless, off-screen, antialiased by XChart). */
-    public static byte[] png(Chart<?, ?> chart) {
-        DisplayEnvironment.prepare();
-        return encodePng(BitmapEncoder.getBufferedImage(chart));
-    }
-
     /**
-     * The chart drawn as an SVG document (UTF-8 XML text) at its own width and height: the chart
-     * paints itself onto a VectorGraphics2D canvas, whose SVG processor writes the document (text is
-     * drawn as outlines, so no markup from titles or names can reach the SVG).
+     * The chart drawn as PNG at twice its width and height (for high-resolution screens and print;
+     * shown at its own size by {@link #asPng}), headless and off-screen, by XChart's own Java2D
+     * painter in our style. Charts are shown as SVG by default ({@link #bundle}); PNG is on request.
      */
-    public static String svg(Chart<?, ?> chart) {
-        DisplayEnvironment.prepare();
-        VectorGraphics2D g = new VectorGraphics2D();
-        chart.paint(g, chart.getWidth(), chart.getHeight());
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
+    public static byte[] png(Chart<?, ?> chart) {
+        BufferedImage image = new BufferedImage(2 * chart.getWidth(), 2 * chart.getHeight(), BufferedImage.TYPE_INT_RGB);
+        java.awt.Graphics2D g = image.createGraphics();
         try {
-            new SVGProcessor().getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth(), chart.getHeight()))
-                    .writeTo(out);
-        } catch (IOException e) {
-            throw new UncheckedIOException("could not encode the chart as SVG", e);
+            g.scale(2, 2);
+            chart.paint(g, chart.getWidth(), chart.getHeight());
         } finally {
             g.dispose();
         }
-        return out.toString(StandardCharsets.UTF_8);
-    }
-
-    /** A display bundle for the chart: image/png (base64), image/svg+xml and a one-line text/plain. */
-    public static MimeBundle bundle(Chart<?, ?> chart) {
-        return MimeBundle.builder(describe(chart))
-                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(chart)))
-                .put(MimeBundle.IMAGE_SVG, svg(chart))
-                .build();
+        return encodePng(image);
     }
 
     /**
-     * A table bundle with charts under it: the HTML shows the table and then each chart as an
-     * embedded PNG ({@code <img class="mt-chart" src="data:image/png;base64,...">}); the plain text
-     * is the table text followed by each chart's one-line description. Other representations of
-     * {@code table} are kept.
+     * The chart as one bare SVG element (no XML declaration or DOCTYPE), drawn by our own writer:
+     * one path per series, coordinates on a tenth-pixel grid, thinned markers, real text. See
+     * {@link SvgChart} for the method. The same element can be placed inline in HTML.
+     */
+    public static String svg(Chart<?, ?> chart) {
+        return SvgChart.of(chart);
+    }
+
+    /**
+     * The display of a chart: {@code text/html} holding the SVG inline (in
+     * {@code <figure class="mt-figure">}) and a one-line {@code text/plain}. One picture format per
+     * output: inline SVG in HTML is what Jupyter's notebook, its lab interface and its HTML exporter
+     * all show as is (an {@code image/svg+xml} output is passed through an HTML cleaner by the
+     * exporter, which drops every drawing element). For a bitmap use {@link #asPng}.
+     */
+    public static MimeBundle bundle(Chart<?, ?> chart) {
+        return MimeBundle.builder(describe(chart)).put(MimeBundle.TEXT_HTML, figure(chart)).build();
+    }
+
+    /**
+     * The chart as a PNG display, on request: {@code text/html} with an {@code <img>} of the 2x bitmap
+     * shown at the chart's own size, and {@code image/png} for tools that want the bitmap itself.
+     */
+    public static MimeBundle asPng(Chart<?, ?> chart) {
+        String b64 = Base64.getEncoder().encodeToString(png(chart));
+        return MimeBundle.builder(describe(chart))
+                .put(MimeBundle.TEXT_HTML, "<figure class=\"mt-figure\"><img alt=\"" + Markup.escape(describe(chart))
+                        + "\" width=\"" + chart.getWidth() + "\" height=\"" + chart.getHeight()
+                        + "\" src=\"data:image/png;base64," + b64 + "\"/></figure>")
+                .put(MimeBundle.IMAGE_PNG, b64)
+                .build();
+    }
+
+    private static String figure(Chart<?, ?> chart) {
+        return "<figure class=\"mt-figure\" style=\"margin:0.4em 0\">" + svg(chart) + "</figure>";
+    }
+
+    /**
+     * A table bundle with charts under it: the HTML shows the table and then each chart as inline
+     * SVG ({@link #bundle}); the plain text is the table text followed by each chart's one-line
+     * description. Other representations of {@code table} are kept.
      */
     public static MimeBundle combine(MimeBundle table, Chart<?, ?>... charts) {
         StringBuilder plain = new StringBuilder(table.plain());
         String html = table.has(MimeBundle.TEXT_HTML) ? table.get(MimeBundle.TEXT_HTML)
-                : "<pre>" + Html.escape(table.plain()) + "</pre>";
+                : "<pre>" + Markup.escape(table.plain()) + "</pre>";
         StringBuilder figures = new StringBuilder(html);
         for (Chart<?, ?> chart : charts) {
-            String description = describe(chart);
-            plain.append('\n').append(description);
-            figures.append("<div class=\"mt-chart\"><img alt=\"").append(Html.escape(description))
-                    .append("\" width=\"").append(chart.getWidth()).append("\" height=\"").append(chart.getHeight())
-                    .append("\" src=\"data:image/png;base64,").append(Base64.getEncoder().encodeToString(png(chart)))
-                    .append("\"/></div>");
+            plain.append('\n').append(describe(chart));
+            figures.append(figure(chart));
         }
         MimeBundle.Builder b = MimeBundle.builder(plain.toString());
         for (var e : table.data().entrySet()) {
@@ -378,7 +328,6 @@ public final class Charts {
     }
 
     private static byte[] encodePng(BufferedImage image) {
-        DisplayEnvironment.prepare();
         ByteArrayOutputStream out = new ByteArrayOutputStream();
         try {
             if (!ImageIO.write(image, "png", out)) {
@@ -402,12 +351,12 @@ public final class Charts {
                               String... yColumns) {
         Objects.requireNonNull(table, "table");
         requireSeries(yColumns);
-        int xc = columnIndex(table, xColumn);
+        int xc = ChartCells.columnIndex(table, xColumn);
         XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
                 .xAxisTitle(xColumn).yAxisTitle(axisTitle(yColumns)).build();
         List<List<Object>> rows = table.rows();
         for (String name : yColumns) {
-            int yc = columnIndex(table, name);
+            int yc = ChartCells.columnIndex(table, name);
             double[] xs = new double[rows.size()];
             double[] ys = new double[rows.size()];
             int k = 0;
@@ -417,8 +366,8 @@ public final class Charts {
                 if (CellText.isMissing(x) || CellText.isMissing(y)) {
                     continue;
                 }
-                xs[k] = toDouble(x, r, xColumn);
-                ys[k] = toDouble(y, r, name);
+                xs[k] = ChartCells.toDouble(x, r, xColumn);
+                ys[k] = ChartCells.toDouble(y, r, name);
                 k++;
             }
             if (k == 0) {
@@ -445,44 +394,5 @@ public final class Charts {
 
     private static int xsRotation(int categories) {
         return categories > 16 ? 90 : 0;
-    }
-
-    static int columnIndex(Tabular table, String name) {
-        int i = table.columnNames().indexOf(name);
-        if (i < 0) {
-            throw InvalidInputException.of("column", "'" + name + "'", "one of " + table.columnNames(), "");
-        }
-        return i;
-    }
-
-    /** A cell as a double for plotting; exact values beyond the double range are refused. */
-    static double toDouble(Object v, int row, String column) {
-        double d;
-        if (v instanceof BigFraction f) {
-            d = CellText.decimalValue(f.getNumerator(), f.getDenominator());
-        } else if (v instanceof Number n) {
-            d = n.doubleValue();
-        } else if (v instanceof Boolean b) {
-            d = b ? 1 : 0;
-        } else if (v instanceof CharSequence cs) {
-            String s = cs.toString().strip();
-            try {
-                BigFraction f = s.indexOf('/') > 0 ? Tables.exactFraction(s) : null;
-                d = f != null ? CellText.decimalValue(f.getNumerator(), f.getDenominator())
-                        : s.matches("-?[0-9]+") ? new BigInteger(s).doubleValue() : Double.parseDouble(s);
-            } catch (NumberFormatException e) {
-                throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",
-                        "\"" + s + "\"", "a number to plot", "Choose a numeric column.");
-            }
-        } else {
-            throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'", v,
-                    "a number to plot", "Choose a numeric column.");
-        }
-        if (Double.isInfinite(d) && !(v instanceof Double || v instanceof Float)) {
-            throw InvalidInputException.of("cell in row " + row + ", column '" + column + "'",
-                    CellText.shown(v, TableFormat.DEFAULT), "at most 1.8e308 in magnitude to plot",
-                    "Plot its logarithm instead (for example ln Omega).");
-        }
-        return d;
     }
 }

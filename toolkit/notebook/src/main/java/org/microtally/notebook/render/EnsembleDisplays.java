@@ -19,18 +19,18 @@ import org.microtally.spectrum.Statistics;
 final class EnsembleDisplays {
     private EnsembleDisplays() { }
 
-    static void registerAll() {
-        Renderers.register(Canonical.class, EnsembleDisplays::canonical);
-        Renderers.register(GrandCanonical.class, EnsembleDisplays::grandCanonical);
-        Renderers.register(Microcanonical.class, EnsembleDisplays::microcanonical);
-        Renderers.register(EnsembleComparison.class, EnsembleDisplays::comparison);
-        Renderers.register(EnsembleComparison.ConvergenceSweep.class, EnsembleDisplays::convergence);
-        Renderers.register(LevelOccupations.class, o -> Charts.combine(
+    static void registerAll(Renderers r) {
+        r.put(Canonical.class, EnsembleDisplays::canonical);
+        r.put(GrandCanonical.class, EnsembleDisplays::grandCanonical);
+        r.put(Microcanonical.class, EnsembleDisplays::microcanonical);
+        r.put(EnsembleComparison.class, EnsembleDisplays::comparison);
+        r.put(EnsembleComparison.ConvergenceSweep.class, EnsembleDisplays::convergence);
+        r.put(LevelOccupations.class, o -> Charts.combine(
                 TableDisplay.bundle(o, String.format("Mean occupations of %d levels, %s particles in all", o.size(),
                         CellText.floating(o.total(), 8)), List.of()),
-                Charts.occupations(java.util.Map.of("<n> per state", o))));
-        Renderers.register(CondensateDistribution.class, EnsembleDisplays::condensate);
-        Renderers.register(GroundState.class, EnsembleDisplays::groundState);
+                OccupationCharts.occupations(java.util.Map.of("<n> per state", o))));
+        r.put(CondensateDistribution.class, EnsembleDisplays::condensate);
+        r.put(GroundState.class, EnsembleDisplays::groundState);
     }
 
     static MimeBundle canonical(Canonical c) {
@@ -73,17 +73,56 @@ final class EnsembleDisplays {
         String caption = String.format("Microcanonical ensemble: N = %d, E <= %d (%s)", m.particleNumber(),
                 m.maxEnergy(), m.table().statistics());
         MimeBundle table = TableDisplay.bundle(m, caption, m.warnings());
-        return Charts.combine(table, Charts.line(m, "E", "S_B", "S_G"));
+        var chart = Charts.line(m, "E", "S_B", "S_G");
+        chart.setTitle("Microcanonical entropy, N = " + m.particleNumber());
+        chart.setYAxisTitle("S / k");
+        return Charts.combine(table, chart);
     }
 
     static MimeBundle comparison(EnsembleComparison c) {
         MimeBundle table = TableDisplay.bundle(c, "Ensemble comparison", c.notes());
-        return Charts.combine(table, Charts.grouped(c, "ensemble", "kT", "U"), Charts.grouped(c, "ensemble", "kT", "C/k"));
+        var u = Charts.grouped(c, "ensemble", "kT", "U");
+        u.setTitle("Mean energy in each ensemble");
+        var heat = Charts.grouped(c, "ensemble", "kT", "C/k");
+        heat.setTitle("Heat capacity in each ensemble");
+        return Charts.combine(table, u, heat);
     }
 
+    /**
+     * A convergence sweep: its table (captioned with the temperature range), the size of the relative
+     * differences of U and C on log-log axes, and Var N_0 in both ensembles against N (log-log).
+     */
     static MimeBundle convergence(EnsembleComparison.ConvergenceSweep s) {
-        MimeBundle table = TableDisplay.bundle(s, "Canonical vs grand canonical as N grows", List.of());
-        return Charts.combine(table, Charts.line(s, "N", "rel. diff U", "rel. diff C"));
+        var points = s.points();
+        var first = points.get(0);
+        var last = points.get(points.size() - 1);
+        String caption = String.format("Canonical vs grand canonical as N grows: N = %d..%d, kT = %s..%s",
+                first.n(), last.n(), CellText.floating(first.kT(), 4), CellText.floating(last.kT(), 4));
+        MimeBundle table = TableDisplay.bundle(s, caption, List.of());
+        List<List<Object>> rows = new ArrayList<>();
+        for (var p : points) {
+            rows.add(java.util.Arrays.asList(p.n(), Math.abs(p.grandCanonical().relEnergy()),
+                    Math.abs(p.grandCanonical().relHeatCapacity()), p.canonical().groundVariance(),
+                    p.grandCanonical().groundVariance()));
+        }
+        var abs = Tables.tabular(List.of("N", "|rel. diff U|", "|rel. diff C|", "Var N_0 canonical",
+                "Var N_0 grand canonical"), rows);
+        var diff = logLog(abs, "Grand canonical minus canonical, relative", "|relative difference|",
+                "|rel. diff U|", "|rel. diff C|");
+        var var0 = logLog(abs, "Fluctuation of the ground-level number", "Var N_0",
+                "Var N_0 canonical", "Var N_0 grand canonical");
+        return Charts.combine(table, diff, var0);
+    }
+
+    /** A titled chart of columns against N on log-log axes. */
+    private static org.knowm.xchart.XYChart logLog(org.microtally.Tabular t, String title, String yTitle, String... ys) {
+        var c = Charts.line(t, "N", ys);
+        c.setTitle(title);
+        c.setXAxisTitle("N (particles)");
+        c.setYAxisTitle(yTitle);
+        c.getStyler().setXAxisLogarithmic(true);
+        c.getStyler().setYAxisLogarithmic(true);
+        return c;
     }
 
     static MimeBundle groundState(GroundState g) {
@@ -97,6 +136,8 @@ final class EnsembleDisplays {
     static MimeBundle condensate(CondensateDistribution d) {
         String caption = String.format("Ground-level number distribution: <N_0> = %s, Var N_0 = %s",
                 CellText.floating(d.mean(), 8), CellText.floating(d.variance(), 8));
-        return Charts.combine(TableDisplay.bundle(d, caption, List.of()), Charts.line(d, "N0", "probability"));
+        var chart = Charts.line(d, "N0", "probability");
+        chart.setTitle("Distribution of the ground-level number N_0");
+        return Charts.combine(TableDisplay.bundle(d, caption, List.of()), chart);
     }
 }

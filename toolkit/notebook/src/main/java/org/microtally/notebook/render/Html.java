@@ -15,30 +15,13 @@ public record Html(String markup) {
         Objects.requireNonNull(markup, "markup");
     }
 
-    /** Escapes {@code &, <, >, ", '} so that {@code text} can be placed in element content or an attribute. */
+    /** Escapes {@code &, <, >, ", '} for element content or attributes ({@link Markup#escape}). */
     public static String escape(String text) {
-        StringBuilder sb = new StringBuilder(text.length() + 16);
-        for (int i = 0; i < text.length(); i++) {
-            char c = text.charAt(i);
-            switch (c) {
-                case '&' -> sb.append("&amp;");
-                case '<' -> sb.append("&lt;");
-                case '>' -> sb.append("&gt;");
-                case '"' -> sb.append("&quot;");
-                case '\'' -> sb.append("&#39;");
-                default -> sb.append(c);
-            }
-        }
-        return sb.toString();
+        return Markup.escape(text);
     }
 
-    /** The text a reader would see: tags dropped, {@code <br>}/block ends as line breaks, entities decoded. */
+    /** The text a reader would see ({@link Markup#plainText}). */
     public String text() {
-        String s = markup.replaceAll("(?i)<br\\s*/?>|</(p|div|tr|h[1-6]|li|table|caption)>", "\n");
-        s = s.replaceAll("(?s)<(script|style)[^>]*>.*?</\\1>", "");
-        s = s.replaceAll("(?s)<[^>]*>", "");
-        s = s.replace("&lt;", "<").replace("&gt;", ">").replace("&quot;", "\"").replace("&#39;", "'")
-                .replace("&nbsp;", " ").replace("&amp;", "&");
-        return s.strip();
+        return Markup.plainText(markup);
     }
 }

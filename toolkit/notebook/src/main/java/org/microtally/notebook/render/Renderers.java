@@ -48,46 +48,77 @@ import tech.tablesaw.api.Table;
  * <p>If a renderer throws, a {@link Tabular} value is shown by the generic table display and any
  * other value by {@code String.valueOf}, with a line saying that rendering failed and why, so a
  * display problem never hides the value or fails the cell.
+ *
+ * <p>A registry is an object: {@link #withBuiltIns()} makes a fresh one (an engine can own its own
+ * and add renderers without touching any other), and the static {@link #render(Object)} and
+ * {@link #register} work on one shared default instance, {@link #standard()}. Creating a registry
+ * prepares the JVM for drawing once ({@link DisplayEnvironment#prepare()}).
  */
 public final class Renderers {
     /** Elements of an array or collection shown in plain text before the rest is summarised. */
     public static final int MAX_ELEMENTS = 100;
 
-    private static final Map<Class<?>, Function<Object, MimeBundle>> REGISTRY = new ConcurrentHashMap<>();
-
-    static {
-        DisplayEnvironment.prepare();
-        register(MimeBundle.class, b -> b);
-        register(Html.class, h -> MimeBundle.builder(h.text()).put(MimeBundle.TEXT_HTML, h.markup()).build());
-        register(Markdown.class, m -> MimeBundle.builder(m.source()).put(MimeBundle.TEXT_MARKDOWN, m.source()).build());
-        register(Latex.class, l -> MimeBundle.builder(l.source()).put(MimeBundle.TEXT_LATEX, l.source()).build());
-        register(Tabular.class, t -> TableDisplay.bundle(t, caption(t), List.of()));
-        register(Table.class, t -> TableDisplay.bundle(Tables.asTabular(t), t.name(), List.of()));
-        register(Spectrum.class, Renderers::spectrum);
-        register(Energy.class, Renderers::energy);
-        register(BigFraction.class, Renderers::fraction);
-        register(Chart.class, Charts::bundle);
-        register(BufferedImage.class, Charts::bundle);
-        register(Collection.class, c -> MimeBundle.text(collection(c)));
-        register(Map.class, m -> MimeBundle.text(map(m)));
-        ResultDisplays.registerAll();
-        EnsembleDisplays.registerAll();
+    private static final class Default {
+        static final Renderers INSTANCE = withBuiltIns();
     }
 
-    private Renderers() { }
+    private final Map<Class<?>, Function<Object, MimeBundle>> registry = new ConcurrentHashMap<>();
+
+    private Renderers() {
+        DisplayEnvironment.prepare();
+    }
+
+    /** A new registry holding the built-in renderers listed above. */
+    public static Renderers withBuiltIns() {
+        Renderers r = new Renderers();
+        r.put(MimeBundle.class, b -> b);
+        r.put(Html.class, h -> MimeBundle.builder(h.text()).put(MimeBundle.TEXT_HTML, h.markup()).build());
+        r.put(Markdown.class, m -> MimeBundle.builder(m.source()).put(MimeBundle.TEXT_MARKDOWN, m.source()).build());
+        r.put(Latex.class, l -> MimeBundle.builder(l.source()).put(MimeBundle.TEXT_LATEX, l.source()).build());
+        r.put(Tabular.class, t -> TableDisplay.bundle(t, caption(t), List.of()));
+        r.put(Tables.AllRows.class, a -> TableDisplay.bundle(a.table(), caption(a.table()), List.of(),
+                TableFormat.DEFAULT.allRows()));
+        r.put(Table.class, t -> TableDisplay.bundle(Tables.asTabular(t), t.name(), List.of()));
+        r.put(Spectrum.class, Renderers::spectrum);
+        r.put(Energy.class, Renderers::energy);
+        r.put(BigFraction.class, Renderers::fraction);
+        r.put(Chart.class, Charts::bundle);
+        r.put(BufferedImage.class, Charts::bundle);
+        r.put(Collection.class, c -> MimeBundle.text(collection(c)));
+        r.put(Map.class, m -> MimeBundle.text(map(m)));
+        ResultDisplays.registerAll(r);
+        EnsembleDisplays.registerAll(r);
+        return r;
+    }
+
+    /** The shared default registry used by the static {@link #render(Object)} and {@link #register}. */
+    public static Renderers standard() {
+        return Default.INSTANCE;
+    }
 
     /**
      * Registers (or replaces) the renderer for values of {@code type} and its subtypes that have no
-     * more specific renderer. Thread-safe; takes effect for the next {@link #render(Object)}.
+     * more specific renderer, in this registry. Thread-safe; takes effect for the next display.
      */
-    public static <T> void register(Class<T> type, Function<? super T, MimeBundle> renderer) {
+    public <T> Renderers put(Class<T> type, Function<? super T, MimeBundle> renderer) {
         Objects.requireNonNull(type, "type");
         Objects.requireNonNull(renderer, "renderer");
-        REGISTRY.put(type, v -> renderer.apply(type.cast(v)));
+        registry.put(type, v -> renderer.apply(type.cast(v)));
+        return this;
     }
 
-    /** The bundle for {@code value} (never null; {@code null} renders as the text "null"). */
+    /** Registers a renderer in the {@linkplain #standard() default registry} (see {@link #put}). */
+    public static <T> void register(Class<T> type, Function<? super T, MimeBundle> renderer) {
+        standard().put(type, renderer);
+    }
+
+    /** The bundle for {@code value} from the default registry (never null; {@code null} renders as "null"). */
     public static MimeBundle render(Object value) {
+        return standard().display(value);
+    }
+
+    /** The bundle for {@code value} from this registry (never null; {@code null} renders as the text "null"). */
+    public MimeBundle display(Object value) {
         if (value == null) {
             return MimeBundle.text("null");
         }
@@ -99,34 +130,38 @@ public final class Renderers {
             MimeBundle b = r == null ? null : r.apply(value);
             return b != null ? b : MimeBundle.text(String.valueOf(value));
         } catch (RuntimeException | LinkageError e) {
-            if (value instanceof Tabular t) {
-                try {
-                    MimeBundle generic = TableDisplay.bundle(t, caption(t), List.of());
-                    MimeBundle.Builder b = MimeBundle.builder(generic.plain() + "\n(rich display failed: " + e
-                            + "; shown as a plain table)");
-                    generic.data().forEach((k, v) -> {
-                        if (!k.equals(MimeBundle.TEXT_PLAIN)) {
-                            b.put(k, v);
-                        }
-                    });
-                    return b.build();
-                } catch (RuntimeException ignored) {
-                    // the table itself cannot be shown: fall through to text
-                }
-            }
-            String plain;
-            try {
-                plain = String.valueOf(value);
-            } catch (RuntimeException e2) {
-                plain = value.getClass().getName();
-            }
-            return MimeBundle.text(plain + "\n(rich display failed: " + e + ")");
+            return failed(value, e);
         }
     }
 
-    private static Function<Object, MimeBundle> lookup(Class<?> type) {
+    private static MimeBundle failed(Object value, Throwable e) {
+        if (value instanceof Tabular t) {
+            try {
+                MimeBundle generic = TableDisplay.bundle(t, caption(t), List.of());
+                MimeBundle.Builder b = MimeBundle.builder(generic.plain() + "\n(rich display failed: " + e
+                        + "; shown as a plain table)");
+                generic.data().forEach((k, v) -> {
+                    if (!k.equals(MimeBundle.TEXT_PLAIN)) {
+                        b.put(k, v);
+                    }
+                });
+                return b.build();
+            } catch (RuntimeException ignored) {
+                // the table itself cannot be shown: fall through to text
+            }
+        }
+        String plain;
+        try {
+            plain = String.valueOf(value);
+        } catch (RuntimeException e2) {
+            plain = value.getClass().getName();
+        }
+        return MimeBundle.text(plain + "\n(rich display failed: " + e + ")");
+    }
+
+    private Function<Object, MimeBundle> lookup(Class<?> type) {
         for (Class<?> c = type; c != null; c = c.getSuperclass()) {
-            Function<Object, MimeBundle> r = REGISTRY.get(c);
+            Function<Object, MimeBundle> r = registry.get(c);
             if (r != null) {
                 return r;
             }
@@ -141,7 +176,7 @@ public final class Renderers {
             if (!seen.add(i)) {
                 continue;
             }
-            Function<Object, MimeBundle> r = REGISTRY.get(i);
+            Function<Object, MimeBundle> r = registry.get(i);
             if (r != null) {
                 return r;
             }
@@ -150,19 +185,23 @@ public final class Renderers {
         return null;
     }
 
+    private static final java.util.regex.Pattern OBJECT_HASH = java.util.regex.Pattern.compile("\\w@[0-9a-f]{5,8}\\b");
+
     /** Longest {@code toString()} used as a table caption. */
     static final int MAX_CAPTION = 160;
 
     /**
-     * The caption of a generic table: the value's own {@code toString()} when its class defines one
-     * and it is short (at most {@value #MAX_CAPTION} characters, one line), else its class's simple
+     * The caption of a generic table: the value's own {@code toString()} when its class defines one,
+     * it shows no object hash, and it is short (at most {@value #MAX_CAPTION} characters, one line), else its class's simple
      * name (none for anonymous classes).
      */
     static String caption(Object value) {
         try {
             if (value.getClass().getMethod("toString").getDeclaringClass() != Object.class) {
                 String s = value.toString();
-                if (s != null && s.length() <= MAX_CAPTION && s.indexOf('\n') < 0) {
+                // an object hash (ClassName@1b6d3586, as in a record holding a value without its own
+                // toString) says nothing to a reader: not a caption
+                if (s != null && s.length() <= MAX_CAPTION && s.indexOf('\n') < 0 && !OBJECT_HASH.matcher(s).find()) {
                     return s;
                 }
             }
@@ -219,8 +258,8 @@ public final class Renderers {
     }
 
     private static String collection(Collection<?> c) {
-        StringBuilder sb = new StringBuilder(c.getClass().getSimpleName().isEmpty() ? "Collection"
-                : c.getClass().getSimpleName()).append(" of ").append(c.size()).append(": [");
+        String kind = c instanceof List ? "List" : c instanceof Set ? "Set" : "Collection";
+        StringBuilder sb = new StringBuilder(kind).append(" of ").append(c.size()).append(": [");
         Iterator<?> it = c.iterator();
         for (int i = 0; i < MAX_ELEMENTS && it.hasNext(); i++) {
             if (i > 0) {

@@ -21,16 +21,16 @@ final class ResultDisplays {
     /** Most particle-number columns in the grid view of a count table. */
     static final int GRID_COLUMNS = 9;
     /** The grid of a count table has up to 10 columns (E and 9 particle numbers) of exact integers: shown in full up to 20 digits. */
-    static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 8, 20, 5);
+    static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 6, 60, 20);
 
     private ResultDisplays() { }
 
-    static void registerAll() {
-        Renderers.register(CountTable.class, ResultDisplays::countTable);
-        Renderers.register(LabelledCountTable.class, ResultDisplays::labelledCountTable);
-        Renderers.register(MacrostateHistogram.class, ResultDisplays::histogram);
-        Renderers.register(SharedTotal.class, ResultDisplays::sharedTotal);
-        Renderers.register(ReferenceTable.class, ResultDisplays::referenceTable);
+    static void registerAll(Renderers r) {
+        r.put(CountTable.class, ResultDisplays::countTable);
+        r.put(LabelledCountTable.class, ResultDisplays::labelledCountTable);
+        r.put(MacrostateHistogram.class, ResultDisplays::histogram);
+        r.put(SharedTotal.class, ResultDisplays::sharedTotal);
+        r.put(ReferenceTable.class, ResultDisplays::referenceTable);
     }
 
     // ---- count tables
@@ -98,8 +98,8 @@ final class ResultDisplays {
             notes.add("Closed form: Omega(n, E) = C(E + n - 1, E), n distinguishable oscillators sharing E quanta.");
         }
         String caption = String.format("Exact counts Omega(n, E): %s, n <= %d, E <= %d, %s", t.statistics(),
-                t.maxParticles(), t.maxEnergy(), t.spectrum());
-        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes, GRID_FORMAT), Charts.counts(t));
+                t.maxParticles(), t.maxEnergy(), levels(t.spectrum()));
+        MimeBundle both = Charts.combine(TableDisplay.bundle(grid(t, ns), caption, notes, GRID_FORMAT), CountCharts.counts(t));
         return einstein ? withLatex(both, "$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$") : both;
     }
 
@@ -180,7 +180,7 @@ final class ResultDisplays {
             notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles() + " shown.");
         }
         String caption = String.format("Label-resolved counts: %s, n <= %d%s, %s", t.statistics(), t.maxParticles(),
-                t.energyIgnored() ? "" : ", E <= " + t.maxEnergy(), t.spectrum());
+                t.energyIgnored() ? "" : ", E <= " + t.maxEnergy(), levels(t.spectrum()));
         return TableDisplay.bundle(Tables.tabular(names, rows), caption, notes, GRID_FORMAT);
     }
 
@@ -190,17 +190,22 @@ final class ResultDisplays {
         String caption = String.format("Macrostate histogram: totals %d..%d, %s microstates in all, most probable %s",
                 h.minTotal(), h.maxTotal(), CellText.shown(h.totalMultiplicity(), TableFormat.DEFAULT),
                 h.mostProbableTotals());
-        return Charts.combine(TableDisplay.bundle(h, caption, List.of()), Charts.histogram(h));
+        return Charts.combine(TableDisplay.bundle(h, caption, List.of()), CountCharts.histogram(h));
     }
 
     static MimeBundle sharedTotal(SharedTotal s) {
         String caption = String.format("Shared total q = %d: most probable q_A = %d, mean %s, width %s",
                 s.total(), s.mostProbableSplit(), CellText.floating(s.mean(), 8), CellText.floating(s.width(), 8));
-        return Charts.combine(TableDisplay.bundle(s, caption, List.of()), Charts.split(s));
+        return Charts.combine(TableDisplay.bundle(s, caption, List.of()), CountCharts.split(s));
     }
 
     // ---- thermodynamic-limit references
 
+    /**
+     * A reference sweep: its table and one chart per dimensionless quantity (at most two; a column
+     * named "q Sommerfeld" or "q exact" shares the chart of "q"), against the
+     * reduced temperature, on a log axis where the temperatures span more than two decades.
+     */
     static MimeBundle referenceTable(ReferenceTable t) {
         MimeBundle table = TableDisplay.bundle(t, "Thermodynamic-limit reference values", List.of());
         List<String> ys = new ArrayList<>();
@@ -208,7 +213,39 @@ final class ResultDisplays {
         if (x == null || ys.isEmpty() || t.rows().size() < 2) {
             return table;
         }
-        return Charts.combine(table, Charts.line(t, x, ys.toArray(new String[0])));
+        int xc = t.columnNames().indexOf(x);
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = 0;
+        for (List<Object> r : t.rows()) {
+            if (r.get(xc) instanceof Number n && n.doubleValue() > 0) {
+                lo = Math.min(lo, n.doubleValue());
+                hi = Math.max(hi, n.doubleValue());
+            }
+        }
+        boolean logX = lo > 0 && hi / lo > 100;
+        // one chart per quantity: a column "q Sommerfeld" (any "q <variant>") is drawn with "q"
+        java.util.Map<String, List<String>> groups = new java.util.LinkedHashMap<>();
+        for (String y : ys) {
+            String base = y;
+            for (String other : ys) {
+                if (y.startsWith(other + " ")) {
+                    base = other;
+                }
+            }
+            groups.computeIfAbsent(base, k -> new ArrayList<>()).add(y);
+        }
+        List<org.knowm.xchart.XYChart> charts = new ArrayList<>();
+        for (var g : groups.entrySet()) {
+            if (charts.size() == 2) {
+                break;
+            }
+            var c = Charts.line(t, x, g.getValue().toArray(new String[0]));
+            c.setTitle(g.getKey() + " against " + x);
+            c.setYAxisTitle(g.getKey());
+            c.getStyler().setXAxisLogarithmic(logX);
+            charts.add(c);
+        }
+        return Charts.combine(table, charts.toArray(new org.knowm.xchart.XYChart[0]));
     }
 
     /**
@@ -236,6 +273,11 @@ final class ResultDisplays {
     }
 
     // ---- helpers
+
+    /** A spectrum in a caption: {@code 41 levels (861 states) in hbar*omega}. */
+    static String levels(Spectrum s) {
+        return String.format("%,d levels (%,d states) in %s", s.size(), s.stateCount(), s.scale().name());
+    }
 
     /** {@code bundle} with a text/latex representation added. */
     static MimeBundle withLatex(MimeBundle bundle, String latex) {

@@ -1,5 +1,7 @@
 package org.microtally.notebook.render;
 
+import java.math.BigDecimal;
+import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
@@ -15,16 +17,19 @@ import org.microtally.Tabular;
 public final class TableDisplay {
     /** The style sheet scoped to our own class names; included once at the top of each HTML table. */
     public static final String STYLE = "<style>"
-            + ".mt-table{border-collapse:collapse;font-size:0.9em;font-variant-numeric:tabular-nums;margin:0.3em 0}"
-            + ".mt-caption{font-weight:600;color:#1f5f6b;margin:0.3em 0 0.1em 0}"
-            + ".mt-table th{border-bottom:2px solid #1f5f6b;padding:0.25em 0.7em;text-align:right;color:#23343a;white-space:nowrap}"
+            + ".mt-result{margin:0.4em 0}"
+            + ".mt-caption{color:#1f5f6b;font-weight:600;border-left:3px solid #d08c2b;padding:0 0 0 0.45em;margin:0.3em 0}"
+            + ".mt-table{border-collapse:collapse;font-variant-numeric:tabular-nums;margin:0.2em 0}"
+            + ".mt-table th{background:#eef4f4;color:#35545b;font-weight:500;font-size:0.8em;padding:0.3em 0.6em;"
+            + "text-align:right;vertical-align:bottom;white-space:normal;max-width:8.5em;line-height:1.2}"
             + ".mt-table th.mt-text{text-align:left}"
-            + ".mt-table td{padding:0.2em 0.7em;border-bottom:1px solid #dde4e6}"
-            + ".mt-table td.mt-num{text-align:right;white-space:nowrap}"
+            + ".mt-table td{padding:0.12em 0.6em;font-family:'DejaVu Sans Mono',monospace;font-size:0.82em;white-space:nowrap}"
+            + ".mt-table tbody tr:nth-child(5n) td{border-bottom:1px solid #dfe6e7}"
+            + ".mt-table td.mt-num{text-align:right}"
             + ".mt-table td.mt-text{text-align:left}"
             + ".mt-table td.mt-cut{color:#8a4b12;cursor:help}"
-            + ".mt-table tr.mt-gap td{text-align:left;color:#6b7b80;font-style:italic;border-bottom:1px dashed #b8c4c7}"
-            + ".mt-note{color:#55666b;font-size:0.85em;margin:0.15em 0}"
+            + ".mt-table tr.mt-gap td{text-align:center;color:#8a6d3b;background:#fbf7ef;font-family:inherit;font-style:normal}"
+            + ".mt-note{color:#55666b;font-size:0.85em;margin:0.2em 0;max-width:46em}"
             + "</style>";
 
     private TableDisplay() { }
@@ -43,8 +48,10 @@ public final class TableDisplay {
     }
 
     /**
-     * The aligned plain-text table: optional caption line, header, rule, rows (numbers right-aligned),
-     * a {@code … n rows omitted …} line where rows were elided, a size line when anything was left out,
+     * The aligned plain-text table: optional caption line, header, a light rule, rows (numbers
+     * right-aligned, one format per floating-point column, {@link ColumnNumbers}), a
+     * {@code ⋮ n rows not shown} line at each gap of a shortened table ({@link TableFormat}), a note
+     * saying which rows are shown and how to see all,
      * then the notes.
      */
     public static String plain(Tabular table, String caption, List<String> notes, TableFormat format) {
@@ -60,71 +67,125 @@ public final class TableDisplay {
         return html(Snapshot.of(table, format), caption, notes);
     }
 
-    /** The shown rows of a table, already formatted, with the size and elision position. */
-    private record Snapshot(List<String> columns, List<Row> rows, int totalRows, int gapAfter, boolean[] numeric) {
-        record Row(String[] shown, String[] exact) { }
+    /** The shown rows of a table, already formatted, with the size and the gaps. */
+    private record Snapshot(List<String> columns, List<Row> rows, int totalRows, boolean[] gapBefore, boolean[] numeric,
+                            String sizeNote) {
+        record Row(int index, String[] shown, String[] exact) { }
 
         static Snapshot of(Tabular table, TableFormat format) {
             Objects.requireNonNull(table, "table");
             List<String> columns = List.copyOf(table.columnNames());
             List<List<Object>> all = table.rows();
             int total = all.size();
-            List<Integer> indices = new ArrayList<>();
-            int gapAfter = -1;
+            int n = columns.size();
+            for (int i = 0; i < total; i++) {
+                if (all.get(i).size() != n) {
+                    throw InvalidInputException.of("number of cells in row " + i, all.get(i).size(),
+                            "equal to the number of columns (" + n + ")", "Fix the Tabular implementation.");
+                }
+            }
+            java.util.TreeSet<Integer> indices = new java.util.TreeSet<>();
+            String sizeNote = null;
             if (format.elides(total)) {
-                for (int i = 0; i < format.headRows(); i++) {
+                int edge = format.edgeRows();
+                int w = format.windowRows();
+                int[] peak = peak(all, n);
+                int from = peak == null ? 0 : Math.max(0, Math.min(total - w, peak[0] - w / 2));
+                for (int i = 0; i < edge; i++) {
+                    indices.add(i);
+                    indices.add(total - 1 - i);
+                }
+                for (int i = from; i < from + w; i++) {
                     indices.add(i);
                 }
-                gapAfter = format.headRows();
-                for (int i = total - format.tailRows(); i < total; i++) {
-                    indices.add(i);
-                }
+                sizeNote = String.format("%,d of %,d rows shown: %s. Every row: show(Tables.allRows(table)).",
+                        indices.size(), total, peak == null ? "the first " + w + " and the last " + edge
+                        : "first and last " + edge + ", and " + w + " around the largest '" + columns.get(peak[1])
+                        + "' (row " + (peak[0] + 1) + ")");
             } else {
                 for (int i = 0; i < total; i++) {
                     indices.add(i);
                 }
             }
-            int n = columns.size();
+            List<Integer> shownIdx = new ArrayList<>(indices);
+            ColumnNumbers[] formats = new ColumnNumbers[n];
+            for (int c = 0; c < n; c++) {
+                List<Object> cells = new ArrayList<>(shownIdx.size());
+                for (int i : shownIdx) {
+                    cells.add(all.get(i).get(c));
+                }
+                formats[c] = ColumnNumbers.of(cells, format.significantDigits());
+            }
             boolean[] numeric = new boolean[n];
             boolean[] seen = new boolean[n];
-            List<Row> rows = new ArrayList<>(indices.size());
-            for (int i : indices) {
+            List<Row> rows = new ArrayList<>(shownIdx.size());
+            boolean[] gapBefore = new boolean[shownIdx.size() + 1];
+            int previous = -1;
+            for (int k = 0; k < shownIdx.size(); k++) {
+                int i = shownIdx.get(k);
+                gapBefore[k] = i != previous + 1;
+                previous = i;
                 List<Object> cells = all.get(i);
-                if (cells.size() != n) {
-                    throw InvalidInputException.of("number of cells in row " + i, cells.size(),
-                            "equal to the number of columns (" + n + ")", "Fix the Tabular implementation.");
-                }
                 String[] shown = new String[n];
                 String[] exact = new String[n];
                 for (int c = 0; c < n; c++) {
                     Object v = cells.get(c);
-                    shown[c] = CellText.shown(v, format);
+                    shown[c] = formats[c] != null && !CellText.isMissing(v) ? formats[c].shown(v) : CellText.shown(v, format);
                     exact[c] = CellText.exact(v);
                     if (!CellText.isMissing(v)) {
                         numeric[c] = seen[c] ? numeric[c] && CellText.isNumeric(v) : CellText.isNumeric(v);
                         seen[c] = true;
                     }
                 }
-                rows.add(new Row(shown, exact));
+                rows.add(new Row(i, shown, exact));
             }
-            return new Snapshot(columns, rows, total, gapAfter, numeric);
+            gapBefore[shownIdx.size()] = previous != total - 1;
+            return new Snapshot(columns, rows, total, gapBefore, numeric, sizeNote);
         }
 
-        boolean elided() {
-            return gapAfter >= 0;
+        /** Row and column of the largest value of the first numeric column (after the first) peaking inside, or null. */
+        private static int[] peak(List<List<Object>> all, int n) {
+            for (int c = 1; c < n; c++) {
+                BigDecimal best = null;
+                int at = -1;
+                boolean usable = true;
+                for (int i = 0; i < all.size() && usable; i++) {
+                    BigDecimal v = key(all.get(i).get(c));
+                    if (v == null) {
+                        usable = CellText.isMissing(all.get(i).get(c));
+                    } else if (best == null || v.compareTo(best) > 0) {
+                        best = v;
+                        at = i;
+                    }
+                }
+                if (usable && at > 0 && at < all.size() - 1) {
+                    return new int[] {at, c};
+                }
+            }
+            return null;
         }
 
-        int omitted() {
-            return totalRows - rows.size();
+        private static BigDecimal key(Object v) {
+            if (v instanceof BigInteger b) {
+                return new BigDecimal(b);
+            }
+            if (v instanceof BigDecimal d) {
+                return d;
+            }
+            if (v instanceof Long || v instanceof Integer || v instanceof Short || v instanceof Byte) {
+                return BigDecimal.valueOf(((Number) v).longValue());
+            }
+            if ((v instanceof Double || v instanceof Float) && Double.isFinite(((Number) v).doubleValue())) {
+                return new BigDecimal(((Number) v).doubleValue());
+            }
+            return null;
         }
 
-        String sizeLine() {
-            return String.format("%,d rows \u00d7 %d columns; showing the first %d and the last %d", totalRows,
-                    columns.size(), gapAfter, rows.size() - gapAfter);
-        }
-
-        String gapLine() {
-            return String.format("\u2026 %,d rows omitted \u2026", omitted());
+        /** The text of the gap before shown row k (k == rows().size() for a gap after the last). */
+        String gapText(int k) {
+            int from = k == 0 ? 0 : rows.get(k - 1).index() + 1;
+            int to = k == rows.size() ? totalRows : rows.get(k).index();
+            return String.format("\u22ee %,d %s not shown", to - from, to - from == 1 ? "row" : "rows");
         }
     }
 
@@ -145,20 +206,22 @@ public final class TableDisplay {
         appendLine(sb, header, width, s.numeric());
         String[] rule = new String[n];
         for (int c = 0; c < n; c++) {
-            rule[c] = "-".repeat(Math.max(1, width[c]));
+            rule[c] = "\u2500".repeat(Math.max(1, width[c]));
         }
         appendLine(sb, rule, width, s.numeric());
-        for (int i = 0; i < s.rows().size(); i++) {
-            if (i == s.gapAfter()) {
-                sb.append(s.gapLine()).append('\n');
+        for (int i = 0; i <= s.rows().size(); i++) {
+            if (s.gapBefore()[i] && s.totalRows() > 0) {
+                sb.append("  ").append(s.gapText(i)).append('\n');
             }
-            appendLine(sb, s.rows().get(i).shown(), width, s.numeric());
+            if (i < s.rows().size()) {
+                appendLine(sb, s.rows().get(i).shown(), width, s.numeric());
+            }
         }
         if (s.totalRows() == 0) {
             sb.append("(no rows)\n");
         }
-        if (s.elided()) {
-            sb.append('(').append(s.sizeLine()).append(")\n");
+        if (s.sizeNote() != null) {
+            sb.append(s.sizeNote()).append('\n');
         }
         if (notes != null) {
             for (String note : notes) {
@@ -195,10 +258,13 @@ public final class TableDisplay {
                     .append(Html.escape(s.columns().get(c))).append("</th>");
         }
         sb.append("</tr></thead><tbody>");
-        for (int i = 0; i < s.rows().size(); i++) {
-            if (i == s.gapAfter()) {
+        for (int i = 0; i <= s.rows().size(); i++) {
+            if (s.gapBefore()[i] && s.totalRows() > 0) {
                 sb.append("<tr class=\"mt-gap\"><td colspan=\"").append(Math.max(1, n)).append("\">")
-                        .append(Html.escape(s.gapLine())).append("</td></tr>");
+                        .append(Html.escape(s.gapText(i))).append("</td></tr>");
+            }
+            if (i == s.rows().size()) {
+                break;
             }
             Snapshot.Row r = s.rows().get(i);
             sb.append("<tr>");
@@ -217,8 +283,8 @@ public final class TableDisplay {
         if (s.totalRows() == 0) {
             sb.append("<p class=\"mt-note\">(no rows)</p>");
         }
-        if (s.elided()) {
-            sb.append("<p class=\"mt-note\">").append(Html.escape(s.sizeLine())).append("</p>");
+        if (s.sizeNote() != null) {
+            sb.append("<p class=\"mt-note\">").append(Html.escape(s.sizeNote())).append("</p>");
         }
         if (notes != null) {
             for (String note : notes) {

@@ -160,6 +160,27 @@ public final class Tables {
     }
 
     /**
+     * {@code table} marked to be shown with every row (a long table is otherwise shortened around its
+     * peak, see {@link TableFormat}): {@code show(Tables.allRows(result))}.
+     */
+    public static Tabular allRows(Tabular table) {
+        return new AllRows(Objects.requireNonNull(table, "table"));
+    }
+
+    /** A table shown in full; its rows and columns are those of the wrapped table. */
+    record AllRows(Tabular table) implements Tabular {
+        @Override
+        public List<String> columnNames() {
+            return table.columnNames();
+        }
+
+        @Override
+        public List<List<Object>> rows() {
+            return table.rows();
+        }
+    }
+
+    /**
      * A {@link Tabular} over the given column names and rows (not copied): the quickest way to show
      * or export numbers computed in a notebook cell.
      */

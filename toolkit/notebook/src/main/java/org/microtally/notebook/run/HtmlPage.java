@@ -2,12 +2,16 @@ package org.microtally.notebook.run;
 
 import com.google.gson.JsonElement;
 import com.google.gson.JsonObject;
+import org.microtally.notebook.render.Markup;
 import org.microtally.notebook.render.MimeBundle;
 
 /**
  * A standalone HTML page of an executed notebook: no scripts, no external files, a small own
- * stylesheet; images are embedded as {@code data:} URIs, HTML outputs are placed inline, all
- * text is escaped.
+ * stylesheet; images are embedded as {@code data:} URIs, HTML outputs (tables, inline SVG charts)
+ * are placed inline, all other text is escaped; Markdown and math go through {@link PageMarkdown}
+ * (math as MathML, laid out by the browser). The page carries a Content-Security-Policy
+ * ({@link #POLICY}) that allows exactly that: inline styles and {@code data:} images, nothing to load
+ * and no script, so HTML outputs (trusted as written, as in any notebook) cannot fetch or run anything.
  */
 final class HtmlPage {
     private static final String STYLE = """
@@ -26,30 +30,35 @@ final class HtmlPage {
             .stream.stderr pre { background: #fbeeee; }
             .error pre { background: #fbe4e1; color: #7a1f12; border-left: 3px solid #b23a26; }
             .output img { max-width: 100%; }
-            .output table { border-collapse: collapse; font: 0.85rem monospace; }
-            .output th, .output td { border: 1px solid #c9cfc9; padding: 0.15rem 0.5rem; text-align: right; }
+            .output table:not(.mt-table) { border-collapse: collapse; font: 0.85rem monospace; }
+            .output table:not(.mt-table) th, .output table:not(.mt-table) td { border: 1px solid #c9cfc9; padding: 0.15rem 0.5rem; text-align: right; }
+            .output math[display="block"] { margin: 0.4rem 0; }
             .markdown code { background: #eef1ee; padding: 0 0.2rem; font-size: 0.9em; }
             .markdown pre code { padding: 0; background: none; }
             .markdown pre { background: #eef1ee; }
             blockquote { margin: 0.5rem 0; padding-left: 0.8rem; border-left: 3px solid #c9cfc9; color: #4b5660; }
             """;
 
+    /** The page's Content-Security-Policy (W3C Content Security Policy Level 3, delivered by a meta element). */
+    static final String POLICY = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'";
+
     private HtmlPage() { }
 
     static String of(Notebook nb, String title) {
         StringBuilder sb = new StringBuilder();
         sb.append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+                .append("<meta http-equiv=\"Content-Security-Policy\" content=\"").append(POLICY).append("\">\n")
                 .append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
-                .append("<title>").append(Markdown.escape(title)).append("</title>\n<style>\n").append(STYLE)
-                .append("</style>\n</head>\n<body>\n<main>\n<header class=\"page\"><h1>").append(Markdown.escape(title))
+                .append("<title>").append(Markup.escape(title)).append("</title>\n<style>\n").append(STYLE)
+                .append("</style>\n</head>\n<body>\n<main>\n<header class=\"page\"><h1>").append(Markup.escape(title))
                 .append("</h1><p>Executed by the microtally runner</p></header>\n");
         for (JsonObject cell : nb.cells()) {
             String type = Notebook.type(cell);
             String source = Notebook.text(cell.get("source"));
             switch (type) {
-                case "markdown" -> sb.append("<section class=\"cell markdown\">\n").append(Markdown.toHtml(source))
+                case "markdown" -> sb.append("<section class=\"cell markdown\">\n").append(PageMarkdown.toHtml(source))
                         .append("</section>\n");
-                case "raw" -> sb.append("<section class=\"cell raw\"><pre>").append(Markdown.escape(source))
+                case "raw" -> sb.append("<section class=\"cell raw\"><pre>").append(Markup.escape(source))
                         .append("</pre></section>\n");
                 default -> code(sb, cell, source);
             }
@@ -62,7 +71,7 @@ final class HtmlPage {
         JsonElement count = cell.get("execution_count");
         String label = count == null || count.isJsonNull() ? "[ ]" : "[" + count.getAsInt() + "]";
         sb.append("<section class=\"cell code\">\n<div class=\"input\"><div class=\"count\">").append(label)
-                .append("</div><pre><code>").append(Markdown.escape(source)).append("</code></pre></div>\n");
+                .append("</div><pre><code>").append(Markup.escape(source)).append("</code></pre></div>\n");
         JsonElement outputs = cell.get("outputs");
         if (outputs != null && outputs.isJsonArray() && outputs.getAsJsonArray().size() > 0) {
             sb.append("<div class=\"outputs\">\n");
@@ -77,8 +86,8 @@ final class HtmlPage {
     private static void output(StringBuilder sb, JsonObject o) {
         String type = o.get("output_type").getAsString();
         switch (type) {
-            case "stream" -> sb.append("<div class=\"output stream ").append(Markdown.escape(o.get("name").getAsString()))
-                    .append("\"><pre>").append(Markdown.escape(Notebook.text(o.get("text")))).append("</pre></div>\n");
+            case "stream" -> sb.append("<div class=\"output stream ").append(Markup.escape(o.get("name").getAsString()))
+                    .append("\"><pre>").append(Markup.escape(Notebook.text(o.get("text")))).append("</pre></div>\n");
             case "error" -> {
                 StringBuilder tb = new StringBuilder();
                 JsonElement lines = o.get("traceback");
@@ -89,7 +98,7 @@ final class HtmlPage {
                 } else {
                     tb.append(o.get("ename").getAsString()).append(": ").append(o.get("evalue").getAsString());
                 }
-                sb.append("<div class=\"output error\"><pre>").append(Markdown.escape(tb.toString())).append("</pre></div>\n");
+                sb.append("<div class=\"output error\"><pre>").append(Markup.escape(tb.toString())).append("</pre></div>\n");
             }
             default -> {
                 JsonElement d = o.get("data");
@@ -118,12 +127,12 @@ final class HtmlPage {
             }
         }
         if (data.has(MimeBundle.TEXT_MARKDOWN)) {
-            return "<div class=\"markdown\">" + Markdown.toHtml(Notebook.text(data.get(MimeBundle.TEXT_MARKDOWN))) + "</div>";
+            return "<div class=\"markdown\">" + PageMarkdown.toHtml(Notebook.text(data.get(MimeBundle.TEXT_MARKDOWN))) + "</div>";
         }
         if (data.has(MimeBundle.TEXT_LATEX)) {
-            return "<pre class=\"latex\">" + Markdown.escape(Notebook.text(data.get(MimeBundle.TEXT_LATEX))) + "</pre>";
+            return "<div class=\"latex\">" + PageMarkdown.latexOutput(Notebook.text(data.get(MimeBundle.TEXT_LATEX))) + "</div>";
         }
-        return "<pre>" + Markdown.escape(Notebook.text(data.get(MimeBundle.TEXT_PLAIN))) + "</pre>";
+        return "<pre>" + Markup.escape(Notebook.text(data.get(MimeBundle.TEXT_PLAIN))) + "</pre>";
     }
 
     private static String stripAnsi(String s) {

@@ -69,7 +69,7 @@ class CellTextTest {
         assertEquals("5", CellText.shown(new BigFraction(10, 2), TableFormat.DEFAULT));
         // 101 is prime and larger than 100, so 100!/101^40 is already in lowest terms.
         BigFraction big = new BigFraction(factorial(100), BigInteger.valueOf(101).pow(40));
-        String shown = CellText.shown(big, TableFormat.DEFAULT);
+        String shown = CellText.shown(big, new TableFormat(40, 12, 8, 60, 20));
         // Source: OEIS A000142 (100!: 158 digits, leading 933262154439); closed form
         // 100!/101^40 = 6.26828455408906...e77: computed independently with Python 3 fractions and
         // decimal (30 digits), rounded here to 8 significant digits.
@@ -83,8 +83,9 @@ class CellTextTest {
 
     @Test
     void doublesShowSignificantDigitsHalfEven() {
-        TableFormat f = TableFormat.DEFAULT;
+        TableFormat f = new TableFormat(40, 12, 8, 60, 20);
         assertEquals("0.33333333", CellText.shown(1.0 / 3, f));
+        assertEquals("0.333333", CellText.shown(1.0 / 3, TableFormat.DEFAULT));
         assertEquals("2.5", CellText.shown(2.5, f));
         assertEquals("3", CellText.shown(3.0, f));
         assertEquals("1.5e-12", CellText.shown(1.5e-12, f));
@@ -135,5 +136,7 @@ class CellTextTest {
         assertTrue(e.getMessage().contains("leadingDigits = 11"), e.getMessage());
         assertThrows(InvalidInputException.class, () -> new TableFormat(10, 5, 18, 5, 5));
         assertThrows(InvalidInputException.class, () -> new TableFormat(10, 5, 8, 0, 5));
+        assertThrows(InvalidInputException.class, () -> new TableFormat(10, 5, 8, 5, 6));
+        assertThrows(InvalidInputException.class, () -> new TableFormat(10, 5, 2, 5, 5));
     }
 }

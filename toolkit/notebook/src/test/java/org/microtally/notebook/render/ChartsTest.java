@@ -50,6 +50,7 @@ class ChartsTest {
 
     @Test
     void renderingIsHeadless() {
+        Renderers.standard();
         Charts.png(Charts.line(twoLevel(), "kT", "U"));
         assertTrue(GraphicsEnvironment.isHeadless());
         assertEquals("true", System.getProperty("java.awt.headless"));
@@ -59,13 +60,14 @@ class ChartsTest {
     void pngDecodesToTheRequestedSize() throws Exception {
         XYChart chart = Charts.line(twoLevel(), "kT", "U", "C");
         BufferedImage img = decode(Charts.png(chart));
-        assertEquals(Charts.WIDTH, img.getWidth());
-        assertEquals(Charts.HEIGHT, img.getHeight());
+        // PNG on request is drawn at twice the chart size, for high-resolution screens
+        assertEquals(2 * Charts.WIDTH, img.getWidth());
+        assertEquals(2 * Charts.HEIGHT, img.getHeight());
         XYChart small = Charts.scatter(twoLevel(), "kT", "C");
         small = resized(small, 320, 200);
         BufferedImage img2 = decode(Charts.png(small));
-        assertEquals(320, img2.getWidth());
-        assertEquals(200, img2.getHeight());
+        assertEquals(640, img2.getWidth());
+        assertEquals(400, img2.getHeight());
     }
 
     private static XYChart resized(XYChart chart, int w, int h) {
@@ -100,9 +102,11 @@ class ChartsTest {
         Document d = f.newDocumentBuilder().parse(new InputSource(new StringReader(svg)));
         assertEquals("svg", d.getDocumentElement().getLocalName());
         assertEquals("http://www.w3.org/2000/svg", d.getDocumentElement().getNamespaceURI());
-        String width = d.getDocumentElement().getAttribute("width");
-        assertTrue(width.startsWith("640") || d.getDocumentElement().getAttribute("viewBox").contains("640"),
-                "width=" + width + " viewBox=" + d.getDocumentElement().getAttribute("viewBox"));
+        assertEquals("640", d.getDocumentElement().getAttribute("width"));
+        assertEquals("0 0 640 400", d.getDocumentElement().getAttribute("viewBox"));
+        // bare element: no XML declaration or DOCTYPE, which Jupyter's exporter cannot take inline
+        assertTrue(svg.startsWith("<svg "), svg.substring(0, 40));
+        assertFalse(svg.contains("<?xml") || svg.contains("<!DOCTYPE"));
     }
 
     @Test
@@ -157,14 +161,14 @@ class ChartsTest {
         assertEquals(1140.0, ys[3]);
         assertEquals(184756.0, ys[10]);
         assertEquals(ys[7], ys[13]);
-        BufferedImage img = decode(Charts.png(chart));
-        assertEquals(Charts.WIDTH, img.getWidth());
+        // one bar per category: 21 closed rectangles in the series path
+        assertEquals(21, SvgChartTest.pathWithFill(Charts.svg(chart), "#1f5f6b").chars().filter(c -> c == 'z').count());
     }
 
     @Test
     void spectrumSticksRiseToTheDegeneracies() throws Exception {
         Spectrum s = Spectra.harmonicOscillator(3, 5);
-        XYChart chart = Charts.spectrum(s);
+        XYChart chart = SpectrumCharts.levels(s);
         XYSeries levels = chart.getSeries("levels");
         assertEquals("energy [hbar*omega]", chart.getXAxisTitle());
         for (int n = 0; n <= 5; n++) {
@@ -173,7 +177,7 @@ class ChartsTest {
             assertEquals((n + 1) * (n + 2) / 2.0, levels.getYData()[3 * n + 1]);
             assertEquals(0.0, levels.getYData()[3 * n]);
         }
-        assertEquals(Charts.HEIGHT, decode(Charts.png(chart)).getHeight());
+        assertEquals(2 * Charts.HEIGHT, decode(Charts.png(chart)).getHeight());
     }
 
     @Test
@@ -215,11 +219,10 @@ class ChartsTest {
         assertTrue(both.plain().endsWith("chart (640\u00d7400 px): series C"), both.plain());
         Document d = TableDisplayTest.parse(both.get(MimeBundle.TEXT_HTML));
         assertEquals(1, d.getElementsByTagName("table").getLength());
-        org.w3c.dom.Element img = (org.w3c.dom.Element) d.getElementsByTagName("img").item(0);
-        String src = img.getAttribute("src");
-        assertTrue(src.startsWith("data:image/png;base64,"));
-        BufferedImage decoded = decode(Base64.getDecoder().decode(src.substring("data:image/png;base64,".length())));
-        assertEquals(640, decoded.getWidth());
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
+        assertEquals(0, d.getElementsByTagName("img").getLength());
+        String html = both.get(MimeBundle.TEXT_HTML);
+        assertTrue(html.indexOf("<table") < html.indexOf("<svg"), "table first, then the chart");
     }
 
     @Test
@@ -235,16 +238,26 @@ class ChartsTest {
         assertArrayEquals(new double[] {1.2, 2.1}, chart.getSeries("grand canonical").getYData());
         MimeBundle both = Charts.combine(TableDisplay.bundle(t, null, List.of()), chart, Charts.scatter(t, "kT", "U"));
         Document d = TableDisplayTest.parse(both.get(MimeBundle.TEXT_HTML));
-        assertEquals(2, d.getElementsByTagName("img").getLength());
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
         assertEquals(2, both.plain().lines().filter(l -> l.startsWith("chart (")).count());
     }
 
     @Test
-    void bundleCarriesPngAndSvgAndText() throws Exception {
+    void bundleCarriesOneInlineSvgAndText() throws Exception {
         MimeBundle b = Charts.bundle(Charts.line(twoLevel(), "kT", "U", "C"));
         assertEquals("chart (640\u00d7400 px): series U, C", b.plain());
+        assertEquals(java.util.Set.of(MimeBundle.TEXT_PLAIN, MimeBundle.TEXT_HTML), b.data().keySet());
+        Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
+    }
+
+    @Test
+    void pngOnRequestIsTwiceTheSizeShownAtTheChartSize() throws Exception {
+        MimeBundle b = Charts.asPng(Charts.line(twoLevel(), "kT", "U"));
         BufferedImage img = decode(Base64.getDecoder().decode(b.get(MimeBundle.IMAGE_PNG)));
-        assertEquals(400, img.getHeight());
-        assertTrue(b.get(MimeBundle.IMAGE_SVG).contains("<svg"));
+        assertEquals(800, img.getHeight());
+        Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
+        org.w3c.dom.Element el = (org.w3c.dom.Element) d.getElementsByTagName("img").item(0);
+        assertEquals("400", el.getAttribute("height"));
     }
 }

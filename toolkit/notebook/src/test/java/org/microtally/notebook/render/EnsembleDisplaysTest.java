@@ -35,7 +35,7 @@ class EnsembleDisplaysTest {
         MimeBundle b = Renderers.render(c);
         assertTrue(b.plain().startsWith("Canonical ensemble: N = 1, DISTINGUISHABLE, kT = 0.5 unit"), b.plain());
         // Source: closed form for a two-level system with gap 1 at kT = 1/2: U = 1/(e^2 + 1)
-        assertEquals(CellText.floating(1 / (Math.exp(2) + 1), 8), valueOf(b, "U"));
+        assertEquals(CellText.floating(1 / (Math.exp(2) + 1), TableFormat.DEFAULT.significantDigits()), valueOf(b, "U"));
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<table class=\"mt-table\">"));
     }
 
@@ -74,7 +74,7 @@ class EnsembleDisplaysTest {
         MimeBundle b = Renderers.render(m);
         assertTrue(b.plain().startsWith("Microcanonical ensemble: N = 20, E <= 40 (DISTINGUISHABLE)"), b.plain());
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(1, d.getElementsByTagName("img").getLength());
+        assertEquals(1, d.getElementsByTagName("svg").getLength());
         XYChart chart = Charts.line(m, "E", "S_B", "S_G");
         XYSeries sb = chart.getSeries("S_B");
         for (int i = 0; i < sb.getXData().length; i++) {
@@ -91,7 +91,7 @@ class EnsembleDisplaysTest {
         EnsembleComparison c = EnsembleComparison.overTemperatures(trap, Statistics.BOSE, 50, 1.0, 2.0, 3.0);
         MimeBundle b = Renderers.render(c);
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
-        assertEquals(2, d.getElementsByTagName("img").getLength());
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
         XYChart u = Charts.grouped(c, "ensemble", "kT", "U");
         assertEquals(List.of("canonical", "grand canonical"),
                 u.getSeriesCollection().stream().map(XYSeries::getName).toList());
@@ -106,7 +106,7 @@ class EnsembleDisplaysTest {
         for (Statistics st : List.of(Statistics.FERMI, Statistics.BOSE, Statistics.DISTINGUISHABLE)) {
             profiles.put(st.toString(), GrandCanonical.atChemicalPotential(s, st, 1.0, -0.5).occupations());
         }
-        XYChart chart = Charts.occupations(profiles);
+        XYChart chart = OccupationCharts.occupations(profiles);
         assertEquals(3, chart.getSeriesCollection().size());
         double[] fd = chart.getSeries("FERMI").getYData();
         double[] be = chart.getSeries("BOSE").getYData();
@@ -138,6 +138,26 @@ class EnsembleDisplaysTest {
         MimeBundle b = Renderers.render(c.condensate());
         assertTrue(b.plain().startsWith("Ground-level number distribution: <N_0> = "
                 + CellText.floating(c.condensate().mean(), 8)), b.plain());
-        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<img"));
+        assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<svg"));
+    }
+
+    @Test
+    void convergenceSweepIsCaptionedWithItsRangeAndChartedOnLogLogAxes() throws Exception {
+        Spectrum s = Spectra.harmonicOscillator(3, 40);
+        var sweep = EnsembleComparison.convergence(s, Statistics.BOSE, new int[] {5, 10, 20}, n -> 2.0);
+        MimeBundle b = Renderers.render(sweep);
+        assertTrue(b.plain().startsWith("Canonical vs grand canonical as N grows: N = 5..20, kT = 2..2"), b.plain());
+        String html = b.get(MimeBundle.TEXT_HTML);
+        Document d = TableDisplayTest.parse(html);
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
+        assertTrue(html.contains(">Fluctuation of the ground-level number</text>"), html);
+        assertTrue(html.contains(">N (particles)</text>"), html);
+        // absolute differences on a log axis: every point is drawn
+        assertTrue(!html.contains("not drawn"), html);
+        for (var p : sweep.points()) {
+            double n0 = p.grandCanonical().groundMean();
+            // Source: closed form, grand canonical variance of one Bose state n0 (n0 + 1)
+            assertEquals(n0 * (n0 + 1), p.grandCanonical().groundVariance(), 1e-9 * n0 * (n0 + 1));
+        }
     }
 }

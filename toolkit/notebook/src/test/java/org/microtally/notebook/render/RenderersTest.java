@@ -115,7 +115,7 @@ class RenderersTest {
     void tablesawTableIsShownAsATable() {
         Table t = Table.create("levels", DoubleColumn.create("energy", 0.0, 1.0), IntColumn.create("g", 1, 3));
         MimeBundle b = Renderers.render(t);
-        assertEquals(String.join("\n", "levels", "energy  g", "------  -", "     0  1", "     1  3"), b.plain());
+        assertEquals(String.join("\n", "levels", "energy  g", "\u2500\u2500\u2500\u2500\u2500\u2500  \u2500", "     0  1", "     1  3"), b.plain());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<div class=\"mt-caption\">levels</div>"));
     }
 
@@ -133,7 +133,7 @@ class RenderersTest {
             list.add(i);
         }
         String lp = Renderers.render(list).plain();
-        assertTrue(lp.startsWith("ArrayList of 150: [0, 1,"), lp);
+        assertTrue(lp.startsWith("List of 150: [0, 1,"), lp);
         assertTrue(lp.endsWith("99, \u2026 50 more]"), lp);
         Map<String, Integer> m = new LinkedHashMap<>();
         m.put("N", 42);
@@ -210,6 +210,24 @@ class RenderersTest {
         }
     }
 
+    record Holder(Object inner) implements Tabular {
+        @Override
+        public List<String> columnNames() {
+            return List.of("x");
+        }
+
+        @Override
+        public List<List<Object>> rows() {
+            return List.of(List.of(1));
+        }
+    }
+
+    @Test
+    void captionNeverShowsAnObjectHash() {
+        String first = Renderers.render(new Holder(new Object())).plain().lines().findFirst().get();
+        assertEquals("Holder", first);
+    }
+
     @Test
     void tabularCaptionIsItsShortToStringOrClassName() {
         List<List<Object>> rows = List.of(List.of(0.5), List.of(1.0));
@@ -242,7 +260,7 @@ class RenderersTest {
         });
         MimeBundle b = Renderers.render(new FancyTable());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains("<table class=\"mt-table\">"));
-        assertTrue(b.plain().startsWith("FancyTable\nx\n-\n1\n2\n"), b.plain());
+        assertTrue(b.plain().startsWith("FancyTable\nx\n\u2500\n1\n2\n"), b.plain());
         assertTrue(b.plain().endsWith("(rich display failed: java.lang.IllegalStateException: no chart today; "
                 + "shown as a plain table)"), b.plain());
     }

@@ -81,39 +81,66 @@ class TableDisplayTest {
     }
 
     @Test
-    void longTablesShowHeadAndTailAndStateTheTotal() throws Exception {
-        TableFormat f = new TableFormat(40, 12, 8, 4, 2);
-        Tabular t = numbered(1000);
+    void longTableWithoutAPeakShowsItsStartAndEndAndSaysHowToSeeAll() throws Exception {
+        TableFormat f = new TableFormat(40, 12, 8, 10, 4);   // shortened above 10 rows; window 4, edges 1
+        Tabular t = numbered(1000);                          // n^2 grows: its largest value is the last row
         Document d = parse(TableDisplay.html(t, "squares", List.of(), f));
         NodeList trs = d.getElementsByTagName("tr");
-        assertEquals(1 + 4 + 1 + 2, trs.getLength()); // header, head rows, gap line, tail rows
+        assertEquals(1 + 4 + 1 + 1, trs.getLength()); // header, first 4 rows, gap, last row
         assertEquals("mt-gap", ((Element) trs.item(5)).getAttribute("class"));
-        assertEquals("\u2026 994 rows omitted \u2026", trs.item(5).getTextContent());
-        assertEquals("998", ((Element) trs.item(6)).getElementsByTagName("td").item(0).getTextContent());
-        assertEquals("999", ((Element) trs.item(7)).getElementsByTagName("td").item(0).getTextContent());
+        assertEquals("\u22ee 995 rows not shown", trs.item(5).getTextContent());
+        assertEquals("999", ((Element) trs.item(6)).getElementsByTagName("td").item(0).getTextContent());
         NodeList notes = d.getElementsByTagName("p");
-        assertEquals("1,000 rows \u00d7 3 columns; showing the first 4 and the last 2", notes.item(0).getTextContent());
-
+        assertEquals("5 of 1,000 rows shown: the first 4 and the last 1. Every row: show(Tables.allRows(table)).",
+                notes.item(0).getTextContent());
         String plain = TableDisplay.plain(t, "squares", List.of("a note"), f);
         List<String> lines = plain.lines().toList();
         assertEquals("squares", lines.get(0));
-        assertEquals(1 + 2 + 4 + 1 + 2 + 1 + 1, lines.size(), plain);
-        assertEquals("\u2026 994 rows omitted \u2026", lines.get(7));
-        assertEquals("(1,000 rows \u00d7 3 columns; showing the first 4 and the last 2)", lines.get(10));
-        assertEquals("a note", lines.get(11));
+        assertEquals("  \u22ee 995 rows not shown", lines.get(7));
+        assertEquals("a note", lines.get(lines.size() - 1));
     }
 
     @Test
-    void tableJustOverTheLimitIsShownWhole() throws Exception {
-        TableFormat f = new TableFormat(40, 12, 8, 4, 2);
-        // head + tail + 1 rows: eliding one row would save nothing, so all 7 are shown
-        Document d = parse(TableDisplay.html(numbered(7), null, List.of(), f));
-        assertEquals(8, d.getElementsByTagName("tr").getLength());
+    void longTableIsShortenedAroundThePeakOfItsMainColumn() throws Exception {
+        // Omega_A(q) Omega_B(100 - q) for Einstein solids of 300 and 200 oscillators peaks at q = 60
+        Object[][] rows = new Object[101][];
+        for (int q = 0; q <= 100; q++) {
+            rows[q] = new Object[] {q, ResultDisplaysTest.binomial(q + 299, q).multiply(ResultDisplaysTest.binomial(100 - q + 199, 100 - q))};
+        }
+        Tabular t = TestTables.of(List.of("q_A", "Omega"), rows);
+        Document d = parse(TableDisplay.html(t, null, List.of(), TableFormat.DEFAULT));
+        NodeList trs = d.getElementsByTagName("tr");
+        List<String> firstCells = new java.util.ArrayList<>();
+        for (int i = 1; i < trs.getLength(); i++) {
+            firstCells.add(((Element) trs.item(i)).getElementsByTagName("td").item(0).getTextContent());
+        }
+        // Source: closed form, the most probable split q_A = q N_A / N rounded: 100 * 300 / 500 = 60
+        assertTrue(firstCells.contains("60"), firstCells.toString());
+        assertTrue(firstCells.contains("0") && firstCells.contains("100"), firstCells.toString());
+        assertEquals(30, firstCells.stream().filter(c -> c.matches("[0-9]+")).count(), firstCells.toString());
+        assertTrue(d.getElementsByTagName("p").item(0).getTextContent().contains("around the largest 'Omega' (row 61)"));
+    }
+
+    @Test
+    void tableAtTheLimitIsShownWholeAndAllRowsShowsEverything() throws Exception {
+        TableFormat f = new TableFormat(40, 12, 8, 10, 4);
+        Document d = parse(TableDisplay.html(numbered(10), null, List.of(), f));
+        assertEquals(11, d.getElementsByTagName("tr").getLength());
         assertEquals(0, d.getElementsByTagName("p").getLength());
-        Document d8 = parse(TableDisplay.html(numbered(8), null, List.of(), f));
-        assertEquals(1 + 4 + 1 + 2, d8.getElementsByTagName("tr").getLength());
         Document all = parse(TableDisplay.html(numbered(5000), null, List.of(), f.allRows()));
         assertEquals(5001, all.getElementsByTagName("tr").getLength());
+        Document shown = parse(Renderers.render(Tables.allRows(numbered(200))).get(MimeBundle.TEXT_HTML));
+        assertEquals(201, shown.getElementsByTagName("tr").getLength());
+    }
+
+    @Test
+    void floatingColumnsShareOneFormat() {
+        Tabular t = TestTables.of(List.of("T/T_c0", "atoms omitted"), new Object[] {0.1, 6.8172413e-7},
+                new Object[] {0.15, 0.00019161266}, new Object[] {1.2, 0.11190341});
+        List<String> lines = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT).lines().toList();
+        // common practice, no source: one exponent style and one mantissa width per column, points aligned
+        assertEquals(List.of("T/T_c0  atoms omitted", "\u2500\u2500\u2500\u2500\u2500\u2500  \u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500",
+                "  0.10     6.81724e-7", "  0.15     1.91613e-4", "  1.20     1.11903e-1"), lines);
     }
 
     @Test
@@ -124,7 +151,7 @@ class TableDisplayTest {
         // Source: C(20,10) = 184756, OEIS A000984
         assertEquals(String.join("\n",
                 " E   Omega  note",
-                "--  ------  ------",
+                "\u2500\u2500  \u2500\u2500\u2500\u2500\u2500\u2500  \u2500\u2500\u2500\u2500\u2500\u2500",
                 " 0       1  ground",
                 "10  184756  x"), plain);
     }

@@ -89,7 +89,8 @@ class TablesTest {
         assertEquals(1, table.column("beta").countMissing());
         assertEquals(-0.25, table.doubleColumn("beta").get(2));
         String plain = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT);
-        assertEquals(List.of(" beta", "-----", "  n/a", "  0.5", "-0.25"), plain.lines().toList());
+        // one format per column: two decimals for every value, points aligned
+        assertEquals(List.of(" beta", "\u2500\u2500\u2500\u2500\u2500", "  n/a", " 0.50", "-0.25"), plain.lines().toList());
         var series = Charts.scatter(TestTables.of(List.of("E", "beta"), new Object[] {1, "n/a"}, new Object[] {2, 0.5}),
                 "E", "beta").getSeries("beta");
         assertEquals(1, series.getXData().length);

@@ -126,8 +126,9 @@ class NotebookRunnerTest {
         assertTrue(html.contains("<em>2D isotropic oscillator</em>"));
         assertTrue(html.contains("<strong>hbar omega = 3 meV</strong>"));
         assertTrue(html.contains("<code>Spectra</code>"));
-        assertTrue(html.contains("<a href=\"https://nbformat.readthedocs.io\">the nbformat docs</a>"));
-        assertTrue(html.contains("$E_k = (k+1)\\hbar\\omega$"));
+        assertTrue(html.contains("href=\"https://nbformat.readthedocs.io\">the nbformat docs</a>"));
+        // math as MathML, its TeX kept as the annotation
+        assertTrue(html.contains("<annotation encoding=\"application/x-tex\">E_k = (k+1)\\hbar\\omega</annotation>"), html);
         assertTrue(html.contains("<li>closed shells at &lt;2, 6, 12&gt; electrons</li>"));
         assertTrue(html.contains("<table><tr><th>k</th>"), "html output not inline");
         assertTrue(html.contains("System.out.println(&quot;levels: &quot; + dot.size());"), "source not escaped");

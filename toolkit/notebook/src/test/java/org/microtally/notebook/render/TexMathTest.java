@@ -1,0 +1,54 @@
+package org.microtally.notebook.render;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.StringReader;
+import javax.xml.parsers.DocumentBuilderFactory;
+import org.junit.jupiter.api.Test;
+import org.w3c.dom.Document;
+import org.xml.sax.InputSource;
+
+class TexMathTest {
+
+    private static String body(String tex) {
+        String m = TexMath.toMathMl(tex, false);
+        return m.substring(m.indexOf("<mrow>") + 6, m.indexOf("</mrow><annotation"));
+    }
+
+    @Test
+    void elementsFollowMathMlCore() throws Exception {
+        // Source: W3C MathML Core (2023), sections 3.1-3.4: mi/mn/mo tokens, mfrac, msqrt/mroot, msub/msup/msubsup
+        assertEquals("<mi>x</mi><mo>+</mo><mn>1.5</mn>", body("x + 1.5"));
+        assertEquals("<mfrac><mrow><mn>1</mn></mrow><mrow><mi>N</mi></mrow></mfrac>", body("\\frac{1}{N}"));
+        assertEquals("<msubsup><mi>Z</mi><mrow><mi>N</mi></mrow><mrow><mn>2</mn></mrow></msubsup>", body("Z_N^2"));
+        assertEquals("<mroot><mrow><mi>N</mi></mrow><mrow><mn>3</mn></mrow></mroot>", body("\\sqrt[3]{N}"));
+        assertEquals("<mi>\u03b2</mi><mi mathvariant=\"normal\">\u0394</mi><mi>\u210f</mi>", body("\\beta\\Delta\\hbar"));
+        assertEquals("<mi>ln</mi><mo>\u2061</mo><mi>Z</mi>", body("\\ln Z"));
+        assertEquals("<mi mathvariant=\"normal\">nK</mi>", body("\\mathrm{nK}"));
+        assertEquals("<mrow><mo stretchy=\"true\">(</mo><mi>a</mi><mo stretchy=\"true\">)</mo></mrow>", body("\\left( a \\right)"));
+    }
+
+    @Test
+    void outputIsWellFormedXmlWithTheSourceAsAnnotation() throws Exception {
+        String tex = "\\langle n \\rangle = \\frac{1}{e^{(\\varepsilon - \\mu)/kT} - 1} < \\binom{E + n - 1}{E}";
+        String m = TexMath.toMathMl(tex, true);
+        DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
+        f.setNamespaceAware(true);
+        Document d = f.newDocumentBuilder().parse(new InputSource(new StringReader(m)));
+        assertEquals("http://www.w3.org/1998/Math/MathML", d.getDocumentElement().getNamespaceURI());
+        assertEquals("block", d.getDocumentElement().getAttribute("display"));
+        assertEquals(tex, d.getElementsByTagName("annotation").item(0).getTextContent());
+        assertTrue(m.contains("<mo>&lt;</mo>"), m);
+    }
+
+    @Test
+    void unsupportedOrBrokenTexIsRefused() {
+        var e = assertThrows(TexMath.UnsupportedTexException.class, () -> TexMath.toMathMl("\\begin{pmatrix}", false));
+        assertTrue(e.getMessage().contains("\\begin"), e.getMessage());
+        assertThrows(TexMath.UnsupportedTexException.class, () -> TexMath.toMathMl("\\frac{1}{2", false));
+        assertThrows(TexMath.UnsupportedTexException.class, () -> TexMath.toMathMl("a}b", false));
+        assertThrows(TexMath.UnsupportedTexException.class, () -> TexMath.toMathMl("a & b", false));
+    }
+}
