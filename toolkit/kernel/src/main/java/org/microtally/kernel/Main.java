@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import org.microtally.notebook.session.Session;
 
 /**
  * The {@code microtally} command: runs the Jupyter kernel, installs its kernelspec, runs notebooks
@@ -112,7 +113,7 @@ public final class Main {
         }
         KernelLog.configure(file);
         KernelConnectionProperties props = KernelConnectionProperties.parse(json);
-        Kernel kernel = new Kernel(props, SessionEngine::open).onShutdown(() -> System.exit(0));
+        Kernel kernel = new Kernel(props, Session::open).onShutdown(() -> System.exit(0));
         kernel.start();
         ParentWatch.exitWhenParentDies(kernel);
         try {

@@ -30,6 +30,9 @@ import org.microtally.notebook.render.MimeBundle;
 import org.microtally.notebook.session.CellError;
 import org.microtally.notebook.session.CellOutput;
 import org.microtally.notebook.session.CellResult;
+import org.microtally.notebook.session.Completeness;
+import org.microtally.notebook.session.Completions;
+import org.microtally.notebook.session.Engine;
 import org.zeromq.SocketType;
 import org.zeromq.ZContext;
 import org.zeromq.ZMQ;
@@ -42,7 +45,7 @@ class KernelProtocolTest {
     private static final String KEY = "test-key-" + UUID.randomUUID();
 
     /** Engine double: records what it was asked to run; "boom" fails, "spin" runs until interrupted. */
-    static final class RecordingEngine implements CellEngine {
+    static final class RecordingEngine implements Engine {
         final List<String> ran = new CopyOnWriteArrayList<>();
         final CountDownLatch spinning = new CountDownLatch(1);
         volatile boolean interrupted;
@@ -86,8 +89,8 @@ class KernelProtocolTest {
         }
 
         @Override
-        public Completion complete(String code, int cursor) {
-            return new Completion(List.of("alpha", "alphabet"), Math.max(0, cursor - 2), cursor);
+        public Completions complete(String code, int cursor) {
+            return new Completions(List.of("alpha", "alphabet"), Math.max(0, cursor - 2), cursor);
         }
 
         @Override
@@ -97,7 +100,7 @@ class KernelProtocolTest {
 
         @Override
         public Completeness completeness(String code) {
-            return new Completeness(code.endsWith("{") ? Completeness.Kind.INCOMPLETE : Completeness.Kind.COMPLETE, "    ");
+            return new Completeness(code.endsWith("{") ? Completeness.Status.INCOMPLETE : Completeness.Status.COMPLETE, "    ");
         }
 
         @Override

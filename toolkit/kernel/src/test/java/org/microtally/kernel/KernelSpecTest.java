@@ -44,8 +44,8 @@ class KernelSpecTest {
     @Test
     void addressesFollowTheConnectionFileTransport() {
         // Source: Jupyter client documentation, "Connection files": tcp uses ip:port; ipc uses ip-port as a path
-        assertEquals("tcp://127.0.0.1:5555", Kernel.address("tcp", "127.0.0.1", 5555));
-        assertEquals("ipc:///tmp/kernel-1-5555", Kernel.address("ipc", "/tmp/kernel-1", 5555));
+        assertEquals("tcp://127.0.0.1:5555", KernelWire.address("tcp", "127.0.0.1", 5555));
+        assertEquals("ipc:///tmp/kernel-1-5555", KernelWire.address("ipc", "/tmp/kernel-1", 5555));
     }
 
     @Test

@@ -6,7 +6,6 @@ import java.util.Map;
 import org.microtally.notebook.render.MimeBundle;
 import org.microtally.notebook.session.CellError;
 import org.microtally.notebook.session.CellOutput;
-import org.microtally.notebook.session.Display;
 
 /**
  * Collects one cell's outputs as nbformat 4 output objects: consecutive stream chunks of the same
@@ -43,10 +42,13 @@ final class OutputCollector implements CellOutput {
     }
 
     @Override
+    public synchronized void progress(MimeBundle bundle, String displayId, boolean update) {
+        progress.accept(bundle.plain());
+        display(bundle, displayId, update);
+    }
+
+    @Override
     public synchronized void display(MimeBundle bundle, String displayId, boolean update) {
-        if (displayId != null && displayId.startsWith(Display.PROGRESS_ID_PREFIX)) {
-            progress.accept(bundle.plain());
-        }
         if (update && displayId != null) {
             JsonObject earlier = displaysById.get(displayId);
             if (earlier != null) {

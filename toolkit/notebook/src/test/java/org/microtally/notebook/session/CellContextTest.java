@@ -36,8 +36,8 @@ class CellContextTest {
         // Source: Documentation Comment Specification for the Standard Doclet (JDK 17): the first
         // sentence ends at the first period followed by white space, or at the first block tag
         assertEquals("Returns the absolute value of an int value.",
-                Session.firstSentence("Returns the absolute value of an {@code int} value.\n If the argument is not negative..."));
-        assertEquals("Two levels", Session.firstSentence("Two <b>levels</b>\n@param gap the gap"));
-        assertEquals("", Session.firstSentence(null));
+                CodeAssist.firstSentence("Returns the absolute value of an {@code int} value.\n If the argument is not negative..."));
+        assertEquals("Two levels", CodeAssist.firstSentence("Two <b>levels</b>\n@param gap the gap"));
+        assertEquals("", CodeAssist.firstSentence(null));
     }
 }

@@ -165,6 +165,35 @@ class SessionTest {
     }
 
     @Test
+    void displayTypesAreImportedButNotTheRenderHelpers() {
+        assertEquals("org.microtally.notebook.render.Tables", run("Tables.class.getName()").raw().orElseThrow());
+        assertEquals("org.microtally.notebook.render.MimeBundle", run("MimeBundle.class.getName()").raw().orElseThrow());
+        // an internal helper of the display layer is not imported into cells
+        assertEquals(CellResult.Outcome.COMPILE_ERROR, run("TableFormat.class").outcome());
+        assertEquals(CellResult.Outcome.COMPILE_ERROR, run("DisplayEnvironment.class").outcome());
+    }
+
+    @Test
+    void streamsAndDisplaysKeepTheOrderTheCellWroteThem() {
+        Collector c = new Collector();
+        CellResult r = session.run("for (int i = 0; i < 40; i++) {\n  System.out.print(\"o\" + i + \" \");\n"
+                + "  System.err.print(\"e\" + i + \" \");\n  if (i % 10 == 0) show(\"d\" + i);\n}", c);
+        assertTrue(r.ok(), () -> r.error().toString());
+        StringBuilder expected = new StringBuilder();
+        StringBuilder got = new StringBuilder();
+        for (int i = 0; i < 40; i++) {
+            expected.append("o").append(i).append(" e").append(i).append(" ");
+            if (i % 10 == 0) {
+                expected.append("[d").append(i).append("]");
+            }
+        }
+        for (Collector.Event e : c.events) {
+            got.append(e.kind().equals("display") ? "[" + e.bundle().plain().replace("\"", "") + "]" : e.text());
+        }
+        assertEquals(expected.toString(), got.toString());
+    }
+
+    @Test
     void cellCodeSharesTheEngineClasses() {
         CellResult r = run("org.microtally.notebook.session.Display.class");
         assertSame(Display.class, r.raw().orElseThrow());
