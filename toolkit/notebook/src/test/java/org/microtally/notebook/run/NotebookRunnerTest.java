@@ -232,13 +232,13 @@ class NotebookRunnerTest {
         assertEquals(2, run("--bogus", "x.ipynb"));
         assertEquals(2, run("x.ipynb", "--cell-timeout", "-1"));
         assertEquals(0, run("--help"));
-        assertTrue(log().contains("usage: microtally run"));
+        assertTrue(log().contains("Usage: microtally run"), log());
     }
 
     @Test
     void atomicWriteLeavesNoPartialFiles() throws IOException {
         Path dir = tmp.resolve("w");
-        NotebookRunner.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
+        OutputFolder.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
         assertEquals(List.of("a.html", "a.ipynb"), listing(dir));
         if (dir.getFileSystem().supportedFileAttributeViews().contains("posix")) {
             // outputs get the permissions of any new file in that directory (not a temp file's owner-only mode)
@@ -250,7 +250,7 @@ class NotebookRunnerTest {
         List<String> beforeFail = listing(dir);
         boolean failed = false;
         try {
-            NotebookRunner.writeAtomically(List.of(dir.resolve("b.html"), dir.resolve("c.ipynb")), List.of("x", "y"));
+            OutputFolder.writeAtomically(List.of(dir.resolve("b.html"), dir.resolve("c.ipynb")), List.of("x", "y"));
         } catch (IOException e) {
             failed = true;
         }
