@@ -230,6 +230,40 @@ class SessionTest {
     }
 
     @Test
+    void exitThroughReflectionMethodHandlesAndThreadsIsBlockedToo() {
+        // every route below ends the JVM when not blocked, which would end this test run
+        List<String> direct = List.of(
+                "MethodHandles.lookup().findStatic(System.class, \"exit\", java.lang.invoke.MethodType.methodType(void.class, int.class)).invoke(7);",
+                "MethodHandles.publicLookup().findVirtual(Runtime.class, \"halt\", java.lang.invoke.MethodType.methodType(void.class, int.class))"
+                        + ".invoke(Runtime.getRuntime(), 8);",
+                "MethodHandles.lookup().unreflect(System.class.getMethod(\"exit\", int.class)).invoke(9);",
+                "java.util.function.IntConsumer stop = Runtime.getRuntime()::halt;\nstop.accept(12);");
+        for (String call : direct) {
+            CellResult r = run("import java.lang.invoke.MethodHandles;\n" + call);
+            assertEquals(ExitBlockedException.class.getName(), r.error().orElseThrow().type(), call);
+        }
+        List<String> reflective = List.of(
+                "Class.forName(\"java.lang.System\").getMethod(\"exit\", int.class).invoke(null, 5);",
+                "Method.class.getMethod(\"invoke\", Object.class, Object[].class)"
+                        + ".invoke(System.class.getMethod(\"exit\", int.class), null, new Object[] {10});",
+                "Runtime.class.getMethod(\"exit\", int.class).invoke(Runtime.getRuntime(), 13);");
+        for (String call : reflective) {
+            CellResult r = run("import java.lang.reflect.Method;\n" + call);
+            CellError e = r.error().orElseThrow();
+            // Source: JDK 17 API, Method.invoke wraps an exception of the invoked method in InvocationTargetException
+            assertEquals("java.lang.reflect.InvocationTargetException", e.type(), call);
+            assertTrue(e.traceback().stream().anyMatch(l -> l.contains(ExitBlockedException.class.getName())), e.traceback().toString());
+        }
+        Collector c = new Collector();
+        CellResult t = session.run("Thread quitter = new Thread(() -> System.exit(11));\nquitter.start();\nquitter.join();\n\"joined\"", c);
+        assertEquals("joined", t.raw().orElseThrow());
+        assertTrue(c.text(true).contains("was blocked"), c.text(true));
+        // reflection that does not exit works as before
+        assertEquals(4, run("Math.class.getMethod(\"abs\", int.class).invoke(null, -4)").raw().orElseThrow());
+        assertEquals(3, run("1 + 2").raw().orElseThrow());
+    }
+
+    @Test
     void interruptStopsABusyLoopFromAnotherThread() throws Exception {
         assertInterrupted("long spins = 0;\nwhile (true) { spins++; }");
         // blocking call: ends through the thread interrupt
