@@ -97,12 +97,23 @@ final class Kernel {
         if (unsigned) {
             KernelLog.LOG.warning(Requests.UNSIGNED_WARNING);
         }
+        ZMQ.Socket control;
+        ZMQ.Socket heartbeat;
+        try {
+            shell = wire.bind(SocketType.ROUTER, props.getShellPort());
+            control = wire.bind(SocketType.ROUTER, props.getControlPort());
+            wire.bind(SocketType.ROUTER, props.getStdinPort());
+            wire.bind(SocketType.PUB, props.getIopubPort());
+            heartbeat = wire.bind(SocketType.REP, props.getHbPort());
+        } catch (RuntimeException e) {
+            KernelLog.LOG.severe(() -> "cannot bind the ports of the connection file: " + e.getMessage());
+            running.set(false);
+            timers.shutdownNow();
+            wire.close();
+            stopped.countDown();
+            throw e;
+        }
         Runtime.getRuntime().addShutdownHook(new Thread(this::reportUnexpectedExit, "microtally-exit-report"));
-        shell = wire.bind(SocketType.ROUTER, props.getShellPort());
-        ZMQ.Socket control = wire.bind(SocketType.ROUTER, props.getControlPort());
-        wire.bind(SocketType.ROUTER, props.getStdinPort());
-        wire.bind(SocketType.PUB, props.getIopubPort());
-        ZMQ.Socket heartbeat = wire.bind(SocketType.REP, props.getHbPort());
         thread("microtally-shell", () -> serve(shell, "shell"));
         thread("microtally-control", () -> serve(control, "control"));
         thread("microtally-heartbeat", () -> echoHeartbeats(heartbeat));

@@ -137,14 +137,25 @@ class KernelProtocolTest {
 
     @BeforeEach
     void start() throws Exception {
-        int[] p = {freePort(), freePort(), freePort(), freePort(), freePort()};
-        stdinPort = p[2];
-        KernelConnectionProperties props = new KernelConnectionProperties("127.0.0.1", p[0], p[1], p[2], p[3], p[4],
-                "tcp", "hmac-sha256", KEY);
         KernelLog.LOG.addHandler(capture);
         KernelLog.LOG.setUseParentHandlers(false); // keep the test output quiet
-        kernel = new Kernel(props, () -> engine);
-        kernel.start();
+        int[] p = null;
+        // a port found free may be taken by another process before the kernel binds it: try fresh ports
+        for (int attempt = 1; kernel == null; attempt++) {
+            p = new int[] {freePort(), freePort(), freePort(), freePort(), freePort()};
+            KernelConnectionProperties props = new KernelConnectionProperties("127.0.0.1", p[0], p[1], p[2], p[3], p[4],
+                    "tcp", "hmac-sha256", KEY);
+            Kernel k = new Kernel(props, () -> engine);
+            try {
+                k.start();
+                kernel = k;
+            } catch (org.zeromq.ZMQException e) {
+                if (attempt == 3) {
+                    throw e;
+                }
+            }
+        }
+        stdinPort = p[2];
         ctx = new ZContext();
         // constructor order: control, shell, stdin, heartbeat, iopub
         control = connect(SocketType.DEALER, p[0]);
