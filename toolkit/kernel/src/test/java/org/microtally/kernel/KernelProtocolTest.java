@@ -205,6 +205,12 @@ class KernelProtocolTest {
         return id;
     }
 
+    /** Sends an execute_request for {@code code} on the shell channel, signed with the key; returns its msg_id. */
+    private String execute(String code) throws Exception {
+        return send(shell, KEY, "execute_request", "{\"code\":\"" + code + "\",\"silent\":false,\"store_history\":true,"
+                + "\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+    }
+
     /** The next message on a socket as {header, parent_header, content}, or null on timeout. */
     private JsonObject[] receive(ZMQ.Socket s) throws Exception {
         List<String> frames = new ArrayList<>();
@@ -279,8 +285,7 @@ class KernelProtocolTest {
         assertTrue(logged.stream().anyMatch(r -> r.getMessage().contains("bad signature")), "no log record of the drop");
 
         // The same request with the right key runs: the check above can fail.
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"genuine\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("genuine");
         JsonObject[] reply = receive(shell);
         assertEquals("ok", reply[2].get("status").getAsString());
         assertEquals(List.of("genuine"), engine.ran);
@@ -288,8 +293,7 @@ class KernelProtocolTest {
 
     @Test
     void executePublishesInputStreamDisplayResultAndReplies() throws Exception {
-        String id = send(shell, KEY, "execute_request",
-                "{\"code\":\"x\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        String id = execute("x");
         JsonObject[] reply = receive(shell);
         assertEquals("execute_reply", reply[0].get("msg_type").getAsString());
         assertEquals("ok", reply[2].get("status").getAsString());
@@ -309,8 +313,7 @@ class KernelProtocolTest {
 
     @Test
     void aFailingCellPublishesAnErrorAndTheNextCellRuns() throws Exception {
-        String id = send(shell, KEY, "execute_request",
-                "{\"code\":\"boom\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        String id = execute("boom");
         JsonObject[] reply = receive(shell);
         assertEquals("error", reply[2].get("status").getAsString());
         assertEquals("java.lang.IllegalStateException", reply[2].get("ename").getAsString());
@@ -319,8 +322,7 @@ class KernelProtocolTest {
         List<JsonObject[]> pub = iopubUntilIdle(id);
         assertTrue(types(pub).contains("error"), types(pub).toString());
 
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"after\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("after");
         JsonObject[] second = receive(shell);
         assertEquals("ok", second[2].get("status").getAsString());
         assertEquals(2, second[2].get("execution_count").getAsInt());
@@ -328,8 +330,7 @@ class KernelProtocolTest {
 
     @Test
     void interruptOnTheControlChannelStopsARunningCell() throws Exception {
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"spin\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("spin");
         assertTrue(engine.spinning.await(5, TimeUnit.SECONDS));
         send(control, KEY, "interrupt_request", "{}");
         JsonObject[] ir = receive(control);
@@ -342,8 +343,7 @@ class KernelProtocolTest {
 
     @Test
     void anInterruptThatFindsNothingToStopYetIsRepeated() throws Exception {
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"deaf-once\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("deaf-once");
         assertTrue(engine.spinning.await(5, TimeUnit.SECONDS));
         long t0 = System.nanoTime();
         send(control, KEY, "interrupt_request", "{}");
@@ -399,14 +399,12 @@ class KernelProtocolTest {
         return null;
     }
 
-    private static final String RUN_OK = "{\"code\":\"after\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},"
-            + "\"allow_stdin\":false,\"stop_on_error\":true}";
 
     @Test
     void aSignedMessageWithAnEmptyHeaderIsDroppedAndTheKernelStillExecutes() throws Exception {
         sendRaw(shell, List.of("{}", "{}", "{}", "{\"code\":\"never\"}"), List.of());
         sendRaw(shell, List.of("{\"msg_type\":\"execute_request\"}", "{}", "{}", "{\"code\":\"never\"}"), List.of());
-        String id = send(shell, KEY, "execute_request", RUN_OK);
+        String id = execute("after");
         JsonObject[] reply = replyTo(id);
         assertNotNull(reply, "no reply after the malformed messages: the request loop died");
         assertEquals("ok", reply[2].get("status").getAsString());
@@ -477,7 +475,7 @@ class KernelProtocolTest {
                 assertEquals("fuzz-" + i, hb.recvStr());
             }
         }
-        String id = send(shell, KEY, "execute_request", RUN_OK);
+        String id = execute("after");
         JsonObject[] reply = replyTo(id);
         assertNotNull(reply, "no execute_reply after the fuzzed messages");
         assertEquals("ok", reply[2].get("status").getAsString());
