@@ -17,7 +17,7 @@ import org.objectweb.asm.Opcodes;
  * <p>Rewritten: {@code System.exit}, {@code Runtime.exit}, {@code Runtime.halt} (calls, and method
  * references in {@code invokedynamic} bootstrap arguments and {@code ldc} method-handle constants);
  * and the doors to them at run time: {@code Method.invoke}, {@code MethodHandles.Lookup.findStatic},
- * {@code findVirtual} and {@code unreflect}, whose guarded versions refuse (or hand back a guarded
+ * {@code findVirtual}, {@code unreflect} and {@code bind}, whose guarded versions refuse (or hand back a guarded
  * handle for) the exit methods and otherwise do exactly what the original does. Threads a cell
  * starts run cell code, so they are covered too. Not covered: library code outside the cell that
  * calls exit itself; the runner and the kernel report that case when it happens.
@@ -38,7 +38,9 @@ final class ExitCallRewriter {
             LOOKUP + ".findVirtual(Ljava/lang/Class;Ljava/lang/String;Ljava/lang/invoke/MethodType;)Ljava/lang/invoke/MethodHandle;",
             new String[] {"findVirtual", "(L" + LOOKUP + ";Ljava/lang/Class;Ljava/lang/String;Ljava/lang/invoke/MethodType;)Ljava/lang/invoke/MethodHandle;"},
             LOOKUP + ".unreflect(Ljava/lang/reflect/Method;)Ljava/lang/invoke/MethodHandle;",
-            new String[] {"unreflect", "(L" + LOOKUP + ";Ljava/lang/reflect/Method;)Ljava/lang/invoke/MethodHandle;"});
+            new String[] {"unreflect", "(L" + LOOKUP + ";Ljava/lang/reflect/Method;)Ljava/lang/invoke/MethodHandle;"},
+            LOOKUP + ".bind(Ljava/lang/Object;Ljava/lang/String;Ljava/lang/invoke/MethodType;)Ljava/lang/invoke/MethodHandle;",
+            new String[] {"bind", "(L" + LOOKUP + ";Ljava/lang/Object;Ljava/lang/String;Ljava/lang/invoke/MethodType;)Ljava/lang/invoke/MethodHandle;"});
 
     private ExitCallRewriter() { }
 

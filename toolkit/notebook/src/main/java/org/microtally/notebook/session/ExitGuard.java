@@ -11,7 +11,7 @@ import java.lang.reflect.Method;
  * method-handle doors to them (see {@code ExitCallRewriter}). The exit methods always throw
  * {@link ExitBlockedException}; the doors do what the original call does, except that they refuse
  * an exit method ({@code Method.invoke}) or hand back a handle that throws ({@code findStatic},
- * {@code findVirtual}, {@code unreflect}). The doors are checked again when reached through
+ * {@code findVirtual}, {@code unreflect}, {@code bind}). The doors are checked again when reached through
  * themselves (reflection on {@code Method.invoke}, a handle to {@code findStatic}, ...).
  *
  * <p>One difference a cell may notice: reflection on a non-public member without
@@ -78,6 +78,13 @@ public final class ExitGuard {
         return guard == null ? lookup.unreflect(method) : OWN.unreflect(guard);
     }
 
+    /** Replaces {@code lookup.bind(receiver, name, type)}. */
+    public static MethodHandle bind(MethodHandles.Lookup lookup, Object receiver, String name, MethodType type)
+            throws NoSuchMethodException, IllegalAccessException {
+        Method guard = counterpart(receiver.getClass(), name, type, false);
+        return guard == null ? lookup.bind(receiver, name, type) : OWN.unreflect(guard).bindTo(receiver);
+    }
+
     /** The guard method standing in for {@code refc.name(type)}, or null when that method is not guarded. */
     private static Method counterpart(Class<?> refc, String name, MethodType type, boolean isStatic) {
         String guard = null;
@@ -88,7 +95,7 @@ public final class ExitGuard {
         } else if (refc == Method.class && !isStatic && name.equals("invoke")) {
             guard = "invoke";
         } else if (refc == MethodHandles.Lookup.class && !isStatic
-                && (name.equals("findStatic") || name.equals("findVirtual") || name.equals("unreflect"))) {
+                && (name.equals("findStatic") || name.equals("findVirtual") || name.equals("unreflect") || name.equals("bind"))) {
             guard = name;
         }
         if (guard == null) {

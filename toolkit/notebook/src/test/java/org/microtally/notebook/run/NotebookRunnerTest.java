@@ -337,6 +337,20 @@ class NotebookRunnerTest {
     }
 
     @Test
+    void libraryCodeThatEndsTheJvmIsReportedWithItsCellAndAFailingStatus() throws Exception {
+        // javac's command-line entry point ends the JVM itself (System.exit in library code, not rewritten)
+        Path nb = notebook("javac.ipynb", "{}", "\"before\"", "com.sun.tools.javac.Main.main(new String[] {\"-version\"});", "\"never\"");
+        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        Process p = new ProcessBuilder(java, "-Xmx256m", "-XX:+UseSerialGC", "-cp", System.getProperty("java.class.path"),
+                RunnerMain.class.getName(), nb.toString(), "--out", tmp.resolve("out").toString()).redirectErrorStream(true).start();
+        String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(p.waitFor(90, TimeUnit.SECONDS), text);
+        // Source: JDK 17 source, com.sun.tools.javac.Main.main ends with System.exit(compile(args)), here status 0
+        assertEquals(ExitWatch.EXIT_STATUS, p.exitValue(), text);
+        assertTrue(text.contains("FAILED " + nb + ", cell 2: code called by that cell ended the JVM"), text);
+    }
+
+    @Test
     void stalePartialFilesOfTheNotebookAreRemoved() throws IOException {
         Path nb = notebook("tidy.ipynb", "{}", "1 + 1");
         Path out = Files.createDirectories(tmp.resolve("out"));

@@ -237,7 +237,8 @@ class SessionTest {
                 "MethodHandles.publicLookup().findVirtual(Runtime.class, \"halt\", java.lang.invoke.MethodType.methodType(void.class, int.class))"
                         + ".invoke(Runtime.getRuntime(), 8);",
                 "MethodHandles.lookup().unreflect(System.class.getMethod(\"exit\", int.class)).invoke(9);",
-                "java.util.function.IntConsumer stop = Runtime.getRuntime()::halt;\nstop.accept(12);");
+                "java.util.function.IntConsumer stop = Runtime.getRuntime()::halt;\nstop.accept(12);",
+                "MethodHandles.lookup().bind(Runtime.getRuntime(), \"exit\", java.lang.invoke.MethodType.methodType(void.class, int.class)).invoke(14);");
         for (String call : direct) {
             CellResult r = run("import java.lang.invoke.MethodHandles;\n" + call);
             assertEquals(ExitBlockedException.class.getName(), r.error().orElseThrow().type(), call);
