@@ -6,7 +6,6 @@ import com.google.gson.JsonArray;
 import com.google.gson.JsonElement;
 import com.google.gson.JsonObject;
 import com.google.gson.JsonParseException;
-import com.google.gson.JsonPrimitive;
 import com.google.gson.Strictness;
 import com.google.gson.TypeAdapter;
 import com.google.gson.stream.JsonReader;
@@ -289,14 +288,5 @@ final class Notebook {
     /** The notebook as JSON text (pretty-printed). */
     String toJson() {
         return GSON.toJson(root) + "\n";
-    }
-
-    static JsonPrimitive str(String s) {
-        return new JsonPrimitive(s);
-    }
-
-    /** Parses a string as notebook JSON (for tests). */
-    static Notebook parse(String json, String name) throws NotebookFormatException {
-        return parse(new StringReader(json), name);
     }
 }

@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.util.Locale;
 import java.util.Optional;
+import org.microtally.InvalidInputException;
 
 /**
  * How the headless runner runs: where it writes, whether it goes on after a failure, how long a
@@ -31,7 +32,8 @@ public record RunSettings(Path outDir, boolean keepGoing, Optional<Duration> cel
 
     public RunSettings {
         if (outputLimitBytes < 1) {
-            throw new IllegalArgumentException("--output-limit = " + outputLimitBytes + " is not allowed: give a number of bytes >= 1");
+            throw InvalidInputException.of("--output-limit", outputLimitBytes, "a number of bytes >= 1",
+                    "The default keeps " + DEFAULT_OUTPUT_LIMIT + " bytes per output.");
         }
     }
 

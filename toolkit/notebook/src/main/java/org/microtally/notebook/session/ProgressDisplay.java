@@ -58,11 +58,6 @@ final class ProgressDisplay implements ProgressListener {
         Display.emitTo(target(), b, id, true, true);
     }
 
-    /** Number of in-place updates sent so far. */
-    synchronized int updates() {
-        return updates;
-    }
-
     private MimeBundle bundle(long done, long total, String stage) {
         int pct = (int) Math.floor(100.0 * done / total);
         int filled = (int) (BAR * done / total);
