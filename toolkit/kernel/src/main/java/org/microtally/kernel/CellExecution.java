@@ -138,8 +138,7 @@ final class CellExecution {
 
     /** After a failed cell with stop_on_error, answers execute requests already queued with "aborted". */
     private void abortQueued(ZMQ.Socket socket) {
-        ZMQ.Poller poller = wire.context().createPoller(1);
-        poller.register(socket, ZMQ.Poller.POLLIN);
+        ZMQ.Poller poller = wire.poller(socket);
         try {
             while (poller.poll(0) > 0 && poller.pollin(0)) {
                 Optional<Message<?>> next = wire.receive(socket, "shell");

@@ -1,18 +1,12 @@
 package org.microtally.kernel;
 
 import io.github.spencerpark.jupyter.kernel.KernelConnectionProperties;
-import io.github.spencerpark.jupyter.messages.Header;
 import io.github.spencerpark.jupyter.messages.Message;
 import io.github.spencerpark.jupyter.messages.MessageType;
 import io.github.spencerpark.jupyter.messages.publish.PublishError;
-import io.github.spencerpark.jupyter.messages.publish.PublishStatus;
-import io.github.spencerpark.jupyter.messages.request.ExecuteRequest;
 import java.lang.management.ManagementFactory;
 import java.util.ArrayList;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
-import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.Executors;
@@ -133,43 +127,10 @@ final class Kernel {
                     + (listening - jvmStart) + " ms after JVM start; first kernel_info answered "
                     + (first > 0 ? (first - jvmStart) + " ms after JVM start" : "not yet"));
             engine.open();
-            warmMessagePath();
+            wire.warm(running::get);
         }, "microtally-engine-open");
         opener.setDaemon(true);
         opener.start();
-    }
-
-    /**
-     * Runs the message encoding and decoding code a few thousand times on dummy messages (never
-     * sent), so the JIT compiles it before the first cells instead of during them: measured, the
-     * first few hundred requests otherwise take about 3x longer than later ones.
-     */
-    void warmMessagePath() {
-        long t0 = System.nanoTime();
-        String session = wire.kernelSession();
-        WireCodec codec = wire.codec();
-        Header<PublishStatus> h = new Header<>(session, MessageType.PUBLISH_STATUS);
-        Message<PublishStatus> status = new Message<>(List.of(new byte[8]), h, h, new LinkedHashMap<>(),
-                PublishStatus.forState(PublishStatus.State.IDLE), null);
-        Message<CellExecution.ExecuteOk> reply = new Message<>(List.of(new byte[8]),
-                new Header<>(session, CellExecution.<CellExecution.ExecuteOk>executeReplyType()), h,
-                new LinkedHashMap<>(Map.of("microtally_eval_seconds", 0.001)), new CellExecution.ExecuteOk(1), null);
-        Message<ExecuteRequest> request = new Message<>(List.of(new byte[8]),
-                new Header<>(session, MessageType.EXECUTE_REQUEST), null, new LinkedHashMap<>(),
-                new ExecuteRequest("1 + 1", false, true, Map.of(), false, true), null);
-        int n = 0;
-        try {
-            for (int i = 0; i < 1500 && running.get(); i++) {
-                n += codec.encode(status).size() + codec.encode(reply).size();
-                n += codec.decode(codec.encode(request)).getIdentities().size();
-                new Header<>(request, MessageType.PUBLISH_STREAM);
-            }
-        } catch (WireCodec.BadSignatureException | WireCodec.MalformedMessageException e) {
-            KernelLog.LOG.log(Level.WARNING, "message warm-up failed", e);
-        }
-        int frames = n;
-        KernelLog.LOG.info(() -> String.format(Locale.ROOT, "message path warmed in %.0f ms (%d frames)",
-                (System.nanoTime() - t0) / 1e6, frames));
     }
 
     /** Blocks until the kernel has stopped. */
@@ -245,8 +206,7 @@ final class Kernel {
     }
 
     private void echoHeartbeats(ZMQ.Socket heartbeat) {
-        ZMQ.Poller poller = wire.context().createPoller(1);
-        poller.register(heartbeat, ZMQ.Poller.POLLIN);
+        ZMQ.Poller poller = wire.poller(heartbeat);
         while (running.get()) {
             if (poller.poll(250) > 0 && poller.pollin(0)) {
                 List<byte[]> frames = KernelWire.receiveFrames(heartbeat);
@@ -260,8 +220,7 @@ final class Kernel {
 
     /** The request loop of one channel: it ends only when the kernel stops. */
     private void serve(ZMQ.Socket socket, String channel) {
-        ZMQ.Poller poller = wire.context().createPoller(1);
-        poller.register(socket, ZMQ.Poller.POLLIN);
+        ZMQ.Poller poller = wire.poller(socket);
         while (running.get()) {
             try {
                 if (poller.poll(250) <= 0 || !poller.pollin(0)) {

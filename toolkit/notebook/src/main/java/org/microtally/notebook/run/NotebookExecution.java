@@ -19,8 +19,14 @@ import org.microtally.notebook.session.Engine;
  * The execute stage of the runner: runs a notebook's code cells in order in one engine, each under
  * the cell time limit, and collects every cell's outputs into the (copied) notebook. Stops at the
  * first unexpected failure unless told to keep going; cells tagged {@code raises-exception} may fail.
+ *
+ * @param file        the notebook's path, for messages
+ * @param cellTimeout the time limit of each cell
+ * @param settings    the run's settings (keep going, output limit)
+ * @param progress    where progress lines go
+ * @param exits       told which cell runs, to name it if the JVM is made to exit
  */
-final class NotebookExecution {
+record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, ProgressLine progress, ExitWatch exits) {
     /** The tag that marks a cell expected to fail (as in Jupyter's own tools). */
     static final String RAISES_EXCEPTION = "raises-exception";
 
@@ -34,20 +40,6 @@ final class NotebookExecution {
 
     /** The executed notebook and its first unexpected failure, if any. */
     record Executed(Notebook notebook, Optional<Failure> failure) { }
-
-    private final Path file;
-    private final Duration cellTimeout;
-    private final RunSettings settings;
-    private final ProgressLine progress;
-    private final ExitWatch exits;
-
-    NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, ProgressLine progress, ExitWatch exits) {
-        this.file = file;
-        this.cellTimeout = cellTimeout;
-        this.settings = settings;
-        this.progress = progress;
-        this.exits = exits;
-    }
 
     Executed run(Notebook input, Engine.Factory engines) {
         Notebook nb = input.copy();
