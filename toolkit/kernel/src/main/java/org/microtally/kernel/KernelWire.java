@@ -79,7 +79,6 @@ final class KernelWire {
                 (System.nanoTime() - t0) / 1e6, frames));
     }
 
-
     ZMQ.Socket bind(SocketType type, int port) {
         ZMQ.Socket s = zmq.createSocket(type);
         s.setLinger(0);
