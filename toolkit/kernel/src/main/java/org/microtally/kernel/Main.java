@@ -135,6 +135,10 @@ public final class Main implements Callable<Integer> {
             boolean sysPrefix;
         }
 
+        @Option(names = "--refuse-unsigned",
+                description = "make the kernel refuse a connection file with an empty key (unsigned messages)")
+        boolean refuseUnsigned;
+
         private final PrintStream out;
         private final PrintStream err;
 
@@ -154,7 +158,7 @@ public final class Main implements Callable<Integer> {
                 return 1;
             }
             try {
-                KernelSpec.install(scope, scope == KernelSpec.Scope.PREFIX ? where.prefix : null, jar.get(), out);
+                KernelSpec.install(scope, scope == KernelSpec.Scope.PREFIX ? where.prefix : null, jar.get(), out, refuseUnsigned);
                 return 0;
             } catch (IOException | IllegalStateException e) {
                 err.println("microtally: install-kernel failed: " + e.getMessage());

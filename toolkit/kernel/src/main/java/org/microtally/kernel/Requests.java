@@ -36,8 +36,8 @@ final class Requests {
     static final String PROTOCOL_VERSION = "5.3";
     /** The banner's line when the connection file has no key. */
     static final String UNSIGNED_WARNING = "WARNING: the connection file has an empty key, so messages are not signed "
-            + "and any local process that can reach the ports can run code here; start the kernel with "
-            + "--refuse-unsigned to refuse such a connection file";
+            + "and any local process that can reach the ports can run code here; install the kernel with "
+            + "'microtally install-kernel --refuse-unsigned' (or start it with 'kernel --refuse-unsigned') to refuse such a connection file";
 
     private final KernelWire wire;
     private final EngineSlot engine;

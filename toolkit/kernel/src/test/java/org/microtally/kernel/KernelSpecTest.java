@@ -32,6 +32,11 @@ class KernelSpecTest {
         assertEquals("Java 17 (microtally)", spec.get("display_name").getAsString());
         assertEquals("java", spec.get("language").getAsString());
         assertEquals("message", spec.get("interrupt_mode").getAsString());
+
+        Path strict = KernelSpec.write(dir.resolve("strict"), java, jar, null, true);
+        JsonArray strictArgv = JsonParser.parseString(Files.readString(strict)).getAsJsonObject().getAsJsonArray("argv");
+        assertEquals(List.of("kernel", "--refuse-unsigned", "{connection_file}"),
+                strictArgv.asList().subList(strictArgv.size() - 3, strictArgv.size()).stream().map(e -> e.getAsString()).toList());
     }
 
     @Test
