@@ -43,7 +43,7 @@ class LabelledCanonicalTest {
                 double z = 0;
                 double e1 = 0;
                 for (int e = 0; e <= n * 5; e++) {
-                    double w = t.count(n, e, l).doubleValue() * Math.exp(-e / kT);
+                    double w = t.truncatedModelCount(n, e, l).doubleValue() * Math.exp(-e / kT);
                     z += w;
                     e1 += w * e;
                 }

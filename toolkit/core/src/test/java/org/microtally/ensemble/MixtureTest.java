@@ -54,7 +54,7 @@ class MixtureTest {
         double e1 = 0;
         double e2 = 0;
         for (int e = 0; e <= maxE; e++) {
-            BigInteger c = joint.count(e, 0);
+            BigInteger c = joint.truncatedModelCount(e, 0); // the mixture is of the truncated spectra as given
             double w = c.doubleValue() * Math.exp(-e / kT);
             z += w;
             e1 += w * e;

@@ -20,6 +20,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.UUID;
 import java.util.concurrent.TimeUnit;
+import org.microtally.notebook.session.Session;
 import org.zeromq.SocketType;
 import org.zeromq.ZContext;
 import org.zeromq.ZMQ;
@@ -95,14 +96,14 @@ final class ClassArchive {
         String key = UUID.randomUUID().toString();
         KernelConnectionProperties props = new KernelConnectionProperties("127.0.0.1", freePort(), freePort(),
                 freePort(), freePort(), freePort(), "tcp", "hmac-sha256", key);
-        Kernel kernel = new Kernel(props, SessionEngine::open);
+        Kernel kernel = new Kernel(props, Session::open);
         kernel.start();
         WireCodec codec = new WireCodec("hmac-sha256", key);
         try (ZContext ctx = new ZContext()) {
             ZMQ.Socket shell = ctx.createSocket(SocketType.DEALER);
             shell.setLinger(0);
             shell.setReceiveTimeOut(120_000);
-            shell.connect(Kernel.address("tcp", "127.0.0.1", props.getShellPort()));
+            shell.connect(KernelWire.address("tcp", "127.0.0.1", props.getShellPort()));
             boolean ok = ask(shell, codec, MessageType.KERNEL_INFO_REQUEST, new KernelInfoRequest(), "kernel_info_reply")
                     && ask(shell, codec, MessageType.EXECUTE_REQUEST,
                     new ExecuteRequest("int quanta = 100;\nquanta * 2", false, true, Map.of(), false, true), "execute_reply");

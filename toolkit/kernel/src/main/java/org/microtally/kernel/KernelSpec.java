@@ -40,6 +40,14 @@ final class KernelSpec {
 
     /** As {@link #kernelJson(Path, Path)}, using the class data archive {@code archive} if not null. */
     static Map<String, Object> kernelJson(Path java, Path jar, Path archive) {
+        return kernelJson(java, jar, archive, false);
+    }
+
+    /**
+     * As {@link #kernelJson(Path, Path, Path)}; with {@code refuseUnsigned} the kernel is started with
+     * {@code --refuse-unsigned} (a connection file with an empty key is refused).
+     */
+    static Map<String, Object> kernelJson(Path java, Path jar, Path archive, boolean refuseUnsigned) {
         List<String> argv = new ArrayList<>();
         argv.add(java.toAbsolutePath().toString());
         argv.addAll(JVM_OPTIONS);
@@ -49,6 +57,9 @@ final class KernelSpec {
         argv.add("-jar");
         argv.add(jar.toAbsolutePath().toString());
         argv.add("kernel");
+        if (refuseUnsigned) {
+            argv.add("--refuse-unsigned");
+        }
         argv.add("{connection_file}");
         Map<String, Object> spec = new LinkedHashMap<>();
         spec.put("argv", argv);
@@ -61,8 +72,8 @@ final class KernelSpec {
     }
 
     @SuppressWarnings("unchecked")
-    private static List<String> argv(Path java, Path jar, Path archive) {
-        return (List<String>) kernelJson(java, jar, archive).get("argv");
+    private static List<String> argv(Path java, Path jar, Path archive, boolean refuseUnsigned) {
+        return (List<String>) kernelJson(java, jar, archive, refuseUnsigned).get("argv");
     }
 
     /** Writes {@code dir/kernel.json}, creating {@code dir}. */
@@ -72,9 +83,15 @@ final class KernelSpec {
 
     /** Writes {@code dir/kernel.json} using the class data archive {@code archive} (may be null). */
     static Path write(Path dir, Path java, Path jar, Path archive) throws IOException {
+        return write(dir, java, jar, archive, false);
+    }
+
+    /** As {@link #write(Path, Path, Path, Path)}, with the kernel's {@code --refuse-unsigned} when asked. */
+    static Path write(Path dir, Path java, Path jar, Path archive, boolean refuseUnsigned) throws IOException {
         Files.createDirectories(dir);
         Path file = dir.resolve("kernel.json");
-        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create().toJson(kernelJson(java, jar, archive));
+        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create()
+                .toJson(kernelJson(java, jar, archive, refuseUnsigned));
         Files.writeString(file, json + "\n", StandardCharsets.UTF_8);
         return file;
     }
@@ -86,13 +103,19 @@ final class KernelSpec {
      * @return the installed kernelspec directory
      */
     static Path install(Scope scope, Path prefix, Path jar, PrintStream out) throws IOException, InterruptedException {
+        return install(scope, prefix, jar, out, false);
+    }
+
+    /** As {@link #install(Scope, Path, Path, PrintStream)}; {@code refuseUnsigned} adds the kernel's {@code --refuse-unsigned}. */
+    static Path install(Scope scope, Path prefix, Path jar, PrintStream out, boolean refuseUnsigned)
+            throws IOException, InterruptedException {
         Path java = Path.of(System.getProperty("java.home"), "bin", "java");
         Path staging = Files.createTempDirectory("microtally-kernelspec");
         Path specDir = staging.resolve(NAME);
         try {
             out.println("recording the kernel's class data archive (one warm-up run, a few seconds)...");
             Path archive = ClassArchive.create(java, jar, out).orElse(null);
-            write(specDir, java, jar, archive);
+            write(specDir, java, jar, archive, refuseUnsigned);
             Path jupyter = onPath("jupyter");
             if (jupyter != null) {
                 List<String> cmd = new ArrayList<>(List.of(jupyter.toString(), "kernelspec", "install", "--name", NAME));
@@ -110,13 +133,13 @@ final class KernelSpec {
                 Path installed = installedDir(log, scope, prefix);
                 out.println("installed kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") with: " + String.join(" ", cmd));
                 out.println("  location: " + installed);
-                out.println("  runs: " + String.join(" ", argv(java, jar, archive)));
+                out.println("  runs: " + String.join(" ", argv(java, jar, archive, refuseUnsigned)));
                 return installed;
             }
             Path target = dataDir(scope, prefix).resolve("kernels").resolve(NAME);
-            write(target, java, jar, archive);
+            write(target, java, jar, archive, refuseUnsigned);
             out.println("jupyter is not on the PATH: wrote kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") directly to " + target);
-            out.println("  runs: " + String.join(" ", argv(java, jar, archive)));
+            out.println("  runs: " + String.join(" ", argv(java, jar, archive, refuseUnsigned)));
             return target;
         } finally {
             deleteTree(staging);

@@ -7,90 +7,61 @@ import java.net.URISyntaxException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Optional;
+import java.util.concurrent.Callable;
+import org.microtally.notebook.run.Cli;
+import org.microtally.notebook.run.RunCommand;
+import org.microtally.notebook.session.Session;
+import picocli.CommandLine;
+import picocli.CommandLine.ArgGroup;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
 
 /**
  * The {@code microtally} command: runs the Jupyter kernel, installs its kernelspec, runs notebooks
- * headless. Exit codes: 0 success, 1 a notebook failed or an operation failed, 2 bad usage.
+ * headless. One parser (picocli, configured by {@link Cli}) for every command, with generated help
+ * ({@code microtally --help}, {@code microtally COMMAND --help}). Exit codes: 0 success, 1 a notebook
+ * failed or an operation failed, 2 bad usage or input.
  */
-public final class Main {
-    static final String USAGE = String.join("\n",
-            "usage: microtally COMMAND [ARGS]",
-            "",
-            "commands:",
-            "  run NOTEBOOK... [--out DIR] [--keep-going] [--cell-timeout SECONDS]",
-            "        execute each notebook in a fresh session (no Python needed), write DIR/NAME.ipynb (executed)",
-            "        and DIR/NAME.html (default DIR: ./microtally-out); exit 1 naming the first failing cell",
-            "  install-kernel [--user | --prefix DIR | --sys-prefix] [--with-spark]",
-            "        install the Jupyter kernelspec 'microtally' (default --user); uses 'jupyter kernelspec install'",
-            "        when jupyter is on the PATH, else writes the kernelspec directory itself; --with-spark also",
-            "        installs 'microtally-spark', the kernel with the Spark module on its class path",
-            "  kernel CONNECTION_FILE",
-            "        run the Jupyter kernel (Jupyter starts this itself through the kernelspec)",
-            "  --help       this text",
-            "  --version    the toolkit version");
+@Command(name = "microtally", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
+        description = "Exact statistical mechanics of finite systems in Java 17 notebooks.",
+        subcommands = {RunCommand.class, Main.InstallKernel.class, Main.KernelCommand.class, Main.WarmUp.class})
+public final class Main implements Callable<Integer> {
+    private final PrintStream err;
 
-    private Main() { }
-
-    public static void main(String[] args) {
-        int code;
-        try {
-            code = run(args, System.out, System.err);
-        } catch (UsageException e) {
-            System.err.println("microtally: " + e.getMessage());
-            System.err.println("run 'microtally --help' for the commands");
-            code = 2;
-        }
-        System.exit(code);
+    private Main(PrintStream err) {
+        this.err = err;
     }
 
-    /** Bad command-line input; the message says what was wrong and what is allowed. */
-    static final class UsageException extends RuntimeException {
-        private static final long serialVersionUID = 1L;
-
-        UsageException(String message) {
-            super(message);
-        }
+    public static void main(String[] args) {
+        System.exit(run(args, System.out, System.err));
     }
 
     /** Runs one command; returns the exit code. The kernel command returns when the kernel stops. */
     static int run(String[] args, PrintStream out, PrintStream err) {
-        if (args.length == 0) {
-            err.println(USAGE);
-            return 2;
-        }
-        List<String> rest = List.of(args).subList(1, args.length);
-        switch (args[0]) {
-            case "--help", "-h", "help" -> {
-                out.println(USAGE);
-                return 0;
+        CommandLine cli = new CommandLine(new Main(err), new Factory(out, err));
+        return Cli.configure(cli, out, err).execute(args);
+    }
+
+    /** Without a command: the usage text on stderr, status 2. */
+    @Override
+    public Integer call() {
+        new CommandLine(this).usage(err);
+        return 2;
+    }
+
+    /** Builds the commands with the streams of this call (the run command reports on stderr). */
+    private record Factory(PrintStream out, PrintStream err) implements CommandLine.IFactory {
+        @Override
+        public <K> K create(Class<K> type) throws Exception {
+            if (type == RunCommand.class) {
+                return type.cast(new RunCommand(err == System.err ? Session.consoleErr() : err, System.console() != null));
             }
-            case "--version", "version" -> {
-                out.println("microtally " + version());
-                return 0;
+            if (type == InstallKernel.class) {
+                return type.cast(new InstallKernel(out, err));
             }
-            case "kernel" -> {
-                return kernel(rest);
-            }
-            case "install-kernel" -> {
-                return installKernel(rest, out, err);
-            }
-            case "run" -> {
-                return NotebookRun.run(rest, out, err);
-            }
-            case "warm-up" -> {
-                // internal: the run install-kernel records the class data archive from
-                try {
-                    return ClassArchive.warmUp();
-                } catch (java.io.IOException e) {
-                    err.println("microtally warm-up failed: " + e.getMessage());
-                    return 1;
-                }
-            }
-            default -> throw new UsageException("unknown command '" + args[0]
-                    + "'; allowed: run, install-kernel, kernel, --help, --version");
+            return CommandLine.defaultFactory().create(type);
         }
     }
 
@@ -100,79 +71,124 @@ public final class Main {
         return v == null ? "dev" : v;
     }
 
-    private static int kernel(List<String> args) {
-        if (args.size() != 1) {
-            throw new UsageException("kernel takes exactly one argument, the connection file; got " + args);
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            return new String[] {"microtally " + version()};
         }
-        Path file = Path.of(args.get(0));
-        String json;
-        try {
-            json = Files.readString(file, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new UsageException("cannot read connection file " + file + ": " + e.getMessage());
-        }
-        KernelLog.configure(file);
-        KernelConnectionProperties props = KernelConnectionProperties.parse(json);
-        Kernel kernel = new Kernel(props, SessionEngine::open).onShutdown(() -> System.exit(0));
-        kernel.start();
-        ParentWatch.exitWhenParentDies(kernel);
-        try {
-            kernel.awaitStop();
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-        }
-        return 0;
     }
 
-    private static int installKernel(List<String> args, PrintStream out, PrintStream err) {
-        KernelSpec.Scope scope = KernelSpec.Scope.USER;
-        Path prefix = null;
-        int chosen = 0;
-        boolean withSpark = false;
-        for (int i = 0; i < args.size(); i++) {
-            String a = args.get(i);
-            if (a.equals(SparkKernelSpec.OPTION)) {
-                withSpark = true;
-            } else if (a.equals("--user")) {
-                scope = KernelSpec.Scope.USER;
-                chosen++;
-            } else if (a.equals("--sys-prefix")) {
-                scope = KernelSpec.Scope.SYS_PREFIX;
-                chosen++;
-            } else if (a.equals("--prefix") || a.startsWith("--prefix=")) {
-                String value = a.startsWith("--prefix=") ? a.substring("--prefix=".length())
-                        : (i + 1 < args.size() ? args.get(++i) : null);
-                if (value == null || value.isBlank()) {
-                    throw new UsageException("--prefix needs a directory, e.g. --prefix /tmp/jupyter-env");
-                }
-                scope = KernelSpec.Scope.PREFIX;
-                prefix = Path.of(value);
-                chosen++;
-            } else {
-                throw new UsageException("install-kernel: unknown option '" + a + "'; allowed: --user, --prefix DIR, --sys-prefix, --with-spark");
+    @Command(name = "kernel", mixinStandardHelpOptions = true,
+            description = "Run the Jupyter kernel (Jupyter starts this itself through the kernelspec).")
+    static final class KernelCommand implements Callable<Integer> {
+        @Parameters(paramLabel = "CONNECTION_FILE", description = "the connection file Jupyter wrote")
+        Path file;
+
+        @Option(names = "--refuse-unsigned", description = "refuse a connection file with an empty key (unsigned messages)")
+        boolean refuseUnsigned;
+
+        @Override
+        public Integer call() {
+            String json;
+            try {
+                json = Files.readString(file, StandardCharsets.UTF_8);
+            } catch (IOException e) {
+                throw new CommandLine.ParameterException(new CommandLine(this), "cannot read connection file " + file + ": "
+                        + (e instanceof java.nio.file.NoSuchFileException ? "not found" : e.getMessage()));
             }
-        }
-        if (chosen > 1) {
-            throw new UsageException("install-kernel takes one of --user, --prefix DIR, --sys-prefix; got " + args);
-        }
-        Optional<Path> jar = ownJar();
-        if (jar.isEmpty()) {
-            err.println("microtally: install-kernel must run from the shaded jar (toolkit/bin/microtally install-kernel),"
-                    + " so that the kernelspec can point at it");
-            return 1;
-        }
-        try {
-            KernelSpec.install(scope, prefix, jar.get(), out);
-            if (withSpark) {
-                SparkKernelSpec.install(scope, prefix, jar.get(), out);
+            KernelLog.configure(file);
+            KernelConnectionProperties props = KernelConnectionProperties.parse(json);
+            Kernel kernel;
+            try {
+                kernel = new Kernel(props, Session::open, refuseUnsigned).onShutdown(() -> System.exit(0));
+            } catch (IllegalArgumentException e) {
+                KernelLog.LOG.severe(e.getMessage());
+                System.err.println("microtally kernel: " + e.getMessage());
+                return 1;
+            }
+            kernel.start();
+            ParentWatch.exitWhenParentDies(kernel);
+            try {
+                kernel.awaitStop();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
             }
             return 0;
-        } catch (IOException | IllegalStateException e) {
-            err.println("microtally: install-kernel failed: " + e.getMessage());
-            return 1;
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            return 1;
+        }
+    }
+
+    @Command(name = "install-kernel", mixinStandardHelpOptions = true,
+            description = {"Install the Jupyter kernelspec 'microtally' (default --user); uses 'jupyter kernelspec install' "
+                    + "when jupyter is on the PATH, else writes the kernelspec directory itself."})
+    static final class InstallKernel implements Callable<Integer> {
+        @ArgGroup(exclusive = true)
+        Where where;
+
+        static final class Where {
+            @Option(names = "--user", description = "for the current user (the default)")
+            boolean user;
+
+            @Option(names = "--prefix", paramLabel = "DIR", description = "under DIR/share/jupyter (e.g. a virtual environment)")
+            Path prefix;
+
+            @Option(names = "--sys-prefix", description = "under the Python prefix Jupyter runs from")
+            boolean sysPrefix;
+        }
+
+        @Option(names = "--refuse-unsigned",
+                description = "make the kernel refuse a connection file with an empty key (unsigned messages)")
+        boolean refuseUnsigned;
+
+        @Option(names = SparkKernelSpec.OPTION,
+                description = "also install 'microtally-spark', the kernel with the Spark module on its class path")
+        boolean withSpark;
+
+        private final PrintStream out;
+        private final PrintStream err;
+
+        InstallKernel(PrintStream out, PrintStream err) {
+            this.out = out;
+            this.err = err;
+        }
+
+        @Override
+        public Integer call() {
+            KernelSpec.Scope scope = where == null || where.user ? KernelSpec.Scope.USER
+                    : where.sysPrefix ? KernelSpec.Scope.SYS_PREFIX : KernelSpec.Scope.PREFIX;
+            Optional<Path> jar = ownJar();
+            if (jar.isEmpty()) {
+                err.println("microtally: install-kernel must run from the shaded jar (toolkit/bin/microtally install-kernel),"
+                        + " so that the kernelspec can point at it");
+                return 1;
+            }
+            try {
+                Path prefix = scope == KernelSpec.Scope.PREFIX ? where.prefix : null;
+                KernelSpec.install(scope, prefix, jar.get(), out, refuseUnsigned);
+                if (withSpark) {
+                    SparkKernelSpec.install(scope, prefix, jar.get(), out);
+                }
+                return 0;
+            } catch (IOException | IllegalStateException e) {
+                err.println("microtally: install-kernel failed: " + e.getMessage());
+                return 1;
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                return 1;
+            }
+        }
+    }
+
+    /** Internal: the run install-kernel records the class data archive from. */
+    @Command(name = "warm-up", hidden = true)
+    static final class WarmUp implements Callable<Integer> {
+        @Override
+        public Integer call() {
+            try {
+                return ClassArchive.warmUp();
+            } catch (IOException e) {
+                System.err.println("microtally warm-up failed: " + e.getMessage());
+                return 1;
+            }
         }
     }
 
@@ -188,20 +204,5 @@ public final class Main {
         } catch (URISyntaxException | SecurityException e) {
             return Optional.empty();
         }
-    }
-
-    /** Splits {@code --opt=value} forms; kept for the run command's parser. */
-    static List<String> expand(List<String> args) {
-        List<String> out = new ArrayList<>();
-        for (String a : args) {
-            int eq = a.indexOf('=');
-            if (a.startsWith("--") && eq > 2) {
-                out.add(a.substring(0, eq));
-                out.add(a.substring(eq + 1));
-            } else {
-                out.add(a);
-            }
-        }
-        return out;
     }
 }

@@ -1,15 +1,29 @@
 package org.microtally.kernel;
 
 import com.google.gson.Gson;
+import com.google.gson.GsonBuilder;
 import com.google.gson.JsonElement;
+import com.google.gson.JsonObject;
 import com.google.gson.JsonParseException;
 import com.google.gson.JsonParser;
 import com.google.gson.reflect.TypeToken;
-import io.github.spencerpark.jupyter.channels.JupyterSocket;
+import io.github.spencerpark.jupyter.kernel.ExpressionValue;
+import io.github.spencerpark.jupyter.kernel.history.HistoryEntry;
 import io.github.spencerpark.jupyter.messages.Header;
+import io.github.spencerpark.jupyter.messages.KernelTimestamp;
 import io.github.spencerpark.jupyter.messages.Message;
 import io.github.spencerpark.jupyter.messages.MessageType;
-import java.lang.reflect.Field;
+import io.github.spencerpark.jupyter.messages.ReplyType;
+import io.github.spencerpark.jupyter.messages.adapters.ExpressionValueAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.HeaderAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.HistoryEntryAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.HistoryRequestAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.KernelTimestampAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.MessageTypeAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.PublishStatusAdapter;
+import io.github.spencerpark.jupyter.messages.adapters.ReplyTypeAdapter;
+import io.github.spencerpark.jupyter.messages.publish.PublishStatus;
+import io.github.spencerpark.jupyter.messages.request.HistoryRequest;
 import java.lang.reflect.Type;
 import java.nio.charset.StandardCharsets;
 import java.security.GeneralSecurityException;
@@ -32,10 +46,14 @@ import javax.crypto.spec.SecretKeySpec;
  * ({@link MessageDigest#isEqual}). An empty key means "no authentication", as the protocol states:
  * then the signature frame is empty and not checked.
  *
- * <p>The JSON mapping of headers and contents is the message model of jupyter-jvm-basekernel: this
- * class uses that library's own Gson instance so the field names are exactly those it was written
- * for; the library's socket reader is not used because it compares signatures with
- * {@code String.equals} and blocks its caller.
+ * <p>The JSON mapping of headers and contents is the message model of jupyter-jvm-basekernel, built
+ * here from that library's public type adapters exactly as its own socket class combines them (no
+ * reflection into the library); the library's socket reader is not used because it compares
+ * signatures with {@code String.equals} and blocks its caller.
+ *
+ * <p>Decoding never throws anything but the two checked exceptions below: a header or parent header
+ * that is not an object with string {@code msg_id} and {@code msg_type}, a content that is not a
+ * JSON object, or JSON the model cannot map, is a {@link MalformedMessageException}.
  */
 final class WireCodec {
     static final byte[] DELIMITER = "<IDS|MSG>".getBytes(StandardCharsets.US_ASCII);
@@ -86,15 +104,20 @@ final class WireCodec {
         }
     }
 
-    /** The library's JSON mapping (a private static field of its socket class, version pinned). */
+    /** The library's JSON mapping, from its public adapters (the recipe of its JupyterSocket, version 2.3.0). */
     private static Gson libraryGson() {
-        try {
-            Field f = JupyterSocket.class.getDeclaredField("gson");
-            f.setAccessible(true);
-            return (Gson) f.get(null);
-        } catch (ReflectiveOperationException e) {
-            throw new IllegalStateException("jupyter-jvm-basekernel changed its JSON mapping; pin version 2.3.0", e);
-        }
+        Gson replyGson = new GsonBuilder()
+                .registerTypeAdapter(HistoryEntry.class, HistoryEntryAdapter.INSTANCE)
+                .registerTypeAdapter(ExpressionValue.class, ExpressionValueAdapter.INSTANCE)
+                .create();
+        return new GsonBuilder()
+                .registerTypeAdapter(KernelTimestamp.class, KernelTimestampAdapter.INSTANCE)
+                .registerTypeAdapter(Header.class, HeaderAdapter.INSTANCE)
+                .registerTypeAdapter(MessageType.class, MessageTypeAdapter.INSTANCE)
+                .registerTypeAdapter(PublishStatus.class, PublishStatusAdapter.INSTANCE)
+                .registerTypeAdapter(HistoryRequest.class, HistoryRequestAdapter.INSTANCE)
+                .registerTypeHierarchyAdapter(ReplyType.class, new ReplyTypeAdapter(replyGson))
+                .create();
     }
 
     static Gson gson() {
@@ -175,19 +198,58 @@ final class WireCodec {
         }
         List<byte[]> blobs = new ArrayList<>(frames.subList(d + 6, frames.size()));
         try {
-            Header<?> h = GSON.fromJson(utf8(header), Header.class);
-            if (h == null || h.getType() == null) {
-                throw new MalformedMessageException("message header without msg_type");
-            }
+            Header<?> h = header(JsonParser.parseString(utf8(header)), "header");
             JsonElement p = JsonParser.parseString(utf8(parent));
-            Header<?> ph = p.isJsonObject() && p.getAsJsonObject().size() > 0 ? GSON.fromJson(p, Header.class) : null;
-            Map<String, Object> meta = GSON.fromJson(utf8(metadata), METADATA_TYPE);
+            Header<?> ph = p.isJsonObject() && p.getAsJsonObject().size() > 0 ? header(p, "parent header") : null;
+            JsonElement metaTree = JsonParser.parseString(utf8(metadata));
+            Map<String, Object> meta = metaTree.isJsonObject() ? GSON.fromJson(metaTree, METADATA_TYPE) : null;
+            JsonElement bodyTree = JsonParser.parseString(utf8(content));
+            if (!bodyTree.isJsonObject()) {
+                throw new MalformedMessageException("the content of " + h.getType().getName() + " is not a JSON object");
+            }
             Class<?> contentType = h.getType().getContentType();
-            Object body = GSON.fromJson(utf8(content), contentType == null ? Object.class : contentType);
+            Object body = GSON.fromJson(bodyTree, contentType == null ? Object.class : contentType);
             return build(identities, h, ph, meta == null ? new LinkedHashMap<>() : meta, body, blobs);
-        } catch (JsonParseException | IllegalStateException e) {
-            throw new MalformedMessageException("bad JSON in message: " + e.getMessage());
+        } catch (RuntimeException e) {
+            // JsonParseException, IllegalStateException, NumberFormatException, ... from the JSON mapping
+            throw new MalformedMessageException("not a Jupyter message: " + e.getClass().getSimpleName()
+                    + (e.getMessage() == null ? "" : ": " + e.getMessage()));
         }
+    }
+
+    private static final List<String> HEADER_STRINGS = List.of("msg_id", "msg_type", "username", "session", "version");
+
+    /**
+     * A header after checking its shape: an object whose msg_id and msg_type are non-empty strings;
+     * username, session and version, when present, strings (missing ones read as empty), and a date
+     * that is a string when present.
+     */
+    private static Header<?> header(JsonElement tree, String what) throws MalformedMessageException {
+        if (!tree.isJsonObject()) {
+            throw new MalformedMessageException("the " + what + " is not a JSON object");
+        }
+        JsonObject o = tree.getAsJsonObject().deepCopy();
+        for (String field : HEADER_STRINGS) {
+            JsonElement v = o.get(field);
+            boolean required = field.equals("msg_id") || field.equals("msg_type");
+            if (v == null || v.isJsonNull()) {
+                if (required) {
+                    throw new MalformedMessageException("the " + what + " has no " + field);
+                }
+                o.addProperty(field, "");
+            } else if (!v.isJsonPrimitive() || !v.getAsJsonPrimitive().isString() || (required && v.getAsString().isEmpty())) {
+                throw new MalformedMessageException("the " + what + "'s " + field + " is not a non-empty string: " + v);
+            }
+        }
+        JsonElement date = o.get("date");
+        if (date != null && !date.isJsonNull() && !(date.isJsonPrimitive() && date.getAsJsonPrimitive().isString())) {
+            throw new MalformedMessageException("the " + what + "'s date is not a string: " + date);
+        }
+        Header<?> h = GSON.fromJson(o, Header.class);
+        if (h == null || h.getType() == null) {
+            throw new MalformedMessageException("the " + what + " names no known msg_type");
+        }
+        return h;
     }
 
     @SuppressWarnings({"unchecked", "rawtypes"})
@@ -198,7 +260,7 @@ final class WireCodec {
 
     /** The message type named in a header frame, for logging dropped messages. */
     static String typeName(Message<?> m) {
-        MessageType<?> t = m.getHeader().getType();
+        MessageType<?> t = m.getHeader() == null ? null : m.getHeader().getType();
         return t == null ? "?" : t.getName();
     }
 

@@ -30,6 +30,9 @@ import org.microtally.notebook.render.MimeBundle;
 import org.microtally.notebook.session.CellError;
 import org.microtally.notebook.session.CellOutput;
 import org.microtally.notebook.session.CellResult;
+import org.microtally.notebook.session.Completeness;
+import org.microtally.notebook.session.Completions;
+import org.microtally.notebook.session.Engine;
 import org.zeromq.SocketType;
 import org.zeromq.ZContext;
 import org.zeromq.ZMQ;
@@ -42,7 +45,7 @@ class KernelProtocolTest {
     private static final String KEY = "test-key-" + UUID.randomUUID();
 
     /** Engine double: records what it was asked to run; "boom" fails, "spin" runs until interrupted. */
-    static final class RecordingEngine implements CellEngine {
+    static final class RecordingEngine implements Engine {
         final List<String> ran = new CopyOnWriteArrayList<>();
         final CountDownLatch spinning = new CountDownLatch(1);
         volatile boolean interrupted;
@@ -86,8 +89,8 @@ class KernelProtocolTest {
         }
 
         @Override
-        public Completion complete(String code, int cursor) {
-            return new Completion(List.of("alpha", "alphabet"), Math.max(0, cursor - 2), cursor);
+        public Completions complete(String code, int cursor) {
+            return new Completions(List.of("alpha", "alphabet"), Math.max(0, cursor - 2), cursor);
         }
 
         @Override
@@ -97,7 +100,7 @@ class KernelProtocolTest {
 
         @Override
         public Completeness completeness(String code) {
-            return new Completeness(code.endsWith("{") ? Completeness.Kind.INCOMPLETE : Completeness.Kind.COMPLETE, "    ");
+            return new Completeness(code.endsWith("{") ? Completeness.Status.INCOMPLETE : Completeness.Status.COMPLETE, "    ");
         }
 
         @Override
@@ -124,6 +127,7 @@ class KernelProtocolTest {
     private ZMQ.Socket control;
     private ZMQ.Socket iopub;
     private ZMQ.Socket hb;
+    private int stdinPort;
 
     private static int freePort() throws IOException {
         try (ServerSocket s = new ServerSocket(0)) {
@@ -133,13 +137,25 @@ class KernelProtocolTest {
 
     @BeforeEach
     void start() throws Exception {
-        int[] p = {freePort(), freePort(), freePort(), freePort(), freePort()};
-        KernelConnectionProperties props = new KernelConnectionProperties("127.0.0.1", p[0], p[1], p[2], p[3], p[4],
-                "tcp", "hmac-sha256", KEY);
         KernelLog.LOG.addHandler(capture);
         KernelLog.LOG.setUseParentHandlers(false); // keep the test output quiet
-        kernel = new Kernel(props, () -> engine);
-        kernel.start();
+        int[] p = null;
+        // a port found free may be taken by another process before the kernel binds it: try fresh ports
+        for (int attempt = 1; kernel == null; attempt++) {
+            p = new int[] {freePort(), freePort(), freePort(), freePort(), freePort()};
+            KernelConnectionProperties props = new KernelConnectionProperties("127.0.0.1", p[0], p[1], p[2], p[3], p[4],
+                    "tcp", "hmac-sha256", KEY);
+            Kernel k = new Kernel(props, () -> engine);
+            try {
+                k.start();
+                kernel = k;
+            } catch (org.zeromq.ZMQException e) {
+                if (attempt == 3) {
+                    throw e;
+                }
+            }
+        }
+        stdinPort = p[2];
         ctx = new ZContext();
         // constructor order: control, shell, stdin, heartbeat, iopub
         control = connect(SocketType.DEALER, p[0]);
@@ -187,6 +203,12 @@ class KernelProtocolTest {
             s.send(body[i], i < body.length - 1 ? ZMQ.SNDMORE : 0);
         }
         return id;
+    }
+
+    /** Sends an execute_request for {@code code} on the shell channel, signed with the key; returns its msg_id. */
+    private String execute(String code) throws Exception {
+        return send(shell, KEY, "execute_request", "{\"code\":\"" + code + "\",\"silent\":false,\"store_history\":true,"
+                + "\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
     }
 
     /** The next message on a socket as {header, parent_header, content}, or null on timeout. */
@@ -263,8 +285,7 @@ class KernelProtocolTest {
         assertTrue(logged.stream().anyMatch(r -> r.getMessage().contains("bad signature")), "no log record of the drop");
 
         // The same request with the right key runs: the check above can fail.
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"genuine\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("genuine");
         JsonObject[] reply = receive(shell);
         assertEquals("ok", reply[2].get("status").getAsString());
         assertEquals(List.of("genuine"), engine.ran);
@@ -272,8 +293,7 @@ class KernelProtocolTest {
 
     @Test
     void executePublishesInputStreamDisplayResultAndReplies() throws Exception {
-        String id = send(shell, KEY, "execute_request",
-                "{\"code\":\"x\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        String id = execute("x");
         JsonObject[] reply = receive(shell);
         assertEquals("execute_reply", reply[0].get("msg_type").getAsString());
         assertEquals("ok", reply[2].get("status").getAsString());
@@ -293,8 +313,7 @@ class KernelProtocolTest {
 
     @Test
     void aFailingCellPublishesAnErrorAndTheNextCellRuns() throws Exception {
-        String id = send(shell, KEY, "execute_request",
-                "{\"code\":\"boom\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        String id = execute("boom");
         JsonObject[] reply = receive(shell);
         assertEquals("error", reply[2].get("status").getAsString());
         assertEquals("java.lang.IllegalStateException", reply[2].get("ename").getAsString());
@@ -303,8 +322,7 @@ class KernelProtocolTest {
         List<JsonObject[]> pub = iopubUntilIdle(id);
         assertTrue(types(pub).contains("error"), types(pub).toString());
 
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"after\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("after");
         JsonObject[] second = receive(shell);
         assertEquals("ok", second[2].get("status").getAsString());
         assertEquals(2, second[2].get("execution_count").getAsInt());
@@ -312,8 +330,7 @@ class KernelProtocolTest {
 
     @Test
     void interruptOnTheControlChannelStopsARunningCell() throws Exception {
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"spin\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("spin");
         assertTrue(engine.spinning.await(5, TimeUnit.SECONDS));
         send(control, KEY, "interrupt_request", "{}");
         JsonObject[] ir = receive(control);
@@ -326,8 +343,7 @@ class KernelProtocolTest {
 
     @Test
     void anInterruptThatFindsNothingToStopYetIsRepeated() throws Exception {
-        send(shell, KEY, "execute_request",
-                "{\"code\":\"deaf-once\",\"silent\":false,\"store_history\":true,\"user_expressions\":{},\"allow_stdin\":false,\"stop_on_error\":true}");
+        execute("deaf-once");
         assertTrue(engine.spinning.await(5, TimeUnit.SECONDS));
         long t0 = System.nanoTime();
         send(control, KEY, "interrupt_request", "{}");
@@ -357,6 +373,155 @@ class KernelProtocolTest {
         JsonObject[] k = receive(shell);
         assertEquals("incomplete", k[2].get("status").getAsString());
         assertEquals("    ", k[2].get("indent").getAsString());
+    }
+
+    /** Sends the JSON frames as they are, signed with the test key. */
+    private void sendRaw(ZMQ.Socket s, List<String> jsonFrames, List<String> extra) throws Exception {
+        s.send("<IDS|MSG>", ZMQ.SNDMORE);
+        String[] four = jsonFrames.size() >= 4 ? jsonFrames.subList(0, 4).toArray(new String[0]) : jsonFrames.toArray(new String[0]);
+        s.send(hmac(KEY, four), jsonFrames.isEmpty() && extra.isEmpty() ? 0 : ZMQ.SNDMORE);
+        List<String> rest = new ArrayList<>(jsonFrames);
+        rest.addAll(extra);
+        for (int i = 0; i < rest.size(); i++) {
+            s.send(rest.get(i), i < rest.size() - 1 ? ZMQ.SNDMORE : 0);
+        }
+    }
+
+    /** Waits for the shell reply whose parent is {@code id}, skipping replies to earlier requests. */
+    private JsonObject[] replyTo(String id) throws Exception {
+        long end = System.nanoTime() + TimeUnit.SECONDS.toNanos(20);
+        while (System.nanoTime() < end) {
+            JsonObject[] m = receive(shell);
+            if (m != null && m[1].has("msg_id") && m[1].get("msg_id").getAsString().equals(id)) {
+                return m;
+            }
+        }
+        return null;
+    }
+
+
+    @Test
+    void aSignedMessageWithAnEmptyHeaderIsDroppedAndTheKernelStillExecutes() throws Exception {
+        sendRaw(shell, List.of("{}", "{}", "{}", "{\"code\":\"never\"}"), List.of());
+        sendRaw(shell, List.of("{\"msg_type\":\"execute_request\"}", "{}", "{}", "{\"code\":\"never\"}"), List.of());
+        String id = execute("after");
+        JsonObject[] reply = replyTo(id);
+        assertNotNull(reply, "no reply after the malformed messages: the request loop died");
+        assertEquals("ok", reply[2].get("status").getAsString());
+        assertEquals(List.of("after"), engine.ran);
+        assertEquals(2, kernel.droppedMalformed());
+        assertTrue(logged.stream().anyMatch(r -> r.getMessage().contains("malformed") && r.getMessage().contains("no msg_id")),
+                "no log line for the dropped message");
+    }
+
+    private static final String[] TYPES = {"kernel_info_request", "execute_request", "complete_request", "inspect_request",
+        "is_complete_request", "comm_info_request", "history_request", "interrupt_request", "no_such_request", "", "status"};
+
+    private static String randomJson(java.util.Random rnd, int depth) {
+        switch (rnd.nextInt(depth > 2 ? 5 : 8)) {
+            case 0: return "null";
+            case 1: return Integer.toString(rnd.nextInt(2000) - 1000);
+            case 2: return rnd.nextBoolean() ? "true" : "1e309";
+            case 3: return "\"" + "x\\u00e9\\ud83d".substring(0, rnd.nextInt(8)) + "\"";
+            case 4: return rnd.nextBoolean() ? "{" : "[1,";   // truncated JSON
+            case 5: {
+                StringBuilder sb = new StringBuilder("[");
+                for (int i = rnd.nextInt(3); i > 0; i--) {
+                    sb.append(randomJson(rnd, depth + 1)).append(i > 1 ? "," : "");
+                }
+                return sb.append("]").toString();
+            }
+            default: {
+                String[] keys = {"code", "cursor_pos", "silent", "store_history", "stop_on_error", "msg_id", "msg_type",
+                    "user_expressions", "detail_level", "restart", "hist_access_type", "date", "session", "x"};
+                StringBuilder sb = new StringBuilder("{");
+                for (int i = rnd.nextInt(5); i > 0; i--) {
+                    sb.append('"').append(keys[rnd.nextInt(keys.length)]).append("\":").append(randomJson(rnd, depth + 1))
+                            .append(i > 1 ? "," : "");
+                }
+                return sb.append("}").toString();
+            }
+        }
+    }
+
+    private static String randomHeader(java.util.Random rnd) {
+        switch (rnd.nextInt(6)) {
+            case 0: return "{}";
+            case 1: return randomJson(rnd, 0);
+            case 2: return "{\"msg_type\":\"" + TYPES[rnd.nextInt(TYPES.length)] + "\"}";
+            case 3: return "{\"msg_id\":" + randomJson(rnd, 2) + ",\"msg_type\":" + randomJson(rnd, 2) + "}";
+            default: return "{\"msg_id\":\"f" + rnd.nextInt() + "\",\"msg_type\":\"" + TYPES[rnd.nextInt(TYPES.length)]
+                    + "\",\"session\":\"fuzz\",\"username\":\"f\",\"version\":\"5.3\""
+                    + (rnd.nextBoolean() ? ",\"date\":" + randomJson(rnd, 2) : "") + "}";
+        }
+    }
+
+    @Test
+    @org.junit.jupiter.api.Timeout(value = 60, unit = TimeUnit.SECONDS)
+    void fuzzedSignedMessagesOnEveryChannelLeaveTheKernelWorking() throws Exception {
+        java.util.Random rnd = new java.util.Random(20261202L);
+        ZMQ.Socket stdin = connect(SocketType.DEALER, stdinPort);
+        ZMQ.Socket[] channels = {shell, control, stdin};
+        for (int i = 0; i < 300; i++) {
+            List<String> frames = new ArrayList<>(List.of(randomHeader(rnd),
+                    rnd.nextInt(4) == 0 ? randomJson(rnd, 0) : "{}",
+                    rnd.nextInt(4) == 0 ? randomJson(rnd, 0) : "{}",
+                    randomJson(rnd, 0)));
+            int cut = rnd.nextInt(10) == 0 ? rnd.nextInt(4) : 4;   // sometimes too few frames
+            List<String> extra = rnd.nextInt(8) == 0 ? List.of("blob", randomJson(rnd, 0)) : List.of();
+            sendRaw(channels[rnd.nextInt(channels.length)], frames.subList(0, cut), extra);
+            if (rnd.nextInt(20) == 0) {
+                hb.send("fuzz-" + i);
+                assertEquals("fuzz-" + i, hb.recvStr());
+            }
+        }
+        String id = execute("after");
+        JsonObject[] reply = replyTo(id);
+        assertNotNull(reply, "no execute_reply after the fuzzed messages");
+        assertEquals("ok", reply[2].get("status").getAsString());
+        assertTrue(engine.ran.contains("after"), engine.ran.toString());
+        String info = send(control, KEY, "kernel_info_request", "{}");
+        JsonObject[] ir = null;
+        for (int i = 0; i < 400 && ir == null; i++) {
+            JsonObject[] m = receive(control);
+            assertNotNull(m, "the control channel went quiet");
+            ir = m[1].has("msg_id") && m[1].get("msg_id").getAsString().equals(info) ? m : null;
+        }
+        assertEquals("kernel_info_reply", ir[0].get("msg_type").getAsString());
+        assertTrue(kernel.droppedMalformed() > 50, "the fuzz sent few malformed messages: " + kernel.droppedMalformed());
+        assertTrue(logged.stream().noneMatch(r -> r.getMessage() != null && r.getMessage().contains("thread failed")));
+    }
+
+    @Test
+    void anEmptyKeyIsWarnedAboutOrRefused() throws Exception {
+        KernelConnectionProperties open = new KernelConnectionProperties("127.0.0.1", freePort(), freePort(), freePort(),
+                freePort(), freePort(), "tcp", "", "");
+        IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                () -> new Kernel(open, () -> engine, true));
+        assertTrue(e.getMessage().contains("empty key"), e.getMessage());
+        Kernel unsigned = new Kernel(open, () -> engine, false);
+        unsigned.start();
+        try {
+            assertTrue(logged.stream().anyMatch(r -> r.getMessage().contains("empty key")), "no warning in the log");
+            ZMQ.Socket s = connect(SocketType.DEALER, open.getShellPort());
+            String id = UUID.randomUUID().toString();
+            // Source: Jupyter messaging protocol 5.3, "The Wire Protocol": with an empty key the signature frame is empty
+            s.send("<IDS|MSG>", ZMQ.SNDMORE);
+            s.send("", ZMQ.SNDMORE);
+            s.send("{\"msg_id\":\"" + id + "\",\"msg_type\":\"kernel_info_request\",\"session\":\"t\",\"username\":\"t\",\"version\":\"5.3\"}", ZMQ.SNDMORE);
+            s.send("{}", ZMQ.SNDMORE);
+            s.send("{}", ZMQ.SNDMORE);
+            s.send("{}", 0);
+            List<String> frames = new ArrayList<>();
+            frames.add(s.recvStr());
+            while (s.hasReceiveMore()) {
+                frames.add(s.recvStr());
+            }
+            String banner = JsonParser.parseString(frames.get(frames.indexOf("<IDS|MSG>") + 5)).getAsJsonObject().get("banner").getAsString();
+            assertTrue(banner.contains("empty key") && banner.contains("--refuse-unsigned"), banner);
+        } finally {
+            unsigned.stop();
+        }
     }
 
     @Test

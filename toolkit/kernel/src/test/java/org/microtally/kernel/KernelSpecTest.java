@@ -1,7 +1,6 @@
 package org.microtally.kernel;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.google.gson.JsonArray;
@@ -33,6 +32,11 @@ class KernelSpecTest {
         assertEquals("Java 17 (microtally)", spec.get("display_name").getAsString());
         assertEquals("java", spec.get("language").getAsString());
         assertEquals("message", spec.get("interrupt_mode").getAsString());
+
+        Path strict = KernelSpec.write(dir.resolve("strict"), java, jar, null, true);
+        JsonArray strictArgv = JsonParser.parseString(Files.readString(strict)).getAsJsonObject().getAsJsonArray("argv");
+        assertEquals(List.of("kernel", "--refuse-unsigned", "{connection_file}"),
+                strictArgv.asList().subList(strictArgv.size() - 3, strictArgv.size()).stream().map(e -> e.getAsString()).toList());
     }
 
     @Test
@@ -44,18 +48,37 @@ class KernelSpecTest {
     @Test
     void addressesFollowTheConnectionFileTransport() {
         // Source: Jupyter client documentation, "Connection files": tcp uses ip:port; ipc uses ip-port as a path
-        assertEquals("tcp://127.0.0.1:5555", Kernel.address("tcp", "127.0.0.1", 5555));
-        assertEquals("ipc:///tmp/kernel-1-5555", Kernel.address("ipc", "/tmp/kernel-1", 5555));
+        assertEquals("tcp://127.0.0.1:5555", KernelWire.address("tcp", "127.0.0.1", 5555));
+        assertEquals("ipc:///tmp/kernel-1-5555", KernelWire.address("ipc", "/tmp/kernel-1", 5555));
     }
 
     @Test
     void usageErrorsNameTheBadInputAndTheChoices() {
-        Main.UsageException e = assertThrows(Main.UsageException.class,
-                () -> Main.run(new String[] {"brew"}, System.out, System.err));
-        assertTrue(e.getMessage().contains("brew") && e.getMessage().contains("install-kernel"), e.getMessage());
-        Main.UsageException twoScopes = assertThrows(Main.UsageException.class,
-                () -> Main.run(new String[] {"install-kernel", "--user", "--sys-prefix"}, System.out, System.err));
-        assertTrue(twoScopes.getMessage().contains("one of"), twoScopes.getMessage());
+        ByteArrayOutputStream buf = new ByteArrayOutputStream();
+        PrintStream err = new PrintStream(buf, true, StandardCharsets.UTF_8);
+        assertEquals(2, Main.run(new String[] {"brew"}, System.out, err));
+        String text = buf.toString(StandardCharsets.UTF_8);
+        assertTrue(text.contains("brew") && text.contains("install-kernel"), text);
+        buf.reset();
+        assertEquals(2, Main.run(new String[] {"install-kernel", "--user", "--sys-prefix"}, System.out, err));
+        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("mutually exclusive"), buf.toString(StandardCharsets.UTF_8));
+        buf.reset();
+        assertEquals(2, Main.run(new String[] {"install-kernel", "--prefix"}, System.out, err));
+        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("--prefix"), buf.toString(StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void optionsTakeTheirValueAfterASpaceOrAnEqualsSign() {
+        ByteArrayOutputStream buf = new ByteArrayOutputStream();
+        PrintStream err = new PrintStream(buf, true, StandardCharsets.UTF_8);
+        // both forms parse; from test classes (not the shaded jar) install-kernel then stops with status 1, not a usage error
+        assertEquals(1, Main.run(new String[] {"install-kernel", "--prefix=" + System.getProperty("java.io.tmpdir")}, System.out, err));
+        assertEquals(1, Main.run(new String[] {"install-kernel", "--prefix", System.getProperty("java.io.tmpdir")}, System.out, err));
+        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("must run from the shaded jar"), buf.toString(StandardCharsets.UTF_8));
+        buf.reset();
+        // the run command shares the parser: --out=DIR is accepted (the missing notebook is then bad input, status 2)
+        assertEquals(2, Main.run(new String[] {"run", "--out=" + System.getProperty("java.io.tmpdir"), "no-such.ipynb"}, System.out, err));
+        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("no-such.ipynb: not found"), buf.toString(StandardCharsets.UTF_8));
     }
 
     @Test
@@ -63,7 +86,11 @@ class KernelSpecTest {
         ByteArrayOutputStream buf = new ByteArrayOutputStream();
         PrintStream out = new PrintStream(buf, true, StandardCharsets.UTF_8);
         assertEquals(0, Main.run(new String[] {"--help"}, out, System.err));
-        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("run NOTEBOOK..."));
+        String help = buf.toString(StandardCharsets.UTF_8);
+        assertTrue(help.contains("run") && help.contains("install-kernel") && help.contains("kernel"), help);
+        buf.reset();
+        assertEquals(0, Main.run(new String[] {"run", "--help"}, out, System.err));
+        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("--cell-timeout=SECONDS"), buf.toString(StandardCharsets.UTF_8));
         buf.reset();
         assertEquals(0, Main.run(new String[] {"--version"}, out, System.err));
         assertTrue(buf.toString(StandardCharsets.UTF_8).startsWith("microtally "));

@@ -83,6 +83,46 @@ class WireCodecTest {
         assertThrows(WireCodec.MalformedMessageException.class, () -> codec.decode(List.of(b("id"), b("{}"))));
     }
 
+    /** Correctly signed frames carrying the given JSON texts. */
+    private static List<byte[]> signed(WireCodec codec, String header, String parent, String metadata, String content) {
+        byte[][] body = {b(header), b(parent), b(metadata), b(content)};
+        List<byte[]> frames = new ArrayList<>(List.of(b("id"), WireCodec.DELIMITER, b(codec.sign(body))));
+        frames.addAll(List.of(body));
+        return frames;
+    }
+
+    @Test
+    void signedMessagesOfTheWrongShapeAreMalformedNotCrashes() throws Exception {
+        WireCodec codec = new WireCodec("hmac-sha256", "k");
+        String good = "{\"msg_id\":\"1\",\"msg_type\":\"execute_request\",\"username\":\"u\",\"session\":\"s\",\"version\":\"5.3\"}";
+        String run = "{\"code\":\"1\",\"silent\":false}";
+        // the well-formed one decodes, so the refusals below are about the shape alone
+        assertEquals("execute_request", WireCodec.typeName(codec.decode(signed(codec, good, "{}", "{}", run))));
+        // Source: Jupyter messaging protocol 5.3, "General Message Format": a header has msg_id and msg_type (strings)
+        List<String[]> bad = List.of(
+                new String[] {"{}", "{}", "{}", run},
+                new String[] {"{\"msg_type\":\"execute_request\"}", "{}", "{}", run},
+                new String[] {"{\"msg_id\":\"1\"}", "{}", "{}", run},
+                new String[] {"{\"msg_id\":7,\"msg_type\":\"execute_request\"}", "{}", "{}", run},
+                new String[] {"{\"msg_id\":\"1\",\"msg_type\":[1]}", "{}", "{}", run},
+                new String[] {"[]", "{}", "{}", run},
+                new String[] {"null", "{}", "{}", run},
+                new String[] {good.replace("\"version\":\"5.3\"", "\"date\":5"), "{}", "{}", run},
+                new String[] {good, "{\"msg_id\":3}", "{}", run},
+                new String[] {good, "{}", "{}", "[1, 2]"},
+                new String[] {good, "{}", "{}", "null"},
+                new String[] {good, "{}", "{}", "{\"code\":{\"nested\":true}}"},
+                new String[] {good, "{}", "not json", run},
+                new String[] {"{\"msg_id\":\"1\",\"msg_type\":\"execute_request\"", "{}", "{}", run});
+        for (String[] m : bad) {
+            assertThrows(WireCodec.MalformedMessageException.class, () -> codec.decode(signed(codec, m[0], m[1], m[2], m[3])),
+                    String.join(" | ", m));
+        }
+        // missing optional header strings read as empty rather than failing later
+        Message<?> lean = codec.decode(signed(codec, "{\"msg_id\":\"1\",\"msg_type\":\"kernel_info_request\"}", "{}", "{}", "{}"));
+        assertEquals("kernel_info_request", WireCodec.typeName(lean));
+    }
+
     @Test
     void unknownSignatureSchemesAreRefused() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> new WireCodec("hmac-md5", "k"));

@@ -6,7 +6,6 @@ import com.google.gson.JsonArray;
 import com.google.gson.JsonElement;
 import com.google.gson.JsonObject;
 import com.google.gson.JsonParseException;
-import com.google.gson.JsonPrimitive;
 import com.google.gson.Strictness;
 import com.google.gson.TypeAdapter;
 import com.google.gson.stream.JsonReader;
@@ -39,11 +38,34 @@ final class Notebook {
         this.name = name;
     }
 
-    /** Reads and checks a notebook file. */
-    static Notebook read(Path file) throws IOException, NotebookFormatException {
-        try (Reader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
-            return parse(r, file.toString());
+    /**
+     * Reads and checks a notebook file. Every problem is a {@link NotebookFormatException} whose
+     * message names the file and says what is wrong in our words: a missing or unreadable file (with
+     * the operating system's reason), bytes that are not UTF-8 (with the byte offset), JSON errors
+     * (line and column), or a JSON shape that is not nbformat 4 (the JSON path).
+     */
+    static Notebook read(Path file) throws NotebookFormatException {
+        byte[] bytes;
+        try {
+            bytes = Files.readAllBytes(file);
+        } catch (java.nio.file.NoSuchFileException e) {
+            throw new NotebookFormatException("cannot read " + file + ": not found (no such file)", e);
+        } catch (IOException e) {
+            throw new NotebookFormatException("cannot read " + file + ": " + OutputFolder.reason(e), e);
         }
+        java.nio.charset.CharsetDecoder utf8 = StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(java.nio.charset.CodingErrorAction.REPORT)
+                .onUnmappableCharacter(java.nio.charset.CodingErrorAction.REPORT);
+        java.nio.ByteBuffer in = java.nio.ByteBuffer.wrap(bytes);
+        java.nio.CharBuffer text = java.nio.CharBuffer.allocate(bytes.length);
+        java.nio.charset.CoderResult r = utf8.decode(in, text, true);
+        if (r.isError()) {
+            throw new NotebookFormatException(file + " is not valid UTF-8 at byte " + in.position() + " (0x"
+                    + String.format("%02X", bytes[in.position()] & 0xFF) + "): notebooks are UTF-8 JSON; save it as UTF-8");
+        }
+        utf8.flush(text);
+        text.flip();
+        return parse(new StringReader(text.toString()), file.toString());
     }
 
     /** Parses notebook JSON; {@code name} is used in messages. */
@@ -65,7 +87,9 @@ final class Notebook {
             String where = m.find() ? "at line " + m.group(1) + ", column " + Math.max(1, Integer.parseInt(m.group(2)) - 1)
                     : "(position unknown)";
             String what = msg.replaceAll("\\s*at line \\d+ column \\d+ path \\S*", "")
-                    .replaceAll("\\s*See https://\\S+", "").strip();
+                    .replaceAll("\\s*See https://\\S+", "")
+                    .replaceAll("\\s*;?\\s*Use JsonReader\\.set\\w+\\([^)]*\\) to accept malformed JSON", "")
+                    .replaceAll("^com\\.google\\.gson\\.[\\w.]+:\\s*", "").strip();
             throw new NotebookFormatException(name + " is not valid JSON " + where + ": " + what, e);
         }
         if (!tree.isJsonObject()) {
@@ -264,14 +288,5 @@ final class Notebook {
     /** The notebook as JSON text (pretty-printed). */
     String toJson() {
         return GSON.toJson(root) + "\n";
-    }
-
-    static JsonPrimitive str(String s) {
-        return new JsonPrimitive(s);
-    }
-
-    /** Parses a string as notebook JSON (for tests). */
-    static Notebook parse(String json, String name) throws NotebookFormatException {
-        return parse(new StringReader(json), name);
     }
 }

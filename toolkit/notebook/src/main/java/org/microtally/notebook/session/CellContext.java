@@ -5,19 +5,23 @@ import java.nio.charset.StandardCharsets;
 import org.microtally.notebook.render.MimeBundle;
 
 /**
- * The state of one running cell: where its output goes. All calls into the {@link CellOutput}
- * are made while holding this object's lock, so the sink sees one call at a time and in order
- * (pending stream text is always delivered before a display that follows it).
+ * The state of one running cell: where its output goes, as one ordered queue. Standard output,
+ * standard error and displays are delivered to the {@link CellOutput} in exactly the order the
+ * cell wrote them: text of one stream is gathered until the other stream is written, a display is
+ * shown, {@value #MAX_PENDING} bytes have gathered or {@value #FLUSH_INTERVAL_MS} ms have passed;
+ * then the gathered text goes out first. All calls into the sink are made while holding this
+ * object's lock, so the sink sees one call at a time. This is the only place output is batched.
  */
 final class CellContext {
     /** Pending text is delivered at least this often while a cell runs. */
     static final long FLUSH_INTERVAL_MS = 50;
-    private static final int MAX_PENDING = 8192;
+    static final int MAX_PENDING = 8192;
 
     final ThreadGroup group;
     private final CellOutput sink;
-    private final Pending out = new Pending(false);
-    private final Pending err = new Pending(true);
+    private final ByteArrayOutputStream pending = new ByteArrayOutputStream();
+    private boolean pendingIsStderr;
+    private long lastEmit = System.nanoTime();
 
     CellContext(ThreadGroup group, CellOutput sink) {
         this.group = group;
@@ -25,24 +29,29 @@ final class CellContext {
     }
 
     synchronized void write(boolean stderr, byte[] b, int off, int len) {
-        Pending p = stderr ? err : out;
-        p.buffer.write(b, off, len);
-        long now = System.nanoTime();
-        if (p.buffer.size() >= MAX_PENDING || now - p.lastEmit >= FLUSH_INTERVAL_MS * 1_000_000L) {
-            p.emit(false);
+        if (pending.size() > 0 && stderr != pendingIsStderr) {
+            emit(true);   // the other stream's text came first: it goes out first, whole
+        }
+        pendingIsStderr = stderr;
+        pending.write(b, off, len);
+        if (pending.size() >= MAX_PENDING || System.nanoTime() - lastEmit >= FLUSH_INTERVAL_MS * 1_000_000L) {
+            emit(false);
         }
     }
 
     /** Delivers pending text; at the end of the cell also an incomplete trailing character. */
     synchronized void flush(boolean end) {
-        out.emit(end);
-        err.emit(end);
+        emit(end);
     }
 
-    synchronized void display(MimeBundle bundle, String id, boolean update) {
-        flush(false);
+    synchronized void display(MimeBundle bundle, String id, boolean update, boolean progress) {
+        emit(false);
         try {
-            sink.display(bundle, id, update);
+            if (progress) {
+                sink.progress(bundle, id, update);
+            } else {
+                sink.display(bundle, id, update);
+            }
         } catch (RuntimeException e) {
             sinkFailed(e);
         }
@@ -53,32 +62,22 @@ final class CellContext {
         OutputRouter.CONSOLE_ERR.println("microtally engine: the cell output sink failed and dropped output: " + e);
     }
 
-    private final class Pending {
-        final boolean stderr;
-        final ByteArrayOutputStream buffer = new ByteArrayOutputStream();
-        long lastEmit = System.nanoTime();
-
-        Pending(boolean stderr) {
-            this.stderr = stderr;
+    private void emit(boolean whole) {
+        lastEmit = System.nanoTime();
+        if (pending.size() == 0) {
+            return;
         }
-
-        void emit(boolean end) {
-            lastEmit = System.nanoTime();
-            if (buffer.size() == 0) {
-                return;
-            }
-            byte[] bytes = buffer.toByteArray();
-            int cut = end ? bytes.length : completeUtf8Prefix(bytes);
-            if (cut == 0) {
-                return;
-            }
-            buffer.reset();
-            buffer.write(bytes, cut, bytes.length - cut);
-            try {
-                sink.stream(stderr, new String(bytes, 0, cut, StandardCharsets.UTF_8));
-            } catch (RuntimeException e) {
-                sinkFailed(e);
-            }
+        byte[] bytes = pending.toByteArray();
+        int cut = whole ? bytes.length : completeUtf8Prefix(bytes);
+        if (cut == 0) {
+            return;
+        }
+        pending.reset();
+        pending.write(bytes, cut, bytes.length - cut);
+        try {
+            sink.stream(pendingIsStderr, new String(bytes, 0, cut, StandardCharsets.UTF_8));
+        } catch (RuntimeException e) {
+            sinkFailed(e);
         }
     }
 

@@ -13,8 +13,11 @@ import org.microtally.notebook.render.MimeBundle;
  */
 public record CellResult(Outcome outcome, Optional<MimeBundle> value, Optional<Object> raw, Optional<CellError> error) {
 
-    /** How a cell ended. */
-    public enum Outcome { OK, COMPILE_ERROR, RUNTIME_ERROR, INTERRUPTED }
+    /**
+     * How a cell ended. {@code OUT_OF_MEMORY} is a runtime error that exhausted the heap: a front
+     * end may check whether the heap recovered (the kernel does) before running more cells.
+     */
+    public enum Outcome { OK, COMPILE_ERROR, RUNTIME_ERROR, OUT_OF_MEMORY, INTERRUPTED }
 
     /** True when the cell ran to the end without error. */
     public boolean ok() {

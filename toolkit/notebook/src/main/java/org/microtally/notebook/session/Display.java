@@ -15,8 +15,8 @@ import org.microtally.notebook.render.Renderers;
  * printed on the process's standard output.
  */
 public final class Display {
-    /** Display ids of {@link #progress} displays start with this prefix. */
-    public static final String PROGRESS_ID_PREFIX = "microtally-progress-";
+    /** Display ids of {@link #progress} displays start with this prefix (for uniqueness only; front ends get {@link CellOutput#progress}). */
+    static final String PROGRESS_ID_PREFIX = "microtally-progress-";
     private static final AtomicLong IDS = new AtomicLong();
 
     private Display() { }
@@ -62,12 +62,12 @@ public final class Display {
     }
 
     static void emit(MimeBundle bundle, String id, boolean update) {
-        emitTo(OutputRouter.current(), bundle, id, update);
+        emitTo(OutputRouter.current(), bundle, id, update, false);
     }
 
-    static void emitTo(CellContext context, MimeBundle bundle, String id, boolean update) {
+    static void emitTo(CellContext context, MimeBundle bundle, String id, boolean update, boolean progress) {
         if (context != null) {
-            context.display(bundle, id, update);
+            context.display(bundle, id, update, progress);
         } else {
             OutputRouter.CONSOLE_OUT.println(bundle.plain());
         }

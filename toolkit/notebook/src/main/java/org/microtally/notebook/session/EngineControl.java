@@ -19,6 +19,8 @@ final class EngineControl extends DirectExecutionControl {
     /** Marker for "no value captured". */
     static final Object NO_VALUE = new Object();
     private static final long STACK_SIZE = 64L << 20;
+    /** How long threads get to end after an interrupt before they are stopped. */
+    static final long GRACE_MS = 300;
     private static final AtomicInteger THREADS = new AtomicInteger();
 
     private final ThreadGroup group;
@@ -166,19 +168,51 @@ final class EngineControl extends DirectExecutionControl {
         }
         t.interrupt();
         try {
-            t.join(300);
+            t.join(GRACE_MS);
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
         }
         if (t.isAlive()) {
-            Thread[] all = new Thread[group.activeCount() + 8];
-            int n = group.enumerate(all);
-            for (int i = 0; i < n; i++) {
-                if (all[i] != Thread.currentThread()) {
-                    all[i].stop();
+            stopGroup();
+        }
+    }
+
+    /**
+     * Ends every thread of the session's group (threads cells started and left running): interrupts
+     * them, waits up to {@link #GRACE_MS} ms, then stops the rest. Returns how many were running.
+     */
+    int stopAll() {
+        Thread[] all = threads();
+        for (Thread t : all) {
+            t.interrupt();
+        }
+        long end = System.nanoTime() + GRACE_MS * 1_000_000L;
+        for (Thread t : all) {
+            long left = (end - System.nanoTime()) / 1_000_000L;
+            if (left > 0) {
+                try {
+                    t.join(left);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                    break;
                 }
             }
         }
+        stopGroup();
+        return all.length;
+    }
+
+    @SuppressWarnings({"deprecation", "removal"})
+    private void stopGroup() {
+        for (Thread t : threads()) {
+            t.stop();
+        }
+    }
+
+    private Thread[] threads() {
+        Thread[] all = new Thread[group.activeCount() + 8];
+        int n = group.enumerate(all);
+        return java.util.Arrays.stream(all, 0, n).filter(t -> t != Thread.currentThread()).toArray(Thread[]::new);
     }
 
     /** Carries a throwable of user code through the engine without confusing it with engine errors. */

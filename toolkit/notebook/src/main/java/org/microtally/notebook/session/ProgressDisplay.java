@@ -27,7 +27,7 @@ final class ProgressDisplay implements ProgressListener {
     }
 
     void start() {
-        Display.emitTo(target(), bundle(0, 1, "starting"), id, false);
+        Display.emitTo(target(), bundle(0, 1, "starting"), id, false, true);
         lastNanos = System.nanoTime();
     }
 
@@ -55,12 +55,7 @@ final class ProgressDisplay implements ProgressListener {
             lastNanos = now;
             updates++;
         }
-        Display.emitTo(target(), b, id, true);
-    }
-
-    /** Number of in-place updates sent so far. */
-    synchronized int updates() {
-        return updates;
+        Display.emitTo(target(), b, id, true, true);
     }
 
     private MimeBundle bundle(long done, long total, String stage) {

@@ -1,36 +1,18 @@
 package org.microtally.notebook.session;
 
 import java.io.ByteArrayInputStream;
-import java.io.File;
-import java.io.IOException;
 import java.io.PrintStream;
-import java.net.URISyntaxException;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.security.CodeSource;
 import java.util.ArrayList;
 import java.util.Collections;
-import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
-import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicInteger;
-import java.util.jar.Attributes;
-import java.util.jar.JarFile;
-import jdk.jshell.Diag;
-import jdk.jshell.EvalException;
 import jdk.jshell.ExpressionSnippet;
 import jdk.jshell.JShell;
-import jdk.jshell.JShellException;
-import jdk.jshell.DeclarationSnippet;
 import jdk.jshell.Snippet;
 import jdk.jshell.SnippetEvent;
-import jdk.jshell.SourceCodeAnalysis;
-import jdk.jshell.SourceCodeAnalysis.CompletionInfo;
-import jdk.jshell.UnresolvedReferenceException;
 import jdk.jshell.VarSnippet;
 import org.microtally.notebook.render.MimeBundle;
 import org.microtally.notebook.render.Renderers;
@@ -43,7 +25,8 @@ import org.microtally.notebook.render.Renderers;
  * The cell is split into snippets with JShell's source analysis ({@code analyzeCompletion} loop)
  * and the snippets are evaluated in order. Each snippet runs on a fresh thread of this session's
  * thread group, so {@link #interrupt()} can stop it. {@code System.out}/{@code System.err} are
- * routed to the cell's {@link CellOutput} while it runs, delivered in chunks at least every
+ * routed to the cell's {@link CellOutput} while it runs, through one ordered queue with the cell's
+ * displays (so every output keeps the order the cell wrote it), delivered in chunks at least every
  * {@value CellContext#FLUSH_INTERVAL_MS} ms (not only at the end); {@code System.in} reads as empty.
  * A failing {@link CellOutput} loses that output but does not fail the cell. The first failing snippet ends the
  * cell: a compile error (line and column in the cell, diagnostic with caret line), an unresolved
@@ -55,8 +38,16 @@ import org.microtally.notebook.render.Renderers;
  * <h2>Faults a cell cannot make fatal</h2>
  * {@code System.exit}, {@code Runtime.exit} and {@code Runtime.halt} in cell code are rewritten at
  * bytecode level into an {@link ExitBlockedException}. An {@link OutOfMemoryError} is reported as
- * a runtime error, and the static fields (the JShell variables) assigned by the failed cell are set
- * to null so the memory can be reclaimed; the session stays usable.
+ * {@link CellResult.Outcome#OUT_OF_MEMORY}, and the static fields (the JShell variables) assigned by
+ * the failed cell are set to null so the memory can be reclaimed; the session stays usable. A
+ * StackOverflowError's repeated frames are folded into one line.
+ *
+ * <h2>What a cell sees</h2>
+ * On-demand imports of {@link #JAVA_PACKAGES} and of those {@link #TOOLKIT_PACKAGES} that exist on
+ * the class path (checked with {@code PackageProbe}, so a package another module adds later is
+ * imported once it is there); single-type imports of the display layer's user classes
+ * {@link #DISPLAY_TYPES} (not the whole render package: its helpers are not user API); and the
+ * static helpers of {@link Display}.
  *
  * <h2>Threads</h2>
  * {@link #run} blocks the calling thread until the cell ends; only one cell runs at a time
@@ -76,27 +67,35 @@ import org.microtally.notebook.render.Renderers;
  * Session start took 2.4-6 s and a trivial cell ({@code 1 + 1}) 75-170 ms on that loaded machine;
  * an earlier run at lower load measured 0.8 s to start and 65-230 ms for small cells.
  */
-public final class Session implements AutoCloseable {
-    /** Packages imported in every session when they exist at run time, in this order. */
+public final class Session implements Engine {
+    /**
+     * Packages imported on demand in every session when they exist at run time, in this order: the
+     * core toolkit (org.microtally.lattice once that package is built) and file reading.
+     */
     static final List<String> TOOLKIT_PACKAGES = List.of(
             "org.microtally", "org.microtally.spectrum", "org.microtally.count", "org.microtally.ensemble",
-            "org.microtally.occupation", "org.microtally.special", "org.microtally.limit",
-            "org.microtally.lattice", "org.microtally.units", "org.microtally.notebook.render",
-            "org.microtally.notebook.data");
+            "org.microtally.occupation", "org.microtally.special", "org.microtally.limit", "org.microtally.structure",
+            "org.microtally.lattice", "org.microtally.units", "org.microtally.notebook.data");
+    /** The display layer's user classes, imported one by one when they exist (its helpers are not user API). */
+    static final List<String> DISPLAY_TYPES = List.of(
+            "org.microtally.notebook.render.MimeBundle", "org.microtally.notebook.render.Renderers",
+            "org.microtally.notebook.render.Tables", "org.microtally.notebook.render.Charts",
+            "org.microtally.notebook.render.Html", "org.microtally.notebook.render.Latex",
+            "org.microtally.notebook.render.Markdown");
     /** Standard library packages imported in every session. */
     static final List<String> JAVA_PACKAGES = List.of(
             "java.util", "java.util.function", "java.util.stream", "java.math", "java.io", "java.nio.file");
 
     private static final AtomicInteger SESSIONS = new AtomicInteger();
-    private static final String REPL_PREFIX = "REPL.";
 
     private final JShell jshell;
-    private final SourceCodeAnalysis analysis;
     private final EngineControl control;
     private final SnippetLoader loader;
     private final ThreadGroup group;
     private final List<String> imports;
-    private final Map<String, SnippetPlace> places = new ConcurrentHashMap<>();
+    private final CellSplitter splitter;
+    private final CodeAssist assist;
+    private final CellErrors errors;
     private final Object runLock = new Object();
     private volatile boolean running;
     private int cellCount;
@@ -106,7 +105,7 @@ public final class Session implements AutoCloseable {
         OutputRouter.install();
         int n = SESSIONS.incrementAndGet();
         group = new ThreadGroup("microtally-session-" + n);
-        Set<String> classPath = classPath();
+        Set<String> classPath = EngineClassPath.classPath();
         loader = new SnippetLoader(Session.class.getClassLoader(), classPath);
         control = new EngineControl(loader, group);
         jshell = JShell.builder()
@@ -115,12 +114,16 @@ public final class Session implements AutoCloseable {
                 .out(OutputRouter.CONSOLE_OUT)
                 .err(OutputRouter.CONSOLE_ERR)
                 .build();
-        analysis = jshell.sourceCodeAnalysis();
+        splitter = new CellSplitter(jshell.sourceCodeAnalysis());
+        assist = new CodeAssist(jshell.sourceCodeAnalysis(), splitter);
+        errors = new CellErrors(jshell, loader);
         for (String entry : classPath) {
             jshell.addToClasspath(entry);
         }
+        imports = runImports(classPath);
+    }
 
-        List<String> done = new ArrayList<>();
+    private List<String> runImports(Set<String> classPath) {
         Set<String> present = PackageProbe.existing(classPath, TOOLKIT_PACKAGES);
         List<String> wanted = new ArrayList<>();
         for (String p : JAVA_PACKAGES) {
@@ -131,14 +134,18 @@ public final class Session implements AutoCloseable {
                 wanted.add("import " + p + ".*;");
             }
         }
+        for (String t : DISPLAY_TYPES) {
+            wanted.add("import " + t + ";");
+        }
         wanted.add("import static " + Display.class.getName() + ".*;");
+        List<String> done = new ArrayList<>();
         for (String imp : wanted) {
             List<SnippetEvent> ev = jshell.eval(imp);
             if (!ev.isEmpty() && ev.get(0).status() == Snippet.Status.VALID) {
                 done.add(imp);
             }
         }
-        imports = Collections.unmodifiableList(done);
+        return Collections.unmodifiableList(done);
     }
 
     /** Starts a session with the toolkit imported. Takes about a second (JShell starts javac). */
@@ -178,8 +185,9 @@ public final class Session implements AutoCloseable {
 
     /**
      * Runs one cell and blocks until it ends. Output, displays and progress go to {@code output}
-     * as they happen.
+     * as they happen, in the order the cell wrote them.
      */
+    @Override
     public CellResult run(String code, CellOutput output) {
         synchronized (runLock) {
             if (closed) {
@@ -211,6 +219,7 @@ public final class Session implements AutoCloseable {
      * Stops the running cell, from any thread; the cell then reports
      * {@link CellResult.Outcome#INTERRUPTED}. Does nothing when no cell runs.
      */
+    @Override
     public void interrupt() {
         if (running) {
             jshell.stop();
@@ -218,57 +227,50 @@ public final class Session implements AutoCloseable {
     }
 
     private CellResult runCell(String code, int cell) {
-        List<Piece> pieces = split(code);
+        List<CellSplitter.Piece> pieces = splitter.split(code);
         Object value = EngineControl.NO_VALUE;
         for (int k = 0; k < pieces.size(); k++) {
             if (control.stopRequested()) {
-                return interrupted();
+                return CellErrors.interrupted();
             }
-            Piece piece = pieces.get(k);
+            CellSplitter.Piece piece = pieces.get(k);
             control.resetCapture();
             List<SnippetEvent> events;
             try {
-                events = jshell.eval(piece.source);
+                events = jshell.eval(piece.source());
             } catch (OutOfMemoryError e) {
-                return runtimeError(e, null, code, cell);
+                return errors.runtimeError(e, null, cell);
             } catch (RuntimeException e) {
-                return new CellResult(CellResult.Outcome.RUNTIME_ERROR, Optional.empty(), Optional.empty(),
-                        Optional.of(new CellError(e.getClass().getName(), String.valueOf(e.getMessage()),
-                                List.of("engine error while evaluating the cell: " + e), 0, 0)));
+                return CellErrors.engineError(e);
             }
-            SnippetEvent main = null;
-            for (SnippetEvent e : events) {
-                if (e.causeSnippet() == null) {
-                    main = e;
-                    break;
-                }
-            }
+            SnippetEvent main = events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
             if (main == null) {
                 continue;
             }
             Snippet s = main.snippet();
-            places.put(s.id(), new SnippetPlace(cell, lineOf(code, piece.start)));
+            errors.remember(s, cell, CellSplitter.lineOf(code, piece.start()));
             if (control.stopRequested()) {
-                return interrupted();
+                return CellErrors.interrupted();
             }
             switch (main.status()) {
                 case REJECTED:
-                    return compileError(code, piece, s);
+                    return errors.compileError(code, piece, s);
                 case RECOVERABLE_DEFINED:
                 case RECOVERABLE_NOT_DEFINED:
-                    return unresolved(code, piece, s);
+                    return errors.unresolved(code, piece, s);
                 default:
                     break;
             }
             if (main.exception() != null) {
-                return runtimeError(control.lastThrown(), main.exception(), code, cell);
+                return control.stopRequested() ? CellErrors.interrupted()
+                        : errors.runtimeError(control.lastThrown(), main.exception(), cell);
             }
             if (k == pieces.size() - 1) {
                 value = valueOf(main);
             }
         }
         if (control.stopRequested()) {
-            return interrupted();
+            return CellErrors.interrupted();
         }
         if (value == EngineControl.NO_VALUE || value instanceof java.io.PrintStream) {
             // A cell ending in System.out.printf(...) or .append(...) evaluates to the stream itself;
@@ -280,13 +282,10 @@ public final class Session implements AutoCloseable {
             MimeBundle bundle = control.callAsUser(() -> Renderers.render(v));
             return new CellResult(CellResult.Outcome.OK, Optional.of(bundle), Optional.ofNullable(v), Optional.empty());
         } catch (EngineControl.UserFailure f) {
-            if (control.stopRequested()) {
-                return interrupted();
-            }
-            return runtimeError(f.getCause(), null, code, cell);
+            return control.stopRequested() ? CellErrors.interrupted() : errors.runtimeError(f.getCause(), null, cell);
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
-            return interrupted();
+            return CellErrors.interrupted();
         }
     }
 
@@ -309,300 +308,10 @@ public final class Session implements AutoCloseable {
         return v;
     }
 
-    // ---------------------------------------------------------------- splitting
-
-    /** A snippet of a cell: the source given to JShell and its offset in the cell. */
-    private record Piece(String source, int start, int end) { }
-
-    private List<Piece> split(String code) {
-        List<Piece> pieces = new ArrayList<>();
-        int pos = 0;
-        while (pos < code.length()) {
-            String rest = code.substring(pos);
-            if (rest.isBlank()) {
-                break;
-            }
-            CompletionInfo ci = analysis.analyzeCompletion(rest);
-            SourceCodeAnalysis.Completeness c = ci.completeness();
-            if (c == SourceCodeAnalysis.Completeness.EMPTY) {
-                break;
-            }
-            String source;
-            int consumed;
-            if (c.isComplete() && ci.source() != null) {
-                source = ci.source();
-                consumed = rest.length() - ci.remaining().length();
-                if (consumed <= 0) {
-                    consumed = rest.length();
-                }
-            } else {
-                source = rest;
-                consumed = rest.length();
-            }
-            source = source.stripLeading();   // so that line 1 of the snippet is the line it starts on
-            pieces.add(new Piece(source, pos + offsetIn(rest, source), pos + consumed));
-            pos += consumed;
-        }
-        return pieces;
-    }
-
-    /** Where {@code source} (possibly with a semicolon added by the analysis) starts in {@code text}. */
-    private static int offsetIn(String text, String source) {
-        String core = source.endsWith(";") ? source.substring(0, source.length() - 1) : source;
-        core = core.strip();
-        if (!core.isEmpty()) {
-            int i = text.indexOf(core);
-            if (i >= 0) {
-                int j = source.indexOf(core);
-                return Math.max(0, i - Math.max(0, j));
-            }
-        }
-        int i = 0;
-        while (i < text.length() && Character.isWhitespace(text.charAt(i))) {
-            i++;
-        }
-        return i;
-    }
-
-    /** 1-based line of offset {@code pos} in {@code code}. */
-    static int lineOf(String code, int pos) {
-        int line = 1;
-        for (int i = 0; i < Math.min(pos, code.length()); i++) {
-            if (code.charAt(i) == '\n') {
-                line++;
-            }
-        }
-        return line;
-    }
-
-    private static int columnOf(String code, int pos) {
-        int p = Math.min(pos, code.length());
-        int lineStart = code.lastIndexOf('\n', p - 1) + 1;
-        return p - lineStart + 1;
-    }
-
-    private static String lineText(String code, int line) {
-        String[] lines = code.split("\n", -1);
-        return line >= 1 && line <= lines.length ? lines[line - 1] : "";
-    }
-
-    // ---------------------------------------------------------------- errors
-
-    private static CellResult failure(CellResult.Outcome outcome, CellError error) {
-        return new CellResult(outcome, Optional.empty(), Optional.empty(), Optional.of(error));
-    }
-
-    private CellResult interrupted() {
-        return failure(CellResult.Outcome.INTERRUPTED, new CellError("Interrupted",
-                "the cell was interrupted before it finished",
-                List.of("Interrupted: the cell was stopped on request before it finished.",
-                        "Definitions completed before the interruption are kept; the session is still running."),
-                0, 0));
-    }
-
-    private CellResult compileError(String code, Piece piece, Snippet s) {
-        List<Diag> diags = jshell.diagnostics(s).filter(Diag::isError).toList();
-        if (diags.isEmpty()) {
-            int line = lineOf(code, piece.start);
-            String msg = "this " + s.kind().name().toLowerCase(Locale.ROOT).replace('_', ' ')
-                    + " is not accepted in a notebook cell";
-            return failure(CellResult.Outcome.COMPILE_ERROR, new CellError("CompileError", msg,
-                    List.of("cell line " + line + ": error: " + msg, lineText(code, line)), line, 1));
-        }
-        List<String> tb = new ArrayList<>();
-        int firstLine = 0;
-        int firstCol = 0;
-        String firstMsg = null;
-        for (Diag d : diags) {
-            long p = d.getPosition() >= 0 ? d.getPosition() : d.getStartPosition();
-            int rel = (int) Math.max(0, Math.min(p, piece.source.length()));
-            int abs = Math.min(piece.start + rel, code.length());
-            int line = lineOf(code, abs);
-            int col = columnOf(code, abs);
-            String msg = cleanDiagnostic(d.getMessage(Locale.ROOT));
-            if (firstMsg == null) {
-                firstMsg = msg;
-                firstLine = line;
-                firstCol = col;
-            }
-            String[] msgLines = msg.split("\n");
-            tb.add("cell line " + line + ", column " + col + ": error: " + msgLines[0]);
-            for (int i = 1; i < msgLines.length; i++) {
-                tb.add(msgLines[i]);
-            }
-            String text = lineText(code, line);
-            tb.add(text);
-            tb.add(" ".repeat(Math.max(0, Math.min(col - 1, text.length()))) + "^");
-        }
-        return failure(CellResult.Outcome.COMPILE_ERROR, new CellError("CompileError", firstMsg, tb, firstLine, firstCol));
-    }
-
-    /** The diagnostic without the lines that name JShell's generated wrapper classes. */
-    private static String cleanDiagnostic(String msg) {
-        StringBuilder sb = new StringBuilder();
-        for (String l : msg.split("\n")) {
-            if (l.contains("$JShell$") || l.matches("\\s*location: class\\s*")) {
-                continue;
-            }
-            if (sb.length() > 0) {
-                sb.append('\n');
-            }
-            sb.append(l);
-        }
-        return sb.toString();
-    }
-
-    private CellResult unresolved(String code, Piece piece, Snippet s) {
-        List<String> deps = s instanceof DeclarationSnippet d ? jshell.unresolvedDependencies(d).toList() : List.of();
-        String what = s instanceof DeclarationSnippet d ? d.name() : s.source().strip();
-        String msg = what + " refers to something not defined: " + String.join(", ", deps)
-                + "; define it (or fix the name) before using " + what;
-        int line = lineOf(code, piece.start);
-        return failure(CellResult.Outcome.COMPILE_ERROR, new CellError("UnresolvedReference", msg,
-                List.of("cell line " + line + ": error: " + msg, lineText(code, line)), line, columnOf(code, piece.start)));
-    }
-
-    private CellResult runtimeError(Throwable real, JShellException reported, String code, int cell) {
-        if (control.stopRequested()) {
-            return interrupted();
-        }
-        if (reported instanceof UnresolvedReferenceException ure) {
-            String name = ure.getSnippet().name();
-            List<String> deps = jshell.unresolvedDependencies(ure.getSnippet()).toList();
-            String msg = name + " cannot run yet: it refers to something not defined: " + String.join(", ", deps)
-                    + "; define it first";
-            return failure(CellResult.Outcome.RUNTIME_ERROR,
-                    new CellError("UnresolvedReference", msg, List.of("UnresolvedReference: " + msg), 0, 0));
-        }
-        // JShell's report carries stack frames already translated to snippet lines ("#id", line);
-        // the real throwable is used where the report has nothing (errors outside snippet code).
-        List<String> tb = new ArrayList<>();
-        int[] where = {0};
-        String type;
-        String message;
-        if (reported instanceof EvalException ee) {
-            type = ee.getExceptionClassName();
-            message = ee.getMessage() == null ? "" : ee.getMessage();
-            tb.add(type + (message.isEmpty() ? "" : ": " + message));
-            appendFrames(tb, ee.getStackTrace(), cell, where);
-            Throwable cause = ee.getCause();
-            for (int depth = 0; cause != null && depth < 8; depth++, cause = cause.getCause()) {
-                String cname = cause instanceof EvalException ce ? ce.getExceptionClassName() : cause.getClass().getName();
-                String cmsg = safeMessage(cause);
-                tb.add("Caused by: " + cname + (cmsg.isEmpty() ? "" : ": " + cmsg));
-                appendFrames(tb, cause.getStackTrace(), cell, new int[] {0});
-            }
-        } else {
-            Throwable t = real != null ? real : reported;
-            type = t == null ? "Error" : t.getClass().getName();
-            message = t == null ? "" : safeMessage(t);
-            tb.add(type + (message.isEmpty() ? "" : ": " + message));
-            if (t != null) {
-                appendFrames(tb, t.getStackTrace(), cell, where);
-            }
-        }
-        if (isOutOfMemory(real)) {
-            List<String> reset = loader.releaseSinceMark();
-            tb.add("The session is still alive. "
-                    + (reset.isEmpty() ? "Nothing assigned by this cell had to be released."
-                    : "To free memory, variables assigned by this cell were set to null: " + String.join(", ", reset) + "."));
-        }
-        if (real instanceof ExitBlockedException) {
-            tb.add("(The session is still alive.)");
-        }
-        int line = where[0];
-        return failure(CellResult.Outcome.RUNTIME_ERROR, new CellError(type, message, tb, line, line > 0 ? 1 : 0));
-    }
-
-    private static boolean isOutOfMemory(Throwable t) {
-        for (int i = 0; t != null && i < 10; i++, t = t.getCause()) {
-            if (t instanceof OutOfMemoryError) {
-                return true;
-            }
-        }
-        return false;
-    }
-
-    private static String safeMessage(Throwable t) {
-        try {
-            String m = t.getMessage();
-            return m == null ? "" : m;
-        } catch (RuntimeException e) {
-            return "(message not available: " + e.getClass().getName() + ")";
-        }
-    }
-
-    /**
-     * Appends the frames down to the outermost frame of cell code, with cell frames written as
-     * "cell N, line L". {@code where[0]} receives the line of the innermost frame in cell {@code cell}.
-     */
-    private void appendFrames(List<String> tb, StackTraceElement[] frames, int cell, int[] where) {
-        int last = -1;
-        for (int i = 0; i < frames.length; i++) {
-            if (isSnippetFrame(frames[i])) {
-                last = i;
-            }
-        }
-        if (last < 0) {
-            for (int i = 0; i < frames.length; i++) {
-                if (isEngineFrame(frames[i])) {
-                    break;
-                }
-                last = i;
-            }
-        }
-        for (int i = 0; i <= last; i++) {
-            StackTraceElement f = frames[i];
-            if (isSnippetFrame(f)) {
-                String id = f.getFileName() != null && f.getFileName().startsWith("#") ? f.getFileName().substring(1) : null;
-                SnippetPlace place = id == null ? null : places.get(id);
-                String method = f.getMethodName().isEmpty() || f.getMethodName().equals("do_it$") ? "" : f.getMethodName() + " ";
-                if (place != null && f.getLineNumber() > 0) {
-                    int line = place.firstLine + f.getLineNumber() - 1;
-                    String at = "cell " + place.cell + ", line " + line;
-                    tb.add("    at " + (method.isEmpty() ? at : method + "(" + at + ")"));
-                    if (where[0] == 0 && place.cell == cell) {
-                        where[0] = line;
-                    }
-                } else {
-                    tb.add("    at " + (method.isEmpty() ? "cell code" : method + "(cell code)"));
-                }
-            } else {
-                tb.add("    at " + f);
-            }
-        }
-    }
-
-    private static boolean isSnippetFrame(StackTraceElement f) {
-        return f.getClassName().startsWith(REPL_PREFIX) || f.getClassName().isEmpty()
-                || (f.getFileName() != null && f.getFileName().startsWith("#"));
-    }
-
-    private static boolean isEngineFrame(StackTraceElement f) {
-        String c = f.getClassName();
-        return c.startsWith("jdk.internal.reflect.") || c.startsWith("java.lang.reflect.")
-                || c.startsWith("jdk.jshell.") || c.startsWith("org.microtally.notebook.session.EngineControl");
-    }
-
-    /** Where a snippet came from: cell number and the cell line its source starts on. */
-    private record SnippetPlace(int cell, int firstLine) { }
-
-    // ---------------------------------------------------------------- completion, inspection
-
     /** JShell completion suggestions at {@code cursor} (an offset in {@code code}). */
+    @Override
     public Completions complete(String code, int cursor) {
-        int c = Math.max(0, Math.min(cursor, code.length()));
-        int[] seg = segmentAt(code, c);
-        String text = code.substring(seg[0], seg[1]);
-        int[] anchor = new int[1];
-        List<SourceCodeAnalysis.Suggestion> suggestions = analysis.completionSuggestions(text, c - seg[0], anchor);
-        LinkedHashSet<String> typed = new LinkedHashSet<>();
-        LinkedHashSet<String> other = new LinkedHashSet<>();
-        for (SourceCodeAnalysis.Suggestion s : suggestions) {
-            (s.matchesType() ? typed : other).add(s.continuation());
-        }
-        typed.addAll(other);
-        return new Completions(new ArrayList<>(typed), seg[0] + anchor[0], c);
+        return assist.complete(code, cursor);
     }
 
     /**
@@ -610,115 +319,22 @@ public final class Session implements AutoCloseable {
      * JDK's {@code lib/src.zip} is installed) of what is at
      * or just before {@code cursor}: a method call's name or its open argument list, a type, a variable.
      */
+    @Override
     public Optional<String> inspect(String code, int cursor) {
-        int c = Math.max(0, Math.min(cursor, code.length()));
-        int[] seg = segmentAt(code, c);
-        String text = code.substring(seg[0], seg[1]);
-        int rel = c - seg[0];
-        List<SourceCodeAnalysis.Documentation> docs = analysis.documentation(text, rel, true);
-        if (docs.isEmpty()) {
-            // On a name rather than inside its parentheses: ask as if the call were opened.
-            int end = rel;
-            while (end < text.length() && Character.isJavaIdentifierPart(text.charAt(end))) {
-                end++;
-            }
-            String opened = text.substring(0, end) + "(";
-            docs = analysis.documentation(opened, opened.length(), true);
-        }
-        if (docs.isEmpty()) {
-            return Optional.empty();
-        }
-        StringBuilder sb = new StringBuilder();
-        for (SourceCodeAnalysis.Documentation d : docs) {
-            if (sb.length() > 0) {
-                sb.append('\n');
-            }
-            sb.append(d.signature());
-            String first = firstSentence(d.javadoc());
-            if (!first.isEmpty()) {
-                sb.append("\n    ").append(first);
-            }
-        }
-        return Optional.of(sb.toString());
-    }
-
-    static String firstSentence(String javadoc) {
-        if (javadoc == null) {
-            return "";
-        }
-        String text = javadoc.replaceAll("(?s)<[^>]*>", "").replaceAll("\\{@\\w+\\s+([^}]*)}", "$1");
-        int tag = text.indexOf("\n@");
-        if (tag >= 0) {
-            text = text.substring(0, tag);
-        }
-        text = text.replaceAll("\\s+", " ").strip();
-        int dot = text.indexOf(". ");
-        return dot >= 0 ? text.substring(0, dot + 1) : text;
+        return assist.inspect(code, cursor);
     }
 
     /** Whether {@code code} is a complete cell, needs more lines, or is invalid. */
+    @Override
     public Completeness completeness(String code) {
-        String rest = code;
-        while (true) {
-            if (rest.isBlank()) {
-                return new Completeness(Completeness.Status.COMPLETE, "");
-            }
-            CompletionInfo ci = analysis.analyzeCompletion(rest);
-            switch (ci.completeness()) {
-                case EMPTY:
-                    return new Completeness(Completeness.Status.COMPLETE, "");
-                case COMPLETE:
-                case COMPLETE_WITH_SEMI:
-                    if (ci.remaining().length() >= rest.length()) {
-                        return new Completeness(Completeness.Status.COMPLETE, "");
-                    }
-                    rest = ci.remaining();
-                    break;
-                case DEFINITELY_INCOMPLETE:
-                case CONSIDERED_INCOMPLETE:
-                    return new Completeness(Completeness.Status.INCOMPLETE, "    ".repeat(Math.max(0, openBraces(code))));
-                default:
-                    return new Completeness(Completeness.Status.INVALID, "");
-            }
-        }
+        return assist.completeness(code);
     }
 
-    private static int openBraces(String code) {
-        int depth = 0;
-        boolean str = false;
-        boolean chr = false;
-        for (int i = 0; i < code.length(); i++) {
-            char ch = code.charAt(i);
-            if ((str || chr) && ch == '\\') {
-                i++;
-            } else if (ch == '"' && !chr) {
-                str = !str;
-            } else if (ch == '\'' && !str) {
-                chr = !chr;
-            } else if (!str && !chr) {
-                if (ch == '{' || ch == '(') {
-                    depth++;
-                } else if (ch == '}' || ch == ')') {
-                    depth--;
-                }
-            }
-        }
-        return depth;
-    }
-
-    /** {start, end} of the snippet of {@code code} that contains offset {@code cursor}. */
-    private int[] segmentAt(String code, int cursor) {
-        int start = 0;
-        for (Piece p : split(code)) {
-            if (cursor <= p.end) {
-                return new int[] {start, p.end};
-            }
-            start = p.end;
-        }
-        return new int[] {Math.min(start, code.length()), code.length()};
-    }
-
-    /** Closes the JShell session. A running cell is stopped first. */
+    /**
+     * Closes the JShell session. A running cell is stopped first, then every thread cells started
+     * and left running (interrupted, and after {@value EngineControl#GRACE_MS} ms stopped), so a busy
+     * thread of one notebook does not spin on through the next.
+     */
     @Override
     public void close() {
         synchronized (runLock) {
@@ -730,62 +346,7 @@ public final class Session implements AutoCloseable {
         if (running) {
             interrupt();
         }
+        control.stopAll();
         jshell.close();
-    }
-
-    // ---------------------------------------------------------------- class path
-
-    /**
-     * The engine's class path for compiling cells: {@code java.class.path}, the {@code Class-Path}
-     * entries of manifest-only jars on it (as build tools use), and the code sources of the engine
-     * and core classes.
-     */
-    static Set<String> classPath() {
-        LinkedHashSet<String> out = new LinkedHashSet<>();
-        for (String e : System.getProperty("java.class.path", "").split(File.pathSeparator)) {
-            addEntry(out, e);
-        }
-        for (Class<?> c : new Class<?>[] {Session.class, org.microtally.ProgressListener.class, MimeBundle.class}) {
-            CodeSource cs = c.getProtectionDomain().getCodeSource();
-            if (cs != null && cs.getLocation() != null) {
-                try {
-                    addEntry(out, Path.of(cs.getLocation().toURI()).toString());
-                } catch (URISyntaxException | IllegalArgumentException ignored) {
-                    // not a file location; the class is still visible to cells through the loader
-                }
-            }
-        }
-        return out;
-    }
-
-    private static void addEntry(Set<String> out, String entry) {
-        if (entry.isEmpty()) {
-            return;
-        }
-        Path p = Path.of(entry).toAbsolutePath().normalize();
-        if (!Files.exists(p) || !out.add(p.toString())) {
-            return;
-        }
-        if (Files.isRegularFile(p) && p.toString().endsWith(".jar")) {
-            try (JarFile jar = new JarFile(p.toFile())) {
-                if (jar.getManifest() == null) {
-                    return;
-                }
-                String cp = jar.getManifest().getMainAttributes().getValue(Attributes.Name.CLASS_PATH);
-                if (cp == null) {
-                    return;
-                }
-                for (String ref : cp.trim().split("\\s+")) {
-                    try {
-                        Path resolved = Path.of(p.getParent().toUri().resolve(ref));
-                        addEntry(out, resolved.toString());
-                    } catch (IllegalArgumentException ignored) {
-                        // unusable manifest entry
-                    }
-                }
-            } catch (IOException ignored) {
-                // unreadable jar: javac will report what it cannot find
-            }
-        }
     }
 }

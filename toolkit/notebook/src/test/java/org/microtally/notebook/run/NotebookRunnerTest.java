@@ -233,13 +233,13 @@ class NotebookRunnerTest {
         assertEquals(2, run("--bogus", "x.ipynb"));
         assertEquals(2, run("x.ipynb", "--cell-timeout", "-1"));
         assertEquals(0, run("--help"));
-        assertTrue(log().contains("usage: microtally run"));
+        assertTrue(log().contains("Usage: microtally run"), log());
     }
 
     @Test
     void atomicWriteLeavesNoPartialFiles() throws IOException {
         Path dir = tmp.resolve("w");
-        NotebookRunner.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
+        OutputFolder.writeAtomically(List.of(dir.resolve("a.ipynb"), dir.resolve("a.html")), List.of("{}", "<p>"));
         assertEquals(List.of("a.html", "a.ipynb"), listing(dir));
         if (dir.getFileSystem().supportedFileAttributeViews().contains("posix")) {
             // outputs get the permissions of any new file in that directory (not a temp file's owner-only mode)
@@ -251,12 +251,154 @@ class NotebookRunnerTest {
         List<String> beforeFail = listing(dir);
         boolean failed = false;
         try {
-            NotebookRunner.writeAtomically(List.of(dir.resolve("b.html"), dir.resolve("c.ipynb")), List.of("x", "y"));
+            OutputFolder.writeAtomically(List.of(dir.resolve("b.html"), dir.resolve("c.ipynb")), List.of("x", "y"));
         } catch (IOException e) {
             failed = true;
         }
         assertTrue(failed);
         assertEquals(beforeFail, listing(dir));
+    }
+
+    /** A notebook of code cells with the given sources, written to the temp dir. */
+    Path notebook(String name, String metadata, String... sources) throws IOException {
+        JsonArray cells = new JsonArray();
+        for (String src : sources) {
+            JsonObject c = new JsonObject();
+            c.addProperty("cell_type", "code");
+            c.add("metadata", new JsonObject());
+            c.add("outputs", new JsonArray());
+            c.add("execution_count", com.google.gson.JsonNull.INSTANCE);
+            c.addProperty("source", src);
+            cells.add(c);
+        }
+        JsonObject nb = new JsonObject();
+        nb.add("cells", cells);
+        nb.add("metadata", JsonParser.parseString(metadata));
+        nb.addProperty("nbformat", 4);
+        nb.addProperty("nbformat_minor", 4);
+        Path in = Files.createDirectories(tmp.resolve("gen"));
+        return Files.writeString(in.resolve(name), nb.toString());
+    }
+
+    @Test
+    void outEqualsFormAndAnOutputLimitWithAVisibleNote() throws IOException {
+        Path nb = notebook("chatty.ipynb", "{}",
+                "String block = \"x\".repeat(200_000);\nfor (int i = 0; i < 10; i++) System.out.print(block);\nSystem.err.print(\"done\");");
+        Path out = tmp.resolve("out");
+        assertEquals(0, run(nb.toString(), "--out=" + out, "--output-limit=1000"), log());
+        JsonObject o = output(readJson(out.resolve("chatty.ipynb")), 0, 0);
+        String text = Notebook.text(o.get("text"));
+        // 10 * 200,000 ASCII bytes written, 1,000 kept (common practice, no source: arithmetic)
+        assertTrue(text.startsWith("x".repeat(1000) + "\n[microtally: 1,999,000 bytes of this output not kept"), text.substring(0, 1100));
+        assertFalse(text.startsWith("x".repeat(1001)));
+        assertEquals("done", Notebook.text(output(readJson(out.resolve("chatty.ipynb")), 0, 1).get("text")));
+    }
+
+    @Test
+    void anUnwritableOutputIsFoundBeforeAnyCellRunsAndKeepGoingTriesTheRest() throws IOException {
+        Path a = notebook("first.ipynb", "{}", "System.out.println(\"first ran\");");
+        Path b = notebook("second.ipynb", "{}", "System.out.println(\"second ran\");");
+        Path file = Files.writeString(tmp.resolve("plain-file"), "not a folder");
+        assertEquals(2, run("--keep-going", a.toString(), b.toString(), "--out", file.toString()));
+        assertTrue(log().contains(a + " not run: " + file + " is a regular file, not a folder"), log());
+        assertTrue(log().contains(b + " not run: "), "--keep-going did not try the second notebook: " + log());
+        assertFalse(log().contains("cell 1 ok"), "a cell ran although the output could not be written: " + log());
+
+        Path through = tmp.resolve("exists").resolve("missing").resolve("..");
+        Files.createDirectories(tmp.resolve("exists"));
+        assertEquals(2, run(a.toString(), "--out", through.toString()));
+        assertTrue(log().contains("goes through " + tmp.resolve("exists").resolve("missing") + ", which does not exist"), log());
+
+        Path locked = Files.createDirectories(tmp.resolve("locked"));
+        if (locked.toFile().setWritable(false) && !Files.isWritable(locked)) {   // not as root
+            assertEquals(2, run(a.toString(), "--out", locked.toString()));
+            assertTrue(log().contains("permission denied"), log());
+        }
+    }
+
+    @Test
+    void ioFailuresAreGivenInTheOperatingSystemsWords() {
+        // common practice, no source: EACCES is reported as "permission denied" by POSIX strerror
+        assertEquals("permission denied (/srv/out)", OutputFolder.reason(new java.nio.file.AccessDeniedException("/srv/out")));
+        assertEquals("no space left on device (/srv/out/a.ipynb)",
+                OutputFolder.reason(new java.nio.file.FileSystemException("/srv/out/a.ipynb", null, "No space left on device")));
+    }
+
+    @Test
+    void exitThroughReflectionInACellIsBlockedAndTheRunGoesOn() throws IOException {
+        Path quitter = notebook("quitter.ipynb", "{}", "Class.forName(\"java.lang.System\").getMethod(\"exit\", int.class).invoke(null, 5);",
+                "\"still running\"");
+        Path after = notebook("after.ipynb", "{}", "\"the next notebook ran\"");
+        Path out = tmp.resolve("out");
+        assertEquals(1, run("--keep-going", quitter.toString(), after.toString(), "--out", out.toString()));
+        assertTrue(log().contains("FAILED " + quitter + ", cell 1 (In [1]): java.lang.reflect.InvocationTargetException"), log());
+        JsonObject nb = readJson(out.resolve("quitter.ipynb"));
+        assertTrue(output(nb, 0, 0).get("traceback").toString().contains("System.exit(5) was blocked"), output(nb, 0, 0).toString());
+        assertTrue(Files.exists(out.resolve("after.ipynb")), log());
+    }
+
+    @Test
+    void libraryCodeThatEndsTheJvmIsReportedWithItsCellAndAFailingStatus() throws Exception {
+        // javac's command-line entry point ends the JVM itself (System.exit in library code, not rewritten)
+        Path nb = notebook("javac.ipynb", "{}", "\"before\"", "com.sun.tools.javac.Main.main(new String[] {\"-version\"});", "\"never\"");
+        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        Process p = new ProcessBuilder(java, "-Xmx256m", "-XX:+UseSerialGC", "-cp", System.getProperty("java.class.path"),
+                RunnerMain.class.getName(), nb.toString(), "--out", tmp.resolve("out").toString()).redirectErrorStream(true).start();
+        String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertTrue(p.waitFor(90, TimeUnit.SECONDS), text);
+        // Source: JDK 17 source, com.sun.tools.javac.Main.main ends with System.exit(compile(args)), here status 0
+        assertEquals(ExitWatch.EXIT_STATUS, p.exitValue(), text);
+        assertTrue(text.contains("FAILED " + nb + ", cell 2: code called by that cell ended the JVM"), text);
+    }
+
+    @Test
+    void stalePartialFilesOfTheNotebookAreRemoved() throws IOException {
+        Path nb = notebook("tidy.ipynb", "{}", "1 + 1");
+        Path out = Files.createDirectories(tmp.resolve("out"));
+        Files.writeString(out.resolve(".tidy.ipynb.1f2e.partial"), "{");
+        Files.writeString(out.resolve(".tidy.html.77.partial"), "<p");
+        Files.writeString(out.resolve(".other.ipynb.5.partial"), "kept: another notebook's");
+        assertEquals(0, run(nb.toString(), "--out", out.toString()), log());
+        assertEquals(List.of(".other.ipynb.5.partial", "tidy.html", "tidy.ipynb"), listing(out));
+        assertTrue(log().contains("removed 2 temporary file(s)"), log());
+        // the pair rule: the page is renamed first, so the executed notebook is at least as new as its page
+        assertFalse(Files.getLastModifiedTime(out.resolve("tidy.html")).compareTo(Files.getLastModifiedTime(out.resolve("tidy.ipynb"))) > 0);
+    }
+
+    @Test
+    void aNotebookCanSetItsCellTimeLimitAndTheCommandLineWins() throws IOException {
+        Path nb = notebook("slow.ipynb", "{\"microtally\": {\"cell_timeout_seconds\": 0.5}}", "while (true) { }", "\"next\"");
+        Path out = tmp.resolve("out");
+        assertEquals(1, run(nb.toString(), "--out", out.toString(), "--keep-going"));
+        assertTrue(log().contains("the time limit of 0.5 s"), log());
+        logBytes.reset();
+        Path fast = notebook("quick.ipynb", "{\"microtally\": {\"cell_timeout_seconds\": 600}}", "Thread.sleep(5_000); 1");
+        assertEquals(1, run(fast.toString(), "--out", out.toString(), "--cell-timeout", "0.3"));
+        assertTrue(log().contains("the time limit of 0.3 s"), log());
+        logBytes.reset();
+        Path bad = notebook("badlimit.ipynb", "{\"microtally\": {\"cell_timeout_seconds\": \"soon\"}}", "1");
+        assertEquals(2, run(bad.toString(), "--out", out.toString()));
+        assertTrue(log().contains("cell_timeout_seconds = \"soon\" is not allowed"), log());
+    }
+
+    @Test
+    void readingErrorsSpeakOurWords() throws IOException {
+        Path latin1 = tmp.resolve("latin1.ipynb");
+        byte[] head = "{\"nbformat\": 4, \"cells\": [], \"metadata\": {\"author\": \"".getBytes(StandardCharsets.US_ASCII);
+        byte[] bytes = java.util.Arrays.copyOf(head, head.length + 3);
+        bytes[head.length] = (byte) 0xE9;   // é in ISO-8859-1, not a UTF-8 sequence
+        bytes[head.length + 1] = '"';
+        bytes[head.length + 2] = '}';
+        Files.write(latin1, bytes);
+        assertEquals(2, run(latin1.toString(), "--out", tmp.resolve("o").toString()));
+        // Source: RFC 3629 §3, 0xE9 starts a 3-byte sequence and must be followed by continuation bytes 10xxxxxx
+        assertTrue(log().contains("latin1.ipynb is not valid UTF-8 at byte " + head.length + " (0xE9)"), log());
+        Path lenient = Files.writeString(tmp.resolve("single-quotes.ipynb"), "{'nbformat': 4}");
+        assertEquals(2, run(lenient.toString(), "--out", tmp.resolve("o").toString()));
+        assertTrue(log().contains("single-quotes.ipynb is not valid JSON at line 1"), log());
+        assertFalse(log().contains("Strictness") || log().contains("LENIENT") || log().contains("com.google"), log());
+        assertEquals(2, run(tmp.resolve("absent.ipynb").toString(), "--out", tmp.resolve("o").toString()));
+        assertTrue(log().contains("absent.ipynb: not found"), log());
     }
 
     /** Validates with the reference implementation when a Python with nbformat is installed. */

@@ -32,12 +32,26 @@ class CellContextTest {
     }
 
     @Test
+    void repeatedFramesAreFoldedIntoOneLine() {
+        java.util.List<String> frames = new java.util.ArrayList<>(java.util.List.of("    at top"));
+        for (int i = 0; i < 500; i++) {
+            frames.add("    at even");
+            frames.add("    at odd");
+        }
+        frames.add("    at bottom");
+        // common practice, no source: a cycle of two frames repeated 500 times folds to one copy and a count
+        assertEquals(java.util.List.of("    at top", "    at even", "    at odd", "    ... the 2 frames above repeated 499 more times",
+                "    at bottom"), CellErrors.fold(frames));
+        assertEquals(java.util.List.of("    at a", "    at a", "    at b"), CellErrors.fold(java.util.List.of("    at a", "    at a", "    at b")));
+    }
+
+    @Test
     void firstJavadocSentence() {
         // Source: Documentation Comment Specification for the Standard Doclet (JDK 17): the first
         // sentence ends at the first period followed by white space, or at the first block tag
         assertEquals("Returns the absolute value of an int value.",
-                Session.firstSentence("Returns the absolute value of an {@code int} value.\n If the argument is not negative..."));
-        assertEquals("Two levels", Session.firstSentence("Two <b>levels</b>\n@param gap the gap"));
-        assertEquals("", Session.firstSentence(null));
+                CodeAssist.firstSentence("Returns the absolute value of an {@code int} value.\n If the argument is not negative..."));
+        assertEquals("Two levels", CodeAssist.firstSentence("Two <b>levels</b>\n@param gap the gap"));
+        assertEquals("", CodeAssist.firstSentence(null));
     }
 }

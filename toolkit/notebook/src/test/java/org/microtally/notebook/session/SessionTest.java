@@ -165,6 +165,35 @@ class SessionTest {
     }
 
     @Test
+    void displayTypesAreImportedButNotTheRenderHelpers() {
+        assertEquals("org.microtally.notebook.render.Tables", run("Tables.class.getName()").raw().orElseThrow());
+        assertEquals("org.microtally.notebook.render.MimeBundle", run("MimeBundle.class.getName()").raw().orElseThrow());
+        // an internal helper of the display layer is not imported into cells
+        assertEquals(CellResult.Outcome.COMPILE_ERROR, run("TableFormat.class").outcome());
+        assertEquals(CellResult.Outcome.COMPILE_ERROR, run("DisplayEnvironment.class").outcome());
+    }
+
+    @Test
+    void streamsAndDisplaysKeepTheOrderTheCellWroteThem() {
+        Collector c = new Collector();
+        CellResult r = session.run("for (int i = 0; i < 40; i++) {\n  System.out.print(\"o\" + i + \" \");\n"
+                + "  System.err.print(\"e\" + i + \" \");\n  if (i % 10 == 0) show(\"d\" + i);\n}", c);
+        assertTrue(r.ok(), () -> r.error().toString());
+        StringBuilder expected = new StringBuilder();
+        StringBuilder got = new StringBuilder();
+        for (int i = 0; i < 40; i++) {
+            expected.append("o").append(i).append(" e").append(i).append(" ");
+            if (i % 10 == 0) {
+                expected.append("[d").append(i).append("]");
+            }
+        }
+        for (Collector.Event e : c.events) {
+            got.append(e.kind().equals("display") ? "[" + e.bundle().plain().replace("\"", "") + "]" : e.text());
+        }
+        assertEquals(expected.toString(), got.toString());
+    }
+
+    @Test
     void cellCodeSharesTheEngineClasses() {
         CellResult r = run("org.microtally.notebook.session.Display.class");
         assertSame(Display.class, r.raw().orElseThrow());
@@ -198,6 +227,41 @@ class SessionTest {
             assertTrue(e.message().contains("session stays alive"), e.message());
         }
         assertEquals(2, run("1 + 1").raw().orElseThrow());
+    }
+
+    @Test
+    void exitThroughReflectionMethodHandlesAndThreadsIsBlockedToo() {
+        // every route below ends the JVM when not blocked, which would end this test run
+        List<String> direct = List.of(
+                "MethodHandles.lookup().findStatic(System.class, \"exit\", java.lang.invoke.MethodType.methodType(void.class, int.class)).invoke(7);",
+                "MethodHandles.publicLookup().findVirtual(Runtime.class, \"halt\", java.lang.invoke.MethodType.methodType(void.class, int.class))"
+                        + ".invoke(Runtime.getRuntime(), 8);",
+                "MethodHandles.lookup().unreflect(System.class.getMethod(\"exit\", int.class)).invoke(9);",
+                "java.util.function.IntConsumer stop = Runtime.getRuntime()::halt;\nstop.accept(12);",
+                "MethodHandles.lookup().bind(Runtime.getRuntime(), \"exit\", java.lang.invoke.MethodType.methodType(void.class, int.class)).invoke(14);");
+        for (String call : direct) {
+            CellResult r = run("import java.lang.invoke.MethodHandles;\n" + call);
+            assertEquals(ExitBlockedException.class.getName(), r.error().orElseThrow().type(), call);
+        }
+        List<String> reflective = List.of(
+                "Class.forName(\"java.lang.System\").getMethod(\"exit\", int.class).invoke(null, 5);",
+                "Method.class.getMethod(\"invoke\", Object.class, Object[].class)"
+                        + ".invoke(System.class.getMethod(\"exit\", int.class), null, new Object[] {10});",
+                "Runtime.class.getMethod(\"exit\", int.class).invoke(Runtime.getRuntime(), 13);");
+        for (String call : reflective) {
+            CellResult r = run("import java.lang.reflect.Method;\n" + call);
+            CellError e = r.error().orElseThrow();
+            // Source: JDK 17 API, Method.invoke wraps an exception of the invoked method in InvocationTargetException
+            assertEquals("java.lang.reflect.InvocationTargetException", e.type(), call);
+            assertTrue(e.traceback().stream().anyMatch(l -> l.contains(ExitBlockedException.class.getName())), e.traceback().toString());
+        }
+        Collector c = new Collector();
+        CellResult t = session.run("Thread quitter = new Thread(() -> System.exit(11));\nquitter.start();\nquitter.join();\n\"joined\"", c);
+        assertEquals("joined", t.raw().orElseThrow());
+        assertTrue(c.text(true).contains("was blocked"), c.text(true));
+        // reflection that does not exit works as before
+        assertEquals(4, run("Math.class.getMethod(\"abs\", int.class).invoke(null, -4)").raw().orElseThrow());
+        assertEquals(3, run("1 + 2").raw().orElseThrow());
     }
 
     @Test
