@@ -1,5 +1,6 @@
 package org.microtally.lattice;
 
+import org.microtally.count.WordPrimes;
 import java.math.BigInteger;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
@@ -84,15 +85,15 @@ public final class Kaufman {
         int degree = 2 * sites;
         int s = Integer.highestOneBit(degree) << 1;          // S > 2nm
         long step = lcm(2L * n, s);
-        int k = LatticeModuli.primesFor(sites);
-        long[] primes = LatticeModuli.primesCongruentToOne(step, k);
+        int k = WordPrimes.primesFor(sites);
+        long[] primes = WordPrimes.primesCongruentToOne(step, k);
         long[][] residues = new long[k][];
         Throttle throttle = new Throttle(progress, k, "Kaufman primes");
         for (int i = 0; i < k; i++) {
             residues[i] = java.util.Arrays.copyOf(modular(n, m, s, primes[i]), degree + 1);
             throttle.step();
         }
-        return LatticeModuli.recombine(primes, residues);
+        return WordPrimes.recombine(primes, residues);
     }
 
     private static long lcm(long a, long b) {

@@ -1,5 +1,6 @@
 package org.microtally.lattice;
 
+import org.microtally.count.WordPrimes;
 import java.math.BigInteger;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
@@ -19,7 +20,7 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * beyond q^(frontier). For Ising g(E) (no label) the spin-flip symmetry halves the stored states
  * (a state and its complement have the same table). Every count is at most q^N (q values per site, N sites; 2^N for
  * Ising and the hard-core gas), so the sweep runs modulo floor(N log2 q / 61) + 1 primes above
- * 2^61 and the counts are recovered exactly by Chinese remaindering (see {@code LatticeModuli}).
+ * 2^61 and the counts are recovered exactly by Chinese remaindering (see {@link org.microtally.count.WordPrimes}).
  *
  * <h2>Accuracy and cost</h2>
  * Exact (integer arithmetic throughout). Memory about 2 x 8 bytes x q^f x (table size) for the
@@ -101,7 +102,7 @@ public final class TransferMatrix {
             peak /= 2;
             updates /= 2;
         }
-        int primes = LatticeModuli.primesFor(lattice.sites() * Math.log(q) / Math.log(2));
+        int primes = WordPrimes.primesFor(lattice.sites() * Math.log(q) / Math.log(2));
         return new Cost(plan.maxFrontier, peak, updates, primes, updates * primes / ASSUMED_UPDATES_PER_SECOND);
     }
 
@@ -148,7 +149,7 @@ public final class TransferMatrix {
                     "Use a narrower lattice (the frontier is set by the shorter side), a cylinder instead of a torus, "
                             + "Kaufman's solution for the periodic square Ising lattice, or a larger heap (-Xmx).");
         }
-        long[] primes = LatticeModuli.primes(cost.primes());
+        long[] primes = WordPrimes.primes(cost.primes());
         long[][] residues = new long[primes.length][];
         Throttle throttle = new Throttle(progress, (long) primes.length * plan.sites, "lattice sites");
         if (flipSymmetric(model, withLabel)) {
@@ -162,7 +163,7 @@ public final class TransferMatrix {
                 residues[i] = sweep.run(primes[i], throttle::step);
             }
         }
-        BigInteger[] counts = LatticeModuli.recombine(primes, residues);
+        BigInteger[] counts = WordPrimes.recombine(primes, residues);
         if (!hardCore) {
             BigInteger sum = BigInteger.ZERO;
             for (BigInteger c : counts) {
