@@ -8,6 +8,8 @@ import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectrum;
+import org.microtally.exact.ExactLog;
+import org.microtally.exact.ExactRatio;
 
 /**
  * Exact microstate counts of particles on spectra with real-valued energies, on a stated energy

@@ -2,6 +2,8 @@ package org.microtally.count;
 
 import java.math.BigInteger;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.Combinatorics;
+import org.microtally.exact.ExactLog;
 
 /**
  * A proven upper bound on every entry of a count table, which fixes how many primes the

@@ -13,6 +13,7 @@ import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.ExactLog;
 
 /**
  * Exact microstate counts Omega(n, e): the number of microstates of n non-interacting particles on a

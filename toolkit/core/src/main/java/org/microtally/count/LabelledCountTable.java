@@ -12,6 +12,7 @@ import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.Combinatorics;
 
 /**
  * Exact counts resolved by a second conserved quantity: Omega(n, e, L), the number of microstates of

@@ -6,6 +6,7 @@ import java.math.MathContext;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
+import org.microtally.exact.Combinatorics;
 
 /**
  * Occupancy of M boxes by N labelled objects, each object in any box with equal probability.

@@ -8,6 +8,8 @@ import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
+import org.microtally.exact.ExactLog;
+import org.microtally.exact.ExactRatio;
 
 /**
  * Two subsystems A and B that exchange a conserved integer quantity (energy quanta, particles) with

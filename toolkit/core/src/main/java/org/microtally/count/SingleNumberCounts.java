@@ -11,6 +11,8 @@ import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.Combinatorics;
+import org.microtally.exact.ExactLog;
 
 /**
  * Exact counts Omega(N, e), e = 0..E, for one particle number N, without the table of exact

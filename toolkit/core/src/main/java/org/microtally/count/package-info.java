@@ -13,8 +13,8 @@
  *       integer outcomes; {@link org.microtally.count.Multinomial}: occupancy of boxes by labelled
  *       objects, exact and logarithmic (to N ~ 1e27).</li>
  *   <li>{@link org.microtally.count.SharedTotal}: two subsystems sharing a conserved total.</li>
- *   <li>{@link org.microtally.count.ExactLog}: ln of BigIntegers of any size;
- *       {@link org.microtally.count.Combinatorics}: the one exact binomial coefficient and factorial.</li>
+ *   <li>{@link org.microtally.exact.ExactLog}: ln of BigIntegers of any size;
+ *       {@link org.microtally.exact.Combinatorics}: the one exact binomial coefficient and factorial.</li>
  * </ul>
  *
  * <p>All results are immutable; every bad input throws {@link org.microtally.InvalidInputException}

@@ -9,7 +9,7 @@ import org.microtally.InvalidInputException;
 import org.microtally.MemoryEstimate;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
-import org.microtally.count.Combinatorics;
+import org.microtally.exact.Combinatorics;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;

@@ -8,7 +8,7 @@ import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
 import org.apache.commons.math3.analysis.solvers.AllowedSolution;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
-import org.microtally.count.ExactLog;
+import org.microtally.exact.ExactLog;
 
 /**
  * Canonical thermodynamics of a system given by an exact density of states g(E) (and, when the

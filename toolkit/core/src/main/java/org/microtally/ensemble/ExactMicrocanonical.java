@@ -7,7 +7,7 @@ import java.util.List;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
-import org.microtally.count.ExactLog;
+import org.microtally.exact.ExactLog;
 
 /**
  * Microcanonical entropies and temperatures of an exact density of states g(E).

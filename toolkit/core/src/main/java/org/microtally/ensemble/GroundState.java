@@ -3,8 +3,9 @@ package org.microtally.ensemble;
 import java.math.BigInteger;
 import java.util.List;
 import org.microtally.Tabular;
-import org.microtally.count.ExactLog;
+import org.microtally.exact.ExactLog;
 import org.microtally.occupation.LevelOccupations;
+import org.microtally.exact.Combinatorics;
 
 /**
  * The T -&gt; 0 limit of the canonical ensemble: lowest N-particle energy, its exact number of
@@ -16,7 +17,7 @@ import org.microtally.occupation.LevelOccupations;
  * lowest energy shell:
  * <ul>
  *   <li>Bose: all N particles in the lowest level, C(g_0 + N - 1, N) ways (multisets of size N from
- *       g_0 states, {@link org.microtally.count.Combinatorics#binomial}); energy N e_0.</li>
+ *       g_0 states, {@link org.microtally.exact.Combinatorics#binomial}); energy N e_0.</li>
  *   <li>distinguishable: every labelled particle in one of the g_0 lowest states, g_0^N ways.</li>
  *   <li>Fermi and maxOccupancy(k): levels are filled from the bottom, k per state; the last,
  *       partly filled level of degeneracy g holding r particles gives the number of ways to put r

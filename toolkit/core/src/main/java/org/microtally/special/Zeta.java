@@ -5,7 +5,7 @@ import java.math.BigInteger;
 import java.math.MathContext;
 import org.apache.commons.math3.special.Gamma;
 import org.microtally.InvalidInputException;
-import org.microtally.count.Combinatorics;
+import org.microtally.exact.Combinatorics;
 
 /**
  * The Riemann zeta function zeta(s) = sum_{k>=1} k^-s for real s &gt; 1 (DLMF 25.2.1).

@@ -9,6 +9,7 @@ import org.microtally.ProgressListener;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.Combinatorics;
 
 class CountBoundTest {
 

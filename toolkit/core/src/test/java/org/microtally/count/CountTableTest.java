@@ -19,6 +19,7 @@ import org.microtally.spectrum.NonIntegerEnergyException;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.ExactLog;
 
 class CountTableTest {
 

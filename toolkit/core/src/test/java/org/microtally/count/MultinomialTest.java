@@ -11,6 +11,7 @@ import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.special.Gamma;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
+import org.microtally.exact.ExactLog;
 
 class MultinomialTest {
 

@@ -12,6 +12,7 @@ import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.ExactLog;
 
 /** Halyard Bay demo: oscillator blocks A (300) and B (200) sharing 100 quanta. */
 class SharedTotalTest {

@@ -12,6 +12,7 @@ import org.microtally.InvalidInputException;
 import org.microtally.spectrum.ShellOrbits;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.units.EnergyScale;
+import org.microtally.exact.Combinatorics;
 
 class ShellDimensionsTest {
     private static final EnergyScale MEV = EnergyScale.abstractUnit("MeV");

@@ -14,6 +14,7 @@ import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.Combinatorics;
 
 class SingleNumberCountsTest {
 

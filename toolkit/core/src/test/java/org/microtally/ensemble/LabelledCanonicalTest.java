@@ -9,7 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
-import org.microtally.count.Combinatorics;
+import org.microtally.exact.Combinatorics;
 import org.microtally.count.LabelledCountTable;
 import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectra;

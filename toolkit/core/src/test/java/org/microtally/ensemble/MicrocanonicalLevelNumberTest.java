@@ -11,7 +11,7 @@ import java.util.Random;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
-import org.microtally.count.Combinatorics;
+import org.microtally.exact.Combinatorics;
 import org.microtally.count.CountTable;
 import org.microtally.count.MicrostateEnumerator;
 import org.microtally.spectrum.Level;

@@ -18,6 +18,7 @@ import org.microtally.spectrum.Level;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.exact.Combinatorics;
 
 class MicrocanonicalTest {
 
@@ -195,7 +196,7 @@ class MicrocanonicalTest {
     }
 
     private static BigInteger binomial(int a, int b) {
-        return org.microtally.count.Combinatorics.binomial(a, b);
+        return org.microtally.exact.Combinatorics.binomial(a, b);
     }
 
     private static double lnBinomial(int a, int b) {

@@ -8,9 +8,10 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.microtally.ProgressListener;
-import org.microtally.count.ExactLog;
+import org.microtally.exact.ExactLog;
 import org.microtally.ensemble.ExactDensityOfStates;
 import org.microtally.lattice.Model.Coupling;
+import org.microtally.exact.Combinatorics;
 
 /** Lattice counts against published values and closed forms. */
 class LatticeReferenceTest {

@@ -73,7 +73,7 @@ public final class Session implements Engine {
      * core toolkit (org.microtally.lattice once that package is built) and file reading.
      */
     static final List<String> TOOLKIT_PACKAGES = List.of(
-            "org.microtally", "org.microtally.spectrum", "org.microtally.count", "org.microtally.ensemble",
+            "org.microtally", "org.microtally.spectrum", "org.microtally.count", "org.microtally.exact", "org.microtally.ensemble",
             "org.microtally.occupation", "org.microtally.special", "org.microtally.limit", "org.microtally.structure",
             "org.microtally.lattice", "org.microtally.units", "org.microtally.notebook.data");
     /** The display layer's user classes, imported one by one when they exist (its helpers are not user API). */

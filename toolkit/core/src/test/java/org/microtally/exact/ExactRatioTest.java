@@ -1,4 +1,4 @@
-package org.microtally.count;
+package org.microtally.exact;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;

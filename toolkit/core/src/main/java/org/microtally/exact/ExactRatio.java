@@ -1,4 +1,4 @@
-package org.microtally.count;
+package org.microtally.exact;
 
 import java.math.BigInteger;
 import org.apache.commons.math3.fraction.BigFraction;
