@@ -1,5 +1,6 @@
 package org.microtally.lattice;
 
+import org.microtally.count.Ticker;
 import org.microtally.count.WordPrimes;
 import java.math.BigInteger;
 import org.microtally.InvalidInputException;
@@ -88,10 +89,10 @@ public final class Kaufman {
         int k = WordPrimes.primesFor(sites);
         long[] primes = WordPrimes.primesCongruentToOne(step, k);
         long[][] residues = new long[k][];
-        Throttle throttle = new Throttle(progress, k, "Kaufman primes");
+        Ticker ticker = new Ticker(progress, k, "Kaufman primes");
         for (int i = 0; i < k; i++) {
             residues[i] = java.util.Arrays.copyOf(modular(n, m, s, primes[i]), degree + 1);
-            throttle.step();
+            ticker.step();
         }
         return WordPrimes.recombine(primes, residues);
     }

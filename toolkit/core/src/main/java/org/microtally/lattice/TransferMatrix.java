@@ -1,5 +1,6 @@
 package org.microtally.lattice;
 
+import org.microtally.count.Ticker;
 import org.microtally.count.WordPrimes;
 import java.math.BigInteger;
 import java.util.Objects;
@@ -151,16 +152,16 @@ public final class TransferMatrix {
         }
         long[] primes = WordPrimes.primes(cost.primes());
         long[][] residues = new long[primes.length][];
-        Throttle throttle = new Throttle(progress, (long) primes.length * plan.sites, "lattice sites");
+        Ticker ticker = new Ticker(progress, (long) primes.length * plan.sites, "lattice sites");
         if (flipSymmetric(model, withLabel)) {
             FlipSymmetricSweep sweep = new FlipSymmetricSweep(plan);
             for (int i = 0; i < primes.length; i++) {
-                residues[i] = sweep.run(primes[i], throttle::step);
+                residues[i] = sweep.run(primes[i], ticker::step);
             }
         } else {
             FrontierSweep sweep = new FrontierSweep(plan, model, withLabel);
             for (int i = 0; i < primes.length; i++) {
-                residues[i] = sweep.run(primes[i], throttle::step);
+                residues[i] = sweep.run(primes[i], ticker::step);
             }
         }
         BigInteger[] counts = WordPrimes.recombine(primes, residues);
