@@ -16,16 +16,26 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * (1996): with K = beta J,
  * Z = (1/2) (2 sinh 2K)^{nm/2} (Z_1 + Z_2 + Z_3 + Z_4), Z_1,2 = prod_{r=0}^{n-1} 2 cosh, sinh
  * (m gamma_{2r+1} / 2), Z_3,4 = the same over gamma_{2r}, where cosh gamma_k = cosh 2K coth 2K -
- * cos(pi k / n) and gamma_0 = 2K + ln tanh K (its sign matters). In x = e^{-2K} and for even n,
- * pairing k with 2n - k (equal gamma) turns every factor into a polynomial:
- * x^{nm} Z = (1/2) [prod_{odd k &lt; n} Q_k^+ + prod_{odd k &lt; n} Q_k^- + R^+ prod_{even 0 &lt; k &lt; n} Q_k^+
- * + R^- prod_{even 0 &lt; k &lt; n} Q_k^-], with D = x (1 - x^2), Q_k^&plusmn; = D^m (V_m(y_k) &plusmn; 2),
- * y_k = (1 + x^2)^2 / D - 2 cos(pi k / n), V_m the Lucas/Dickson polynomial V_m(w + 1/w) = w^m + w^-m,
- * and R^&plusmn; = (1 - x^2)^m (1 + x^{2m}) &plusmn; x^m ((1 - x)^{2m} + (1 + x)^{2m}) from the unpaired
- * k = 0 and k = n factors. Then x^{nm} Z = sum_k g_k x^k, g_k = g(E = 2k - 2nm).
+ * cos(pi k / n) and gamma_0 = 2K + ln tanh K (its sign matters). In x = e^{-2K}, pairing k with
+ * 2n - k (equal gamma) turns every paired factor into a polynomial, Q_k^&plusmn; = D^m (V_m(y_k) &plusmn; 2)
+ * with D = x (1 - x^2), y_k = (1 + x^2)^2 / D - 2 cos(pi k / n) and V_m the Lucas/Dickson polynomial
+ * V_m(w + 1/w) = w^m + w^-m. The unpaired k = 0 and k = n factors, each with its share
+ * ((1 - x^2)/x)^{m/2} x^m of the prefactor, are polynomials too (e^{gamma_0} = (1 - x)/(x (1 + x)),
+ * e^{gamma_n} = (1 + x)/(x (1 - x)), so the half-integer powers cancel for odd m as well):
+ * F_0^&plusmn; = (1 - x)^m &plusmn; x^m (1 + x)^m, F_n^&plusmn; = (1 + x)^m &plusmn; x^m (1 - x)^m. Then, with
+ * products over 0 &lt; k &lt; n,
+ * <ul>
+ *   <li>n even: x^{nm} Z = (1/2) [prod_{odd k} Q_k^+ + prod_{odd k} Q_k^- + F_0^+ F_n^+ prod_{even k} Q_k^+
+ *       + F_0^- F_n^- prod_{even k} Q_k^-];</li>
+ *   <li>n odd (k = n is odd): x^{nm} Z = (1/2) [F_n^+ prod_{odd k} Q_k^+ + F_n^- prod_{odd k} Q_k^-
+ *       + F_0^+ prod_{even k} Q_k^+ + F_0^- prod_{even k} Q_k^-].</li>
+ * </ul>
+ * In both, x^{nm} Z = sum_k g_k x^k, g_k = g(E = 2k - 2nm). The odd-n form is our own rearrangement
+ * of Kaufman's product (the sign of gamma_0 carried through F_0^-); it is checked against the
+ * transfer matrix and brute-force enumeration on odd x odd and odd x even tori, in both orientations.
  *
  * <h2>Method (ours)</h2>
- * Modulo primes p = 1 (mod lcm(2n, S)), S the power of two above 4nm, 2 cos(pi k / n) becomes
+ * Modulo primes p = 1 (mod lcm(2n, S)), S the power of two above 2nm (the degree), 2 cos(pi k / n) becomes
  * zeta^k + zeta^-k with zeta a primitive 2n-th root of unity in F_p (the right-hand side is an
  * integer polynomial, so any ring homomorphism from Z[zeta_2n] gives its residues). The polynomial
  * is evaluated at the S points c omega^j (omega of order S, c outside the subgroup so D never
@@ -36,9 +46,9 @@ import org.microtally.ensemble.ExactDensityOfStates;
  *
  * <h2>Accuracy and limits</h2>
  * Exact integers; the result is checked against sum g = 2^{nm} before it is returned (a failed
- * check throws). One side must be even (with both odd the unpaired factors need square roots; use
- * {@link TransferMatrix}). Cost about nm (n log2 m) modular multiplications per point, S points per
- * prime, nm/61 primes: O((nm)^2 n log m / 61).
+ * check throws). Any L x M torus with L, M &gt;= 3 (n = the shorter side, m = the longer). Cost about
+ * n (2 log2 m + 6) modular multiplications per point, S/2 points per prime, nm/61 + 1 primes:
+ * O((nm)^2 n log m / 61).
  */
 public final class Kaufman {
     private Kaufman() { }
@@ -62,12 +72,8 @@ public final class Kaufman {
                     "An odd period frustrates the antiferromagnet; use TransferMatrix for it.");
         }
         Lattice lattice = Lattice.square(l, m, Boundary.PERIODIC);   // validates L, M >= 3
-        if (l % 2 != 0 && m % 2 != 0) {
-            throw InvalidInputException.of("L x M", l + " x " + m, "at least one even side for Kaufman's polynomial form",
-                    "Use TransferMatrix for odd x odd tori (a narrow one), or an even side.");
-        }
-        int n = l % 2 == 0 ? l : m;
-        int mm = n == l ? m : l;
+        int n = Math.min(l, m);                 // the product runs over n factors: the shorter side is cheaper
+        int mm = Math.max(l, m);
         BigInteger[] g = coefficients(n, mm, progress);
         BigInteger sum = BigInteger.ZERO;
         for (BigInteger c : g) {
@@ -151,12 +157,23 @@ public final class Kaufman {
                     evenMinus = f.mul(evenMinus, minus);
                 }
             }
+            // The unpaired factors k = 0 (gamma_0, its sign kept) and k = n, each with its share of the
+            // prefactor: F_0^+- = (1 - x)^m +- x^m (1 + x)^m, F_n^+- = (1 + x)^m +- x^m (1 - x)^m.
             long xm = f.pow(x, m);
-            long first = f.mul(f.pow(oneMinusX2, m), f.add(one, f.mul(xm, xm)));
-            long second = f.mul(xm, f.add(f.pow(f.sub(one, x), 2L * m), f.pow(f.add(one, x), 2L * m)));
-            long rPlus = f.add(first, second);
-            long rMinus = f.sub(first, second);
-            long total = f.add(f.add(oddPlus, oddMinus), f.add(f.mul(rPlus, evenPlus), f.mul(rMinus, evenMinus)));
+            long down = f.pow(f.sub(one, x), m);
+            long up = f.pow(f.add(one, x), m);
+            long zeroPlus = f.add(down, f.mul(xm, up));
+            long zeroMinus = f.sub(down, f.mul(xm, up));
+            long nPlus = f.add(up, f.mul(xm, down));
+            long nMinus = f.sub(up, f.mul(xm, down));
+            long total;
+            if (n % 2 == 0) {       // k = n is even: both unpaired factors sit in the gamma_{2r} products
+                total = f.add(f.add(oddPlus, oddMinus),
+                        f.add(f.mul(f.mul(zeroPlus, nPlus), evenPlus), f.mul(f.mul(zeroMinus, nMinus), evenMinus)));
+            } else {                // k = n is odd: it joins the gamma_{2r+1} products
+                total = f.add(f.add(f.mul(nPlus, oddPlus), f.mul(nMinus, oddMinus)),
+                        f.add(f.mul(zeroPlus, evenPlus), f.mul(zeroMinus, evenMinus)));
+            }
             values[j] = f.mul(total, half);
             values[j + s / 2] = values[j];
             x = f.mul(x, omega);

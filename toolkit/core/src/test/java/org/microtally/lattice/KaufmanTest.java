@@ -9,7 +9,7 @@ import org.microtally.lattice.Model.Coupling;
 
 class KaufmanTest {
     @ParameterizedTest
-    @CsvSource({"4, 4", "4, 3", "3, 4", "4, 5", "6, 4", "6, 6", "4, 7"})
+    @CsvSource({"4, 4", "4, 3", "3, 4", "4, 5", "6, 4", "6, 6", "4, 7", "3, 3", "3, 5", "5, 3", "5, 5", "5, 7", "7, 3", "3, 6", "5, 4"})
     void kaufmanEqualsTransferMatrix(int l, int m) {
         Lattice torus = Lattice.square(l, m, Boundary.PERIODIC);
         // Source: independent route, site-by-site transfer matrix on the same torus
@@ -18,11 +18,20 @@ class KaufmanTest {
     }
 
     @ParameterizedTest
-    @CsvSource({"4, 4", "4, 5", "3, 6"})
+    @CsvSource({"4, 4", "4, 5", "3, 6", "3, 3", "5, 3", "3, 7", "5, 5"})
     void kaufmanEqualsGrayCodeEnumeration(int l, int m) {
         // Source: independent brute force over all 2^N configurations of the torus
         assertEquals(BruteForce.densityOfStates(Lattice.square(l, m, Boundary.PERIODIC), Model.ising(Coupling.FERROMAGNETIC)).rows(),
                 Kaufman.densityOfStates(l, m, ProgressListener.NONE).rows());
+    }
+
+    @ParameterizedTest
+    @CsvSource({"3, 5", "5, 7", "3, 4", "7, 9"})
+    void bothOrientationsOfTheProductAgree(int n, int m) {
+        // Source: closed form, the L x M and M x L tori are the same graph; the product over n factors
+        // (n odd or even) must give the same polynomial as the product over m factors
+        assertEquals(java.util.Arrays.asList(Kaufman.coefficients(n, m, ProgressListener.NONE)),
+                java.util.Arrays.asList(Kaufman.coefficients(m, n, ProgressListener.NONE)));
     }
 
     @ParameterizedTest

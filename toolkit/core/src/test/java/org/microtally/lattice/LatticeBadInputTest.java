@@ -70,9 +70,10 @@ class LatticeBadInputTest {
     }
 
     @Test
-    void kaufmanNeedsAnEvenSide() {
+    void kaufmanRefusesSidesBelowThreeAndTheFrustratedAntiferromagnet() {
         // common practice, no source
-        refused(() -> Kaufman.densityOfStates(5, 3, ProgressListener.NONE), "L x M = 5 x 3", "even");
         refused(() -> Kaufman.densityOfStates(2, 4, ProgressListener.NONE), "L (sites per row) = 2");
+        refused(() -> Kaufman.densityOfStates(5, 3, Model.Coupling.ANTIFERROMAGNETIC, ProgressListener.NONE),
+                "L x M for the antiferromagnet = 5 x 3", "both sides even");
     }
 }

@@ -71,7 +71,7 @@ class LatticeReferenceTest {
     }
 
     @ParameterizedTest
-    @CsvSource({"6, 6", "8, 6", "6, 7", "8, 8", "10, 6"})
+    @CsvSource({"6, 6", "8, 6", "6, 7", "8, 8", "10, 6", "7, 7", "7, 9"})
     void bealeLowTemperatureSeries(int l, int m) {
         ExactDensityOfStates g = Kaufman.densityOfStates(l, m, ProgressListener.NONE);
         long n = (long) l * m;
