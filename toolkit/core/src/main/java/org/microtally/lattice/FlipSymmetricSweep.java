@@ -6,15 +6,29 @@ package org.microtally.lattice;
  * spin in slot 0 down (bit 0 clear) are stored, at index s / 2; a read of any state goes through
  * its stored representative. Every update is destination-major over the stored states, so the
  * vector and the work are halved against {@link FrontierSweep}; the arithmetic (modular additions
- * of shifted rows) is the same, the first contribution to each destination being a plain copy.
+ * of shifted rows) is the same, the rows being built by {@link RowSum}.
  */
 final class FlipSymmetricSweep {
     private final Schedule plan;
     private long[] bufferA = new long[0];
     private long[] bufferB = new long[0];
 
+    private final int largest;
+    private final RowSum rows;
+
     FlipSymmetricSweep(Schedule plan) {
         this.plan = plan;
+        long most = 1;
+        int kRange = 1;
+        int f = 0;
+        for (int t = 0; t < plan.sites; t++) {
+            kRange += plan.neighbourSlots[t].length;
+            f = plan.replaceSlot[t] >= 0 ? f : f + 1;
+            most = Math.max(most, stored(f) * kRange);
+            f -= plan.retireSlots[t].length;
+        }
+        this.largest = Math.toIntExact(most);
+        this.rows = new RowSum(kRange);
     }
 
     /** Stored index of frontier state s (f sites). */
@@ -35,18 +49,14 @@ final class FlipSymmetricSweep {
         return dk;
     }
 
+    /** A reused buffer of {@code size} entries (allocated once at the sweep's largest size) that is not {@code inUse}. */
     private long[] spare(long[] inUse, long size) {
         int n = Math.toIntExact(size);
-        if (inUse != bufferA) {
-            if (bufferA.length < n) {
-                bufferA = new long[n];
-            }
-            return bufferA;
+        if (bufferA.length < n || bufferB.length < n) {
+            bufferA = new long[Math.max(n, largest)];
+            bufferB = new long[Math.max(n, largest)];
         }
-        if (bufferB.length < n) {
-            bufferB = new long[n];
-        }
-        return bufferB;
+        return inUse == bufferA ? bufferB : bufferA;
     }
 
     /** Final table over k = 0..bonds modulo p. */
@@ -61,19 +71,27 @@ final class FlipSymmetricSweep {
             int nf = slot >= 0 ? f : f + 1;
             long destinations = stored(nf);
             long[] next = spare(vec, destinations * nk);
-            for (long i = 0; i < destinations; i++) {
-                long dest = nf == 0 ? 0 : i << 1;
-                int frame = (int) (i * nk);
+            int chunk = rows.begin(nk);
+            for (long i0 = 0; i0 < destinations; i0 += chunk) {
+                long i1 = Math.min(destinations, i0 + chunk);
+                for (long i = i0; i < i1; i++) {
+                    long dest = nf == 0 ? 0 : i << 1;
+                    if (slot >= 0) {
+                        int a = (int) ((dest >>> slot) & 1);
+                        long s0 = dest & ~(1L << slot);
+                        long s1 = s0 | (1L << slot);
+                        rows.first(shift(s0, a, nb), vec, (int) (index(s0, f) * kRange), kRange);
+                        rows.second(shift(s1, a, nb), vec, (int) (index(s1, f) * kRange), kRange);
+                    } else {
+                        int a = (int) ((dest >>> f) & 1);
+                        long s = dest & ~(1L << f);
+                        rows.first(shift(s, a, nb), vec, (int) (index(s, f) * kRange), kRange);
+                    }
+                }
                 if (slot >= 0) {
-                    int a = (int) ((dest >>> slot) & 1);
-                    long s0 = dest & ~(1L << slot);
-                    long s1 = s0 | (1L << slot);
-                    copy(next, frame, nk, shift(s0, a, nb), vec, (int) (index(s0, f) * kRange), kRange);
-                    add(next, frame + shift(s1, a, nb), vec, (int) (index(s1, f) * kRange), kRange, p);
+                    rows.flushSum(next, i0, p);
                 } else {
-                    int a = (int) ((dest >>> f) & 1);
-                    long s = dest & ~(1L << f);
-                    copy(next, frame, nk, shift(s, a, nb), vec, (int) (index(s, f) * kRange), kRange);
+                    rows.flush(next, i0);
                 }
             }
             vec = next;
@@ -93,39 +111,29 @@ final class FlipSymmetricSweep {
         int nf = f - 1;
         long destinations = stored(nf);
         long[] next = spare(vec, destinations * block);
-        for (long i = 0; i < destinations; i++) {
-            long dest = nf == 0 ? 0 : i << 1;
-            int frame = (int) (i * block);
-            for (int d = 0; d < 2; d++) {
-                long s;
-                if (j == f - 1) {
-                    s = dest | ((long) d << j);
-                } else {
-                    long top = (dest >>> j) & 1;                // the top site now sits in slot j
-                    s = (dest & ~(1L << j)) | ((long) d << j) | (top << (f - 1));
-                }
-                int from = (int) (index(s, f) * block);
-                if (d == 0) {
-                    System.arraycopy(vec, from, next, frame, block);
-                } else {
-                    add(next, frame, vec, from, block, p);
+        int chunk = rows.begin(block);
+        for (long i0 = 0; i0 < destinations; i0 += chunk) {
+            long i1 = Math.min(destinations, i0 + chunk);
+            for (long i = i0; i < i1; i++) {
+                long dest = nf == 0 ? 0 : i << 1;
+                for (int d = 0; d < 2; d++) {
+                    long s;
+                    if (j == f - 1) {
+                        s = dest | ((long) d << j);
+                    } else {
+                        long top = (dest >>> j) & 1;                // the top site now sits in slot j
+                        s = (dest & ~(1L << j)) | ((long) d << j) | (top << (f - 1));
+                    }
+                    int from = (int) (index(s, f) * block);
+                    if (d == 0) {
+                        rows.first(0, vec, from, block);
+                    } else {
+                        rows.second(0, vec, from, block);
+                    }
                 }
             }
+            rows.flushSum(next, i0, p);
         }
         return next;
-    }
-
-    /** Frame [frame, frame + width) := zeros with vec[from .. from + len) copied in at offset dk. */
-    private static void copy(long[] next, int frame, int width, int dk, long[] vec, int from, int len) {
-        java.util.Arrays.fill(next, frame, frame + dk, 0L);
-        System.arraycopy(vec, from, next, frame + dk, len);
-        java.util.Arrays.fill(next, frame + dk + len, frame + width, 0L);
-    }
-
-    private static void add(long[] next, int to, long[] vec, int from, int len, long p) {
-        for (int i = 0; i < len; i++) {
-            long x = next[to + i] + vec[from + i] - p;
-            next[to + i] = x + ((x >> 63) & p);
-        }
     }
 }
