@@ -24,7 +24,8 @@ import org.openjdk.jmh.annotations.Warmup;
  *
  * <p>{@code transferMatrix12}: free 12 x 12 Ising g(E) ({@link TransferMatrix.Cost#updates()} x primes
  * element updates, each a modular add of one table entry into another). {@code bareModularAdd}: the
- * same number of additions a + b mod p over two arrays of the transfer matrix's largest vector size,
+ * same number of additions a + b mod p over two arrays of the transfer matrix's largest vector size (its
+ * peak memory holds three),
  * with nothing else (no index arithmetic, no allocation): the ceiling for this kind of update.
  */
 @State(Scope.Benchmark)
@@ -51,7 +52,7 @@ public class LatticeRateBenchmark {
     @Setup(Level.Trial)
     public void setUp() {
         TransferMatrix.Cost c = TransferMatrix.estimate(LATTICE, ISING, false);
-        int size = (int) (c.peakBytes() / 16);
+        int size = (int) (c.peakBytes() / 24);     // the Ising g(E) sweep holds three vectors of this size
         a = new long[size];
         b = new long[size];
         for (int i = 0; i < size; i++) {

@@ -6,15 +6,14 @@ package org.microtally.lattice;
  * spin in slot 0 down (bit 0 clear) are stored, at index s / 2; a read of any state goes through
  * its stored representative. Every update is destination-major over the stored states, so the
  * vector and the work are halved against {@link FrontierSweep}; the arithmetic (modular additions
- * of shifted rows) is the same, the rows being built by {@link RowSum}.
+ * of shifted rows) is the same. Each destination row is the sum of two shifted source rows: the
+ * first is copied into the new vector, the second into a third vector at the same index, and the two
+ * are added a chunk at a time ({@link RowSum}), so memory is three vectors (the estimate counts them).
  */
 final class FlipSymmetricSweep {
     private final Schedule plan;
-    private long[] bufferA = new long[0];
-    private long[] bufferB = new long[0];
-
+    /** Largest stored vector (entries). */
     private final int largest;
-    private final RowSum rows;
 
     FlipSymmetricSweep(Schedule plan) {
         this.plan = plan;
@@ -28,7 +27,6 @@ final class FlipSymmetricSweep {
             f -= plan.retireSlots[t].length;
         }
         this.largest = Math.toIntExact(most);
-        this.rows = new RowSum(kRange);
     }
 
     /** Stored index of frontier state s (f sites). */
@@ -49,19 +47,13 @@ final class FlipSymmetricSweep {
         return dk;
     }
 
-    /** A reused buffer of {@code size} entries (allocated once at the sweep's largest size) that is not {@code inUse}. */
-    private long[] spare(long[] inUse, long size) {
-        int n = Math.toIntExact(size);
-        if (bufferA.length < n || bufferB.length < n) {
-            bufferA = new long[Math.max(n, largest)];
-            bufferB = new long[Math.max(n, largest)];
-        }
-        return inUse == bufferA ? bufferB : bufferA;
-    }
-
     /** Final table over k = 0..bonds modulo p. */
     long[] run(long p, Runnable afterSite) {
-        long[] vec = {1};
+        long[] a = new long[largest];
+        long[] b = new long[largest];
+        long[] term = new long[largest];
+        long[] vec = a;
+        vec[0] = 1;
         int kRange = 1;
         int f = 0;
         for (int t = 0; t < plan.sites; t++) {
@@ -70,35 +62,36 @@ final class FlipSymmetricSweep {
             int slot = plan.replaceSlot[t];
             int nf = slot >= 0 ? f : f + 1;
             long destinations = stored(nf);
-            long[] next = spare(vec, destinations * nk);
-            int chunk = rows.begin(nk);
+            long[] next = vec == a ? b : a;
+            int chunk = RowSum.rowsPerChunk(nk);
             for (long i0 = 0; i0 < destinations; i0 += chunk) {
                 long i1 = Math.min(destinations, i0 + chunk);
                 for (long i = i0; i < i1; i++) {
                     long dest = nf == 0 ? 0 : i << 1;
+                    int frame = (int) (i * nk);
                     if (slot >= 0) {
-                        int a = (int) ((dest >>> slot) & 1);
+                        int bit = (int) ((dest >>> slot) & 1);
                         long s0 = dest & ~(1L << slot);
                         long s1 = s0 | (1L << slot);
-                        rows.first(shift(s0, a, nb), vec, (int) (index(s0, f) * kRange), kRange);
-                        rows.second(shift(s1, a, nb), vec, (int) (index(s1, f) * kRange), kRange);
+                        RowSum.place(next, frame, nk, shift(s0, bit, nb), vec, (int) (index(s0, f) * kRange), kRange);
+                        RowSum.place(term, frame, nk, shift(s1, bit, nb), vec, (int) (index(s1, f) * kRange), kRange);
                     } else {
-                        int a = (int) ((dest >>> f) & 1);
+                        int bit = (int) ((dest >>> f) & 1);
                         long s = dest & ~(1L << f);
-                        rows.first(shift(s, a, nb), vec, (int) (index(s, f) * kRange), kRange);
+                        RowSum.place(next, frame, nk, shift(s, bit, nb), vec, (int) (index(s, f) * kRange), kRange);
                     }
                 }
                 if (slot >= 0) {
-                    rows.flushSum(next, i0, p);
-                } else {
-                    rows.flush(next, i0);
+                    RowSum.addMod(next, term, (int) (i0 * nk), (int) ((i1 - i0) * nk), p);
                 }
             }
             vec = next;
             kRange = nk;
             f = nf;
             for (int r : plan.retireSlots[t]) {
-                vec = retire(vec, f, r, kRange, p);
+                next = vec == a ? b : a;
+                retire(vec, next, term, f, r, kRange, p);
+                vec = next;
                 f--;
             }
             afterSite.run();
@@ -106,12 +99,11 @@ final class FlipSymmetricSweep {
         return java.util.Arrays.copyOf(vec, kRange);
     }
 
-    /** Sums out slot j of an f-site frontier; the top slot moves into j. */
-    private long[] retire(long[] vec, int f, int j, int block, long p) {
+    /** Sums out slot j of an f-site frontier from vec into next; the top slot moves into j. */
+    private static void retire(long[] vec, long[] next, long[] term, int f, int j, int block, long p) {
         int nf = f - 1;
         long destinations = stored(nf);
-        long[] next = spare(vec, destinations * block);
-        int chunk = rows.begin(block);
+        int chunk = RowSum.rowsPerChunk(block);
         for (long i0 = 0; i0 < destinations; i0 += chunk) {
             long i1 = Math.min(destinations, i0 + chunk);
             for (long i = i0; i < i1; i++) {
@@ -124,16 +116,10 @@ final class FlipSymmetricSweep {
                         long top = (dest >>> j) & 1;                // the top site now sits in slot j
                         s = (dest & ~(1L << j)) | ((long) d << j) | (top << (f - 1));
                     }
-                    int from = (int) (index(s, f) * block);
-                    if (d == 0) {
-                        rows.first(0, vec, from, block);
-                    } else {
-                        rows.second(0, vec, from, block);
-                    }
+                    System.arraycopy(vec, (int) (index(s, f) * block), d == 0 ? next : term, (int) (i * block), block);
                 }
             }
-            rows.flushSum(next, i0, p);
+            RowSum.addMod(next, term, (int) (i0 * block), (int) ((i1 - i0) * block), p);
         }
-        return next;
     }
 }

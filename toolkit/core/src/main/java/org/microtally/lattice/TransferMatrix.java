@@ -26,7 +26,8 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * <h2>Accuracy and cost</h2>
  * Exact (integer arithmetic throughout). Memory about 2 x 8 bytes x q^f x (table size) for the
  * largest frontier f (f = L for an L-wide free or cylindrical strip, 2L for a torus); the table
- * has (bonds + 1) entries, times (N + 1) with the label. Work: about q^(f+1) x (table) modular
+ * has (bonds + 1) entries, times (N + 1) with the label; the Ising g(E) sweep holds three vectors of
+ * half that size (two state vectors and one for the second terms, see {@link RowSum}). Work: about q^(f+1) x (table) modular
  * additions per site and prime. {@link #estimate} gives the numbers before any work starts, and the counting methods refuse
  * (with the estimate) when the largest state vector would not fit in the memory allowed.
  */
@@ -40,7 +41,7 @@ public final class TransferMatrix {
      * The cost of a sweep, known before it starts.
      *
      * @param maxFrontier    the largest number of frontier sites (states per vector q^maxFrontier)
-     * @param peakBytes      the largest memory held at once by the two state vectors
+     * @param peakBytes      the largest memory held at once by the state vectors (two; three for the Ising g(E) sweep)
      * @param updates        element updates per prime
      * @param primes         number of 62-bit primes
      * @param estimatedSeconds updates x primes / {@value #ASSUMED_UPDATES_PER_SECOND} (a rough guide)
@@ -71,6 +72,7 @@ public final class TransferMatrix {
         double u = 1;
         int f = 0;
         double peak = 8;
+        double biggest = 1;
         double updates = 0;
         for (int t = 0; t < plan.sites; t++) {
             double oldSize = Math.pow(q, f) * k * u;
@@ -91,6 +93,7 @@ public final class TransferMatrix {
                 peak = Math.max(peak, 8 * (oldSize + size));
                 updates += size;
             }
+            biggest = Math.max(biggest, size);
             for (int ignored : plan.retireSlots[t]) {
                 double smaller = size / q;
                 peak = Math.max(peak, 8 * (size + smaller));
@@ -100,7 +103,7 @@ public final class TransferMatrix {
             }
         }
         if (flipSymmetric(model, withLabel)) {
-            peak /= 2;
+            peak = 3 * 8 * biggest / 2;              // three half-size vectors: two state vectors and the second-term vector
             updates /= 2;
         }
         int primes = WordPrimes.primesFor(lattice.sites() * Math.log(q) / Math.log(2));
