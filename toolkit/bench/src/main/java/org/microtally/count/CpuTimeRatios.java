@@ -74,11 +74,9 @@ public final class CpuTimeRatios {
                 }
             }
             double crt = cpuNanos(() -> {
-                Moduli.Crt c = new Moduli.Crt(primes);
-                long[] scratch = new long[primes.length];
                 double bits = 0;
-                for (int i = 0; i < res[0].length; i++) {
-                    bits += c.reconstruct(res, i, scratch).bitLength();
+                for (BigInteger v : new Moduli.Crt(primes).reconstructAll(res)) {
+                    bits += v.bitLength();
                 }
                 return bits;
             }, calls);

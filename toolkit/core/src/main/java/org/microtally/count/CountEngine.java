@@ -101,13 +101,7 @@ final class CountEngine {
         // primes are independent: one task each, run on the common fork-join pool
         java.util.stream.IntStream.range(0, primes.length).parallel().forEach(pi ->
                 res[pi] = residues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick));
-        Moduli.Crt crt = new Moduli.Crt(primes);
-        long[] scratch = new long[primes.length];
-        BigInteger[] out = new BigInteger[size];
-        for (int i = 0; i < size; i++) {
-            out[i] = crt.reconstruct(res, i, scratch);
-        }
-        return out;
+        return new Moduli.Crt(primes).reconstructAll(res);
     }
 
     /** True when every prime lies in (2^49, 2^50), the range of {@link FmaModulus}. */
