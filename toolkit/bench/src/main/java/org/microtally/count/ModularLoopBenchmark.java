@@ -110,14 +110,10 @@ public class ModularLoopBenchmark {
     @Benchmark
     @OperationsPerInvocation(ROW)
     public double[] fmaOffsetScalar() {
+        // the previous library loop: both rows of one array, at run-time offsets
         double[] t = dtable;
-        double p = P50;
-        double pinv = 1.0 / P50;
-        double cm = dc;
-        int d = dstAt;
-        int s = srcAt;
-        for (int e = 0; e < ROW; e++) {
-            t[d + e] = FmaModulus.mulAdd(t[d + e], cm, t[s + e], p, pinv);
+        for (int e = 0, d = dstAt, s = srcAt; e < ROW; e++) {
+            t[d + e] = FmaModulus.mulAdd(t[d + e], dc, t[s + e], P50, 1.0 / P50);
         }
         return t;
     }
