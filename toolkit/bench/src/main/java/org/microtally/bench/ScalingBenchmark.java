@@ -22,8 +22,10 @@ import org.openjdk.jmh.annotations.Warmup;
 
 /**
  * Time against work at four sizes each, for {@link ScalingChart}: the exact Bose count table of a
- * 3D oscillator (work N x E x levels), the canonical boson solver (work N x states) and the chemical
- * potential solve for distinct levels (work levels x temperatures).
+ * 3D oscillator (work N x E x levels), the canonical boson solver on equally spaced single states at a
+ * temperature where every state's series keeps all N + 1 terms (work N x states; the previous version
+ * used a 3D oscillator at kT = 10, where most series are cut short and N x states was not the work
+ * done) and the chemical potential solve for distinct levels (work levels x temperatures).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -39,7 +41,8 @@ public class ScalingBenchmark {
     static final int[] COUNT_N = {20, 40, 60, 80};
     static final int[] COUNT_E = {100, 200, 300, 400};
     static final int[] CANONICAL_N = {1000, 2000, 5000, 10000};
-    static final int[] CANONICAL_CUT = {40, 50, 65, 83};
+    static final int[] CANONICAL_LEVELS = {1000, 2000, 5000, 10000};
+    static final double CANONICAL_SPACING = 1e-3;
     static final int[] MU_LEVELS = {10_000, 30_000, 100_000, 300_000};
     static final int TEMPERATURES = 100;
 
@@ -50,8 +53,13 @@ public class ScalingBenchmark {
     @Setup(Level.Trial)
     public void setUp() {
         countSpectrum = Spectra.harmonicOscillator(3, COUNT_E[scale]);
-        canonicalSpectrum = Spectra.harmonicOscillator(3, CANONICAL_CUT[scale]);
+        canonicalSpectrum = Spectra.equallySpaced(CANONICAL_LEVELS[scale], CANONICAL_SPACING);
         muSolver = ChemicalPotential.solver(Spectra.equallySpaced(MU_LEVELS[scale], 1e-3), Statistics.FERMI);
+    }
+
+    /** kT a thousand times the top level energy: full-length series for every state. */
+    private double canonicalKT() {
+        return 1e3 * CANONICAL_LEVELS[scale] * CANONICAL_SPACING;
     }
 
     /** Work of each benchmark at a size index, in the units the chart states. */
@@ -61,7 +69,10 @@ public class ScalingBenchmark {
                 // N x E x levels (the E + 1 oscillator levels up to E)
                 return (double) COUNT_N[scale] * COUNT_E[scale] * (COUNT_E[scale] + 1);
             case "canonicalBosons":
-                return (double) CANONICAL_N[scale] * Spectra.harmonicOscillator(3, CANONICAL_CUT[scale]).stateCount();
+                // N x states: at kT = canonicalKT every Boltzmann factor is above e^-0.001, so no state's series is
+                // flushed below N terms and the solver really does N multiply-adds per state (at a low temperature the
+                // support of each series shrinks, and N x states overstates the work)
+                return (double) CANONICAL_N[scale] * CANONICAL_LEVELS[scale];
             case "muSolve":
                 return (double) MU_LEVELS[scale] * TEMPERATURES;
             default:
@@ -76,7 +87,7 @@ public class ScalingBenchmark {
 
     @Benchmark
     public double canonicalBosons() {
-        return Canonical.of(canonicalSpectrum, Statistics.BOSE, CANONICAL_N[scale], 10.0).lnZ();
+        return Canonical.of(canonicalSpectrum, Statistics.BOSE, CANONICAL_N[scale], canonicalKT()).lnZ();
     }
 
     @Benchmark

@@ -35,7 +35,9 @@ public final class ScalingChart {
     public static void main(String[] args) throws RunnerException, IOException {
         String out = args.length > 0 ? args[0] : "scaling.png";
         Collection<RunResult> results = new Runner(new OptionsBuilder()
-                .include(ScalingBenchmark.class.getSimpleName()).build()).run();
+                .include(ScalingBenchmark.class.getSimpleName())
+                .warmupTime(org.openjdk.jmh.runner.options.TimeValue.seconds(1))
+                .measurementTime(org.openjdk.jmh.runner.options.TimeValue.seconds(1)).build()).run();
         Map<String, TreeMap<Double, Double>> series = new TreeMap<>();
         for (RunResult r : results) {
             String name = r.getParams().getBenchmark();

@@ -20,7 +20,7 @@ final class CountStages {
     }
 
     static Prepared prepare(BigInteger[] exact, int k) {
-        long[] p = Moduli.primes(Math.max(1, k));
+        long[] p = Moduli.tablePrimes(Math.max(1, k));
         long[][] r = new long[p.length][exact.length];
         for (int i = 0; i < p.length; i++) {
             BigInteger bp = BigInteger.valueOf(p[i]);
@@ -32,12 +32,6 @@ final class CountStages {
     }
 
     static BigInteger[] reconstruct(Prepared in) {
-        Moduli.Crt crt = new Moduli.Crt(in.primes);
-        long[] scratch = new long[in.primes.length];
-        BigInteger[] out = new BigInteger[in.size];
-        for (int i = 0; i < in.size; i++) {
-            out[i] = crt.reconstruct(in.residues, i, scratch);
-        }
-        return out;
+        return new Moduli.Crt(in.primes).reconstructAll(in.residues);
     }
 }

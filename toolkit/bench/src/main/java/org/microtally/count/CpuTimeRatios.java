@@ -74,11 +74,9 @@ public final class CpuTimeRatios {
                 }
             }
             double crt = cpuNanos(() -> {
-                Moduli.Crt c = new Moduli.Crt(primes);
-                long[] scratch = new long[primes.length];
                 double bits = 0;
-                for (int i = 0; i < res[0].length; i++) {
-                    bits += c.reconstruct(res, i, scratch).bitLength();
+                for (BigInteger v : new Moduli.Crt(primes).reconstructAll(res)) {
+                    bits += v.bitLength();
                 }
                 return bits;
             }, calls);
@@ -102,6 +100,7 @@ public final class CpuTimeRatios {
         long c = Math.floorMod(rnd.nextLong(), p62);
         long cs = Moduli.shoup(c, p62);
         double dc = Math.floorMod(rnd.nextLong(), p50);
+        double[] scratch = new double[d.length];
         int calls = 20_000;
         double bare = cpuNanos(() -> {
             for (int i = 0; i < row; i++) {
@@ -117,7 +116,7 @@ public final class CpuTimeRatios {
             return t[row];
         }, calls) / row;
         double fma = cpuNanos(() -> {
-            FmaModulus.mulAddRow(d, row + 7, d, 0, row, dc, p50, 1.0 / p50);
+            FmaModulus.mulAddRow(d, row + 7, d, 0, row, dc, p50, 1.0 / p50, scratch);
             return d[row];
         }, calls) / row;
         System.out.printf("modular multiply-add, rows of %d: bare 62-bit add %.3f ns, Shoup 62-bit %.3f ns, "

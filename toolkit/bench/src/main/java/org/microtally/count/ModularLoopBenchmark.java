@@ -22,8 +22,12 @@ import org.openjdk.jmh.annotations.Warmup;
  *       modular loop pays (baseline);</li>
  *   <li>{@code shoupScalar}: the multiply-add as the library did it before, 62-bit primes with
  *       Shoup's precomputed quotient (kept here as the reference the new loop is measured against);</li>
- *   <li>{@code fmaRow}: the library's loop now, {@link FmaModulus#mulAddRow}, primes below 2^50 in
- *       doubles (meant for SIMD code; C2 on JDK 17 leaves it scalar, see FmaModulus).</li>
+ *   <li>{@code fmaOffsetScalar}: the previous library loop, 50-bit primes in doubles with source and
+ *       destination at different offsets of one array; C2 leaves it scalar (kept here as the
+ *       reference, the loop "today" in issue 13);</li>
+ *   <li>{@code fmaRow}: the library's loop now, {@link FmaModulus#mulAddRow}: the source copied to a
+ *       scratch row at the destination's column, then one-index loop that C2 vectorises (the copy is
+ *       included in the time).</li>
  * </ul>
  * Rows of {@value #ROW} entries, source and destination rows in one array as in the table.
  */
@@ -43,6 +47,10 @@ public class ModularLoopBenchmark {
 
     private long[] table;
     private double[] dtable;
+    private double[] scratch;
+    /** Row offsets as run-time values, as in the table (constants would let C2 prove more than it can there). */
+    private int dstAt = ROW + 7;
+    private int srcAt = 0;
     private double dc;
     private long c;
     private long cShoup;
@@ -67,6 +75,7 @@ public class ModularLoopBenchmark {
             dtable[i] = Math.floorMod(table[i], P50);
         }
         dc = Math.floorMod(c, P50);
+        scratch = new double[table.length];
     }
 
     @Benchmark
@@ -74,9 +83,10 @@ public class ModularLoopBenchmark {
     public long[] bareModularAdd() {
         long[] t = table;
         long p = P62;
-        int d = ROW + 7;
+        int d = dstAt;
+        int from = srcAt;
         for (int e = 0; e < ROW; e++) {
-            long s = t[d + e] + t[e];
+            long s = t[d + e] + t[from + e];
             t[d + e] = s >= p ? s - p : s;
         }
         return t;
@@ -89,9 +99,21 @@ public class ModularLoopBenchmark {
         long p = P62;
         long cm = c;
         long csh = cShoup;
-        int d = ROW + 7;
+        int d = dstAt;
+        int s = srcAt;
         for (int e = 0; e < ROW; e++) {
-            t[d + e] = Moduli.add(t[d + e], Moduli.mulShoup(cm, csh, t[e], p), p);
+            t[d + e] = Moduli.add(t[d + e], Moduli.mulShoup(cm, csh, t[s + e], p), p);
+        }
+        return t;
+    }
+
+    @Benchmark
+    @OperationsPerInvocation(ROW)
+    public double[] fmaOffsetScalar() {
+        // the previous library loop: both rows of one array, at run-time offsets
+        double[] t = dtable;
+        for (int e = 0, d = dstAt, s = srcAt; e < ROW; e++) {
+            t[d + e] = FmaModulus.mulAdd(t[d + e], dc, t[s + e], P50, 1.0 / P50);
         }
         return t;
     }
@@ -99,7 +121,7 @@ public class ModularLoopBenchmark {
     @Benchmark
     @OperationsPerInvocation(ROW)
     public double[] fmaRow() {
-        FmaModulus.mulAddRow(dtable, ROW + 7, dtable, 0, ROW, dc, P50, 1.0 / P50);
+        FmaModulus.mulAddRow(dtable, dstAt, dtable, srcAt, ROW, dc, P50, 1.0 / P50, scratch);
         return dtable;
     }
 }

@@ -101,13 +101,7 @@ final class CountEngine {
         // primes are independent: one task each, run on the common fork-join pool
         java.util.stream.IntStream.range(0, primes.length).parallel().forEach(pi ->
                 res[pi] = residues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick));
-        Moduli.Crt crt = new Moduli.Crt(primes);
-        long[] scratch = new long[primes.length];
-        BigInteger[] out = new BigInteger[size];
-        for (int i = 0; i < size; i++) {
-            out[i] = crt.reconstruct(res, i, scratch);
-        }
-        return out;
+        return new Moduli.Crt(primes).reconstructAll(res);
     }
 
     /** True when every prime lies in (2^49, 2^50), the range of {@link FmaModulus}. */
@@ -136,29 +130,32 @@ final class CountEngine {
     }
 
     /**
-     * Row multiply-add in one modular arithmetic on a table it owns: T[dst + i] += c T[src + i] mod p
-     * for i &lt; len, with c the multiplier at {@code index} of the last {@link #multipliers} call.
+     * Row multiply-add in one modular arithmetic on a table it owns, rows of w = E + 1 entries:
+     * T[dstRow][dstCol + i] += c T[srcRow][srcCol + i] mod p for i &lt; len (srcRow != dstRow), with c the
+     * multiplier at {@code index} of the last {@link #multipliers} call.
      */
     private interface RowKernel {
         void multipliers(BigInteger[] c);
 
-        void mulAdd(int dst, int src, int len, int index);
+        void mulAdd(int dstRow, int dstCol, int srcRow, int srcCol, int len, int index);
     }
 
-    /** Primes in (2^49, 2^50) held in doubles ({@link FmaModulus}). */
+    /** Primes in (2^49, 2^50) held in doubles ({@link FmaModulus}), one array per row plus a scratch row. */
     private static final class FmaKernel implements RowKernel {
-        final double[] t;
+        final double[][] t;
+        final double[] scratch;
         final double p;
         final double pinv;
         final BigInteger bp;
         double[] c = new double[0];
 
-        FmaKernel(int size, long p) {
-            this.t = new double[size];
+        FmaKernel(int rows, int w, long p) {
+            this.t = new double[rows][w];
+            this.scratch = new double[w];
             this.p = p;
             this.pinv = 1.0 / p;
             this.bp = BigInteger.valueOf(p);
-            t[0] = 1;
+            t[0][0] = 1;
         }
 
         @Override
@@ -170,14 +167,18 @@ final class CountEngine {
         }
 
         @Override
-        public void mulAdd(int dst, int src, int len, int index) {
-            FmaModulus.mulAddRow(t, dst, t, src, len, c[index], p, pinv);
+        public void mulAdd(int dstRow, int dstCol, int srcRow, int srcCol, int len, int index) {
+            FmaModulus.mulAddRow(t[dstRow], dstCol, t[srcRow], srcCol, len, c[index], p, pinv, scratch);
         }
 
         long[] residues() {
-            long[] out = new long[t.length];
-            for (int i = 0; i < t.length; i++) {
-                out[i] = (long) t[i];
+            int w = scratch.length;
+            long[] out = new long[t.length * w];
+            for (int n = 0; n < t.length; n++) {
+                double[] row = t[n];
+                for (int e = 0; e < w; e++) {
+                    out[n * w + e] = (long) row[e];
+                }
             }
             return out;
         }
@@ -186,13 +187,15 @@ final class CountEngine {
     /** Any prime below 2^62, in longs with Shoup's precomputed quotients ({@link Moduli#mulShoup}). */
     private static final class ShoupKernel implements RowKernel {
         final long[] t;
+        final int w;
         final long p;
         final BigInteger bp;
         long[] c = new long[0];
         long[] cs = new long[0];
 
-        ShoupKernel(int size, long p) {
-            this.t = new long[size];
+        ShoupKernel(int rows, int w, long p) {
+            this.t = new long[rows * w];
+            this.w = w;
             this.p = p;
             this.bp = BigInteger.valueOf(p);
             t[0] = 1;
@@ -209,18 +212,13 @@ final class CountEngine {
         }
 
         @Override
-        public void mulAdd(int dst, int src, int len, int index) {
+        public void mulAdd(int dstRow, int dstCol, int srcRow, int srcCol, int len, int index) {
             long cm = c[index];
             long csh = cs[index];
+            int dst = dstRow * w + dstCol;
+            int src = srcRow * w + srcCol;
             for (int i = 0; i < len; i++) {
-                long x = t[src + i];
-                long q = (Math.multiplyHigh(csh, x) << 1) | ((csh * x) >>> 63);
-                long r = cm * x - q * p;
-                if (r >= p) {
-                    r -= p;
-                }
-                long s = t[dst + i] + r;
-                t[dst + i] = s >= p ? s - p : s;
+                t[dst + i] = Moduli.add(t[dst + i], Moduli.mulShoup(cm, csh, t[src + i], p), p);
             }
         }
     }
@@ -228,13 +226,12 @@ final class CountEngine {
     /** The whole table modulo one prime p: the FMA kernel for primes in (2^49, 2^50), Shoup's otherwise. */
     private static long[] residues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
                                    BigInteger[][] coef, long p, Runnable tick) {
-        int size = (maxN + 1) * (maxE + 1);
         if (fitsFma(new long[] {p})) {
-            FmaKernel k = new FmaKernel(size, p);
+            FmaKernel k = new FmaKernel(maxN + 1, maxE + 1, p);
             sweep(k, energy, deg, stats, maxN, maxE, levels, coef, tick);
             return k.residues();
         }
-        ShoupKernel k = new ShoupKernel(size, p);
+        ShoupKernel k = new ShoupKernel(maxN + 1, maxE + 1, p);
         sweep(k, energy, deg, stats, maxN, maxE, levels, coef, tick);
         return k.t;
     }
@@ -247,7 +244,6 @@ final class CountEngine {
      */
     private static void sweep(RowKernel k, int[] energy, int[] deg, Statistics stats, int maxN, int maxE, int levels,
                               BigInteger[][] coef, Runnable tick) {
-        int w = maxE + 1;
         if (!stats.indistinguishable()) {
             BigInteger[] g = new BigInteger[levels];
             for (int l = 0; l < levels; l++) {
@@ -256,7 +252,7 @@ final class CountEngine {
             k.multipliers(g);
             for (int n = 1; n <= maxN; n++) {
                 for (int l = 0; l < levels; l++) {
-                    k.mulAdd(n * w + energy[l], (n - 1) * w, maxE - energy[l] + 1, l);
+                    k.mulAdd(n, energy[l], n - 1, 0, maxE - energy[l] + 1, l);
                 }
                 tick.run();
             }
@@ -279,7 +275,7 @@ final class CountEngine {
                     int from = lo[m];
                     int to = (int) Math.min(maxE - off, sourceTop(m, prevTop));
                     if (to >= from) {
-                        k.mulAdd(n * w + off + from, m * w + from, to - from + 1, j);
+                        k.mulAdd(n, off + from, m, from, to - from + 1, j);
                     }
                 }
             }

@@ -126,101 +126,105 @@ final class Moduli {
 
     /**
      * Garner reconstruction: the unique v in [0, p_0 ... p_{k-1}) with v = r_i mod p_i, from residues
-     * laid out as {@code residues[i][index]}.
+     * laid out as {@code residues[i][index]}. Holds its own scratch buffers: one instance per thread.
      */
     static final class Crt {
         private final long[] p;
         private final long[][] inv;       // inv[i][j] = p_j^-1 mod p_i, j < i
         private final long[][] invShoup;
-        private final BigInteger[] bigP;
-        private static final long LIMB = 0xFFFFFFFFL;
+        private final long[] digit;       // mixed-radix digits of the entry being rebuilt
+        private final long[] mag;         // its magnitude in 64-bit limbs, least significant first
+        private final byte[] bytes;       // and big-endian, for the BigInteger constructor
 
         Crt(long[] primes) {
             this.p = primes.clone();
             int k = p.length;
             inv = new long[k][];
             invShoup = new long[k][];
-            bigP = new BigInteger[k];
             for (int i = 0; i < k; i++) {
-                bigP[i] = BigInteger.valueOf(p[i]);
+                BigInteger bi = BigInteger.valueOf(p[i]);
                 inv[i] = new long[i];
                 invShoup[i] = new long[i];
                 for (int j = 0; j < i; j++) {
-                    inv[i][j] = BigInteger.valueOf(p[j]).modInverse(bigP[i]).longValueExact();
+                    inv[i][j] = BigInteger.valueOf(p[j]).modInverse(bi).longValueExact();
                     invShoup[i][j] = shoup(inv[i][j], p[i]);
                 }
             }
+            digit = new long[k];
+            mag = new long[k + 1];
+            bytes = new byte[8 * (k + 1)];
         }
 
-        BigInteger reconstruct(long[][] residues, int index, long[] scratch) {
-            int k = p.length;
-            if (k == 1) {
-                return BigInteger.valueOf(residues[0][index]);
+        /** Every entry: {@code out[index] = reconstruct(residues, index)} for index &lt; residues[0].length. */
+        BigInteger[] reconstructAll(long[][] residues) {
+            BigInteger[] out = new BigInteger[residues[0].length];
+            for (int j = 0; j < out.length; j++) {
+                out[j] = reconstruct(residues, j);
             }
-            boolean allZero = true;
+            return out;
+        }
+
+        BigInteger reconstruct(long[][] residues, int index) {
+            int k = p.length;
+            long[] a = digit;
+            int top = -1;
             for (int i = 0; i < k; i++) {
                 long t = residues[i][index];
+                long pi = p[i];
                 for (int j = 0; j < i; j++) {
-                    long aj = scratch[j] >= p[i] ? scratch[j] - p[i] : scratch[j];
+                    long aj = a[j] >= pi ? a[j] - pi : a[j];
                     long diff = t - aj;
                     if (diff < 0) {
-                        diff += p[i];
+                        diff += pi;
                     }
-                    t = mulShoup(inv[i][j], invShoup[i][j], diff, p[i]);
+                    t = mulShoup(inv[i][j], invShoup[i][j], diff, pi);
                 }
-                scratch[i] = t;
-                allZero &= t == 0;
+                a[i] = t;
+                if (t != 0) {
+                    top = i;
+                }
             }
-            if (allZero) {
-                return BigInteger.ZERO;
+            if (top <= 0) {
+                return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(a[0]);
             }
-            int top = k - 1;
-            while (top > 0 && scratch[top] == 0) {
-                top--;
-            }
-            if (top == 0) {
-                return BigInteger.valueOf(scratch[0]);
-            }
-            return horner(scratch, top);
+            return horner(a, top);
         }
 
         /**
-         * v = a_top, then v = v p_i + a_i for i = top-1 .. 0, in 32-bit limbs held in longs (one
-         * 64 x 64 -&gt; 128-bit product per limb via Math.multiplyHigh), turned into a BigInteger once.
+         * v = a_top, then v = v p_i + a_i for i = top-1 .. 0, in unsigned 64-bit limbs (limb x p_i &lt;
+         * 2^126 by Math.multiplyHigh, corrected for the unsigned limb), turned into a BigInteger once.
          */
         private BigInteger horner(long[] a, int top) {
-            long[] mag = new long[2 * (top + 1) + 2];
-            mag[0] = a[top] & LIMB;
-            mag[1] = a[top] >>> 32;
-            int len = mag[1] == 0 ? 1 : 2;
+            long[] m = mag;
+            m[0] = a[top];
+            int len = 1;
             for (int i = top - 1; i >= 0; i--) {
-                long q = p[i];
-                long carry = a[i]; // < 2^62
+                long q = p[i]; // 0 < q < 2^62
+                long carry = a[i];
                 for (int l = 0; l < len; l++) {
-                    long lo = mag[l] * q;
-                    long hi = Math.multiplyHigh(mag[l], q); // limb < 2^32, q < 2^62: product < 2^94
+                    long x = m[l];
+                    long lo = x * q;
+                    long hi = Math.multiplyHigh(x, q) + ((x >> 63) & q); // unsigned high word, < 2^62
                     long sum = lo + carry;
                     if (Long.compareUnsigned(sum, lo) < 0) {
                         hi++;
                     }
-                    mag[l] = sum & LIMB;
-                    carry = (hi << 32) | (sum >>> 32); // < 2^62
+                    m[l] = sum;
+                    carry = hi;
                 }
-                while (carry != 0) {
-                    mag[len++] = carry & LIMB;
-                    carry >>>= 32;
+                if (carry != 0) {
+                    m[len++] = carry;
                 }
             }
-            byte[] bytes = new byte[4 * len];
+            byte[] b = bytes;
             for (int l = 0; l < len; l++) {
-                long limb = mag[l];
-                int at = 4 * (len - 1 - l);
-                bytes[at] = (byte) (limb >>> 24);
-                bytes[at + 1] = (byte) (limb >>> 16);
-                bytes[at + 2] = (byte) (limb >>> 8);
-                bytes[at + 3] = (byte) limb;
+                long limb = m[l];
+                int at = 8 * (len - 1 - l);
+                for (int s = 0; s < 8; s++) {
+                    b[at + s] = (byte) (limb >>> (56 - 8 * s));
+                }
             }
-            return new BigInteger(1, bytes);
+            return new BigInteger(1, b, 0, 8 * len);
         }
     }
 }

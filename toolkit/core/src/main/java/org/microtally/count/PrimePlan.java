@@ -175,14 +175,13 @@ public final class PrimePlan implements Serializable {
         }
         long[][] req = java.util.Arrays.copyOf(residues, required);
         Moduli.Crt crt = new Moduli.Crt(java.util.Arrays.copyOf(primes, required));
-        long[] scratch = new long[required];
         BigInteger[] out = new BigInteger[size];
         BigInteger[] redundant = new BigInteger[primes.length - required];
         for (int r = 0; r < redundant.length; r++) {
             redundant[r] = BigInteger.valueOf(primes[required + r]);
         }
         for (int j = 0; j < size; j++) {
-            BigInteger v = crt.reconstruct(req, j, scratch);
+            BigInteger v = crt.reconstruct(req, j);
             for (int r = 0; r < redundant.length; r++) {
                 long expected = residues[required + r][j];
                 if (v.mod(redundant[r]).longValue() != expected) {

@@ -51,12 +51,6 @@ public final class WordPrimes {
 
     /** The unique v in [0, prod p_i) with v = residues[i][index] mod primes[i], for every index. */
     public static BigInteger[] recombine(long[] primes, long[][] residues) {
-        Moduli.Crt crt = new Moduli.Crt(primes);
-        long[] scratch = new long[primes.length];
-        BigInteger[] out = new BigInteger[residues[0].length];
-        for (int j = 0; j < out.length; j++) {
-            out[j] = crt.reconstruct(residues, j, scratch);
-        }
-        return out;
+        return new Moduli.Crt(primes).reconstructAll(residues);
     }
 }

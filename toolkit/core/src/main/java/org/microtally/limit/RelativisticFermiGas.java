@@ -5,6 +5,7 @@ import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.special.FermiDiracValues;
 import org.microtally.special.RelativisticFermiDirac;
+import org.apache.commons.math3.util.FastMath;
 import org.microtally.units.Codata2018;
 
 /**
@@ -28,7 +29,9 @@ import org.microtally.units.Codata2018;
  * integrals), evaluated directly rather than from a table.
  *
  * <p><b>Method and accuracy.</b> eta solves the charge (or number) equation by Newton's method on
- * ln(n_- - n_+) from a Sommerfeld (degenerate) or Maxwell-Boltzmann (non-degenerate) start, with a
+ * asinh((n_- - n_+)/s) with s = 2 sqrt(n_- n_+) at the starting point (so that the function is linear in eta
+ * where both species are non-degenerate, n_- - n_+ = s sinh(eta + 1/beta), and ln(n_- - n_+) + const where
+ * the positrons are negligible), or on ln n without antiparticles, from a Sommerfeld (degenerate) or Maxwell-Boltzmann (non-degenerate) start, with a
  * bisection safeguard on a proven bracket; a Newton step below 1e-8 max(1, |eta|) is accepted as the
  * last (its own error is of second order, below 1e-16 relative); every
  * integral carries {@link RelativisticFermiDirac#RELATIVE_ACCURACY}, so n, P, U and S are good to
@@ -140,7 +143,10 @@ public final class RelativisticFermiGas implements Tabular {
         return kelvin;
     }
 
-    /** Newton on ln(n_- - n_+) - ln(n_net), safeguarded by bisection on a bracket. */
+    /**
+     * Newton on asinh((n_- - n_+)/s) - asinh(n_net/s), s the pair scale (ln(n_- - n_+) - ln(n_net) without pairs),
+     * safeguarded by bisection on a bracket.
+     */
     private double solveEta(double kn) {
         double b15 = Math.pow(beta, 1.5);
         double xF = fermiX;
@@ -163,7 +169,8 @@ public final class RelativisticFermiGas implements Tabular {
             e = u < 0.999 || u > 1.001 ? Math.log(u) / (1 - u * u) + nu - nu / (bridge * bridge) : -0.5 + nu - nu / (bridge * bridge); // ln u/(1 - u^2) -> -1/2 at u = 1
         }
         e = Math.max(e, lo + 1e-3 * Math.max(1, Math.abs(lo)));
-        double lnTarget = Math.log(netDensity);
+        double target = netDensity / (kn * b15); // F_1/2 + beta F_3/2 of the net particles
+        double scale = 0.0; // 2 sqrt(n_- n_+) (reduced) at the first point with pairs: the pair scale of the asinh map
         for (int iteration = 0; iteration < 200; iteration++) {
             FermiDiracValues m = RelativisticFermiDirac.evaluate(e, beta, false);
             double n = m.integral(0.5) + beta * m.integral(1.5);
@@ -171,10 +178,25 @@ public final class RelativisticFermiGas implements Tabular {
             double ep = -e - 2.0 / beta;
             if (pairs && ep >= Math.min(e, 0.0) - NEGLIGIBLE_EXPONENT && ep >= RelativisticFermiDirac.MIN_ETA) {
                 FermiDiracValues p = RelativisticFermiDirac.evaluate(ep, beta, false);
-                n -= p.integral(0.5) + beta * p.integral(1.5);
+                double np = p.integral(0.5) + beta * p.integral(1.5);
+                if (scale == 0.0) {
+                    scale = 2.0 * Math.sqrt(n * np);
+                }
+                n -= np;
                 dn += p.etaDerivative(0.5) + beta * p.etaDerivative(1.5);
             }
-            double g = n > 0 ? Math.log(kn * b15 * n) - lnTarget : Double.NEGATIVE_INFINITY;
+            // g = asinh(N / scale) - asinh(N_target / scale): linear in eta for non-degenerate pairs (N = scale sinh(eta +
+            // 1/beta)), ln N + const for degenerate particles, defined for N <= 0; plain ln N - ln N_target without pairs
+            double g;
+            double slope;
+            if (scale > 0.0) {
+                double z = n / scale;
+                g = FastMath.asinh(z) - FastMath.asinh(target / scale);
+                slope = dn / scale / Math.sqrt(1.0 + z * z);
+            } else {
+                g = n > 0 ? Math.log(n / target) : Double.NEGATIVE_INFINITY;
+                slope = dn / n;
+            }
             if (g == 0.0) {
                 return e;
             }
@@ -183,15 +205,16 @@ public final class RelativisticFermiGas implements Tabular {
             } else {
                 hi = e;
             }
-            double next = n > 0 ? e - g * n / dn : Double.NaN;
+            double next = Double.isInfinite(g) ? Double.NaN : e - g / slope;
+            // quadratic convergence: after a Newton step of size d the error is ~ d^2 g''/g' (g'' / g' <~ 1/max(1, |eta|)),
+            // so a step below 1e-8 max(1, |eta|) leaves an error below ~1e-16 relative. Checked before the bracket test:
+            // at the root a step of rounding size may land on the bracket end itself
+            if (Math.abs(next - e) <= 1e-8 * Math.max(1.0, Math.abs(e))) {
+                return next;
+            }
             double upper = Double.isNaN(hi) ? Double.POSITIVE_INFINITY : hi;
             if (!(next > lo && next < upper)) {
                 next = Double.isNaN(hi) ? Math.max(2 * Math.abs(e), e + 10) : 0.5 * (lo + hi);
-            }
-            // quadratic convergence: after a step of size d the error is ~ d^2 g''/g' (g'' / g' <~ 1/max(1, |eta|)),
-            // so a step below 1e-8 max(1, |eta|) leaves an error below ~1e-16 relative
-            if (Math.abs(next - e) <= 1e-8 * Math.max(1.0, Math.abs(e)) && next > lo && next < upper) {
-                return next;
             }
             e = next;
         }

@@ -64,12 +64,21 @@ class FmaModulusTest {
             a[i] = Math.floorMod(rnd.nextLong(), p);
         }
         double c = Math.floorMod(rnd.nextLong(), p);
+        // source and destination in one array at different offsets, as rows of a table; scratch is clobbered
         double[] b = a.clone();
-        FmaModulus.mulAddRow(b, 1700, b, 3, 1111, c, p, 1.0 / p);
+        double[] scratch = new double[a.length];
+        FmaModulus.mulAddRow(b, 1700, b, 3, 1111, c, p, 1.0 / p, scratch);
+        // destination before source, source in a separate array
+        double[] d = a.clone();
+        double[] src = a.clone();
+        FmaModulus.mulAddRow(d, 5, src, 900, 2001, c, p, 1.0 / p, scratch);
         for (int i = 0; i < a.length; i++) {
             long want = (i >= 1700 && i < 2811) ? reference((long) a[i], (long) c, (long) a[i - 1697], p) : (long) a[i];
             // Source: independent arithmetic (BigInteger, element by element)
             assertEquals(want, (long) b[i], "index " + i);
+            long want2 = (i >= 5 && i < 2006) ? reference((long) a[i], (long) c, (long) a[i + 895], p) : (long) a[i];
+            // Source: independent arithmetic (BigInteger, element by element)
+            assertEquals(want2, (long) d[i], "second row, index " + i);
         }
     }
 

@@ -38,13 +38,12 @@ class ModuliTest {
                         res[i][col] = col == 0 ? 0 : col == 1 ? p[i] - 1 : col == 2 ? 1 : Math.floorMod(rnd.nextLong(), p[i]);
                     }
                 }
-                long[] scratch = new long[k];
                 for (int col = 0; col < 60; col++) {
                     long[] r = new long[k];
                     for (int i = 0; i < k; i++) {
                         r[i] = res[i][col];
                     }
-                    BigInteger v = crt.reconstruct(res, col, scratch);
+                    BigInteger v = crt.reconstruct(res, col);
                     // Source: Knuth, TAOCP Vol. 2, Sec. 4.3.2 (the CRT in its summation form, independent of Garner's)
                     assertEquals(textbook(p, r), v, "k=" + k + " column " + col);
                 }

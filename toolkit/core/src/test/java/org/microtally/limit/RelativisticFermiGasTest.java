@@ -105,6 +105,29 @@ class RelativisticFermiGasTest {
     }
 
     @Test
+    void chargeNeutralityHoldsToTheStatedAccuracyAcrossDegeneracyAndPairs() {
+        // Source: charge neutrality n_- - n_+ = rho / (mu_e m_u), the defining equation of eta, on a grid from the
+        // classical gas through partial degeneracy to pair plasmas (common practice, no source for the grid)
+        for (double logRho = -3; logRho <= 12; logRho += 1.5) {
+            for (double logT = 4; logT <= 11; logT += 0.5) {
+                double rho = Math.pow(10, logRho);
+                RelativisticFermiGas g;
+                try {
+                    g = RelativisticFermiGas.electrons(rho, 2.0, Math.pow(10, logT));
+                } catch (InvalidInputException tooCold) {
+                    continue; // outside the finite-temperature route (eta > 1e11): refused, as documented
+                }
+                double net = rho / (2 * MU);
+                // where pairs outnumber the net electrons, the difference n_- - n_+ carries the integrals' 1e-12 relative
+                // error times n_+/n_net (stated in notes())
+                double tolerance = 2e-12 * Math.max(1.0, g.antiparticleDensity() / net);
+                assertEquals(net, g.particleDensity() - g.antiparticleDensity(), tolerance * net,
+                        "rho = 1e" + logRho + " kg/m^3, T = 1e" + logT + " K");
+            }
+        }
+    }
+
+    @Test
     void badInputIsRefusedWithTheValue() {
         // common practice, no source
         InvalidInputException rho = assertThrows(InvalidInputException.class, () -> RelativisticFermiGas.electrons(-1e6, 2, 1e7));
