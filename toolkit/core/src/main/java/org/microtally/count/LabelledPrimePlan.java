@@ -156,12 +156,12 @@ public final class LabelledPrimePlan implements Serializable {
         return required;
     }
 
-    /** Number of extra primes used only to verify the reconstruction. */
-    public int redundantPrimes() {
-        return primes.length - required;
+    /** The proven bound, in bits, on every entry. */
+    public double log2Bound() {
+        return log2Bound;
     }
 
-    /** requiredPrimes() + redundantPrimes(): the number of independent tasks. */
+    /** The number of independent tasks: the required primes, then the redundant ones (given to the factory). */
     public int primeCount() {
         return primes.length;
     }
@@ -170,11 +170,6 @@ public final class LabelledPrimePlan implements Serializable {
     public long prime(int i) {
         checkPrimeIndex(i);
         return primes[i];
-    }
-
-    /** The proven bound, in bits, on every entry. */
-    public double log2Bound() {
-        return log2Bound;
     }
 
     /** Length of every residue array: (N + 1)(E + 1)(label width) for a table, (E + 1)(label width) for a mix. */
@@ -265,31 +260,27 @@ public final class LabelledPrimePlan implements Serializable {
     }
 
     /**
-     * The exact entries from every prime's residues ({@code residues[i]} for prime i), each checked
-     * against every redundant prime.
+     * Chinese remaindering of {@code residues} (array i modulo prime i, as {@link #residues(int)} gives
+     * it) into exact entries, each verified modulo the redundant primes.
      *
-     * @throws InvalidInputException for the wrong number or length of arrays, or a value outside [0, p)
-     * @throws IllegalStateException if a redundant prime disagrees with the reconstruction (a corrupted
-     *         residue); the message names the entry and the prime
+     * @throws InvalidInputException unless there is one array per prime, each of {@link #entries()}
+     *         values in [0, p)
+     * @throws IllegalStateException when an entry disagrees with a redundant prime (some residue was
+     *         corrupted); the message names the entry and the prime
      */
     public BigInteger[] recombine(long[][] residues) {
-        Objects.requireNonNull(residues, "residues");
-        if (residues.length != primes.length) {
-            throw InvalidInputException.of("number of residue arrays", residues.length, "exactly " + primes.length,
-                    "Pass one array per prime of the plan, in prime order.");
+        if (Objects.requireNonNull(residues, "residues").length != primes.length) {
+            throw InvalidInputException.of("residue arrays given", residues.length, primes.length + ", one per prime",
+                    "Collect every task's result, in prime order.");
         }
         int size = entries();
         for (int i = 0; i < residues.length; i++) {
             long[] r = Objects.requireNonNull(residues[i], "residues[" + i + "]");
-            if (r.length != size) {
-                throw InvalidInputException.of("length of residues[" + i + "]", r.length, "exactly " + size,
-                        "Each array holds every entry modulo one prime.");
-            }
-            for (long v : r) {
-                if (v < 0 || v >= primes[i]) {
-                    throw InvalidInputException.of("a residue modulo prime " + i, v, "in [0, " + primes[i] + ")",
-                            "The array is not a table of residues modulo this prime.");
-                }
+            long p = primes[i];
+            if (r.length != size || Arrays.stream(r).anyMatch(v -> v < 0 || v >= p)) {
+                throw InvalidInputException.of("residues[" + i + "]", r.length + " values",
+                        "exactly " + size + " values, each in [0, " + p + ")",
+                        "Each array holds every entry modulo its own prime, arrays in prime order.");
             }
         }
         BigInteger[] out = WordPrimes.recombine(Arrays.copyOf(primes, required), Arrays.copyOf(residues, required));
@@ -350,6 +341,6 @@ public final class LabelledPrimePlan implements Serializable {
     @Override
     public String toString() {
         return "LabelledPrimePlan[" + (isMix ? parts.length + " species" : "table") + ", " + required + " required + "
-                + redundantPrimes() + " redundant primes]";
+                + (primes.length - required) + " redundant primes]";
     }
 }

@@ -26,14 +26,22 @@ class DistributedLatticeTest {
         spark = SharedSpark.get();
     }
 
+    /** The distributed transfer matrix against {@code local}, and the distributed enumeration against both. */
+    private static ExactDensityOfStates assertBothWays(Lattice lattice, Model model, boolean label,
+                                                       ExactDensityOfStates local) {
+        ExactDensityOfStates d = DistributedLattice.densityOfStates(spark, lattice, model, label, ProgressListener.NONE);
+        // Source: independent computation, lattice's local result (every row compared)
+        assertEquals(local.rows(), d.rows(), lattice + " " + model);
+        // Source: independent computation, the prefix-split Gray-code enumeration of every configuration
+        assertEquals(d.rows(), DistributedLattice.enumerate(spark, lattice, model, label, ProgressListener.NONE).rows());
+        return d;
+    }
+
     @Test
     void periodic4x4IsingMatchesThePublishedCountsTheLocalSweepAndTheEnumeration() {
         Lattice torus = Lattice.square(4, 4, Boundary.PERIODIC);
-        ExactDensityOfStates d = DistributedLattice.densityOfStates(spark, torus, ISING, false, ProgressListener.NONE);
-        // Source: independent computation, lattice's local transfer matrix (every row compared)
-        assertEquals(TransferMatrix.densityOfStates(torus, ISING, ProgressListener.NONE).rows(), d.rows());
-        // Source: independent computation, the prefix-split Gray-code enumeration of all 2^16 configurations
-        assertEquals(d.rows(), DistributedLattice.enumerate(spark, torus, ISING, false, ProgressListener.NONE).rows());
+        ExactDensityOfStates d = assertBothWays(torus, ISING, false,
+                TransferMatrix.densityOfStates(torus, ISING, ProgressListener.NONE));
         // Source: from memory (the 4 x 4 periodic Ising g(E), e.g. P. D. Beale, PRL 76 (1996) 78), checked here by
         // its sum 2^16 and by the two computations above; E = -28 has no configuration (g symmetric in E)
         long[] e = {-32, -28, -24, -20, -16, -12, -8, -4, 0};
@@ -47,29 +55,23 @@ class DistributedLatticeTest {
     @Test
     void free5x5WithMagnetisationPottsAndHardCoreMatchTheLocalResults() {
         Lattice free = Lattice.square(5, 5, Boundary.FREE);
-        ExactDensityOfStates em = DistributedLattice.densityOfStates(spark, free, ISING, true, ProgressListener.NONE);
-        // Source: independent computation, lattice's local transfer matrix with the magnetisation label
-        assertEquals(TransferMatrix.withMagnetisation(free, ISING, ProgressListener.NONE).rows(), em.rows());
-        // Source: independent computation, the Gray-code enumeration of all 2^25 configurations split by prefix
-        assertEquals(em.rows(), DistributedLattice.enumerate(spark, free, ISING, true, ProgressListener.NONE).rows());
-        // Source: closed form, sum over E of g(E, M = N) = 1 (all spins up) and sum g = 2^25
+        ExactDensityOfStates em = assertBothWays(free, ISING, true,
+                TransferMatrix.withMagnetisation(free, ISING, ProgressListener.NONE));
+        // Source: closed form: one configuration has M = N (all 25 spins up, all 40 bonds satisfied, E = -40),
+        // and there are 2^25 in all
+        assertEquals(BigInteger.ONE, em.count(-40, 25));
         assertEquals(BigInteger.ONE.shiftLeft(25), em.total());
 
         Lattice small = Lattice.square(3, 3, Boundary.PERIODIC);
         Model potts = Model.potts(3, Model.Coupling.FERROMAGNETIC);
-        ExactDensityOfStates dp = DistributedLattice.densityOfStates(spark, small, potts, false, ProgressListener.NONE);
         // Source: independent brute force over all 3^9 configurations (lattice's BruteForce)
-        assertEquals(BruteForce.densityOfStates(small, potts).rows(), dp.rows());
-        assertEquals(dp.rows(), DistributedLattice.enumerate(spark, small, potts, false, ProgressListener.NONE).rows());
+        assertBothWays(small, potts, false, BruteForce.densityOfStates(small, potts));
 
         Lattice gas = Lattice.square(4, 4, Boundary.FREE);
-        ExactDensityOfStates hc = DistributedLattice.densityOfStates(spark, gas, Model.hardCore(), false,
-                ProgressListener.NONE);
-        // Source: OEIS A006506 (independent vertex sets of the n x n grid graph), a(4) = 1234
+        // Source: lattice's BruteForce, and OEIS A006506 (independent vertex sets of the n x n grid graph), a(4) = 1234
+        ExactDensityOfStates hc = assertBothWays(gas, Model.hardCore(), false,
+                BruteForce.densityOfStates(gas, Model.hardCore()));
         assertEquals(BigInteger.valueOf(1234), hc.total());
-        assertEquals(BruteForce.densityOfStates(gas, Model.hardCore()).rows(), hc.rows());
-        assertEquals(hc.rows(), DistributedLattice.enumerate(spark, gas, Model.hardCore(), false,
-                ProgressListener.NONE).rows());
     }
 
     @Test
