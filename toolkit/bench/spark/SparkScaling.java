@@ -13,6 +13,15 @@ import org.microtally.spark.Ensemble;
 import org.microtally.spark.SpectrumSpec;
 import org.microtally.spark.Sweep;
 import org.microtally.spark.SweepGrid;
+import org.microtally.spark.DistributedLabelledCounts;
+import org.microtally.spark.DistributedLattice;
+import org.microtally.count.LabelledCountTable;
+import org.microtally.count.LabelledPrimePlan;
+import org.microtally.lattice.Boundary;
+import org.microtally.lattice.Lattice;
+import org.microtally.lattice.LatticeTasks;
+import org.microtally.lattice.Model;
+import org.microtally.lattice.TransferMatrix;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -21,7 +30,10 @@ import org.microtally.spectrum.Statistics;
  * Measured script (run by spark-scaling.sh, not part of any test run): the distributed count table
  * against the local multi-modular path in the same JVM, local[1] against local[2], the 2,000-point trap
  * sweep of notebook 08 on local[1] and local[2], and the per-task and driver (CRT) costs that a
- * projection to a cluster needs. Every time is the median of REPEATS runs after one warm-up run.
+ * projection to a cluster needs; the same for a labelled table (LabelledPrimePlan) and a lattice
+ * g(E, M) (LatticeTasks), and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
+ * g(E, M) and a 10^6-point sweep from the measured per-task times. Every time is the median of
+ * REPEATS runs after one warm-up run. Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
  */
 public class SparkScaling {
     static double median(List<Double> xs) {
@@ -49,6 +61,7 @@ public class SparkScaling {
         int n = Integer.parseInt(args[0]);
         int e = Integer.parseInt(args[1]);
         int repeats = Integer.parseInt(args[2]);
+        int side = args.length > 3 ? Integer.parseInt(args[3]) : 8;
         Spectrum s = Spectra.harmonicOscillator(3, e);
         Statistics st = Statistics.BOSE;
         System.out.printf(Locale.ROOT, "3D oscillator, Bose, N = %d, E = %d, %d repeats (median), %d cores%n",
@@ -70,24 +83,79 @@ public class SparkScaling {
                 + "driver CRT + check of %d entries %.3f s%n", plan.requiredPrimes(), plan.redundantPrimes(),
                 median(perPrime), perPrime.size(), plan.entries(), median(crt));
 
+        // labelled table: the spin-resolved dot orbitals (2D oscillator by angular momentum), fermions
+        Spectrum dot = Spectra.oscillator2dByAngularMomentum(30);
+        LabelledPrimePlan lplan = LabelledPrimePlan.forTable(dot, Statistics.FERMI, 24, 30, 1);
+        long[][] lres = new long[lplan.primeCount()][];
+        List<Double> lPrime = new ArrayList<>();
+        for (int i = 0; i < lplan.primeCount(); i++) {
+            int k = i;
+            lPrime.add(seconds(() -> lres[k] = lplan.residues(k)));
+        }
+        List<Double> lCrt = new ArrayList<>();
+        List<Double> lBig = new ArrayList<>();
+        for (int r = 0; r < repeats; r++) {
+            lCrt.add(seconds(() -> lplan.table(lres)));
+            lBig.add(seconds(() -> LabelledCountTable.of(dot, Statistics.FERMI, 24, 30)));
+        }
+        System.out.printf(Locale.ROOT, "labelled table (2D dot by m, Fermi, N = 24, E = 30): %d primes; one prime %.3f s; "
+                + "driver CRT + check %.3f s; local BigInteger path %.3f s%n", lplan.primeCount(), median(lPrime),
+                median(lCrt), median(lBig));
+
+        // lattice: one prime's transfer-matrix sweep of an L x L free Ising g(E, M), to get the update rate
+        Model ising = Model.ising(Model.Coupling.FERROMAGNETIC);
+        Lattice sq = Lattice.square(side, side, Boundary.FREE);
+        LatticeTasks lt = LatticeTasks.of(sq, ising, true);
+        long[][] latRes = new long[lt.primeCount()][];
+        List<Double> latPrime = new ArrayList<>();
+        for (int i = 0; i < lt.primeCount(); i++) {
+            int k = i;
+            latPrime.add(seconds(() -> latRes[k] = lt.residues(k)));
+        }
+        List<Double> latCrt = new ArrayList<>();
+        for (int r = 0; r < repeats; r++) {
+            latCrt.add(seconds(() -> lt.fromResidues(latRes)));
+        }
+        TransferMatrix.Cost small = TransferMatrix.estimate(sq, ising, true);
+        double rate = small.updates() / median(latPrime);
+        System.out.printf(Locale.ROOT, "lattice %dx%d free Ising g(E, M): %d primes; one prime %.3f s (%.3g updates, %.3g "
+                + "updates/s); driver CRT + checks of %d entries %.4f s%n", side, side, lt.primeCount(), median(latPrime),
+                small.updates(), rate, latRes[0].length, median(latCrt));
+
         List<Double> local = new ArrayList<>();
         double[] dist = new double[3];
         double[] sweep = new double[3];
+        double[] labelled = new double[3];
+        double[] lattice = new double[3];
+        double[] enumerated = new double[3];
         for (int threads : new int[] {2, 1}) {
             SparkSession spark = Clusters.local(threads);
             DistributedCountTable.of(spark, s, st, n, e);         // warm-up
             Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
+            DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
+            DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
             List<Double> d = new ArrayList<>();
             List<Double> w = new ArrayList<>();
+            List<Double> lab = new ArrayList<>();
+            List<Double> lat = new ArrayList<>();
+            List<Double> en = new ArrayList<>();
+            Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
             for (int r = 0; r < repeats; r++) {
                 if (threads == 2) {
                     local.add(seconds(() -> CountTable.of(s, st, n, e)));
                 }
                 d.add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
                 w.add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
+                lab.add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
+                        ProgressListener.NONE)));
+                lat.add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE)));
+                en.add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE)));
             }
             dist[threads] = median(d);
             sweep[threads] = median(w);
+            labelled[threads] = median(lab);
+            lattice[threads] = median(lat);
+            enumerated[threads] = median(en);
             spark.stop();
         }
         double loc = median(local);
@@ -96,6 +164,30 @@ public class SparkScaling {
                 + "speed-up local[1]/local[2] %.2f%n", dist[2], dist[2] / loc, dist[1], dist[1] / dist[2]);
         System.out.printf(Locale.ROOT, "2,000-point trap sweep local[2]: %.3f s (%.2f ms per point per core); local[1]: "
                 + "%.3f s; speed-up %.2f%n", sweep[2], 2 * sweep[2] / 2000 * 1e3, sweep[1], sweep[1] / sweep[2]);
+        System.out.printf(Locale.ROOT, "distributed labelled table local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
+                labelled[2], labelled[1], labelled[1] / labelled[2]);
+        System.out.printf(Locale.ROOT, "distributed lattice %dx%d g(E, M) local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
+                side, side, lattice[2], lattice[1], lattice[1] / lattice[2]);
+        System.out.printf(Locale.ROOT, "prefix enumeration 5x5 free Ising g(E, M) (2^25 configurations) local[2]: %.3f s, "
+                + "local[1]: %.3f s, speed-up %.2f%n", enumerated[2], enumerated[1], enumerated[1] / enumerated[2]);
+
+        // on paper: 64 executors, each one core, from the measured rates above
+        Lattice big = Lattice.square(16, 16, Boundary.FREE);
+        TransferMatrix.Cost bigCost = TransferMatrix.estimate(big, ising, true);
+        int bigTasks = bigCost.primes() + LatticeTasks.REDUNDANT_PRIMES;
+        double bigTask = bigCost.updates() / rate;
+        int bigEntries = (big.bonds() + 1) * (big.sites() + 1);
+        double crtPerEntryPrime2 = median(latCrt) / (latRes[0].length * Math.pow(lt.primeCount(), 2));
+        double bigCrt = crtPerEntryPrime2 * bigEntries * Math.pow(bigTasks, 2);
+        System.out.printf(Locale.ROOT, "PROJECTION 16x16 free Ising g(E, M): %d prime tasks (so at most %d of 64 executors "
+                + "busy), one task %.3g updates = %.3g s = %.3g h at the measured rate, peak state vectors %.3g GB per "
+                + "executor; driver CRT of %d entries about %.3g s; wall time on 64 executors about %.3g h%n",
+                bigTasks, Math.min(64, bigTasks), bigCost.updates(), bigTask, bigTask / 3600, bigCost.peakBytes() / 1e9,
+                bigEntries, bigCrt, (Math.ceil(bigTasks / 64.0) * bigTask + bigCrt) / 3600);
+        double perPoint = sweep[1] / 2000;
+        System.out.printf(Locale.ROOT, "PROJECTION 10^6-point sweep: %.3g s per point on one core (local[1]), so %.3g s of "
+                + "work; on 64 executors about %.3g s (%.3g min) plus the output write%n", perPoint, perPoint * 1e6,
+                perPoint * 1e6 / 64, perPoint * 1e6 / 64 / 60);
         System.out.println("load average during the run: " + Arrays.toString(loadAverage()));
     }
 

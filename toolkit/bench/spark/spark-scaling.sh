@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # Measured script for the Spark module (the README performance rows): distributed CountTable vs the
 # local multi-modular path, local[1] vs local[2], and the 2,000-point trap sweep, all in one JVM run.
-#   toolkit/bench/spark/spark-scaling.sh [N E REPEATS]      (default 100 600 3)
+#   toolkit/bench/spark/spark-scaling.sh [N E REPEATS LATTICE_SIDE]      (default 100 600 3 8)
 # Builds toolkit/spark first (mvn -pl toolkit/spark -am package -DskipTests).
 set -euo pipefail
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd -P)"
@@ -10,4 +10,4 @@ root="$(cd "$here/../../.." && pwd -P)"
 cp="$root/toolkit/spark/target/microtally-spark-job.jar:$(cat "$root/toolkit/spark/target/spark-classpath.txt")"
 SPARK_LOCAL_IP=127.0.0.1 exec java @"$root/toolkit/spark/jvm.options" -Xmx3g -XX:+UseSerialGC \
   -Dlog4j2.configurationFile=classpath:org/microtally/spark/log4j2-quiet.properties \
-  -cp "$cp" "$here/SparkScaling.java" "${1:-100}" "${2:-600}" "${3:-3}"
+  -cp "$cp" "$here/SparkScaling.java" "${1:-100}" "${2:-600}" "${3:-3}" "${4:-8}"

@@ -64,13 +64,11 @@ public final class LabelledCountTable implements Tabular {
     private final BigInteger[] counts;
     private final int[] completeThrough;
 
-    private LabelledCountTable(Spectrum spectrum, Statistics statistics, int maxN, int maxE, boolean energyIgnored,
-                               int labelLo, int width, BigInteger[] counts) {
+    LabelledCountTable(Spectrum spectrum, Statistics statistics, int maxN, int maxE, boolean energyIgnored,
+                       int labelLo, int width, BigInteger[] counts) {
         this.completeThrough = new int[maxN + 1];
         for (int n = 0; n <= maxN; n++) {
-            long c = n == 0 || !spectrum.isTruncated() ? maxE
-                    : (long) Math.floor(spectrum.cutoffEnergy()) + lowestEnergyBound(spectrum, statistics, n - 1);
-            completeThrough[n] = (int) Math.min(maxE, c);
+            completeThrough[n] = completeThrough(spectrum, statistics, n, maxE);
         }
         this.spectrum = spectrum;
         this.statistics = statistics;
@@ -82,6 +80,13 @@ public final class LabelledCountTable implements Tabular {
         this.counts = counts;
     }
 
+    /** Row n's completeness limit (class notes): E when n = 0 or nothing is truncated, else min(E, floor(C) + E_low(n - 1)). */
+    static int completeThrough(Spectrum spectrum, Statistics statistics, int n, int maxE) {
+        long c = n == 0 || !spectrum.isTruncated() ? maxE
+                : (long) Math.floor(spectrum.cutoffEnergy()) + lowestEnergyBound(spectrum, statistics, n - 1);
+        return (int) Math.min(maxE, c);
+    }
+
     /** Counts by (n, e, L) for n &lt;= N, e &lt;= E; energies must be integers &gt;= 0 (as for {@link CountTable}). */
     public static LabelledCountTable of(Spectrum spectrum, Statistics statistics, int maxParticles, int maxEnergy) {
         return of(spectrum, statistics, maxParticles, maxEnergy, ProgressListener.NONE);
@@ -90,84 +95,172 @@ public final class LabelledCountTable implements Tabular {
     /** As {@link #of(Spectrum, Statistics, int, int)}, reporting progress per level. */
     public static LabelledCountTable of(Spectrum spectrum, Statistics statistics, int maxParticles, int maxEnergy,
                                         ProgressListener progress) {
-        CountTable.Input in = CountTable.Input.validate(spectrum, statistics, maxParticles, maxEnergy, progress);
-        return build(spectrum, statistics, maxParticles, maxEnergy, in.energy, false, progress);
+        return build(spectrum, statistics, Layout.of(spectrum, statistics, maxParticles, maxEnergy, false), progress);
     }
 
     /** Counts by (n, L) alone, for n &lt;= N, every level taking part; energies are not used. */
     public static LabelledCountTable ignoringEnergy(Spectrum spectrum, Statistics statistics, int maxParticles) {
-        Objects.requireNonNull(spectrum, "spectrum");
-        Objects.requireNonNull(statistics, "statistics");
-        if (maxParticles < 0) {
-            throw InvalidInputException.of("maximum particle number N", maxParticles, "an integer >= 0", "");
-        }
-        if (spectrum.isTruncated() && maxParticles > 0) {
-            throw InvalidInputException.of("spectrum cutoff for counting with energy ignored", spectrum.cutoffEnergy(),
-                    "+infinity (a complete, finite spectrum): with energy ignored every level takes part, so the "
-                            + "levels a cutoff omits would change every count with n >= 1",
-                    "Give the finite model space itself (Spectrum.of with cutoff +infinity), or count with energy "
-                            + "(LabelledCountTable.of) below completeThroughEnergy(n).");
-        }
-        return build(spectrum, statistics, maxParticles, 0, new int[spectrum.size()], true, ProgressListener.NONE);
+        return build(spectrum, statistics, Layout.of(spectrum, statistics, maxParticles, 0, true), ProgressListener.NONE);
     }
 
-    private static LabelledCountTable build(Spectrum spectrum, Statistics stats, int maxN, int maxE, int[] energy,
-                                            boolean energyIgnored, ProgressListener progress) {
-        int[] deg = spectrum.degeneracies();
-        int levels = CountEngine.relevantLevels(energy, maxE);
-        long lo = 0;
-        long hi = 0;
-        for (int l = 0; l < levels; l++) {
-            lo = Math.min(lo, spectrum.label(l));
-            hi = Math.max(hi, spectrum.label(l));
+    /**
+     * As {@link #of(Spectrum, Statistics, int, int)}, by the multi-modular path of
+     * {@link LabelledPrimePlan} (residues modulo primes &gt; 2^61, Chinese remaindering, one redundant
+     * prime checking the reconstruction): the same table entry by entry.
+     */
+    public static LabelledCountTable multiModular(Spectrum spectrum, Statistics statistics, int maxParticles,
+                                                  int maxEnergy) {
+        LabelledPrimePlan plan = LabelledPrimePlan.forTable(spectrum, statistics, maxParticles, maxEnergy, 1);
+        return plan.table(plan.residuesLocally());
+    }
+
+    /** As {@link #ignoringEnergy}, by the multi-modular path of {@link LabelledPrimePlan}. */
+    public static LabelledCountTable multiModularIgnoringEnergy(Spectrum spectrum, Statistics statistics,
+                                                                int maxParticles) {
+        LabelledPrimePlan plan = LabelledPrimePlan.forTableIgnoringEnergy(spectrum, statistics, maxParticles, 1);
+        return plan.table(plan.residuesLocally());
+    }
+
+    /**
+     * The validated integer inputs of one labelled table and its layout: levels taking part, label
+     * window [labelLo, labelLo + width), cells (n, e, L) at index (n (E + 1) + e) width + L - labelLo.
+     * Serializable, so a worker can run the recursion modulo a prime without the spectrum.
+     */
+    static final class Layout implements java.io.Serializable {
+        private static final long serialVersionUID = 1L;
+        final int[] energy;
+        final int[] labels;
+        final int[] deg;
+        final Statistics.Kind kind;
+        final int maxOccupancy;
+        final int maxN;
+        final int maxE;
+        final boolean energyIgnored;
+        final int levels;
+        final int labelLo;
+        final int width;
+
+        private Layout(int[] energy, int[] labels, int[] deg, Statistics stats, int maxN, int maxE,
+                       boolean energyIgnored, int levels, int labelLo, int width) {
+            this.energy = energy;
+            this.labels = labels;
+            this.deg = deg;
+            this.kind = stats.kind();
+            this.maxOccupancy = stats.maxOccupancy();
+            this.maxN = maxN;
+            this.maxE = maxE;
+            this.energyIgnored = energyIgnored;
+            this.levels = levels;
+            this.labelLo = labelLo;
+            this.width = width;
         }
-        long labelLo = lo * maxN;
-        long labelHi = hi * maxN;
-        double cells = (maxN + 1.0) * (maxE + 1.0) * (labelHi - labelLo + 1.0);
-        double limit = Runtime.getRuntime().maxMemory() * 0.5;
-        if (cells * 64 > limit || cells > Integer.MAX_VALUE - 16) {
-            throw InvalidInputException.of("labelled table size (N+1) x (E+1) x (label range)",
-                    String.format("%d x %d x %d = %.3g entries, about %s", maxN + 1L, maxE + 1L,
-                            labelHi - labelLo + 1, cells, MemoryEstimate.human(cells * 64)),
-                    String.format("at most 2^31 - 17 entries and %s (half the maximum heap)",
-                            MemoryEstimate.human(limit)),
-                    "Lower N or E, or count without the label (CountTable).");
+
+        Statistics statistics() {
+            return new Statistics(kind, maxOccupancy);
         }
-        int w = (int) (labelHi - labelLo + 1);
-        int we = (maxE + 1) * w;
-        BigInteger[] t = new BigInteger[(maxN + 1) * we];
-        Arrays.fill(t, BigInteger.ZERO);
-        int zero = (int) -labelLo;
-        t[zero] = BigInteger.ONE;
-        Ticker ticker = new Ticker(progress, stats.indistinguishable() ? levels : maxN,
-                stats.indistinguishable() ? "levels" : "particles");
-        if (stats.indistinguishable()) {
-            for (int l = 0; l < levels; l++) {
-                int el = energy[l];
-                int ml = spectrum.label(l);
-                BigInteger[] c = LevelSeries.coefficients(stats, deg[l], CountEngine.maxJ(el, maxN, maxE));
-                for (int n = maxN; n >= 1; n--) {
-                    int jTop = Math.min(n, c.length - 1);
-                    for (int j = 1; j <= jTop; j++) {
-                        int off = j * el;
-                        if (off > maxE) {
-                            break;
-                        }
-                        addShifted(t, n * we, (n - j) * we, c[j], off, j * ml, maxE, w);
-                    }
+
+        int cells() {
+            return (maxN + 1) * (maxE + 1) * width;
+        }
+
+        static Layout of(Spectrum spectrum, Statistics stats, int maxN, int maxE, boolean ignore) {
+            int[] energy;
+            if (ignore) {
+                Objects.requireNonNull(spectrum, "spectrum");
+                Objects.requireNonNull(stats, "statistics");
+                if (maxN < 0) {
+                    throw InvalidInputException.of("maximum particle number N", maxN, "an integer >= 0", "");
                 }
-                ticker.step();
+                if (spectrum.isTruncated() && maxN > 0) {
+                    throw InvalidInputException.of("spectrum cutoff for counting with energy ignored",
+                            spectrum.cutoffEnergy(),
+                            "+infinity (a complete, finite spectrum): with energy ignored every level takes part, "
+                                    + "so the levels a cutoff omits would change every count with n >= 1",
+                            "Give the finite model space itself (Spectrum.of with cutoff +infinity), or count with "
+                                    + "energy (LabelledCountTable.of) below completeThroughEnergy(n).");
+                }
+                energy = new int[spectrum.size()];
+            } else {
+                energy = CountTable.Input.validate(spectrum, stats, maxN, maxE, ProgressListener.NONE).energy;
             }
-        } else {
-            for (int n = 1; n <= maxN; n++) {
+            int levels = CountEngine.relevantLevels(energy, maxE);
+            int[] labels = new int[spectrum.size()];
+            long lo = 0;
+            long hi = 0;
+            for (int l = 0; l < labels.length; l++) {
+                labels[l] = spectrum.label(l);
+                if (l < levels) {
+                    lo = Math.min(lo, labels[l]);
+                    hi = Math.max(hi, labels[l]);
+                }
+            }
+            long labelLo = lo * maxN;
+            long labelHi = hi * maxN;
+            double cells = (maxN + 1.0) * (maxE + 1.0) * (labelHi - labelLo + 1.0);
+            double limit = Runtime.getRuntime().maxMemory() * 0.5;
+            if (cells * 64 > limit || cells > Integer.MAX_VALUE - 16) {
+                throw InvalidInputException.of("labelled table size (N+1) x (E+1) x (label range)",
+                        String.format("%d x %d x %d = %.3g entries, about %s", maxN + 1L, maxE + 1L,
+                                labelHi - labelLo + 1, cells, MemoryEstimate.human(cells * 64)),
+                        String.format("at most 2^31 - 17 entries and %s (half the maximum heap)",
+                                MemoryEstimate.human(limit)),
+                        "Lower N or E, or count without the label (CountTable).");
+            }
+            return new Layout(energy, labels, spectrum.degeneracies(), stats, maxN, maxE, ignore, levels,
+                    (int) labelLo, (int) (labelHi - labelLo + 1));
+        }
+
+        /**
+         * Walks the recursion of the class notes: for each level (or, distinguishable, each n) every
+         * shifted addition t[dst + (e, L)] += c t[src + (e - de, L - dl)], in the order that uses each
+         * level once; dst and src are the offsets of rows n and n - j.
+         */
+        void walk(Ticker ticker, ShiftSink sink) {
+            Statistics stats = statistics();
+            int we = (maxE + 1) * width;
+            if (stats.indistinguishable()) {
                 for (int l = 0; l < levels; l++) {
-                    addShifted(t, n * we, (n - 1) * we, BigInteger.valueOf(deg[l]), energy[l], spectrum.label(l),
-                            maxE, w);
+                    int el = energy[l];
+                    BigInteger[] c = LevelSeries.coefficients(stats, deg[l], CountEngine.maxJ(el, maxN, maxE));
+                    for (int n = maxN; n >= 1; n--) {
+                        int jTop = Math.min(n, c.length - 1);
+                        for (int j = 1; j <= jTop && j * el <= maxE; j++) {
+                            sink.add(n * we, (n - j) * we, c[j], j * el, j * labels[l]);
+                        }
+                    }
+                    ticker.step();
                 }
-                ticker.step();
+            } else {
+                for (int n = 1; n <= maxN; n++) {
+                    for (int l = 0; l < levels; l++) {
+                        sink.add(n * we, (n - 1) * we, BigInteger.valueOf(deg[l]), energy[l], labels[l]);
+                    }
+                    ticker.step();
+                }
             }
         }
-        return new LabelledCountTable(spectrum, stats, maxN, maxE, energyIgnored, (int) labelLo, w, t);
+
+        /** Steps the walk reports: levels (indistinguishable) or particles. */
+        Ticker ticker(ProgressListener progress) {
+            boolean ind = kind != Statistics.Kind.DISTINGUISHABLE;
+            return new Ticker(progress, ind ? levels : maxN, ind ? "levels" : "particles");
+        }
+    }
+
+    /** One shifted addition of the recursion (see {@link Layout#walk}). */
+    interface ShiftSink {
+        void add(int dst, int src, BigInteger c, int de, int dl);
+    }
+
+    private static LabelledCountTable build(Spectrum spectrum, Statistics stats, Layout layout,
+                                            ProgressListener progress) {
+        int w = layout.width;
+        BigInteger[] t = new BigInteger[layout.cells()];
+        Arrays.fill(t, BigInteger.ZERO);
+        t[-layout.labelLo] = BigInteger.ONE;
+        layout.walk(layout.ticker(progress), (dst, src, c, de, dl) -> addShifted(t, dst, src, c, de, dl, layout.maxE, w));
+        return new LabelledCountTable(spectrum, stats, layout.maxN, layout.maxE, layout.energyIgnored, layout.labelLo,
+                w, t);
     }
 
     /** t[dst][e][L] += c * t[src][e - de][L - dl] over every valid (e, L). */

@@ -70,30 +70,60 @@ public final class SpeciesMix implements Tabular {
         return combine(species, 0, true);
     }
 
-    private static SpeciesMix combine(List<Species> species, int maxE, boolean ignore) {
+    /** As {@link #of}, by the multi-modular path of {@link LabelledPrimePlan}: the same counts entry by entry. */
+    public static SpeciesMix multiModular(List<Species> species, int maxEnergy) {
+        LabelledPrimePlan plan = LabelledPrimePlan.forMix(species, maxEnergy, 1);
+        return plan.mix(plan.residuesLocally());
+    }
+
+    /** As {@link #ignoringEnergy}, by the multi-modular path of {@link LabelledPrimePlan}. */
+    public static SpeciesMix multiModularIgnoringEnergy(List<Species> species) {
+        LabelledPrimePlan plan = LabelledPrimePlan.forMixIgnoringEnergy(species, 1);
+        return plan.mix(plan.residuesLocally());
+    }
+
+    /** The species list checked non-empty and copied. */
+    static List<Species> checked(List<Species> species) {
         Objects.requireNonNull(species, "species");
         if (species.isEmpty()) {
             throw InvalidInputException.of("number of species", 0, ">= 1", "");
         }
-        List<Species> copy = List.copyOf(species);
+        return List.copyOf(species);
+    }
+
+    /** The mix of {@code species} with counts [e][L - labelLo] already computed. */
+    static SpeciesMix fromCounts(List<Species> species, int maxE, boolean ignore, int labelLo, BigInteger[][] counts) {
+        long complete = maxE;
+        if (!ignore) {
+            int size = species.size();
+            long[] own = new long[size];
+            long[] low = new long[size];
+            long lowSum = 0;
+            for (int i = 0; i < size; i++) {
+                Species s = species.get(i);
+                own[i] = s.spectrum().isTruncated()
+                        ? LabelledCountTable.completeThrough(s.spectrum(), s.statistics(), s.particles(), maxE)
+                        : Long.MAX_VALUE / 4;
+                low[i] = Math.min(Long.MAX_VALUE / 4,
+                        LabelledCountTable.lowestEnergyBound(s.spectrum(), s.statistics(), s.particles()));
+                lowSum = Math.min(Long.MAX_VALUE / 4, lowSum + low[i]);
+            }
+            for (int i = 0; i < size; i++) {
+                complete = Math.min(complete, own[i] + (lowSum - low[i]));
+            }
+        }
+        return new SpeciesMix(species, maxE, ignore, labelLo, counts, (int) complete);
+    }
+
+    private static SpeciesMix combine(List<Species> species, int maxE, boolean ignore) {
+        List<Species> copy = checked(species);
         BigInteger[][] cur = {{BigInteger.ONE}};
         int curLo = 0;
         cur = extend(cur, maxE);
-        long[] own = new long[copy.size()];
-        long[] low = new long[copy.size()];
-        long lowSum = 0;
-        int index = 0;
         for (Species s : copy) {
             LabelledCountTable t = ignore
                     ? LabelledCountTable.ignoringEnergy(s.spectrum(), s.statistics(), s.particles())
                     : LabelledCountTable.of(s.spectrum(), s.statistics(), s.particles(), maxE);
-            if (!ignore) {
-                own[index] = s.spectrum().isTruncated() ? t.completeThroughEnergy(s.particles()) : Long.MAX_VALUE / 4;
-                low[index] = Math.min(Long.MAX_VALUE / 4,
-                        LabelledCountTable.lowestEnergyBound(s.spectrum(), s.statistics(), s.particles()));
-                lowSum = Math.min(Long.MAX_VALUE / 4, lowSum + low[index]);
-            }
-            index++;
             BigInteger[][] sl = t.slice(s.particles());
             int w1 = cur[0].length;
             int w2 = sl[0].length;
@@ -120,11 +150,7 @@ public final class SpeciesMix implements Tabular {
             cur = next;
             curLo += t.minLabelTotal();
         }
-        long complete = maxE;
-        for (int i = 0; i < copy.size() && !ignore; i++) {
-            complete = Math.min(complete, own[i] + (lowSum - low[i]));
-        }
-        return new SpeciesMix(copy, maxE, ignore, curLo, cur, (int) complete);
+        return fromCounts(copy, maxE, ignore, curLo, cur);
     }
 
     /**

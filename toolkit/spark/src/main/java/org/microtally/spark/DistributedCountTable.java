@@ -6,9 +6,6 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
-import java.util.stream.IntStream;
-import org.apache.spark.TaskContext;
-import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.sql.SparkSession;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
@@ -16,7 +13,6 @@ import org.microtally.count.CountTable;
 import org.microtally.count.PrimePlan;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
-import scala.Tuple2;
 
 /**
  * The exact table Omega(n, e) of {@link CountTable} computed on Spark: one task per prime of the
@@ -76,20 +72,8 @@ public final class DistributedCountTable implements CountGrid {
 
     static DistributedCountTable compute(SparkSession spark, PrimePlan plan, ProgressListener progress,
                                          TaskFault fault) {
-        Objects.requireNonNull(spark, "spark");
-        JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
-        int k = plan.primeCount();
-        List<Integer> tasks = IntStream.range(0, k).boxed().toList();
-        List<Tuple2<Integer, long[]>> parts = SparkProgress.run(spark.sparkContext(), progress, k, "primes",
-                () -> jsc.parallelize(tasks, k).map(i -> {
-                    long[] r = plan.residues(i, ProgressListener.NONE);
-                    TaskContext tc = TaskContext.get();
-                    return new Tuple2<>(i, fault.apply(i, tc == null ? 0 : tc.attemptNumber(), r));
-                }).collect());
-        long[][] residues = new long[k][];
-        for (Tuple2<Integer, long[]> p : parts) {
-            residues[p._1()] = p._2();
-        }
+        long[][] residues = PrimeTasks.run(spark, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE),
+                "primes", progress, fault);
         return new DistributedCountTable(plan, plan.recombine(residues));
     }
 

@@ -102,6 +102,8 @@ public final class Sweep {
         }
         JavaRDD<Row> rows = jsc.parallelize(ranges, tasks).flatMap(r -> new Iterator<Row>() {
             private long next = r[0];
+            private SweepPoint last;
+            private Spectrum lastSpectrum;
 
             @Override
             public boolean hasNext() {
@@ -110,7 +112,13 @@ public final class Sweep {
 
             @Override
             public Row next() {
-                return evaluate(grid.point(next++));
+                SweepPoint p = grid.point(next++);
+                // the ensemble varies fastest: consecutive points often share spectrum and kT, so one build serves
+                if (last == null || last.spectrum() != p.spectrum() || last.kT() != p.kT()) {
+                    lastSpectrum = p.spectrum().build(p.kT());
+                    last = p;
+                }
+                return evaluate(p, lastSpectrum);
             }
         });
         Dataset<Row> ds = spark.createDataFrame(rows, SCHEMA).persist(StorageLevel.MEMORY_AND_DISK());
@@ -139,7 +147,11 @@ public final class Sweep {
 
     /** One grid point's row, computed where the task runs. */
     static Row evaluate(SweepPoint p) {
-        Spectrum s = p.spectrum().build(p.kT());
+        return evaluate(p, p.spectrum().build(p.kT()));
+    }
+
+    /** One grid point's row on {@code s}, the point's spectrum already built at its kT. */
+    static Row evaluate(SweepPoint p, Spectrum s) {
         Object[] head = {p.id(), p.spectrum().toString(), s.stateCount(), p.particles(), p.kT(),
             p.statistics().toString(), p.ensemble().name()};
         Double lnZ;
