@@ -46,8 +46,10 @@ try {
   browser = await chromium.launch({
     executablePath: args.chromium,
     headless: true,
-    // root in a container: no user-namespace sandbox; no GPU on these machines
-    args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage'],
+    // root in a container: no user-namespace sandbox; no GPU; a closed network, so no background
+    // connections (updates, sync, field trials) that would only be refused
+    args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--no-first-run', '--disable-quic',
+      '--disable-background-networking', '--disable-component-update', '--disable-sync'],
   });
   const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
   const consoleErrors = [];
