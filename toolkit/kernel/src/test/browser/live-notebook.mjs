@@ -76,7 +76,8 @@ try {
       const cells = cellsOf();
       cells.forEach((cell, index) => {
         const bars = cell.querySelectorAll(
-          '.output_subarea progress, .output_subarea [role="progressbar"], .output_subarea [class*="progress"]');
+          '.output_subarea progress, .output_subarea meter, .output_subarea [role="progressbar"],'
+          + ' .output_subarea [class*="progress"]');
         // nested matches (a progress element inside a progress container) count once
         const outer = Array.from(bars).filter((b) => !Array.from(bars).some((o) => o !== b && o.contains(b)));
         if (outer.length === 0) return;
