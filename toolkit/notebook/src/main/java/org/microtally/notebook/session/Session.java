@@ -97,6 +97,7 @@ public final class Session implements Engine {
     private final CodeAssist assist;
     private final CellErrors errors;
     private final Object runLock = new Object();
+    private final CellPhases.Clock clock = new CellPhases.Clock();
     private volatile boolean running;
     private int cellCount;
     private boolean closed;
@@ -106,8 +107,8 @@ public final class Session implements Engine {
         int n = SESSIONS.incrementAndGet();
         group = new ThreadGroup("microtally-session-" + n);
         Set<String> classPath = EngineClassPath.classPath();
-        loader = new SnippetLoader(Session.class.getClassLoader(), classPath);
-        control = new EngineControl(loader, group);
+        loader = new SnippetLoader(Session.class.getClassLoader(), classPath, clock);
+        control = new EngineControl(loader, group, clock);
         jshell = JShell.builder()
                 .executionEngine(EngineControl.provider(control), Map.of())
                 .in(new ByteArrayInputStream(new byte[0]))
@@ -204,10 +205,12 @@ public final class Session implements Engine {
             cell = ++cellCount;
         }
         CellContext context = new CellContext(group, output);
+        clock.begin();
         loader.mark();
         OutputRouter.begin(context);
         try {
-            return runCell(code, cell);
+            CellResult result = runCell(code, cell);
+            return result.withPhases(clock.end());
         } finally {
             OutputRouter.end(context);
             control.resetCapture();
@@ -227,7 +230,9 @@ public final class Session implements Engine {
     }
 
     private CellResult runCell(String code, int cell) {
+        long t0 = System.nanoTime();
         List<CellSplitter.Piece> pieces = splitter.split(code);
+        clock.split(System.nanoTime() - t0, pieces.size());
         Object value = EngineControl.NO_VALUE;
         for (int k = 0; k < pieces.size(); k++) {
             if (control.stopRequested()) {
@@ -236,12 +241,15 @@ public final class Session implements Engine {
             CellSplitter.Piece piece = pieces.get(k);
             control.resetCapture();
             List<SnippetEvent> events;
+            long e0 = System.nanoTime();
             try {
                 events = jshell.eval(piece.source());
             } catch (OutOfMemoryError e) {
                 return errors.runtimeError(e, null, cell);
             } catch (RuntimeException e) {
                 return CellErrors.engineError(e);
+            } finally {
+                clock.eval(System.nanoTime() - e0);
             }
             SnippetEvent main = events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
             if (main == null) {
@@ -278,8 +286,10 @@ public final class Session implements Engine {
             return new CellResult(CellResult.Outcome.OK, Optional.empty(), Optional.empty(), Optional.empty());
         }
         Object v = value;
+        long d0 = System.nanoTime();
         try {
             MimeBundle bundle = control.callAsUser(() -> Renderers.render(v));
+            clock.display(System.nanoTime() - d0);
             return new CellResult(CellResult.Outcome.OK, Optional.of(bundle), Optional.ofNullable(v), Optional.empty());
         } catch (EngineControl.UserFailure f) {
             return control.stopRequested() ? CellErrors.interrupted() : errors.runtimeError(f.getCause(), null, cell);
