@@ -229,6 +229,9 @@ public final class Session implements Engine {
         }
     }
 
+    /** The last snippet evaluated on the route of {@link ValueExpression} (its value is the cell's value). */
+    private Snippet valueRoute;
+
     private CellResult runCell(String code, int cell) {
         long t0 = System.nanoTime();
         List<CellSplitter.Piece> pieces = splitter.split(code);
@@ -240,10 +243,10 @@ public final class Session implements Engine {
             }
             CellSplitter.Piece piece = pieces.get(k);
             control.resetCapture();
-            List<SnippetEvent> events;
+            SnippetEvent main;
             long e0 = System.nanoTime();
             try {
-                events = jshell.eval(piece.source());
+                main = evaluate(piece.source());
             } catch (OutOfMemoryError e) {
                 return errors.runtimeError(e, null, cell);
             } catch (RuntimeException e) {
@@ -251,7 +254,6 @@ public final class Session implements Engine {
             } finally {
                 clock.eval(System.nanoTime() - e0);
             }
-            SnippetEvent main = events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
             if (main == null) {
                 continue;
             }
@@ -299,8 +301,37 @@ public final class Session implements Engine {
         }
     }
 
+    /**
+     * Evaluates one snippet and returns its own event (not those of snippets it updated), or null
+     * when it produced none. An expression goes the shorter route of {@link ValueExpression} when
+     * it can; when that declaration is not valid it ran nothing, is removed, and the snippet is
+     * evaluated as written (so its errors are reported as JShell reports them).
+     */
+    private SnippetEvent evaluate(String source) {
+        Optional<String> declaration = ValueExpression.declaration(source);
+        if (declaration.isPresent()) {
+            SnippetEvent main = mainEvent(jshell.eval(declaration.get()));
+            if (main != null && (main.status() == Snippet.Status.VALID || control.stopRequested())) {
+                valueRoute = main.snippet();
+                return main;
+            }
+            if (main != null && main.status().isActive()) {
+                jshell.drop(main.snippet());
+            }
+            control.resetCapture();
+        }
+        return mainEvent(jshell.eval(source));
+    }
+
+    private static SnippetEvent mainEvent(List<SnippetEvent> events) {
+        return events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
+    }
+
     private Object valueOf(SnippetEvent main) {
         Snippet s = main.snippet();
+        if (s == valueRoute) {
+            return control.lastValue();
+        }
         boolean expression = s.kind() == Snippet.Kind.EXPRESSION
                 || (s instanceof VarSnippet && s.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND);
         if (!expression) {
