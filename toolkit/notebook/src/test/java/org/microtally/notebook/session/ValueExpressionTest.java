@@ -7,8 +7,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestInstance;
 import org.junit.jupiter.api.Timeout;
 
 /**
@@ -16,20 +16,16 @@ import org.junit.jupiter.api.Timeout;
  * (value, errors with their lines, no code run twice, interrupt) as when JShell evaluates it as written.
  */
 @Timeout(value = 90, unit = TimeUnit.SECONDS)
+@TestInstance(TestInstance.Lifecycle.PER_CLASS)
 class ValueExpressionTest {
-    static Session session;
-
-    @BeforeAll
-    static void open() {
-        session = Session.open();
-    }
+    private final Session session = Session.open();
 
     @AfterAll
-    static void close() {
+    void closeSession() {
         session.close();
     }
 
-    static CellResult run(String code) {
+    private CellResult run(String code) {
         return session.run(code, new Collector());
     }
 
