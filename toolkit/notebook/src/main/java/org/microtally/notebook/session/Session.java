@@ -23,7 +23,8 @@ import org.microtally.notebook.render.Renderers;
  *
  * <h2>How a cell runs</h2>
  * The cell is split into snippets with JShell's source analysis ({@code analyzeCompletion} loop)
- * and the snippets are evaluated in order. Each snippet runs on a fresh thread of this session's
+ * and the snippets are evaluated in order (an expression that cannot be void as the initializer of
+ * {@code $value}, see {@link ValueExpression}, instead of a new {@code $N}). Each snippet runs on a fresh thread of this session's
  * thread group, so {@link #interrupt()} can stop it. {@code System.out}/{@code System.err} are
  * routed to the cell's {@link CellOutput} while it runs, through one ordered queue with the cell's
  * displays (so every output keeps the order the cell wrote it), delivered in chunks at least every
