@@ -81,14 +81,21 @@ final class CellExecution {
             evalNanos = System.nanoTime() - t0;
             runningCell = null;
         }
-        // execute_reply metadata: the engine's own time for the cell, so a client can tell the
-        // kernel's overhead from the evaluation time (toolkit/bench/kernel-latency.py uses it).
+        // execute_reply metadata: the engine's own time for the cell and its phases, so a client can
+        // tell the kernel's overhead from the evaluation time (toolkit/bench/kernel-latency.py uses it).
+        long t1 = System.nanoTime();
         Map<String, Object> metadata = new LinkedHashMap<>();
         metadata.put("microtally_eval_seconds", evalNanos / 1e9);
         if (!req.isSilent() && result.ok() && result.value().isPresent()) {
             wire.publish(m, MessageType.PUBLISH_EXECUTION_RESULT, new PublishExecuteResult(n, displayData(result.value().get(), null)));
         }
-        metadata.put("microtally_kernel_seconds", (System.nanoTime() - receivedAt) / 1e9);
+        long done = System.nanoTime();
+        metadata.put("microtally_kernel_seconds", (done - receivedAt) / 1e9);
+        Map<String, Double> phases = new LinkedHashMap<>();
+        phases.put("kernel_in", (t0 - receivedAt) / 1e6);   // decode, status busy, execute_input
+        phases.putAll(result.phases().millis());
+        phases.put("kernel_out", (done - t1) / 1e6);        // execute_result built and published
+        metadata.put("microtally_phases_ms", phases);
         if (result.ok()) {
             wire.reply(socket, m, executeReplyType(), new ExecuteOk(n), metadata);
             return;

@@ -10,8 +10,20 @@ import org.microtally.notebook.render.MimeBundle;
  * @param value   the rendered value of the cell's last expression, if it had one and succeeded
  * @param raw     that value itself (the real object), if any
  * @param error   why it failed, when {@code outcome != OK}
+ * @param phases  where the engine's time for the cell went ({@link CellPhases#NONE} when not measured)
  */
-public record CellResult(Outcome outcome, Optional<MimeBundle> value, Optional<Object> raw, Optional<CellError> error) {
+public record CellResult(Outcome outcome, Optional<MimeBundle> value, Optional<Object> raw, Optional<CellError> error,
+                         CellPhases phases) {
+
+    /** A result without phase timings. */
+    public CellResult(Outcome outcome, Optional<MimeBundle> value, Optional<Object> raw, Optional<CellError> error) {
+        this(outcome, value, raw, error, CellPhases.NONE);
+    }
+
+    /** This result with the given phase timings. */
+    public CellResult withPhases(CellPhases measured) {
+        return new CellResult(outcome, value, raw, error, measured);
+    }
 
     /**
      * How a cell ended. {@code OUT_OF_MEMORY} is a runtime error that exhausted the heap: a front

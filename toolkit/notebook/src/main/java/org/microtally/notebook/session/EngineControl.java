@@ -30,11 +30,13 @@ final class EngineControl extends DirectExecutionControl {
     private volatile boolean stopRequested;
     private volatile Object lastValue = NO_VALUE;
     private volatile Throwable lastThrown;
+    private final CellPhases.Clock clock;
 
-    EngineControl(SnippetLoader loader, ThreadGroup group) {
+    EngineControl(SnippetLoader loader, ThreadGroup group, CellPhases.Clock clock) {
         super(loader);
         this.group = group;
         this.cellLoader = loader.classLoader();
+        this.clock = clock;
     }
 
     /** A provider that hands JShell the given, already built control. */
@@ -78,6 +80,7 @@ final class EngineControl extends DirectExecutionControl {
     @Override
     protected String invoke(Method doitMethod) throws Exception {
         Object value;
+        long t0 = System.nanoTime();
         try {
             value = callAsUser(() -> {
                 try {
@@ -92,6 +95,8 @@ final class EngineControl extends DirectExecutionControl {
                 throw new ExecutionControl.StoppedException();
             }
             throw new InvocationTargetException(f.getCause());
+        } finally {
+            clock.run(System.nanoTime() - t0);
         }
         lastValue = value;
         return "";   // the engine renders the real object itself

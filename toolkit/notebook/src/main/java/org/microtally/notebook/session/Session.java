@@ -23,7 +23,8 @@ import org.microtally.notebook.render.Renderers;
  *
  * <h2>How a cell runs</h2>
  * The cell is split into snippets with JShell's source analysis ({@code analyzeCompletion} loop)
- * and the snippets are evaluated in order. Each snippet runs on a fresh thread of this session's
+ * and the snippets are evaluated in order (an expression that cannot be void as the initializer of
+ * {@code $value}, see {@link ValueExpression}, instead of a new {@code $N}). Each snippet runs on a fresh thread of this session's
  * thread group, so {@link #interrupt()} can stop it. {@code System.out}/{@code System.err} are
  * routed to the cell's {@link CellOutput} while it runs, through one ordered queue with the cell's
  * displays (so every output keeps the order the cell wrote it), delivered in chunks at least every
@@ -97,6 +98,7 @@ public final class Session implements Engine {
     private final CodeAssist assist;
     private final CellErrors errors;
     private final Object runLock = new Object();
+    private final CellPhases.Clock clock = new CellPhases.Clock();
     private volatile boolean running;
     private int cellCount;
     private boolean closed;
@@ -106,8 +108,8 @@ public final class Session implements Engine {
         int n = SESSIONS.incrementAndGet();
         group = new ThreadGroup("microtally-session-" + n);
         Set<String> classPath = EngineClassPath.classPath();
-        loader = new SnippetLoader(Session.class.getClassLoader(), classPath);
-        control = new EngineControl(loader, group);
+        loader = new SnippetLoader(Session.class.getClassLoader(), classPath, clock);
+        control = new EngineControl(loader, group, clock);
         jshell = JShell.builder()
                 .executionEngine(EngineControl.provider(control), Map.of())
                 .in(new ByteArrayInputStream(new byte[0]))
@@ -204,10 +206,12 @@ public final class Session implements Engine {
             cell = ++cellCount;
         }
         CellContext context = new CellContext(group, output);
+        clock.begin();
         loader.mark();
         OutputRouter.begin(context);
         try {
-            return runCell(code, cell);
+            CellResult result = runCell(code, cell);
+            return result.withPhases(clock.end());
         } finally {
             OutputRouter.end(context);
             control.resetCapture();
@@ -226,8 +230,13 @@ public final class Session implements Engine {
         }
     }
 
+    /** The last snippet evaluated on the route of {@link ValueExpression} (its value is the cell's value). */
+    private Snippet valueRoute;
+
     private CellResult runCell(String code, int cell) {
+        long t0 = System.nanoTime();
         List<CellSplitter.Piece> pieces = splitter.split(code);
+        clock.split(System.nanoTime() - t0, pieces.size());
         Object value = EngineControl.NO_VALUE;
         for (int k = 0; k < pieces.size(); k++) {
             if (control.stopRequested()) {
@@ -235,15 +244,17 @@ public final class Session implements Engine {
             }
             CellSplitter.Piece piece = pieces.get(k);
             control.resetCapture();
-            List<SnippetEvent> events;
+            SnippetEvent main;
+            long e0 = System.nanoTime();
             try {
-                events = jshell.eval(piece.source());
+                main = evaluate(piece.source());
             } catch (OutOfMemoryError e) {
                 return errors.runtimeError(e, null, cell);
             } catch (RuntimeException e) {
                 return CellErrors.engineError(e);
+            } finally {
+                clock.eval(System.nanoTime() - e0);
             }
-            SnippetEvent main = events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
             if (main == null) {
                 continue;
             }
@@ -278,8 +289,10 @@ public final class Session implements Engine {
             return new CellResult(CellResult.Outcome.OK, Optional.empty(), Optional.empty(), Optional.empty());
         }
         Object v = value;
+        long d0 = System.nanoTime();
         try {
             MimeBundle bundle = control.callAsUser(() -> Renderers.render(v));
+            clock.display(System.nanoTime() - d0);
             return new CellResult(CellResult.Outcome.OK, Optional.of(bundle), Optional.ofNullable(v), Optional.empty());
         } catch (EngineControl.UserFailure f) {
             return control.stopRequested() ? CellErrors.interrupted() : errors.runtimeError(f.getCause(), null, cell);
@@ -289,8 +302,37 @@ public final class Session implements Engine {
         }
     }
 
+    /**
+     * Evaluates one snippet and returns its own event (not those of snippets it updated), or null
+     * when it produced none. An expression goes the shorter route of {@link ValueExpression} when
+     * it can; when that declaration is not valid it ran nothing, is removed, and the snippet is
+     * evaluated as written (so its errors are reported as JShell reports them).
+     */
+    private SnippetEvent evaluate(String source) {
+        Optional<String> declaration = ValueExpression.declaration(source);
+        if (declaration.isPresent()) {
+            SnippetEvent main = mainEvent(jshell.eval(declaration.get()));
+            if (main != null && (main.status() == Snippet.Status.VALID || control.stopRequested())) {
+                valueRoute = main.snippet();
+                return main;
+            }
+            if (main != null && main.status().isActive()) {
+                jshell.drop(main.snippet());
+            }
+            control.resetCapture();
+        }
+        return mainEvent(jshell.eval(source));
+    }
+
+    private static SnippetEvent mainEvent(List<SnippetEvent> events) {
+        return events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
+    }
+
     private Object valueOf(SnippetEvent main) {
         Snippet s = main.snippet();
+        if (s == valueRoute) {
+            return control.lastValue();
+        }
         boolean expression = s.kind() == Snippet.Kind.EXPRESSION
                 || (s instanceof VarSnippet && s.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND);
         if (!expression) {

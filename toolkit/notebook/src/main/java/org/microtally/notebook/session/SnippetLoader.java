@@ -25,10 +25,12 @@ final class SnippetLoader implements LoaderDelegate {
     private final Map<String, Class<?>> loaded = new ConcurrentHashMap<>();
     private final Set<String> parentPath;
     private final List<String> sinceMark = new ArrayList<>();
+    private final CellPhases.Clock clock;
 
-    SnippetLoader(ClassLoader parent, Set<String> parentPath) {
+    SnippetLoader(ClassLoader parent, Set<String> parentPath, CellPhases.Clock clock) {
         this.loader = new Loader(parent);
         this.parentPath = parentPath;
+        this.clock = clock;
     }
 
     ClassLoader classLoader() {
@@ -37,6 +39,7 @@ final class SnippetLoader implements LoaderDelegate {
 
     @Override
     public void load(ClassBytecodes[] cbcs) throws ClassInstallException {
+        long t0 = System.nanoTime();
         boolean[] installed = new boolean[cbcs.length];
         try {
             for (ClassBytecodes cbc : cbcs) {
@@ -53,14 +56,18 @@ final class SnippetLoader implements LoaderDelegate {
             }
         } catch (Throwable t) {
             throw new ClassInstallException("load: " + t, installed);
+        } finally {
+            clock.define(System.nanoTime() - t0);
         }
     }
 
     @Override
     public void classesRedefined(ClassBytecodes[] cbcs) {
+        long t0 = System.nanoTime();
         for (ClassBytecodes cbc : cbcs) {
             loader.declare(cbc.name(), ExitCallRewriter.rewrite(cbc.bytecodes()));
         }
+        clock.define(System.nanoTime() - t0);
     }
 
     @Override
