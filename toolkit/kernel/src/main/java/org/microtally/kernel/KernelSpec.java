@@ -11,6 +11,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.microtally.notebook.session.KernelIdentity;
 import java.util.concurrent.TimeUnit;
 
 /**
@@ -24,8 +25,8 @@ import java.util.concurrent.TimeUnit;
  * {@code -Xmx1g -XX:+UseSerialGC}; SerialGC also starts fastest on a 2-core machine.
  */
 final class KernelSpec {
-    static final String NAME = "microtally";
-    static final String DISPLAY_NAME = "Java 17 (microtally)";
+    static final String NAME = KernelIdentity.KERNEL_NAME;
+    static final String DISPLAY_NAME = KernelIdentity.DISPLAY_NAME;
     static final List<String> JVM_OPTIONS = List.of("-Xmx1g", "-XX:+UseSerialGC");
 
     /** Where to install, mirroring the three scopes Jupyter knows. */
@@ -64,7 +65,7 @@ final class KernelSpec {
         Map<String, Object> spec = new LinkedHashMap<>();
         spec.put("argv", argv);
         spec.put("display_name", DISPLAY_NAME);
-        spec.put("language", "java");
+        spec.put("language", KernelIdentity.LANGUAGE);
         spec.put("interrupt_mode", "message");
         spec.put("env", Map.of());
         spec.put("metadata", Map.of("debugger", false, "microtally_version", Main.version()));

@@ -25,6 +25,7 @@ import java.util.logging.Level;
 import org.microtally.notebook.session.Completeness;
 import org.microtally.notebook.session.Completions;
 import org.microtally.notebook.session.Engine;
+import org.microtally.notebook.session.KernelIdentity;
 import org.zeromq.ZMQ;
 
 /**
@@ -92,16 +93,17 @@ final class Requests {
     }
 
     static KernelInfoReply kernelInfo(boolean unsigned) {
-        LanguageInfo language = new LanguageInfo.Builder("java")
-                .version("17")
-                .mimetype("text/x-java")
-                .fileExtension(".jshell")
-                .pygments("java")
-                .codemirror("text/x-java")
+        Map<String, String> info = KernelIdentity.languageInfo();
+        LanguageInfo language = new LanguageInfo.Builder(info.get("name"))
+                .version(info.get("version"))
+                .mimetype(info.get("mimetype"))
+                .fileExtension(info.get("file_extension"))
+                .pygments(info.get("pygments_lexer"))
+                .codemirror(info.get("codemirror_mode"))
                 .build();
         String banner = "microtally " + Main.version() + ": Java 17 cells (JShell) with the microtally toolkit imported"
                 + (unsigned ? "\n" + UNSIGNED_WARNING : "");
-        return new KernelInfoReply(PROTOCOL_VERSION, "microtally", Main.version(), language, banner, List.of());
+        return new KernelInfoReply(PROTOCOL_VERSION, KernelIdentity.KERNEL_NAME, Main.version(), language, banner, List.of());
     }
 
     private void shutdown(ZMQ.Socket socket, Message<?> m) {

@@ -11,6 +11,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.microtally.notebook.session.KernelIdentity;
 
 /**
  * The second kernelspec, {@code microtally-spark}: the same kernel with the Spark module
@@ -25,8 +26,8 @@ import java.util.Map;
  * Spark module; the kernelspec records them as absolute paths.
  */
 final class SparkKernelSpec {
-    static final String NAME = "microtally-spark";
-    static final String DISPLAY_NAME = "Java 17 (microtally + Spark)";
+    static final String NAME = KernelIdentity.SPARK_KERNEL_NAME;
+    static final String DISPLAY_NAME = KernelIdentity.SPARK_DISPLAY_NAME;
     static final String OPTION = "--with-spark";
     static final String CLASSPATH_PROPERTY = "microtally.spark.classpath";
     static final String OPTIONS_PROPERTY = "microtally.spark.jvmoptions";

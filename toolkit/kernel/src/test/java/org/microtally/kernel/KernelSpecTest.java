@@ -29,7 +29,7 @@ class KernelSpecTest {
         assertEquals("/opt/jdk17/bin/java", argv.get(0).getAsString());
         assertEquals(List.of("-Xmx1g", "-XX:+UseSerialGC", "-jar", jar.toAbsolutePath().toString(), "kernel", "{connection_file}"),
                 argv.asList().subList(1, argv.size()).stream().map(e -> e.getAsString()).toList());
-        assertEquals("Java 17 (microtally)", spec.get("display_name").getAsString());
+        assertEquals("microtally \u2014 exact counts", spec.get("display_name").getAsString());
         assertEquals("java", spec.get("language").getAsString());
         assertEquals("message", spec.get("interrupt_mode").getAsString());
 

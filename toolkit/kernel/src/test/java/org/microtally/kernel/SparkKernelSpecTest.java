@@ -36,7 +36,7 @@ class SparkKernelSpecTest {
         assertEquals(Main.class.getName(), args.get(cp + 2));
         assertEquals("kernel", args.get(cp + 3));
         assertEquals("message", json.get("interrupt_mode").getAsString());
-        assertEquals("Java 17 (microtally + Spark)", json.get("display_name").getAsString());
+        assertEquals("microtally \u2014 exact counts on Spark", json.get("display_name").getAsString());
     }
 
     @Test

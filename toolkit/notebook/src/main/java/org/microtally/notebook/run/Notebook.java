@@ -236,16 +236,11 @@ final class Notebook {
                 ? root.getAsJsonObject("metadata") : new JsonObject();
         root.add("metadata", md);
         JsonObject kernelspec = new JsonObject();
-        kernelspec.addProperty("name", "microtally");
-        kernelspec.addProperty("display_name", "Java 17 (microtally)");
-        kernelspec.addProperty("language", "java");
+        kernelspec.addProperty("name", org.microtally.notebook.session.KernelIdentity.KERNEL_NAME);
+        kernelspec.addProperty("display_name", org.microtally.notebook.session.KernelIdentity.DISPLAY_NAME);
+        kernelspec.addProperty("language", org.microtally.notebook.session.KernelIdentity.LANGUAGE);
         md.add("kernelspec", kernelspec);
-        JsonObject lang = new JsonObject();
-        lang.addProperty("name", "java");
-        lang.addProperty("version", System.getProperty("java.version"));
-        lang.addProperty("mimetype", "text/x-java-source");
-        lang.addProperty("file_extension", ".java");
-        lang.addProperty("codemirror_mode", "text/x-java");
+        JsonObject lang = GSON.toJsonTree(org.microtally.notebook.session.KernelIdentity.languageInfo()).getAsJsonObject();
         md.add("language_info", lang);
         if (!root.has("nbformat_minor") || !root.get("nbformat_minor").isJsonPrimitive()) {
             root.addProperty("nbformat_minor", 5);
