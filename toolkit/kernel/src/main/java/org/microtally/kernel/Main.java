@@ -103,7 +103,7 @@ public final class Main implements Callable<Integer> {
                 kernel = new Kernel(props, Session::open, refuseUnsigned).onShutdown(() -> System.exit(0));
             } catch (IllegalArgumentException e) {
                 KernelLog.LOG.severe(e.getMessage());
-                System.err.println("microtally kernel: " + e.getMessage());
+                System.err.println("microtally: kernel: " + e.getMessage());
                 return 1;
             }
             kernel.start();
@@ -186,7 +186,7 @@ public final class Main implements Callable<Integer> {
             try {
                 return ClassArchive.warmUp();
             } catch (IOException e) {
-                System.err.println("microtally warm-up failed: " + e.getMessage());
+                System.err.println("microtally: warm-up failed: " + e.getMessage());
                 return 1;
             }
         }
