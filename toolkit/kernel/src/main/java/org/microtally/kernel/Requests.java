@@ -26,6 +26,7 @@ import org.microtally.notebook.session.Completeness;
 import org.microtally.notebook.session.Completions;
 import org.microtally.notebook.session.Engine;
 import org.microtally.notebook.session.KernelIdentity;
+import org.microtally.notebook.session.Provenance;
 import org.zeromq.ZMQ;
 
 /**
@@ -39,6 +40,15 @@ final class Requests {
     static final String UNSIGNED_WARNING = "WARNING: the connection file has an empty key, so messages are not signed "
             + "and any local process that can reach the ports can run code here; install the kernel with "
             + "'microtally install-kernel --refuse-unsigned' (or start it with 'kernel --refuse-unsigned') to refuse such a connection file";
+
+    /**
+     * The kernel_info_reply's message metadata: {@code {"microtally": {"provenance": ...}}}. The
+     * messaging protocol gives every message a metadata dict; Jupyter's clients do not copy it into
+     * the notebook, so a notebook executed by Jupyter records only language_info, while the headless
+     * runner writes the same record into {@code metadata.microtally.provenance}.
+     */
+    static final Map<String, Object> KERNEL_INFO_METADATA = Map.of("microtally",
+            Map.of("provenance", Provenance.of("microtally kernel", null).asMap()));
 
     private final KernelWire wire;
     private final EngineSlot engine;
@@ -73,7 +83,7 @@ final class Requests {
         try {
             switch (type) {
                 case "kernel_info_request" -> {
-                    wire.reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo(unsigned));
+                    wire.reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo(unsigned), KERNEL_INFO_METADATA);
                     if (firstKernelInfo.getCount() > 0) {
                         firstKernelInfoAt = System.currentTimeMillis();
                         firstKernelInfo.countDown();
@@ -101,7 +111,9 @@ final class Requests {
                 .pygments(info.get("pygments_lexer"))
                 .codemirror(info.get("codemirror_mode"))
                 .build();
-        String banner = "microtally " + Main.version() + ": Java 17 cells (JShell) with the microtally toolkit imported"
+        Map<String, Object> provenance = Provenance.of("microtally kernel", null).asMap();
+        String banner = "microtally " + provenance.get("toolkit_version") + " (" + provenance.get("commit") + "), Java "
+                + KernelIdentity.javaVersion() + ": cells run in JShell with the microtally toolkit imported"
                 + (unsigned ? "\n" + UNSIGNED_WARNING : "");
         return new KernelInfoReply(PROTOCOL_VERSION, KernelIdentity.KERNEL_NAME, Main.version(), language, banner, List.of());
     }

@@ -10,6 +10,7 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.microtally.notebook.session.KernelIdentity;
@@ -62,5 +63,30 @@ class NotebookMetadataTest {
         assertEquals("microtally", runnerSpec.get("name").getAsString());
         // Source: our own naming (issue 12): the display name is not "Java NN (...)"
         assertTrue(!runnerSpec.get("display_name").getAsString().startsWith("Java"), runnerSpec.toString());
+    }
+
+    @Test
+    void bothFrontDoorsRecordTheSameBuildAndRuntime(@TempDir Path dir) throws Exception {
+        JsonObject runner = runOneCell(dir).getAsJsonObject("metadata").getAsJsonObject("microtally").getAsJsonObject("provenance");
+        JsonObject kernel = WireCodec.gson().toJsonTree(Requests.KERNEL_INFO_METADATA).getAsJsonObject()
+                .getAsJsonObject("microtally").getAsJsonObject("provenance");
+        for (String key : List.of("toolkit_version", "commit", "build_record", "java_version", "java_runtime", "platform")) {
+            assertEquals(kernel.get(key), runner.get(key), key);
+        }
+        assertEquals("microtally run", runner.get("executed_by").getAsString());
+        assertEquals("microtally kernel", kernel.get("executed_by").getAsString());
+        assertEquals("found", runner.get("build_record").getAsString(), runner.toString());
+        // Source: the project's pom (project.version) and git itself: the recorded commit names the checked-out HEAD
+        assertEquals("0.1.0-SNAPSHOT", runner.get("toolkit_version").getAsString());
+        Process git = new ProcessBuilder("git", "rev-parse", "--short=12", "HEAD").redirectErrorStream(true).start();
+        String head = new String(git.getInputStream().readAllBytes(), StandardCharsets.UTF_8).strip();
+        if (git.waitFor() == 0) {
+            assertTrue(runner.get("commit").getAsString().contains(head), runner.get("commit") + " vs HEAD " + head);
+        } else {
+            System.err.println("NotebookMetadataTest: git is not available here; the recorded commit is not compared with HEAD");
+        }
+        // the one cell passes no seed and draws nothing random
+        assertEquals(0, runner.getAsJsonArray("seeds").size());
+        assertEquals(0, runner.getAsJsonArray("unseeded_random_in_cells").size());
     }
 }

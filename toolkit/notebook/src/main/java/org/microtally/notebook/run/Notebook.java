@@ -228,7 +228,8 @@ final class Notebook {
     }
 
     /**
-     * Prepares the tree for output as an executed notebook: kernel and language metadata, required
+     * Prepares the tree for output as an executed notebook: kernel and language metadata, provenance
+     * ({@code metadata.microtally.provenance}), required
      * fields of every cell, and cell ids where the declared minor version requires them (4.5+).
      */
     void normalize() {
@@ -242,6 +243,10 @@ final class Notebook {
         md.add("kernelspec", kernelspec);
         JsonObject lang = GSON.toJsonTree(org.microtally.notebook.session.KernelIdentity.languageInfo()).getAsJsonObject();
         md.add("language_info", lang);
+        JsonObject own = md.has("microtally") && md.get("microtally").isJsonObject() ? md.getAsJsonObject("microtally") : new JsonObject();
+        own.add("provenance", GSON.toJsonTree(org.microtally.notebook.session.Provenance.of("microtally run",
+                cells().stream().map(c -> type(c).equals("code") ? text(c.get("source")) : "").toList()).asMap()));
+        md.add("microtally", own);
         if (!root.has("nbformat_minor") || !root.get("nbformat_minor").isJsonPrimitive()) {
             root.addProperty("nbformat_minor", 5);
         }
