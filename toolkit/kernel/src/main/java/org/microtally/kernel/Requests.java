@@ -144,8 +144,38 @@ final class Requests {
             KernelLog.LOG.log(Level.WARNING, "completion failed", e);
             c = new Completions(List.of(), cursor, cursor);
         }
-        wire.reply(socket, m, MessageType.COMPLETE_REPLY, new CompleteReply(c.matches(),
-                CodePoints.toCodePoints(code, c.start()), CodePoints.toCodePoints(code, c.end()), Map.of()));
+        int start = CodePoints.toCodePoints(code, c.start());
+        int end = CodePoints.toCodePoints(code, c.end());
+        wire.reply(socket, m, MessageType.COMPLETE_REPLY, new CompleteReply(c.matches(), start, end, completionMetadata(c, start, end)));
+    }
+
+    /**
+     * The complete_reply metadata: {@code _jupyter_types_experimental} (the per-match list JupyterLab
+     * reads: start, end, text, and type for matches that fit the argument position, with the called
+     * overloads as their signature) and {@code microtally_signatures} (those overloads).
+     */
+    static Map<String, Object> completionMetadata(Completions c, int start, int end) {
+        List<Map<String, Object>> items = new java.util.ArrayList<>();
+        String overloads = String.join("\n", c.signatures());
+        for (int i = 0; i < c.matches().size(); i++) {
+            Map<String, Object> item = new java.util.LinkedHashMap<>();
+            item.put("start", start);
+            item.put("end", end);
+            item.put("text", c.matches().get(i));
+            if (!c.kinds().get(i).isEmpty()) {
+                item.put("type", c.kinds().get(i));
+                if (!overloads.isEmpty()) {
+                    item.put("signature", overloads);
+                }
+            }
+            items.add(item);
+        }
+        Map<String, Object> meta = new java.util.LinkedHashMap<>();
+        meta.put("_jupyter_types_experimental", items);
+        if (!c.signatures().isEmpty()) {
+            meta.put("microtally_signatures", c.signatures());
+        }
+        return meta;
     }
 
     private void inspect(ZMQ.Socket socket, Message<?> m) {
