@@ -179,7 +179,7 @@ public final class CountTable implements Tabular {
                     String.format("%.3g entries, about %s", cells, MemoryEstimate.human(bytes)),
                     String.format("at most 2^31 - 17 entries and %s (half the maximum heap)",
                             MemoryEstimate.human(limit)),
-                    "Lower N or E, or run the JVM with a larger -Xmx.");
+                    "Lower N or E, or give Java more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
         }
     }
 

@@ -472,7 +472,7 @@ public final class Canonical implements Tabular {
         int blocks = (m + block - 1) / block;
         MemoryEstimate.requireHeap("particle number N", n, "the kept partial products, " + (storeAll ? m : block + blocks)
                         + " series of N + 1 numbers", (storeAll ? (double) m : (double) block + blocks) * (n + 1.0), 8,
-                "Lower N, or merge levels of equal energy (each level is one series), or run the JVM with a larger -Xmx.");
+                "Lower N, or merge levels of equal energy (each level is one series), or give Java more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
         ScaledSeries[] checkpoints = new ScaledSeries[blocks];
         ScaledSeries[] q = new ScaledSeries[storeAll ? m : block];
         ScaledSeries z = new ScaledSeries(n, false);

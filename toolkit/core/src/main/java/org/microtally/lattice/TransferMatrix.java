@@ -151,7 +151,7 @@ public final class TransferMatrix {
             throw InvalidInputException.of("transfer-matrix cost for the " + model + " on the " + lattice, cost,
                     "at most " + memoryLimitBytes / 1_000_000 + " MB of state vectors (and arrays below 2^31 entries)",
                     "Use a narrower lattice (the frontier is set by the shorter side), a cylinder instead of a torus, "
-                            + "Kaufman's solution for the periodic square Ising lattice, or a larger heap (-Xmx).");
+                            + "Kaufman's solution for the periodic square Ising lattice, or more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
         }
         long[] primes = WordPrimes.primes(cost.primes());
         long[][] residues = new long[primes.length][];

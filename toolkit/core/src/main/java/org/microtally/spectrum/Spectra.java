@@ -219,7 +219,7 @@ public final class Spectra {
 
     private static void requireLevels(String what, int value, String sizeInWords, double levels) {
         MemoryEstimate.require(what, value, sizeInWords, levels, BYTES_PER_LEVEL,
-                "Lower the cutoff (thermal results need levels up to about mu + 40 kT), or run the JVM with a larger -Xmx.");
+                "Lower the cutoff (thermal results need levels up to about mu + 40 kT), or give Java more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
     }
 
     private static void requireCutoff(int maxQuanta) {

@@ -52,14 +52,15 @@ final class ClassArchive {
     }
 
     /**
-     * Creates (or replaces) the archive for {@code jar}; returns it, or empty when the JVM could not
+     * Creates (or replaces, by an atomic rename) the archive for {@code jar}, recorded with the kernel's
+     * options for maximum heap {@code heap}; returns it, or empty when the JVM could not
      * make one (the kernel then runs without).
      */
-    static Optional<Path> create(Path java, Path jar, PrintStream out) {
+    static Optional<Path> create(Path java, Path jar, String heap, PrintStream out) {
         Path target = pathFor(jar);
         Path tmp = target.resolveSibling(FILE + ".tmp-" + ProcessHandle.current().pid());
         List<String> cmd = new ArrayList<>(List.of(java.toString(), "-XX:ArchiveClassesAtExit=" + tmp));
-        cmd.addAll(KernelSpec.JVM_OPTIONS);
+        cmd.addAll(KernelSpec.jvmOptions(heap));
         cmd.addAll(List.of("-Xlog:cds*=off", "-jar", jar.toString(), "warm-up"));
         try {
             Process p = new ProcessBuilder(cmd).redirectErrorStream(true).start();

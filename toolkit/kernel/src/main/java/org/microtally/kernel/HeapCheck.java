@@ -22,14 +22,15 @@ final class HeapCheck {
         double used = (double) heap.getUsed() / max;
         String mib = String.format(Locale.ROOT, "%.0f of %.0f MiB", heap.getUsed() / 1048576.0, max / 1048576.0);
         if (used < RESET_AFTER_OOM_FRACTION) {
-            return "[microtally] heap recovered after the OutOfMemoryError (" + mib
-                    + " in use after a collection); the kernel session goes on.\n";
+            return "microtally: heap recovered after the OutOfMemoryError (" + mib
+                    + " in use after a collection); the kernel session goes on; " + HeapSize.HOW_TO_RAISE + ".\n";
         }
         KernelLog.LOG.warning(() -> "heap still full after OutOfMemoryError (" + mib + "): resetting the engine");
         engine.replace();
         MemoryUsage after = ManagementFactory.getMemoryMXBean().getHeapMemoryUsage();
-        return "[microtally] the cell ran out of heap and the session still held " + mib
+        return "microtally: the cell ran out of heap and the session still held " + mib
                 + ", so the kernel started a fresh session (" + after.getUsed() / 1048576
-                + " MiB in use now): variables and definitions from earlier cells are gone; re-run the cells you need.\n";
+                + " MiB in use now): variables and definitions from earlier cells are gone; re-run the cells you need; "
+                + HeapSize.HOW_TO_RAISE + ".\n";
     }
 }

@@ -6,155 +6,160 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
+import org.microtally.notebook.session.KernelIdentity;
 
 /**
  * Writes and installs the Jupyter kernelspec {@code microtally}: a directory holding
  * {@code kernel.json} (the Jupyter "Kernel specs" format: argv, display_name, language,
- * interrupt_mode, metadata).
+ * interrupt_mode, metadata), its own copy of the shaded jar ({@value #JAR}) and the class data
+ * archive recorded for that copy ({@link ClassArchive}). The kernelspec therefore survives
+ * {@code mvn clean} and rebuilds of the checkout; re-installing replaces each file by an atomic
+ * rename, so a kernel that is running keeps its open jar and one that starts sees either the old or
+ * the new files.
  *
- * <p>The argv runs this JVM's own {@code java} executable with {@link #JVM_OPTIONS} on the shaded
- * jar. The heap settings keep a long notebook session small: measured for issue 4, a session of 55
- * cells grew to about 1.8 GB with the default collector and heap, and stayed near 470 MB with
- * {@code -Xmx1g -XX:+UseSerialGC}; SerialGC also starts fastest on a 2-core machine.
+ * <p>The argv runs this JVM's own {@code java} executable with {@link #jvmOptions(String)} on the
+ * copied jar. The heap settings keep a long notebook session small: measured for issue 4, a session
+ * of 55 cells grew to about 1.8 GB with the default collector and heap, and stayed near 470 MB with
+ * {@code -Xmx1g -XX:+UseSerialGC}; SerialGC also starts fastest on a 2-core machine. The heap is
+ * settable ({@link HeapSize}: {@code install-kernel --heap SIZE} or {@code MICROTALLY_HEAP}).
  */
 final class KernelSpec {
-    static final String NAME = "microtally";
-    static final String DISPLAY_NAME = "Java 17 (microtally)";
-    static final List<String> JVM_OPTIONS = List.of("-Xmx1g", "-XX:+UseSerialGC");
+    static final String NAME = KernelIdentity.KERNEL_NAME;
+    static final String DISPLAY_NAME = KernelIdentity.DISPLAY_NAME;
+    /** The name of the jar copy inside the kernelspec directory. */
+    static final String JAR = "microtally.jar";
 
     /** Where to install, mirroring the three scopes Jupyter knows. */
     enum Scope { USER, PREFIX, SYS_PREFIX }
 
+    /**
+     * What the kernel is started with.
+     *
+     * @param heap           the maximum heap, checked by {@link HeapSize#check}
+     * @param refuseUnsigned start the kernel with {@code --refuse-unsigned} (a connection file with an
+     *                       empty key is refused)
+     */
+    record Settings(String heap, boolean refuseUnsigned) {
+        static final Settings DEFAULT = new Settings(HeapSize.KERNEL_DEFAULT, false);
+
+        Settings {
+            heap = HeapSize.check(heap, "heap");
+        }
+    }
+
     private KernelSpec() { }
 
-    /** The kernel.json content for a kernel run from {@code jar} by the JVM at {@code java}. */
+    /** The JVM options of the kernel with maximum heap {@code heap}. */
+    static List<String> jvmOptions(String heap) {
+        return List.of(HeapSize.option(heap), "-XX:+UseSerialGC");
+    }
+
+    /** The kernel.json content for a kernel run from {@code jar} by the JVM at {@code java}, default settings. */
     static Map<String, Object> kernelJson(Path java, Path jar) {
-        return kernelJson(java, jar, null);
+        return kernelJson(java, jar, null, Settings.DEFAULT);
     }
 
-    /** As {@link #kernelJson(Path, Path)}, using the class data archive {@code archive} if not null. */
-    static Map<String, Object> kernelJson(Path java, Path jar, Path archive) {
-        return kernelJson(java, jar, archive, false);
-    }
-
-    /**
-     * As {@link #kernelJson(Path, Path, Path)}; with {@code refuseUnsigned} the kernel is started with
-     * {@code --refuse-unsigned} (a connection file with an empty key is refused).
-     */
-    static Map<String, Object> kernelJson(Path java, Path jar, Path archive, boolean refuseUnsigned) {
+    /** The kernel.json content, using the class data archive {@code archive} if not null. */
+    static Map<String, Object> kernelJson(Path java, Path jar, Path archive, Settings settings) {
         List<String> argv = new ArrayList<>();
         argv.add(java.toAbsolutePath().toString());
-        argv.addAll(JVM_OPTIONS);
+        argv.addAll(jvmOptions(settings.heap()));
         if (archive != null) {
             argv.addAll(ClassArchive.jvmOptions(archive));
         }
         argv.add("-jar");
         argv.add(jar.toAbsolutePath().toString());
         argv.add("kernel");
-        if (refuseUnsigned) {
+        if (settings.refuseUnsigned()) {
             argv.add("--refuse-unsigned");
         }
         argv.add("{connection_file}");
         Map<String, Object> spec = new LinkedHashMap<>();
         spec.put("argv", argv);
         spec.put("display_name", DISPLAY_NAME);
-        spec.put("language", "java");
+        spec.put("language", KernelIdentity.LANGUAGE);
         spec.put("interrupt_mode", "message");
         spec.put("env", Map.of());
         spec.put("metadata", Map.of("debugger", false, "microtally_version", Main.version()));
         return spec;
     }
 
-    @SuppressWarnings("unchecked")
-    private static List<String> argv(Path java, Path jar, Path archive, boolean refuseUnsigned) {
-        return (List<String>) kernelJson(java, jar, archive, refuseUnsigned).get("argv");
-    }
-
-    /** Writes {@code dir/kernel.json}, creating {@code dir}. */
+    /** Writes {@code dir/kernel.json} with default settings, creating {@code dir}. */
     static Path write(Path dir, Path java, Path jar) throws IOException {
-        return write(dir, java, jar, null);
+        return write(dir, java, jar, null, Settings.DEFAULT);
     }
 
-    /** Writes {@code dir/kernel.json} using the class data archive {@code archive} (may be null). */
-    static Path write(Path dir, Path java, Path jar, Path archive) throws IOException {
-        return write(dir, java, jar, archive, false);
+    /** Writes {@code dir/kernel.json} (atomically) using the class data archive {@code archive} (may be null). */
+    static Path write(Path dir, Path java, Path jar, Path archive, Settings settings) throws IOException {
+        return writeJson(dir, kernelJson(java, jar, archive, settings));
     }
 
-    /** As {@link #write(Path, Path, Path, Path)}, with the kernel's {@code --refuse-unsigned} when asked. */
-    static Path write(Path dir, Path java, Path jar, Path archive, boolean refuseUnsigned) throws IOException {
+    /** Writes {@code spec} as {@code dir/kernel.json} by an atomic rename, creating {@code dir}. */
+    static Path writeJson(Path dir, Map<String, Object> spec) throws IOException {
         Files.createDirectories(dir);
         Path file = dir.resolve("kernel.json");
-        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create()
-                .toJson(kernelJson(java, jar, archive, refuseUnsigned));
-        Files.writeString(file, json + "\n", StandardCharsets.UTF_8);
+        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create().toJson(spec);
+        Path tmp = temporarySibling(file);
+        Files.writeString(tmp, json + "\n", StandardCharsets.UTF_8);
+        Files.move(tmp, file, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
         return file;
     }
 
     /**
-     * Installs the kernelspec: through {@code jupyter kernelspec install} when {@code jupyter} is on
-     * the PATH, else by writing it into the standard data directory of the scope. Prints what it did.
+     * Copies {@code source} to {@code target} through a temporary file in the target's directory and
+     * an atomic rename (a reader sees the old or the new file, never a part). Nothing is copied when
+     * both are the same file.
+     */
+    static void copyAtomically(Path source, Path target) throws IOException {
+        if (Files.exists(target) && Files.isSameFile(source, target)) {
+            return;
+        }
+        Files.createDirectories(target.getParent());
+        Path tmp = temporarySibling(target);
+        try {
+            Files.copy(source, tmp, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.COPY_ATTRIBUTES);
+            Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+        } finally {
+            Files.deleteIfExists(tmp);
+        }
+    }
+
+    private static Path temporarySibling(Path file) {
+        return file.resolveSibling("." + file.getFileName() + ".tmp-" + ProcessHandle.current().pid());
+    }
+
+    /**
+     * Installs the kernelspec into the Jupyter data directory of the scope ({@link #dataDir}): copies
+     * the jar, records the class data archive for the copy, then writes kernel.json pointing at both.
+     * Prints what it did.
      *
      * @return the installed kernelspec directory
      */
-    static Path install(Scope scope, Path prefix, Path jar, PrintStream out) throws IOException, InterruptedException {
-        return install(scope, prefix, jar, out, false);
-    }
-
-    /** As {@link #install(Scope, Path, Path, PrintStream)}; {@code refuseUnsigned} adds the kernel's {@code --refuse-unsigned}. */
-    static Path install(Scope scope, Path prefix, Path jar, PrintStream out, boolean refuseUnsigned)
-            throws IOException, InterruptedException {
+    static Path install(Scope scope, Path prefix, Path jar, PrintStream out, Settings settings) throws IOException {
         Path java = Path.of(System.getProperty("java.home"), "bin", "java");
-        Path staging = Files.createTempDirectory("microtally-kernelspec");
-        Path specDir = staging.resolve(NAME);
-        try {
-            out.println("recording the kernel's class data archive (one warm-up run, a few seconds)...");
-            Path archive = ClassArchive.create(java, jar, out).orElse(null);
-            write(specDir, java, jar, archive, refuseUnsigned);
-            Path jupyter = onPath("jupyter");
-            if (jupyter != null) {
-                List<String> cmd = new ArrayList<>(List.of(jupyter.toString(), "kernelspec", "install", "--name", NAME));
-                switch (scope) {
-                    case USER -> cmd.add("--user");
-                    case PREFIX -> cmd.add("--prefix=" + prefix.toAbsolutePath());
-                    case SYS_PREFIX -> cmd.add("--sys-prefix");
-                }
-                cmd.add(specDir.toString());
-                Process p = new ProcessBuilder(cmd).redirectErrorStream(true).start();
-                String log = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-                if (!p.waitFor(60, TimeUnit.SECONDS) || p.exitValue() != 0) {
-                    throw new IOException("jupyter kernelspec install failed:\n" + log.strip());
-                }
-                Path installed = installedDir(log, scope, prefix);
-                out.println("installed kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") with: " + String.join(" ", cmd));
-                out.println("  location: " + installed);
-                out.println("  runs: " + String.join(" ", argv(java, jar, archive, refuseUnsigned)));
-                return installed;
-            }
-            Path target = dataDir(scope, prefix).resolve("kernels").resolve(NAME);
-            write(target, java, jar, archive, refuseUnsigned);
-            out.println("jupyter is not on the PATH: wrote kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") directly to " + target);
-            out.println("  runs: " + String.join(" ", argv(java, jar, archive, refuseUnsigned)));
-            return target;
-        } finally {
-            deleteTree(staging);
-        }
+        Path target = dataDir(scope, prefix).resolve("kernels").resolve(NAME);
+        Path installedJar = target.resolve(JAR);
+        copyAtomically(jar, installedJar);
+        out.println("copied the toolkit jar to " + installedJar + " (" + Files.size(installedJar) / (1 << 20)
+                + " MiB; the kernelspec no longer depends on " + jar.getParent() + ")");
+        out.println("recording the kernel's class data archive (one warm-up run, a few seconds)...");
+        Path archive = ClassArchive.create(java, installedJar, settings.heap(), out).orElse(null);
+        write(target, java, installedJar, archive, settings);
+        out.println("installed kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") in " + target);
+        out.println("  runs: " + String.join(" ", argv(java, installedJar, archive, settings)));
+        return target;
     }
 
-    /** Jupyter prints "Installed kernelspec NAME in DIR"; fall back to the data directory rule. */
-    private static Path installedDir(String log, Scope scope, Path prefix) {
-        for (String line : log.split("\\R")) {
-            int i = line.indexOf(" in /");
-            if (line.contains("Installed kernelspec") && i > 0) {
-                return Path.of(line.substring(i + 4).strip());
-            }
-        }
-        return dataDir(scope, prefix).resolve("kernels").resolve(NAME);
+    @SuppressWarnings("unchecked")
+    private static List<String> argv(Path java, Path jar, Path archive, Settings settings) {
+        return (List<String>) kernelJson(java, jar, archive, settings).get("argv");
     }
 
     /**
@@ -226,13 +231,5 @@ final class KernelSpec {
             }
         }
         return null;
-    }
-
-    private static void deleteTree(Path root) {
-        try (var walk = Files.walk(root)) {
-            walk.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-        } catch (IOException e) {
-            // a leftover temp directory is harmless
-        }
     }
 }

@@ -103,7 +103,7 @@ public final class Main implements Callable<Integer> {
                 kernel = new Kernel(props, Session::open, refuseUnsigned).onShutdown(() -> System.exit(0));
             } catch (IllegalArgumentException e) {
                 KernelLog.LOG.severe(e.getMessage());
-                System.err.println("microtally kernel: " + e.getMessage());
+                System.err.println("microtally: kernel: " + e.getMessage());
                 return 1;
             }
             kernel.start();
@@ -139,6 +139,14 @@ public final class Main implements Callable<Integer> {
                 description = "make the kernel refuse a connection file with an empty key (unsigned messages)")
         boolean refuseUnsigned;
 
+        @Option(names = "--heap", paramLabel = "SIZE",
+                description = {"maximum heap of the kernel, e.g. 4g or 1500m (default: $" + HeapSize.ENV + " if set, else "
+                        + HeapSize.KERNEL_DEFAULT + ", and " + HeapSize.SPARK_DEFAULT + " for the Spark kernel)"})
+        String heap;
+
+        @CommandLine.Spec
+        CommandLine.Model.CommandSpec spec;
+
         @Option(names = SparkKernelSpec.OPTION,
                 description = "also install 'microtally-spark', the kernel with the Spark module on its class path")
         boolean withSpark;
@@ -155,24 +163,30 @@ public final class Main implements Callable<Integer> {
         public Integer call() {
             KernelSpec.Scope scope = where == null || where.user ? KernelSpec.Scope.USER
                     : where.sysPrefix ? KernelSpec.Scope.SYS_PREFIX : KernelSpec.Scope.PREFIX;
+            String plainHeap;
+            String sparkHeap;
+            try {
+                String asked = heap != null ? HeapSize.check(heap, "--heap") : HeapSize.fromEnvironment(null);
+                plainHeap = asked != null ? asked : HeapSize.KERNEL_DEFAULT;
+                sparkHeap = asked != null ? asked : HeapSize.SPARK_DEFAULT;
+            } catch (IllegalArgumentException e) {
+                throw new CommandLine.ParameterException(spec.commandLine(), e.getMessage());
+            }
             Optional<Path> jar = ownJar();
             if (jar.isEmpty()) {
                 err.println("microtally: install-kernel must run from the shaded jar (toolkit/bin/microtally install-kernel),"
-                        + " so that the kernelspec can point at it");
+                        + " so that it can copy that jar into the kernelspec");
                 return 1;
             }
             try {
                 Path prefix = scope == KernelSpec.Scope.PREFIX ? where.prefix : null;
-                KernelSpec.install(scope, prefix, jar.get(), out, refuseUnsigned);
+                Path installed = KernelSpec.install(scope, prefix, jar.get(), out, new KernelSpec.Settings(plainHeap, refuseUnsigned));
                 if (withSpark) {
-                    SparkKernelSpec.install(scope, prefix, jar.get(), out);
+                    SparkKernelSpec.install(scope, prefix, installed.resolve(KernelSpec.JAR), out, sparkHeap);
                 }
                 return 0;
             } catch (IOException | IllegalStateException e) {
                 err.println("microtally: install-kernel failed: " + e.getMessage());
-                return 1;
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
                 return 1;
             }
         }
@@ -186,7 +200,7 @@ public final class Main implements Callable<Integer> {
             try {
                 return ClassArchive.warmUp();
             } catch (IOException e) {
-                System.err.println("microtally warm-up failed: " + e.getMessage());
+                System.err.println("microtally: warm-up failed: " + e.getMessage());
                 return 1;
             }
         }

@@ -25,6 +25,8 @@ import java.util.logging.Level;
 import org.microtally.notebook.session.Completeness;
 import org.microtally.notebook.session.Completions;
 import org.microtally.notebook.session.Engine;
+import org.microtally.notebook.session.KernelIdentity;
+import org.microtally.notebook.session.Provenance;
 import org.zeromq.ZMQ;
 
 /**
@@ -38,6 +40,15 @@ final class Requests {
     static final String UNSIGNED_WARNING = "WARNING: the connection file has an empty key, so messages are not signed "
             + "and any local process that can reach the ports can run code here; install the kernel with "
             + "'microtally install-kernel --refuse-unsigned' (or start it with 'kernel --refuse-unsigned') to refuse such a connection file";
+
+    /**
+     * The kernel_info_reply's message metadata: {@code {"microtally": {"provenance": ...}}}. The
+     * messaging protocol gives every message a metadata dict; Jupyter's clients do not copy it into
+     * the notebook, so a notebook executed by Jupyter records only language_info, while the headless
+     * runner writes the same record into {@code metadata.microtally.provenance}.
+     */
+    static final Map<String, Object> KERNEL_INFO_METADATA = Map.of("microtally",
+            Map.of("provenance", Provenance.of("microtally kernel", null).asMap()));
 
     private final KernelWire wire;
     private final EngineSlot engine;
@@ -72,7 +83,7 @@ final class Requests {
         try {
             switch (type) {
                 case "kernel_info_request" -> {
-                    wire.reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo(unsigned));
+                    wire.reply(socket, m, MessageType.KERNEL_INFO_REPLY, kernelInfo(unsigned), KERNEL_INFO_METADATA);
                     if (firstKernelInfo.getCount() > 0) {
                         firstKernelInfoAt = System.currentTimeMillis();
                         firstKernelInfo.countDown();
@@ -92,16 +103,19 @@ final class Requests {
     }
 
     static KernelInfoReply kernelInfo(boolean unsigned) {
-        LanguageInfo language = new LanguageInfo.Builder("java")
-                .version("17")
-                .mimetype("text/x-java")
-                .fileExtension(".jshell")
-                .pygments("java")
-                .codemirror("text/x-java")
+        Map<String, String> info = KernelIdentity.languageInfo();
+        LanguageInfo language = new LanguageInfo.Builder(info.get("name"))
+                .version(info.get("version"))
+                .mimetype(info.get("mimetype"))
+                .fileExtension(info.get("file_extension"))
+                .pygments(info.get("pygments_lexer"))
+                .codemirror(info.get("codemirror_mode"))
                 .build();
-        String banner = "microtally " + Main.version() + ": Java 17 cells (JShell) with the microtally toolkit imported"
+        Map<String, Object> provenance = Provenance.of("microtally kernel", null).asMap();
+        String banner = "microtally " + provenance.get("toolkit_version") + " (" + provenance.get("commit") + "), Java "
+                + KernelIdentity.javaVersion() + ": cells run in JShell with the microtally toolkit imported"
                 + (unsigned ? "\n" + UNSIGNED_WARNING : "");
-        return new KernelInfoReply(PROTOCOL_VERSION, "microtally", Main.version(), language, banner, List.of());
+        return new KernelInfoReply(PROTOCOL_VERSION, KernelIdentity.KERNEL_NAME, Main.version(), language, banner, List.of());
     }
 
     private void shutdown(ZMQ.Socket socket, Message<?> m) {
@@ -130,8 +144,38 @@ final class Requests {
             KernelLog.LOG.log(Level.WARNING, "completion failed", e);
             c = new Completions(List.of(), cursor, cursor);
         }
-        wire.reply(socket, m, MessageType.COMPLETE_REPLY, new CompleteReply(c.matches(),
-                CodePoints.toCodePoints(code, c.start()), CodePoints.toCodePoints(code, c.end()), Map.of()));
+        int start = CodePoints.toCodePoints(code, c.start());
+        int end = CodePoints.toCodePoints(code, c.end());
+        wire.reply(socket, m, MessageType.COMPLETE_REPLY, new CompleteReply(c.matches(), start, end, completionMetadata(c, start, end)));
+    }
+
+    /**
+     * The complete_reply metadata: {@code _jupyter_types_experimental} (the per-match list JupyterLab
+     * reads: start, end, text, and type for matches that fit the argument position, with the called
+     * overloads as their signature) and {@code microtally_signatures} (those overloads).
+     */
+    static Map<String, Object> completionMetadata(Completions c, int start, int end) {
+        List<Map<String, Object>> items = new java.util.ArrayList<>();
+        String overloads = String.join("\n", c.signatures());
+        for (int i = 0; i < c.matches().size(); i++) {
+            Map<String, Object> item = new java.util.LinkedHashMap<>();
+            item.put("start", start);
+            item.put("end", end);
+            item.put("text", c.matches().get(i));
+            if (!c.kinds().get(i).isEmpty()) {
+                item.put("type", c.kinds().get(i));
+                if (!overloads.isEmpty()) {
+                    item.put("signature", overloads);
+                }
+            }
+            items.add(item);
+        }
+        Map<String, Object> meta = new java.util.LinkedHashMap<>();
+        meta.put("_jupyter_types_experimental", items);
+        if (!c.signatures().isEmpty()) {
+            meta.put("microtally_signatures", c.signatures());
+        }
+        return meta;
     }
 
     private void inspect(ZMQ.Socket socket, Message<?> m) {

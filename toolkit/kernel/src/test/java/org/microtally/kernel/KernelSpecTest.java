@@ -29,14 +29,66 @@ class KernelSpecTest {
         assertEquals("/opt/jdk17/bin/java", argv.get(0).getAsString());
         assertEquals(List.of("-Xmx1g", "-XX:+UseSerialGC", "-jar", jar.toAbsolutePath().toString(), "kernel", "{connection_file}"),
                 argv.asList().subList(1, argv.size()).stream().map(e -> e.getAsString()).toList());
-        assertEquals("Java 17 (microtally)", spec.get("display_name").getAsString());
+        assertEquals("microtally \u2014 exact counts", spec.get("display_name").getAsString());
         assertEquals("java", spec.get("language").getAsString());
         assertEquals("message", spec.get("interrupt_mode").getAsString());
 
-        Path strict = KernelSpec.write(dir.resolve("strict"), java, jar, null, true);
+        Path strict = KernelSpec.write(dir.resolve("strict"), java, jar, null, new KernelSpec.Settings("3g", true));
         JsonArray strictArgv = JsonParser.parseString(Files.readString(strict)).getAsJsonObject().getAsJsonArray("argv");
         assertEquals(List.of("kernel", "--refuse-unsigned", "{connection_file}"),
                 strictArgv.asList().subList(strictArgv.size() - 3, strictArgv.size()).stream().map(e -> e.getAsString()).toList());
+        // Source: java launcher documentation (JDK 17): -Xmx<size> with a k, m or g suffix sets the maximum heap
+        assertEquals("-Xmx3g", strictArgv.get(1).getAsString());
+    }
+
+    @Test
+    void theInstalledKernelspecOwnsItsJarAndSurvivesDeletingTheBuild(@TempDir Path dir) throws Exception {
+        // a stand-in for the shaded jar (the class data archive then cannot be recorded, which install reports)
+        Path build = Files.createDirectories(dir.resolve("checkout/toolkit/kernel/target"));
+        Path jar = Files.write(build.resolve("microtally.jar"), new byte[] {'P', 'K', 5, 6, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0});
+        ByteArrayOutputStream buf = new ByteArrayOutputStream();
+        PrintStream out = new PrintStream(buf, true, StandardCharsets.UTF_8);
+        Path prefix = dir.resolve("prefix");
+        Path installed = KernelSpec.install(KernelSpec.Scope.PREFIX, prefix, jar, out, new KernelSpec.Settings("2g", false));
+        // Source: jupyter_core paths documentation: PREFIX/share/jupyter/kernels/NAME
+        assertEquals(prefix.toAbsolutePath().resolve("share/jupyter/kernels/microtally"), installed);
+        Files.delete(jar);   // what mvn clean does
+        Files.delete(build);
+        JsonArray argv = JsonParser.parseString(Files.readString(installed.resolve("kernel.json"))).getAsJsonObject().getAsJsonArray("argv");
+        List<String> args = argv.asList().stream().map(e -> e.getAsString()).toList();
+        String named = args.get(args.indexOf("-jar") + 1);
+        assertTrue(Path.of(named).startsWith(installed) && Files.isRegularFile(Path.of(named)), "kernel.json names " + named);
+        assertTrue(args.contains("-Xmx2g"), args.toString());
+        for (String a : args) {
+            if (a.startsWith("-XX:SharedArchiveFile=")) {
+                assertTrue(Files.isRegularFile(Path.of(a.substring(a.indexOf('=') + 1))), a);
+            }
+        }
+        // a re-install replaces the copy in place and leaves no temporary files behind
+        Path again = Files.write(dir.resolve("other.jar"), new byte[] {'P', 'K', 5, 6, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0});
+        KernelSpec.install(KernelSpec.Scope.PREFIX, prefix, again, out, KernelSpec.Settings.DEFAULT);
+        assertEquals(1, Files.readAllBytes(installed.resolve(KernelSpec.JAR))[4], "the re-install did not replace the jar copy");
+        try (var files = Files.list(installed)) {
+            List<String> names = files.map(p -> p.getFileName().toString()).sorted().toList();
+            assertTrue(names.stream().noneMatch(n -> n.contains(".tmp-")), names.toString());
+        }
+        assertTrue(Files.readString(installed.resolve("kernel.json")).contains("-Xmx1g"));
+    }
+
+    @Test
+    void heapSizesAreCheckedAndBadOnesRefusedAsUsage() {
+        // Source: java launcher documentation (JDK 17), -Xmx: a number with k/m/g; a bare number means bytes
+        assertEquals("1500m", HeapSize.check("1500M", "--heap"));
+        assertEquals("4g", HeapSize.check(" 4g ", "--heap"));
+        for (String bad : List.of("", "4", "4gb", "0g", "-1g", "four")) {
+            IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+                    () -> HeapSize.check(bad, "--heap"));
+            assertTrue(e.getMessage().contains("'" + bad + "'") && e.getMessage().contains("4g"), e.getMessage());
+        }
+        ByteArrayOutputStream buf = new ByteArrayOutputStream();
+        PrintStream err = new PrintStream(buf, true, StandardCharsets.UTF_8);
+        assertEquals(2, Main.run(new String[] {"install-kernel", "--heap", "12"}, System.out, err));
+        assertTrue(buf.toString(StandardCharsets.UTF_8).contains("not a heap size"), buf.toString(StandardCharsets.UTF_8));
     }
 
     @Test

@@ -141,7 +141,7 @@ public final class Sweep {
                     String.format("%d rows x %d bytes = %.3g MiB", rows, BYTES_PER_ROW, bytes / (1 << 20)),
                     String.format("at most %.3g MiB (half the driver's maximum heap)", limit / (1 << 20)),
                     "Write the result to Parquet or CSV, aggregate it with Spark SQL first, split the grid, "
-                            + "run on a cluster, or give the driver a larger -Xmx.");
+                            + "run on a cluster, or give the driver more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
         }
     }
 

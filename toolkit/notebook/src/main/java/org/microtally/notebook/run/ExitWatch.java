@@ -35,7 +35,7 @@ final class ExitWatch implements AutoCloseable {
     private void report() {
         String cell = running;
         if (cell != null) {
-            log.println("microtally run: FAILED " + cell + ": code called by that cell ended the JVM (System.exit outside "
+            log.println("microtally: FAILED " + cell + ": code called by that cell ended the JVM (System.exit outside "
                     + "the cell's own code); this notebook and the ones after it were not written");
             log.flush();
             Runtime.getRuntime().halt(EXIT_STATUS);   // the status of a failed cell, whatever status the library asked for

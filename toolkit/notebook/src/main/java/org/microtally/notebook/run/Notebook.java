@@ -228,7 +228,8 @@ final class Notebook {
     }
 
     /**
-     * Prepares the tree for output as an executed notebook: kernel and language metadata, required
+     * Prepares the tree for output as an executed notebook: kernel and language metadata, provenance
+     * ({@code metadata.microtally.provenance}), required
      * fields of every cell, and cell ids where the declared minor version requires them (4.5+).
      */
     void normalize() {
@@ -236,17 +237,16 @@ final class Notebook {
                 ? root.getAsJsonObject("metadata") : new JsonObject();
         root.add("metadata", md);
         JsonObject kernelspec = new JsonObject();
-        kernelspec.addProperty("name", "microtally");
-        kernelspec.addProperty("display_name", "Java 17 (microtally)");
-        kernelspec.addProperty("language", "java");
+        kernelspec.addProperty("name", org.microtally.notebook.session.KernelIdentity.KERNEL_NAME);
+        kernelspec.addProperty("display_name", org.microtally.notebook.session.KernelIdentity.DISPLAY_NAME);
+        kernelspec.addProperty("language", org.microtally.notebook.session.KernelIdentity.LANGUAGE);
         md.add("kernelspec", kernelspec);
-        JsonObject lang = new JsonObject();
-        lang.addProperty("name", "java");
-        lang.addProperty("version", System.getProperty("java.version"));
-        lang.addProperty("mimetype", "text/x-java-source");
-        lang.addProperty("file_extension", ".java");
-        lang.addProperty("codemirror_mode", "text/x-java");
+        JsonObject lang = GSON.toJsonTree(org.microtally.notebook.session.KernelIdentity.languageInfo()).getAsJsonObject();
         md.add("language_info", lang);
+        JsonObject own = md.has("microtally") && md.get("microtally").isJsonObject() ? md.getAsJsonObject("microtally") : new JsonObject();
+        own.add("provenance", GSON.toJsonTree(org.microtally.notebook.session.Provenance.of("microtally run",
+                cells().stream().map(c -> type(c).equals("code") ? text(c.get("source")) : "").toList()).asMap()));
+        md.add("microtally", own);
         if (!root.has("nbformat_minor") || !root.get("nbformat_minor").isJsonPrimitive()) {
             root.addProperty("nbformat_minor", 5);
         }

@@ -72,7 +72,7 @@ public final class NotebookRunner {
         Set<String> names = new HashSet<>();
         for (Path p : notebooks) {
             if (!names.add(baseName(p))) {
-                log.println("microtally run: two notebooks are named " + baseName(p) + "; their outputs would overwrite each other in "
+                log.println("microtally: two notebooks are named " + baseName(p) + "; their outputs would overwrite each other in "
                         + settings.outDir() + ". Run them with different --out directories.");
                 return 2;
             }
@@ -92,7 +92,7 @@ public final class NotebookRunner {
             }
         }
         if (first.isPresent()) {
-            log.println("microtally run: FAILED " + first.get().describe());
+            log.println("microtally: FAILED " + first.get().describe());
             return 1;
         }
         return badInput ? 2 : 0;
@@ -112,7 +112,7 @@ public final class NotebookRunner {
             input = Notebook.read(file);
             timeout = settings.cellTimeoutFor(input);
         } catch (NotebookFormatException e) {
-            log.println("microtally run: " + e.getMessage());
+            log.println("microtally: " + e.getMessage());
             return Outcome.BAD_INPUT;
         }
         // check the output folder before anything runs
@@ -123,13 +123,13 @@ public final class NotebookRunner {
             problem = "the output " + target + " would replace the input notebook; choose another --out directory";
         }
         if (problem != null) {
-            log.println("microtally run: " + file + " not run: " + problem);
+            log.println("microtally: " + file + " not run: " + problem);
             return Outcome.BAD_INPUT;
         }
         // execute cell by cell, collecting the outputs
         NotebookExecution.Executed done = new NotebookExecution(file, timeout, settings, progress, exits).run(input, engines);
         if (done.failure().isPresent() && !settings.keepGoing()) {
-            log.println("microtally run: " + file + ": nothing written, the run stopped at a failing cell");
+            log.println("microtally: " + file + ": nothing written, the run stopped at a failing cell");
             return new Outcome(done.failure(), false);
         }
         // write: the page, then the executed notebook (the pair rule of OutputFolder)
@@ -137,14 +137,14 @@ public final class NotebookRunner {
             List<Path> pair = List.of(page, target);
             int stale = OutputFolder.removeStalePartials(pair);
             if (stale > 0) {
-                log.println("microtally run: removed " + stale + " temporary file(s) left in " + settings.outDir() + " by an interrupted run");
+                log.println("microtally: removed " + stale + " temporary file(s) left in " + settings.outDir() + " by an interrupted run");
             }
             OutputFolder.writeAtomically(pair, List.of(HtmlPage.of(done.notebook(), baseName(file)), done.notebook().toJson()));
         } catch (IOException e) {
-            log.println("microtally run: cannot write the outputs of " + file + " to " + settings.outDir() + ": " + OutputFolder.reason(e));
+            log.println("microtally: cannot write the outputs of " + file + " to " + settings.outDir() + ": " + OutputFolder.reason(e));
             return new Outcome(done.failure(), true);
         }
-        log.println("microtally run: wrote " + target + " and " + page);
+        log.println("microtally: wrote " + target + " and " + page);
         return done.failure().isPresent() ? new Outcome(done.failure(), false) : Outcome.OK;
     }
 

@@ -59,7 +59,7 @@ final class CellContext {
 
     /** A failing output sink must not turn into an exception in the cell's own print call. */
     private void sinkFailed(RuntimeException e) {
-        OutputRouter.CONSOLE_ERR.println("microtally engine: the cell output sink failed and dropped output: " + e);
+        OutputRouter.CONSOLE_ERR.println("microtally: the cell output sink failed and dropped output: " + e);
     }
 
     private void emit(boolean whole) {
