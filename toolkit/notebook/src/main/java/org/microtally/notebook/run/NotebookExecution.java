@@ -116,7 +116,7 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
                 failure = Optional.of(new Failure(file, cellNumber, count, e.type() + (msg.isEmpty() ? "" : ": " + msg)));
             }
         }
-        cell.add("outputs", collector.toJson());
+        collector.finishInto(cell);   // outputs, and the times in the cell metadata
         progress.cellDone(file, count, codeCells, cellNumber, status, seconds);
         return failure;
     }
