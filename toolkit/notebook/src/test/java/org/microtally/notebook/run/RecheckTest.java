@@ -1,0 +1,97 @@
+package org.microtally.notebook.run;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.google.gson.JsonArray;
+import com.google.gson.JsonObject;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.Timeout;
+import org.junit.jupiter.api.io.TempDir;
+import org.microtally.notebook.session.Session;
+import picocli.CommandLine;
+
+/** Reruns give the same outputs byte for byte, and {@code microtally recheck} confirms or reports numbers. */
+@Timeout(value = 180, unit = TimeUnit.SECONDS)
+class RecheckTest {
+    @TempDir
+    Path tmp;
+
+    final ByteArrayOutputStream logBytes = new ByteArrayOutputStream();
+    final PrintStream log = new PrintStream(logBytes, true, StandardCharsets.UTF_8);
+
+    String log() {
+        return logBytes.toString(StandardCharsets.UTF_8);
+    }
+
+    int recheck(String... args) {
+        CommandLine cli = Cli.configure(new CommandLine(new RecheckCommand(log, Session::open)), log, log);
+        return cli.execute(args);
+    }
+
+    Path executed(String out) throws IOException {
+        Path in = tmp.resolve("in");
+        Files.createDirectories(in);
+        Path nb = in.resolve("dot-shells.ipynb");
+        if (!Files.exists(nb)) {
+            Files.copy(NotebookRunnerTest.resource("dot-shells.ipynb"), nb);
+        }
+        assertEquals(0, NotebookRunner.main(List.of(nb.toString(), "--out", tmp.resolve(out).toString()), log, false), log());
+        return tmp.resolve(out).resolve("dot-shells.ipynb");
+    }
+
+    static String outputsOf(Path executed) throws IOException {
+        StringBuilder sb = new StringBuilder();
+        for (var cell : NotebookRunnerTest.readJson(executed).getAsJsonArray("cells")) {
+            JsonObject c = cell.getAsJsonObject();
+            sb.append(c.has("outputs") ? c.get("outputs").toString() : "-").append('\n');
+        }
+        return sb.toString();
+    }
+
+    @Test
+    void twoRunsOfAnUnchangedNotebookGiveByteIdenticalOutputsAndRecheckAgrees() throws IOException {
+        Path first = executed("one");
+        Path second = executed("two");
+        String a = outputsOf(first);
+        assertTrue(a.contains("closed shell at 12"), a);   // the runs did produce outputs
+        assertEquals(a, outputsOf(second));
+        // the notebooks differ only in the cells' times (metadata.execution)
+        assertTrue(Files.readString(first).contains("\"iopub.execute_input\""));
+
+        assertEquals(0, recheck(first.toString(), second.toString()), log());
+        assertTrue(log().contains("agree: "), log());
+        // one notebook: its code is run again and compared with the saved outputs
+        assertEquals(0, recheck(first.toString()), log());
+        assertTrue(log().contains(first + " and its rerun agree"), log());
+    }
+
+    @Test
+    void aChangedNumberIsReportedWithItsCellAndTheToleranceDecides() throws IOException {
+        Path first = executed("one");
+        JsonObject nb = NotebookRunnerTest.readJson(first);
+        // cell 2 (index 1) ends in the value 4 (the degeneracy of the k = 3 level): make it 4.000001
+        JsonObject result = nb.getAsJsonArray("cells").get(1).getAsJsonObject().getAsJsonArray("outputs").get(1).getAsJsonObject();
+        JsonArray plain = new JsonArray();
+        plain.add("4.000001");
+        result.getAsJsonObject("data").add("text/plain", plain);
+        Path changed = tmp.resolve("changed.ipynb");
+        Files.writeString(changed, nb.toString());
+
+        assertEquals(1, recheck(first.toString(), changed.toString()));
+        assertTrue(log().contains("cell 2, output 2: 4 against 4.000001 (relative difference 2.5e-07)"), log());
+        assertTrue(log().contains("DIFFER (1 differences"), log());
+        assertEquals(0, recheck(first.toString(), changed.toString(), "--rel-tol", "1e-6"), log());
+        assertEquals(2, recheck(first.toString(), changed.toString(), "--rel-tol", "-1"));
+        assertEquals(2, recheck(tmp.resolve("missing.ipynb").toString()));
+        assertTrue(log().contains("not found"), log());
+    }
+}
