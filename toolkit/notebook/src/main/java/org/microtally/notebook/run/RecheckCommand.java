@@ -12,6 +12,7 @@ import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
 
 /**
  * {@code microtally recheck EXECUTED.ipynb [OTHER.ipynb] [--rel-tol R] [--abs-tol A]}: confirms
@@ -40,6 +41,9 @@ public final class RecheckCommand implements Callable<Integer> {
             description = "time limit of each cell on the rerun (default as for the run command)")
     Double cellTimeoutSeconds;
 
+    @Spec
+    CommandLine.Model.CommandSpec spec;
+
     private final PrintStream log;
     private final Engine.Factory engines;
 
@@ -55,7 +59,7 @@ public final class RecheckCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        CommandLine me = new CommandLine(this);
+        CommandLine me = spec.commandLine();
         if (!(relative >= 0) || Double.isInfinite(relative)) {
             throw new CommandLine.ParameterException(me, "--rel-tol = " + relative + " is not allowed: give a number >= 0, e.g. 1e-9");
         }

@@ -94,4 +94,22 @@ class RecheckTest {
         assertEquals(2, recheck(tmp.resolve("missing.ipynb").toString()));
         assertTrue(log().contains("not found"), log());
     }
+
+    @Test
+    void relativePathsInCellsAreTheNotebooksNeighbours() throws IOException {
+        Path folder = Files.createDirectories(tmp.resolve("shared"));
+        // the quantum dot's lowest shells with spin: 2, 4, 6 states (2D oscillator; from memory)
+        Files.writeString(folder.resolve("dot-levels.csv"), "energy,degeneracy\n0,2\n1,4\n2,6\n");
+        String code = "Spectrum dot = SpectrumReader.fromCsv(Path.of(\"dot-levels.csv\"), "
+                + "EnergyScale.of(\"meV\", Energy.of(1, EnergyUnit.MILLIELECTRONVOLT)));\n"
+                + "Csv.write(Tables.levels(dot), Path.of(\"copy.csv\"));\ndot.stateCount()";
+        Path nb = folder.resolve("reads-csv.ipynb");
+        Files.writeString(nb, "{\"nbformat\": 4, \"nbformat_minor\": 5, \"metadata\": {}, \"cells\": [{\"cell_type\": \"code\", "
+                + "\"metadata\": {}, \"source\": " + new com.google.gson.Gson().toJson(code) + ", \"outputs\": [], \"execution_count\": null}]}");
+        // the test's working directory is the module folder, not the notebook's
+        assertEquals(0, NotebookRunner.main(List.of(nb.toString(), "--out", tmp.resolve("o").toString()), log, false), log());
+        JsonObject result = NotebookRunnerTest.output(NotebookRunnerTest.readJson(tmp.resolve("o").resolve("reads-csv.ipynb")), 0, 0);
+        assertEquals("12", org.microtally.notebook.run.Notebook.text(result.getAsJsonObject("data").get("text/plain")));
+        assertTrue(Files.exists(folder.resolve("copy.csv")));
+    }
 }
