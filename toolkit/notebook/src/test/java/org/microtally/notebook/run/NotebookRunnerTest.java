@@ -156,7 +156,7 @@ class NotebookRunnerTest {
         JsonObject last = output(nb, 4, 0);
         assertEquals(Renderers.render("survived: true").plain(), Notebook.text(last.getAsJsonObject("data").get("text/plain")));
         String html = Files.readString(out.resolve("expected-faults.html"));
-        assertTrue(html.contains("class=\"output error\""));
+        assertTrue(html.contains("class=\"mt-output mt-error\""));
     }
 
     @Test
