@@ -22,11 +22,12 @@ import picocli.CommandLine;
 /** Reruns give the same outputs byte for byte, and {@code microtally recheck} confirms or reports numbers. */
 @Timeout(value = 180, unit = TimeUnit.SECONDS)
 class RecheckTest {
-    @TempDir
-    Path tmp;
-
+    /** What the runner and the recheck command report, gathered for the assertions. */
     final ByteArrayOutputStream logBytes = new ByteArrayOutputStream();
     final PrintStream log = new PrintStream(logBytes, true, StandardCharsets.UTF_8);
+
+    @TempDir
+    Path tmp;
 
     String log() {
         return logBytes.toString(StandardCharsets.UTF_8);
