@@ -12,15 +12,14 @@ import org.microtally.notebook.render.MimeBundle;
  *
  * <p>Look: {@code label, stage: 7 of 12 (58%)} followed by a track of {@value #TRACK} cells,
  * {@code |} for done and {@code .} for to do (HTML: a slim bar of our own, class {@code mt-progress}).
- * When a stage reports done == total the display is cleared (an empty bundle), so a saved notebook
- * keeps no finished bar; a later stage shows it again.
+ * When a stage reports done == total the bar is replaced by one line without it,
+ * {@code label, stage: done (12 of 12)} ({@link #finished}), so a notebook Jupyter saves keeps no
+ * finished bar; a later stage shows the bar again. (The headless runner saves no progress display.)
  */
 final class ProgressDisplay implements ProgressListener {
     static final long MIN_INTERVAL_MS = 100;
     static final int MAX_UPDATES = 200;
     static final int TRACK = 20;
-    /** The bundle that replaces a finished display: nothing to see. */
-    static final MimeBundle CLEARED = MimeBundle.builder("").put(MimeBundle.TEXT_HTML, "").build();
 
     private final String label;
     private final String id;
@@ -56,7 +55,7 @@ final class ProgressDisplay implements ProgressListener {
             if (!last && (updates >= MAX_UPDATES || now - lastNanos < MIN_INTERVAL_MS * 1_000_000L)) {
                 return;
             }
-            b = last ? CLEARED : bundle(label, d, t, stage);
+            b = last ? finished(label, t, stage) : bundle(label, d, t, stage);
             if (b.plain().equals(lastShown)) {
                 return;
             }
@@ -65,6 +64,15 @@ final class ProgressDisplay implements ProgressListener {
             updates++;
         }
         Display.emitTo(target(), b, id, true, true);
+    }
+
+    /** The line that replaces the bar when a stage is done: no bar, no timing. */
+    static MimeBundle finished(String label, long total, String stage) {
+        String s = stage == null || stage.isBlank() ? "" : ", " + stage;
+        String plain = label + s + String.format(Locale.ROOT, ": done (%,d of %,d)", total, total);
+        return MimeBundle.builder(plain).put(MimeBundle.TEXT_HTML,
+                "<div class=\"mt-progress mt-done\" style=\"font:13px sans-serif;margin:2px 0;color:#55666b\">"
+                        + Markup.escape(plain) + "</div>").build();
     }
 
     /** The display of {@code done} of {@code total} (total >= 1, 0 <= done <= total). */

@@ -27,8 +27,9 @@ class ProgressDisplayTest {
     }
 
     @Test
-    void aFinishedDisplayIsEmpty() {
-        assertEquals("", ProgressDisplay.CLEARED.plain());
-        assertEquals("", ProgressDisplay.CLEARED.get(MimeBundle.TEXT_HTML));
+    void aFinishedStageShowsOneLineWithoutTheBar() {
+        MimeBundle b = ProgressDisplay.finished("counting trap levels", 20, "shell 20");
+        assertEquals("counting trap levels, shell 20: done (20 of 20)", b.plain());
+        assertFalse(b.get(MimeBundle.TEXT_HTML).contains("width:"), b.get(MimeBundle.TEXT_HTML));
     }
 }

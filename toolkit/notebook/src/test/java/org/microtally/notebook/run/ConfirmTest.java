@@ -19,10 +19,10 @@ import org.junit.jupiter.api.io.TempDir;
 import org.microtally.notebook.session.Session;
 import picocli.CommandLine;
 
-/** Reruns give the same outputs byte for byte, and {@code microtally recheck} confirms or reports numbers. */
+/** Reruns give the same outputs byte for byte, and {@code microtally confirm} confirms or reports numbers. */
 @Timeout(value = 180, unit = TimeUnit.SECONDS)
-class RecheckTest {
-    /** What the runner and the recheck command report, gathered for the assertions. */
+class ConfirmTest {
+    /** What the runner and the confirm command report, gathered for the assertions. */
     final ByteArrayOutputStream logBytes = new ByteArrayOutputStream();
     final PrintStream log = new PrintStream(logBytes, true, StandardCharsets.UTF_8);
 
@@ -33,8 +33,8 @@ class RecheckTest {
         return logBytes.toString(StandardCharsets.UTF_8);
     }
 
-    int recheck(String... args) {
-        CommandLine cli = Cli.configure(new CommandLine(new RecheckCommand(log, Session::open)), log, log);
+    int confirm(String... args) {
+        CommandLine cli = Cli.configure(new CommandLine(new ConfirmCommand(log, Session::open)), log, log);
         return cli.execute(args);
     }
 
@@ -59,7 +59,7 @@ class RecheckTest {
     }
 
     @Test
-    void twoRunsOfAnUnchangedNotebookGiveByteIdenticalOutputsAndRecheckAgrees() throws IOException {
+    void twoRunsOfAnUnchangedNotebookGiveByteIdenticalOutputsAndConfirmAgrees() throws IOException {
         Path first = executed("one");
         Path second = executed("two");
         String a = outputsOf(first);
@@ -68,10 +68,10 @@ class RecheckTest {
         // the notebooks differ only in the cells' times (metadata.execution)
         assertTrue(Files.readString(first).contains("\"iopub.execute_input\""));
 
-        assertEquals(0, recheck(first.toString(), second.toString()), log());
+        assertEquals(0, confirm(first.toString(), second.toString()), log());
         assertTrue(log().contains("agree: "), log());
         // one notebook: its code is run again and compared with the saved outputs
-        assertEquals(0, recheck(first.toString()), log());
+        assertEquals(0, confirm(first.toString()), log());
         assertTrue(log().contains(first + " and its rerun agree"), log());
     }
 
@@ -87,12 +87,12 @@ class RecheckTest {
         Path changed = tmp.resolve("changed.ipynb");
         Files.writeString(changed, nb.toString());
 
-        assertEquals(1, recheck(first.toString(), changed.toString()));
+        assertEquals(1, confirm(first.toString(), changed.toString()));
         assertTrue(log().contains("cell 2, output 2: 4 against 4.000001 (relative difference 2.5e-07)"), log());
         assertTrue(log().contains("DIFFER (1 differences"), log());
-        assertEquals(0, recheck(first.toString(), changed.toString(), "--rel-tol", "1e-6"), log());
-        assertEquals(2, recheck(first.toString(), changed.toString(), "--rel-tol", "-1"));
-        assertEquals(2, recheck(tmp.resolve("missing.ipynb").toString()));
+        assertEquals(0, confirm(first.toString(), changed.toString(), "--rel-tol", "1e-6"), log());
+        assertEquals(2, confirm(first.toString(), changed.toString(), "--rel-tol", "-1"));
+        assertEquals(2, confirm(tmp.resolve("missing.ipynb").toString()));
         assertTrue(log().contains("not found"), log());
     }
 

@@ -15,18 +15,18 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code microtally recheck EXECUTED.ipynb [OTHER.ipynb] [--rel-tol R] [--abs-tol A]}: confirms
+ * {@code microtally confirm EXECUTED.ipynb [OTHER.ipynb] [--rel-tol R] [--abs-tol A]}: confirms
  * that a notebook's numbers come out again. With one notebook its code is run again in a fresh
  * session (nothing is written) and the new outputs are compared with the saved ones; with two,
  * their saved outputs are compared. The comparison is {@link NumberCheck}'s: cell by cell, words
  * equal and every number within the tolerance. Every difference is printed with its cell.
  */
-@Command(name = "recheck", mixinStandardHelpOptions = true, sortOptions = false,
+@Command(name = "confirm", mixinStandardHelpOptions = true, sortOptions = false,
         description = {"Check that an executed notebook's numbers come out again: with one notebook, run its code "
                 + "again in a fresh session and compare with the saved outputs; with two, compare their outputs.",
             "Exit status: 0 every number agrees, 1 a difference (each printed with its cell), 2 bad input or a cell "
                 + "that failed on the rerun."})
-public final class RecheckCommand implements Callable<Integer> {
+public final class ConfirmCommand implements Callable<Integer> {
     @Parameters(paramLabel = "NOTEBOOK", arity = "1..2", description = "an executed notebook, or two to compare")
     List<Path> notebooks;
 
@@ -48,11 +48,11 @@ public final class RecheckCommand implements Callable<Integer> {
     private final Engine.Factory engines;
 
     /** Reports on the process's standard error. */
-    public RecheckCommand() {
+    public ConfirmCommand() {
         this(Session.consoleErr(), Session::open);
     }
 
-    RecheckCommand(PrintStream log, Engine.Factory engines) {
+    ConfirmCommand(PrintStream log, Engine.Factory engines) {
         this.log = log;
         this.engines = engines;
     }
@@ -84,7 +84,7 @@ public final class RecheckCommand implements Callable<Integer> {
                 other = rerun.get();
             }
         } catch (NotebookFormatException e) {
-            log.println("microtally recheck: " + e.getMessage());
+            log.println("microtally confirm: " + e.getMessage());
             return 2;
         }
         NumberCheck.Report r = new NumberCheck(relative, absolute).compare(reference, other);
@@ -92,12 +92,12 @@ public final class RecheckCommand implements Callable<Integer> {
                 : notebooks.get(0) + " and its rerun";
         String tolerance = "relative tolerance " + relative + (absolute > 0 ? ", absolute " + absolute : "");
         if (r.agrees()) {
-            log.println("microtally recheck: " + what + " agree: " + r.numbersCompared() + " numbers in " + r.cellsCompared()
+            log.println("microtally confirm: " + what + " agree: " + r.numbersCompared() + " numbers in " + r.cellsCompared()
                     + " code cells (" + tolerance + ")");
             return 0;
         }
         r.differences().forEach(d -> log.println("  " + d.describe()));
-        log.println("microtally recheck: " + what + " DIFFER (" + r.differences().size() + " differences listed above; "
+        log.println("microtally confirm: " + what + " DIFFER (" + r.differences().size() + " differences listed above; "
                 + r.numbersCompared() + " numbers compared, " + tolerance + ")");
         return 1;
     }
@@ -113,7 +113,7 @@ public final class RecheckCommand implements Callable<Integer> {
             done = new NotebookExecution(file, timeout, settings, new ProgressLine(log, false), exits).run(saved, engines);
         }
         if (done.failure().isPresent()) {
-            log.println("microtally recheck: the rerun failed at " + done.failure().get().describe()
+            log.println("microtally confirm: the rerun failed at " + done.failure().get().describe()
                     + "; the numbers were not compared");
             return Optional.empty();
         }
