@@ -26,7 +26,7 @@ import picocli.CommandLine.Parameters;
  */
 @Command(name = "microtally", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = "Exact statistical mechanics of finite systems in Java 17 notebooks.",
-        subcommands = {RunCommand.class, Main.InstallKernel.class, Main.KernelCommand.class, Main.WarmUp.class})
+        subcommands = {RunCommand.class, org.microtally.notebook.run.ConfirmCommand.class, Main.InstallKernel.class, Main.KernelCommand.class, Main.WarmUp.class})
 public final class Main implements Callable<Integer> {
     private final PrintStream err;
 

@@ -27,7 +27,8 @@ import tech.tablesaw.api.Table;
  * fractions with all their digits ({@code p/q} for fractions), doubles as {@link Double#toString}
  * (which reads back to the same double), missing cells ({@code null} or the core's marker
  * {@code "n/a"}) as empty fields; nothing is rounded. A Tablesaw {@link Table} is written by Tablesaw. Files are written to a temporary file beside the
- * target and moved into place, so a failed export never leaves a half-written file.
+ * target and moved into place, so a failed export never leaves a half-written file. A relative
+ * file name is taken in the notebook's folder ({@link NotebookFolder}).
  */
 public final class Csv {
     private Csv() { }
@@ -46,7 +47,7 @@ public final class Csv {
         return w.toString();
     }
 
-    /** Writes a result as CSV to {@code file} (replacing it); returns the file. */
+    /** Writes a result as CSV to {@code file} (replacing it; relative: in the notebook's folder); returns the absolute file. */
     public static Path write(Tabular table, Path file) {
         Objects.requireNonNull(table, "table");
         return replace(file, w -> write(table, w));
@@ -63,7 +64,7 @@ public final class Csv {
     }
 
     private static Path replace(Path file, Body body) {
-        Path target = file.toAbsolutePath();
+        Path target = NotebookFolder.resolve(file).toAbsolutePath();
         Path dir = target.getParent();
         Path tmp = null;
         try {

@@ -74,12 +74,13 @@ public final class SpectrumReader {
      */
     public static Spectrum fromCsv(Path file, EnergyScale scale, double cutoffEnergy, String cutoffNote) {
         Objects.requireNonNull(file, "file");
+        file = NotebookFolder.resolve(file);   // a relative name is the notebook's neighbour
         byte[] bytes;
         try {
             bytes = Files.readAllBytes(file);
         } catch (NoSuchFileException e) {
             throw InvalidInputException.of("spectrum CSV file", file.toAbsolutePath(), "an existing file",
-                    "The file was not found; check the path and the working directory.");
+                    "The file was not found; a relative name is taken in the notebook's folder (" + NotebookFolder.current() + ").");
         } catch (IOException e) {
             throw new UncheckedIOException("could not read spectrum CSV " + file + ": " + e.getMessage(), e);
         }

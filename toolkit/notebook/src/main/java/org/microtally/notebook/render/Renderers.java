@@ -51,7 +51,8 @@ import tech.tablesaw.api.Table;
  *
  * <p>A registry is an object: {@link #withBuiltIns()} makes a fresh one (an engine can own its own
  * and add renderers without touching any other), and the static {@link #render(Object)} and
- * {@link #register} work on one shared default instance, {@link #standard()}. Creating a registry
+ * {@link #register} work on one shared default instance, {@link #standard()}, for code outside an
+ * engine; every evaluation engine owns its own registry. Creating a registry
  * prepares the JVM for drawing once ({@link DisplayEnvironment#prepare()}).
  */
 public final class Renderers {
@@ -107,7 +108,11 @@ public final class Renderers {
         return this;
     }
 
-    /** Registers a renderer in the {@linkplain #standard() default registry} (see {@link #put}). */
+    /**
+     * Registers a renderer in the {@linkplain #standard() default registry} (see {@link #put}), used by
+     * code outside an engine. A notebook cell's displays come from its engine's own registry: there,
+     * use {@code renderers().put(...)} (the session's display helpers).
+     */
     public static <T> void register(Class<T> type, Function<? super T, MimeBundle> renderer) {
         standard().put(type, renderer);
     }

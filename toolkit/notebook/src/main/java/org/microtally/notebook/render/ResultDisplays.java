@@ -1,7 +1,6 @@
 package org.microtally.notebook.render;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
@@ -18,10 +17,24 @@ import org.microtally.spectrum.Statistics;
  * {@link Renderers}; a display that fails falls back to plain text there.
  */
 final class ResultDisplays {
-    /** Most particle-number columns in the grid view of a count table. */
+    /** Most particle-number columns in the grid view of a label-resolved count table. */
     static final int GRID_COLUMNS = 9;
-    /** The grid of a count table has up to 10 columns (E and 9 particle numbers) of exact integers: shown in full up to 20 digits. */
+    /** Count grids show exact integers in full up to 20 digits, longer ones as 10 leading digits and their digit count. */
     static final TableFormat GRID_FORMAT = new TableFormat(20, 10, 6, 60, 20);
+    /**
+     * Width in CSS pixels a count grid may take: the output column of the standalone page at a 1280 px
+     * window (the page's 62rem main column less its padding and the prompt column, at 16 px per rem)
+     * and a little less than Jupyter Notebook's output area at that width.
+     */
+    static final int GRID_WIDTH_PX = 880;
+
+    /**
+     * Width in CSS pixels of a grid column whose widest cell has {@code chars} characters: the table
+     * cells' monospace font (0.82em of 16 px, 0.6 em per character, 7.9 px) plus 0.6em padding each side.
+     */
+    static int columnPixels(int chars) {
+        return (int) Math.ceil(chars * 7.9 + 16);
+    }
 
     private ResultDisplays() { }
 
@@ -37,18 +50,82 @@ final class ResultDisplays {
 
     /** The particle numbers shown as grid columns: every n when N + 1 <= 9, else 9 evenly spaced n from 0 to N (0, N/8, ..., N). */
     static int[] gridColumns(int maxN) {
-        if (maxN + 1 <= GRID_COLUMNS) {
+        return evenlySpaced(maxN, Math.min(maxN + 1, GRID_COLUMNS));
+    }
+
+    /** {@code k} particle numbers evenly spaced from 0 to N, both included (k >= 2, or every n when k > N). */
+    static int[] evenlySpaced(int maxN, int k) {
+        if (k >= maxN + 1) {
             int[] all = new int[maxN + 1];
             for (int n = 0; n <= maxN; n++) {
                 all[n] = n;
             }
             return all;
         }
-        int[] some = new int[GRID_COLUMNS];
-        for (int k = 0; k < GRID_COLUMNS; k++) {
-            some[k] = (int) Math.round((double) k * maxN / (GRID_COLUMNS - 1));
+        int[] some = new int[k];
+        for (int i = 0; i < k; i++) {
+            some[i] = (int) Math.round((double) i * maxN / (k - 1));
         }
         return some;
+    }
+
+    /**
+     * The particle numbers of a count table's grid: every n = 0..N when all columns fit in
+     * {@value #GRID_WIDTH_PX} px, else as many evenly spaced n from 0 to N (both kept) as fit, at least
+     * two. A column's width is that of its widest entry as the grid shows it ({@link #GRID_FORMAT}).
+     */
+    static int[] gridColumns(CountTable t) {
+        int maxN = t.maxParticles();
+        int[] px = new int[maxN + 1];
+        for (int n = 0; n <= maxN; n++) {
+            java.math.BigInteger widest = java.math.BigInteger.ZERO;
+            for (int e = 0; e <= t.maxEnergy(); e++) {
+                widest = widest.max(t.count(n, e));
+            }
+            px[n] = columnPixels(Math.max(("n=" + n).length(), shownChars(widest)));
+        }
+        int room = GRID_WIDTH_PX - columnPixels(Math.max(1, String.valueOf(t.maxEnergy()).length()));
+        for (int k = maxN + 1; k > 2; k--) {
+            int[] ns = evenlySpaced(maxN, k);
+            int used = 0;
+            for (int n : ns) {
+                used += px[n];
+            }
+            if (used <= room) {
+                return ns;
+            }
+        }
+        return evenlySpaced(maxN, 2);
+    }
+
+    /** Characters of a non-negative exact count as the grid shows it. */
+    static int shownChars(java.math.BigInteger count) {
+        int digits = count.toString().length();
+        return digits <= GRID_FORMAT.maxDigits() ? digits
+                : GRID_FORMAT.leadingDigits() + 1 + ("(" + digits + " digits)").length();
+    }
+
+    /** The particle numbers of 0..N not in {@code shown} (sorted), as ranges: {@code 1-3, 5-7, 9}. */
+    static String omitted(int[] shown, int maxN) {
+        boolean[] in = new boolean[maxN + 1];
+        for (int n : shown) {
+            in[n] = true;
+        }
+        StringBuilder sb = new StringBuilder();
+        int n = 0;
+        while (n <= maxN) {
+            if (in[n]) {
+                n++;
+                continue;
+            }
+            int from = n;
+            while (n + 1 <= maxN && !in[n + 1]) {
+                n++;
+            }
+            sb.append(sb.length() == 0 ? "" : ", ").append(from == n ? String.valueOf(from) : from + "-" + n);
+            n++;
+        }
+        return sb.toString();
     }
 
     /** Rows E = 0..E_max, one exact column per shown particle number. */
@@ -78,7 +155,7 @@ final class ResultDisplays {
     }
 
     static MimeBundle countTable(CountTable t) {
-        int[] ns = gridColumns(t.maxParticles());
+        int[] ns = gridColumns(t);
         List<String> notes = new ArrayList<>();
         notes.add("Omega(n, E): exact number of microstates of n " + t.statistics()
                 + " particles with total energy E quanta.");
@@ -87,8 +164,8 @@ final class ResultDisplays {
                     + "it would miss microstates with a particle above the cutoff).");
         }
         if (ns.length < t.maxParticles() + 1) {
-            notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles()
-                    + " shown; every entry: count(n, E), or Tables.of(table) for all rows.");
+            notes.add("Not shown, to fit a 1280 px page: columns n = " + omitted(ns, t.maxParticles())
+                    + "; every entry: count(n, E), or Tables.of(table) for all rows.");
         }
         if (t.completeThroughEnergy() < t.maxEnergy()) {
             notes.add("Entries with E > " + t.completeThroughEnergy() + " may miss levels above the spectrum cutoff.");
@@ -177,7 +254,7 @@ final class ResultDisplays {
                     + "it would miss microstates with a particle above the cutoff).");
         }
         if (ns.length < t.maxParticles() + 1) {
-            notes.add("Columns n = " + Arrays.toString(ns) + " of 0.." + t.maxParticles() + " shown.");
+            notes.add("Not shown: columns n = " + omitted(ns, t.maxParticles()) + " (every n is in the table's rows).");
         }
         String caption = String.format("Label-resolved counts: %s, n <= %d%s, %s", t.statistics(), t.maxParticles(),
                 t.energyIgnored() ? "" : ", E <= " + t.maxEnergy(), levels(t.spectrum()));

@@ -11,6 +11,7 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.ScheduledFuture;
 import java.util.concurrent.TimeUnit;
+import org.microtally.notebook.data.NotebookFolder;
 import org.microtally.notebook.session.CellError;
 import org.microtally.notebook.session.CellResult;
 import org.microtally.notebook.session.Engine;
@@ -55,7 +56,8 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
         long started = System.nanoTime();
         int count = 0;
         int i = 0;
-        try (Engine engine = engines.open()) {
+        // relative file names in the cells are the notebook's neighbours, whatever the runner's working directory
+        try (NotebookFolder.Scope folder = NotebookFolder.use(file.toAbsolutePath().getParent()); Engine engine = engines.open()) {
             for (JsonObject cell : nb.cells()) {
                 i++;
                 if (!Notebook.type(cell).equals("code")) {
@@ -116,7 +118,7 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
                 failure = Optional.of(new Failure(file, cellNumber, count, e.type() + (msg.isEmpty() ? "" : ": " + msg)));
             }
         }
-        cell.add("outputs", collector.toJson());
+        collector.finishInto(cell);   // outputs, and the times in the cell metadata
         progress.cellDone(file, count, codeCells, cellNumber, status, seconds);
         return failure;
     }

@@ -2,6 +2,7 @@ package org.microtally.notebook.run;
 
 import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
+import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -17,11 +18,26 @@ import org.microtally.notebook.session.CellOutput;
  * the size of the output); a display update replaces the data of the earlier display with that id
  * (in this cell or an earlier one of the same notebook).
  *
+ * <p>Progress displays are not kept: they go to the runner's progress line only, so a saved
+ * notebook holds no finished bar. Nothing that changes from run to run is written into the
+ * outputs; the cell's start and end times go into its metadata instead, under the keys Jupyter's
+ * own front ends record ({@value #EXECUTION}{@code .}{@value #STARTED} and
+ * {@value #EXECUTION}{@code .}{@value #FINISHED}, ISO 8601 UTC, as in the nbformat documentation's
+ * cell-metadata section), so two runs of an unchanged notebook give byte-identical outputs.
+ *
  * <p>Each output keeps at most {@code limitBytes} bytes of UTF-8 text; what is cut is counted and a
  * note saying "N bytes not kept" (and how to raise the limit) takes its place. A display larger than
  * the limit keeps only such a note as its plain text.
  */
 final class OutputCollector implements CellOutput {
+    /** The cell-metadata object holding execution times (nbformat's documented key). */
+    static final String EXECUTION = "execution";
+    /** When the cell's code was handed to the engine. */
+    static final String STARTED = "iopub.execute_input";
+    /** When the engine returned the cell's result. */
+    static final String FINISHED = "shell.execute_reply";
+
+    private final Instant started = Instant.now();
     private final List<Object> outputs = new ArrayList<>();   // Stream or JsonObject, in order
     private final Map<String, JsonObject> displaysById;
     private final Consumer<String> progress;
@@ -92,7 +108,6 @@ final class OutputCollector implements CellOutput {
     @Override
     public synchronized void progress(MimeBundle bundle, String displayId, boolean update) {
         progress.accept(bundle.plain());
-        display(bundle, displayId, update);
     }
 
     @Override
@@ -132,6 +147,22 @@ final class OutputCollector implements CellOutput {
         e.traceback().forEach(tb::add);
         o.add("traceback", tb);
         outputs.add(o);
+    }
+
+    /**
+     * Ends the cell: writes the outputs into {@code cell} and its start and end times into the
+     * cell's metadata (see the class comment); other metadata is kept.
+     */
+    synchronized void finishInto(JsonObject cell) {
+        Instant finished = Instant.now();
+        cell.add("outputs", toJson());
+        if (!(cell.get("metadata") instanceof JsonObject)) {
+            cell.add("metadata", new JsonObject());
+        }
+        JsonObject times = new JsonObject();
+        times.addProperty(STARTED, started.toString());
+        times.addProperty(FINISHED, finished.toString());
+        cell.getAsJsonObject("metadata").add(EXECUTION, times);
     }
 
     /** The outputs gathered so far, as an nbformat "outputs" array. */

@@ -5,11 +5,11 @@ import java.nio.file.Path;
 import java.util.Locale;
 
 /**
- * The runner's per-cell progress on standard error: on a terminal one line rewritten with a
- * carriage return, otherwise one line per finished cell (readable in CI logs).
+ * The runner's per-cell progress on standard error, in words: {@code NAME.ipynb  cell 4 (2 of 9)
+ * ok  2.85 s}. On a terminal one line rewritten with a carriage return, otherwise one line per
+ * finished cell (readable in CI logs); each notebook ends with a line giving its total time.
  */
 final class ProgressLine {
-    private static final int WIDTH = 24;
     private final PrintStream err;
     private final boolean terminal;
 
@@ -20,22 +20,21 @@ final class ProgressLine {
 
     void cellStarted(Path nb, int n, int total, int cellNumber) {
         if (terminal) {
-            err.print("\r" + bar(n - 1, total) + " " + nb.getFileName() + "  cell " + cellNumber + " running...\u001B[K");
+            err.print("\r" + where(nb, cellNumber, n, total) + "  running\u001B[K");
             err.flush();
         }
     }
 
     /** A progress report of a computation inside a cell: shown in place on a terminal only. */
     void computation(Path nb, int cellNumber, String text) {
-        if (terminal) {
+        if (terminal && !text.isEmpty()) {
             err.print("\r" + nb.getFileName() + "  cell " + cellNumber + "  " + text + "\u001B[K");
             err.flush();
         }
     }
 
     void cellDone(Path nb, int n, int total, int cellNumber, String status, double seconds) {
-        String line = bar(n, total) + " " + nb.getFileName() + "  cell " + cellNumber + " " + status
-                + String.format(Locale.ROOT, " %.2f s", seconds);
+        String line = where(nb, cellNumber, n, total) + "  " + status + String.format(Locale.ROOT, "  %.2f s", seconds);
         if (terminal) {
             err.print("\r" + line + "\u001B[K");
         } else {
@@ -52,9 +51,8 @@ final class ProgressLine {
                 ok ? "" : ", with failures"));
     }
 
-    static String bar(int done, int total) {
-        int t = Math.max(total, 1);
-        int filled = WIDTH * Math.min(done, t) / t;
-        return "[" + "#".repeat(filled) + "-".repeat(WIDTH - filled) + "] " + done + "/" + total;
+    /** {@code NAME.ipynb  cell C (n of total)}: the notebook cell number and the count of code cells. */
+    static String where(Path nb, int cellNumber, int n, int total) {
+        return nb.getFileName() + "  cell " + cellNumber + " (" + n + " of " + total + ")";
     }
 }

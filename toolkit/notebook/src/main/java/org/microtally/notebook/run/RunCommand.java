@@ -10,6 +10,7 @@ import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
 
 /**
  * The {@code run} command's options, parsed by the one command-line parser (picocli) that the
@@ -38,6 +39,9 @@ public final class RunCommand implements Callable<Integer> {
             description = "bytes kept of each output; the rest is replaced by a note (default: 1048576)")
     long outputLimit = RunSettings.DEFAULT_OUTPUT_LIMIT;
 
+    @Spec
+    CommandLine.Model.CommandSpec spec;
+
     private final PrintStream log;
     private final boolean terminal;
 
@@ -50,11 +54,11 @@ public final class RunCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         if (cellTimeoutSeconds != null && (!(cellTimeoutSeconds > 0) || cellTimeoutSeconds > 1e6)) {
-            throw new CommandLine.ParameterException(new CommandLine(this), "--cell-timeout = " + cellTimeoutSeconds
+            throw new CommandLine.ParameterException(spec.commandLine(), "--cell-timeout = " + cellTimeoutSeconds
                     + " is not allowed: give a number of seconds > 0 (at most 1e6)");
         }
         if (outputLimit < 1) {
-            throw new CommandLine.ParameterException(new CommandLine(this), "--output-limit = " + outputLimit
+            throw new CommandLine.ParameterException(spec.commandLine(), "--output-limit = " + outputLimit
                     + " is not allowed: give a number of bytes >= 1");
         }
         Optional<Duration> timeout = Optional.ofNullable(cellTimeoutSeconds).map(s -> Duration.ofMillis((long) Math.ceil(s * 1000)));

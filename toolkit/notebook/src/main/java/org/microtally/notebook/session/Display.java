@@ -1,8 +1,11 @@
 package org.microtally.notebook.session;
 
+import java.util.Map;
 import java.util.Objects;
+import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.atomic.AtomicLong;
 import org.microtally.ProgressListener;
+import org.microtally.notebook.render.Markup;
 import org.microtally.notebook.render.MimeBundle;
 import org.microtally.notebook.render.Renderers;
 
@@ -13,17 +16,45 @@ import org.microtally.notebook.render.Renderers;
  * <p>The output goes to the cell that is running on the calling thread (or, from threads a cell
  * did not start, to the only running cell). Outside any running cell the plain-text form is
  * printed on the process's standard output.
+ *
+ * <p>Values are rendered by the registry of the engine that runs the cell ({@link #renderers()}):
+ * each engine owns one, made with {@link Renderers#withBuiltIns()} when it starts, so a renderer a
+ * notebook adds with {@code renderers().put(MyResult.class, r -> ...)} changes that notebook's
+ * displays only. Outside any engine the shared {@link Renderers#standard()} registry is used.
  */
 public final class Display {
     /** Display ids of {@link #progress} displays start with this prefix (for uniqueness only; front ends get {@link CellOutput#progress}). */
-    static final String PROGRESS_ID_PREFIX = "microtally-progress-";
+    static final String PROGRESS_ID_PREFIX = "mt-progress-";
     private static final AtomicLong IDS = new AtomicLong();
+    /** Each engine's registry, keyed by the thread group its cells run in (attached while the engine is open). */
+    private static final Map<ThreadGroup, Renderers> REGISTRIES = new ConcurrentHashMap<>();
 
     private Display() { }
 
-    /** Shows {@code value} as rendered by {@link Renderers#render(Object)} (table, chart, text...). */
+    /** Makes {@code registry} the one used for cells running in {@code cells} (called by the engine at start). */
+    static void attach(ThreadGroup cells, Renderers registry) {
+        REGISTRIES.put(Objects.requireNonNull(cells, "cells"), Objects.requireNonNull(registry, "registry"));
+    }
+
+    /** Forgets the registry of a closed engine. */
+    static void detach(ThreadGroup cells) {
+        REGISTRIES.remove(cells);
+    }
+
+    /**
+     * The renderer registry of the engine running the current cell (add renderers for your own
+     * types with {@code renderers().put(Type.class, value -> bundle)}); outside an engine the shared
+     * default registry.
+     */
+    public static Renderers renderers() {
+        CellContext c = OutputRouter.current();
+        Renderers r = c == null ? null : REGISTRIES.get(c.group);
+        return r != null ? r : Renderers.standard();
+    }
+
+    /** Shows {@code value} as rendered by the {@linkplain #renderers() engine's registry} (table, chart, text...). */
     public static void show(Object value) {
-        emit(Renderers.render(value), null, false);
+        emit(renderers().display(value), null, false);
     }
 
     /** Shows a ready-made MIME bundle. */
@@ -34,7 +65,8 @@ public final class Display {
     /** Shows an HTML fragment (plain-text fallback: the fragment with its tags removed). */
     public static void html(String html) {
         Objects.requireNonNull(html, "html");
-        emit(MimeBundle.builder(stripTags(html)).put(MimeBundle.TEXT_HTML, html).build(), null, false);
+        String text = Markup.plainText(html);
+        emit(MimeBundle.builder(text.isBlank() ? html : text).put(MimeBundle.TEXT_HTML, html).build(), null, false);
     }
 
     /** Shows Markdown text (plain-text fallback: the source itself). */
@@ -71,12 +103,5 @@ public final class Display {
         } else {
             OutputRouter.CONSOLE_OUT.println(bundle.plain());
         }
-    }
-
-    static String stripTags(String html) {
-        String text = html.replaceAll("(?s)<[^>]*>", "")
-                .replace("&lt;", "<").replace("&gt;", ">").replace("&quot;", "\"").replace("&#39;", "'")
-                .replace("&amp;", "&");
-        return text.isBlank() ? html : text;
     }
 }

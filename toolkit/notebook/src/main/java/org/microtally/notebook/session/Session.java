@@ -34,7 +34,7 @@ import org.microtally.notebook.render.Renderers;
  * reference (a declaration that cannot be used yet), a runtime exception (type, message, the stack
  * frames of cell code with lines mapped back to "cell N, line L", engine frames trimmed), or an
  * interruption ({@link CellResult.Outcome#INTERRUPTED}). The value of a final expression is kept as
- * the real object and rendered with {@link Renderers#render(Object)}.
+ * the real object and rendered with this engine's own registry ({@link Renderers#withBuiltIns()}, see {@link Display#renderers()}).
  *
  * <h2>Faults a cell cannot make fatal</h2>
  * {@code System.exit}, {@code Runtime.exit} and {@code Runtime.halt} in cell code are rewritten at
@@ -97,6 +97,7 @@ public final class Session implements Engine {
     private final CellSplitter splitter;
     private final CodeAssist assist;
     private final CellErrors errors;
+    private final Renderers renderers = Renderers.withBuiltIns();   // this engine's display registry
     private final Object runLock = new Object();
     private final CellPhases.Clock clock = new CellPhases.Clock();
     private volatile boolean running;
@@ -107,6 +108,7 @@ public final class Session implements Engine {
         OutputRouter.install();
         int n = SESSIONS.incrementAndGet();
         group = new ThreadGroup("microtally-session-" + n);
+        Display.attach(group, renderers);
         Set<String> classPath = EngineClassPath.classPath();
         loader = new SnippetLoader(Session.class.getClassLoader(), classPath, clock);
         control = new EngineControl(loader, group, clock);
@@ -291,7 +293,7 @@ public final class Session implements Engine {
         Object v = value;
         long d0 = System.nanoTime();
         try {
-            MimeBundle bundle = control.callAsUser(() -> Renderers.render(v));
+            MimeBundle bundle = control.callAsUser(() -> renderers.display(v));
             clock.display(System.nanoTime() - d0);
             return new CellResult(CellResult.Outcome.OK, Optional.of(bundle), Optional.ofNullable(v), Optional.empty());
         } catch (EngineControl.UserFailure f) {
@@ -390,5 +392,6 @@ public final class Session implements Engine {
         }
         control.stopAll();
         jshell.close();
+        Display.detach(group);
     }
 }

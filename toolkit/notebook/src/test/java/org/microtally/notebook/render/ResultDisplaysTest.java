@@ -56,10 +56,15 @@ class ResultDisplaysTest {
         assertEquals("$$\\Omega(n, E) = \\binom{E + n - 1}{E}$$", b.get(MimeBundle.TEXT_LATEX));
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
         NodeList ths = d.getElementsByTagName("th");
-        assertEquals(1 + ResultDisplays.GRID_COLUMNS, ths.getLength());
-        assertEquals("n=200", ths.item(ResultDisplays.GRID_COLUMNS).getTextContent());
+        int[] ns = ResultDisplays.gridColumns(t);
+        assertEquals(1 + ns.length, ths.getLength());
+        assertEquals("n=0", ths.item(1).getTextContent());
+        assertEquals("n=200", ths.item(ns.length).getTextContent());
+        // entries reach C(229, 30) ~ 1e37 (37 digits, shown as 10 digits and "(37 digits)": 22 characters,
+        // 190 px), so only a few columns fit 880 px; the note names the rest
+        assertTrue(ns.length >= 2 && ns.length < 9, java.util.Arrays.toString(ns));
+        assertTrue(b.plain().contains("Not shown, to fit a 1280 px page: columns n = 1-"), b.plain());
         List<String> row = rowStartingWith(d, "30");
-        int[] ns = ResultDisplays.gridColumns(200);
         for (int k = 0; k < ns.length; k++) {
             String expected = ns[k] == 0 ? "0"
                     // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
@@ -69,6 +74,19 @@ class ResultDisplaysTest {
         assertEquals(1, d.getElementsByTagName("svg").getLength());
         assertTrue(b.plain().contains("Closed form: Omega(n, E) = C(E + n - 1, E)"), b.plain());
         assertTrue(b.plain().endsWith("series n = 50, n = 100, n = 150, n = 200"), b.plain());
+    }
+
+    @Test
+    void everyParticleNumberThatFitsIsAColumn() {
+        // 15 distinguishable oscillators, E <= 2: entries at most C(2 + 15 - 1, 2) = 120 (Einstein solid closed
+        // form), so the 16 columns n=0..15 take 10 x 40 + 6 x 48 px = 688 px: all fit, none is omitted
+        CountTable t = CountTable.of(Spectra.harmonicOscillator(1, 2), Statistics.DISTINGUISHABLE, 15, 2);
+        assertEquals(16, ResultDisplays.gridColumns(t).length);
+        String plain = Renderers.render(t).plain();
+        assertTrue(plain.contains("n=14  n=15"), plain);
+        assertFalse(plain.contains("Not shown"), plain);
+        assertEquals("1-3, 5, 7-9", ResultDisplays.omitted(new int[] {0, 4, 6, 10}, 10));
+        assertEquals("", ResultDisplays.omitted(new int[] {0, 1, 2}, 2));
     }
 
     @Test
