@@ -195,7 +195,7 @@ public final class MicrocanonicalLevelNumber implements Tabular {
             case FERMI:
                 return Combinatorics.binomial(g, j);
             case GENTILE:
-                return Canonical.cappedWays(g, st.maxOccupancy(), j);
+                return LevelFactor.cappedWays(g, st.maxOccupancy(), j);
             default:
                 return Combinatorics.binomial(n, j).multiply(BigInteger.valueOf(g).pow(j));
         }
