@@ -3,6 +3,8 @@ package org.microtally.ensemble;
 import java.util.ArrayList;
 import java.util.List;
 import org.microtally.InvalidInputException;
+import org.microtally.Dimension;
+import org.microtally.QuantityTable;
 import org.microtally.Tabular;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.LevelOccupations;
@@ -362,32 +364,30 @@ public final class GrandCanonical implements Tabular {
         return warnings;
     }
 
+    /**
+     * The reported quantities in the spectrum's energy unit: statistics, counting (labelled particles),
+     * kT, mu, ln Xi, &lt;N&gt;, Var N, U, S/k, C/k at fixed &lt;N&gt;, &lt;N_0&gt;, Var N_0, one row per
+     * warning. Physical units: {@code quantities().inUnits(EnergyUnit.MILLIELECTRONVOLT)}.
+     */
+    public QuantityTable quantities() {
+        QuantityTable.Builder t = QuantityTable.builder(spectrum.scale()).value("statistics", statistics.toString());
+        if (!statistics.indistinguishable()) {
+            t.value("counting", counting.toString());
+        }
+        return t.value("kT", kT, Dimension.ENERGY).value("mu", mu, Dimension.ENERGY).value("ln Xi", lnXi)
+                .value("<N>", meanN).value("Var N", varN).value("U", energy, Dimension.ENERGY)
+                .value("S/k", entropy()).value("C/k (fixed <N>)", heatCapacity())
+                .value("<N_0>", groundMean).value("Var N_0", groundVariance).warnings(warnings).build();
+    }
+
     @Override
     public List<String> columnNames() {
-        return List.of("quantity", "value");
+        return quantities().columnNames();
     }
 
     @Override
     public List<List<Object>> rows() {
-        List<List<Object>> r = new ArrayList<>();
-        r.add(List.of("statistics", statistics.toString()));
-        if (!statistics.indistinguishable()) {
-            r.add(List.of("counting", counting.toString()));
-        }
-        r.add(List.of("kT", kT));
-        r.add(List.of("mu", mu));
-        r.add(List.of("ln Xi", lnXi));
-        r.add(List.of("<N>", meanN));
-        r.add(List.of("Var N", varN));
-        r.add(List.of("U", energy));
-        r.add(List.of("S/k", entropy()));
-        r.add(List.of("C/k (fixed <N>)", heatCapacity()));
-        r.add(List.of("<N_0>", groundMean));
-        r.add(List.of("Var N_0", groundVariance));
-        for (String w : warnings) {
-            r.add(List.of("warning", w));
-        }
-        return r;
+        return quantities().rows();
     }
 
     /** A one-line summary (statistics, kT, mu, ln Xi, &lt;N&gt;, U, number of warnings). */

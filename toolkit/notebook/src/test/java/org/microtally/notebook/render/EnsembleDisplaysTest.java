@@ -23,10 +23,33 @@ import org.w3c.dom.Document;
 
 class EnsembleDisplaysTest {
 
-    /** The plain-text line of a quantity table whose first cell is {@code quantity}, split at runs of 2+ spaces. */
+    /** The value cell of the plain-text line of a quantity table whose first cell is {@code quantity} (cells are
+     * separated by runs of 2+ spaces). */
     static String valueOf(MimeBundle b, String quantity) {
         return b.plain().lines().filter(l -> l.startsWith(quantity + " ")).findFirst()
-                .map(l -> l.substring(quantity.length()).strip()).orElse(null);
+                .map(l -> l.substring(quantity.length()).strip().split(" {2,}")[0]).orElse(null);
+    }
+
+    @Test
+    void quantitiesInKelvinShowTheirUnit() {
+        // Halyard Bay quantum dot, hbar*omega = 3 meV; kT = 0.4 hbar*omega = 1.2 meV
+        var scale = org.microtally.units.EnergyScale.of("hbar*omega",
+                org.microtally.units.Energy.of(3, org.microtally.units.EnergyUnit.MILLIELECTRONVOLT));
+        Spectrum dot = Spectra.harmonicOscillator(2, 10).withInternalMultiplicity(2).withScale(scale);
+        var q = Canonical.of(dot, Statistics.FERMI, 12, 0.4).quantities().inUnits(org.microtally.units.EnergyUnit.KELVIN);
+        MimeBundle b = Renderers.render(q);
+        assertTrue(b.plain().startsWith("Quantities (energies in K)"), b.plain());
+        // Source: CODATA 2018, e/k_B = 11604.51812 K/eV: 1.2 meV is 13.9254 K
+        String kt = b.plain().lines().filter(l -> l.startsWith("kT ")).findFirst().orElseThrow();
+        assertTrue(kt.contains("13.9254") && kt.strip().endsWith("K"), kt);
+    }
+
+    @Test
+    void missingCellsAreShownAsNotAvailable() {
+        Microcanonical m = Microcanonical.of(Spectra.harmonicOscillator(1, 10), Statistics.DISTINGUISHABLE, 5, 6);
+        MimeBundle b = Renderers.render(m);
+        String first = b.plain().lines().filter(l -> l.strip().startsWith("0 ")).findFirst().orElseThrow();
+        assertTrue(first.contains("n/a"), first);
     }
 
     @Test
