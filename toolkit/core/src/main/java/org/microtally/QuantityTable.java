@@ -125,6 +125,12 @@ public final class QuantityTable implements Tabular {
             this.scale = scale;
         }
 
+        /** A quantity as it is (e.g. taken from another table in the same scale). */
+        public Builder add(Quantity quantity) {
+            quantities.add(Objects.requireNonNull(quantity, "quantity"));
+            return this;
+        }
+
         /** A pure number or a label. */
         public Builder value(String name, Object value) {
             quantities.add(Quantity.of(name, value));

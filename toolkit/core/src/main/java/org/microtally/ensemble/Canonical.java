@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Dimension;
@@ -248,19 +249,9 @@ public final class Canonical implements Tabular {
 
 
     static void requireParticleNumber(Spectrum spectrum, Statistics statistics, int n) {
-        if (n < 1 || n > MAX_N) {
-            throw InvalidInputException.of("particle number N", n, "an integer in [1, " + MAX_N + "]",
-                    "N = 0 is the empty system (Z = 1, U = S = C = 0) and needs no computation.");
-        }
-        if (statistics.capped()) {
-            long capacity = (long) statistics.maxOccupancy() * spectrum.stateCount();
-            if (n > capacity) {
-                throw InvalidInputException.of("particle number N", n,
-                        "at most the capacity " + capacity + " of the spectrum (" + statistics.maxOccupancy()
-                                + " per state x " + spectrum.stateCount() + " states)",
-                        "Raise the spectrum's cutoff.");
-            }
-        }
+        Inputs.particleNumber("particle number N", n, MAX_N,
+                "N = 0 is the empty system (Z = 1, U = S = C = 0) and needs no computation.");
+        Inputs.withinCapacity("particle number N", n, statistics.maxOccupancy(), spectrum.stateCount());
     }
 
 

@@ -2,6 +2,7 @@ package org.microtally.ensemble;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Dimension;
 import org.microtally.QuantityTable;
@@ -195,7 +196,7 @@ public final class GrandCanonical implements Tabular {
         if (counting != Counting.LABELLED) {
             return atChemicalPotential(spectrum, statistics, kT, mu);
         }
-        requireTemperature(kT);
+        Inputs.temperature(kT);
         if (!Double.isFinite(mu)) {
             throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
         }
@@ -219,7 +220,7 @@ public final class GrandCanonical implements Tabular {
         if (counting != Counting.LABELLED) {
             return atMeanNumber(spectrum, statistics, kT, targetN);
         }
-        requireTemperature(kT);
+        Inputs.temperature(kT);
         if (!(targetN > 0) || !Double.isFinite(targetN)) {
             throw InvalidInputException.of("target mean particle number", targetN, "a finite number > 0", "");
         }
@@ -240,7 +241,7 @@ public final class GrandCanonical implements Tabular {
      *                               or above the lowest level
      */
     public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
-        requireTemperature(kT);
+        Inputs.temperature(kT);
         if (!Double.isFinite(mu)) {
             throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
         }
@@ -257,7 +258,7 @@ public final class GrandCanonical implements Tabular {
      * ({@link ChemicalPotential#forMeanNumber}).
      */
     public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
-        requireTemperature(kT);
+        Inputs.temperature(kT);
         double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, targetN);
         GrandCanonical g = new GrandCanonical(spectrum, statistics, kT, mu);
         if (!(Math.abs(g.meanN - targetN) <= 1e-9 * Math.max(1.0, targetN))) {
@@ -267,13 +268,6 @@ public final class GrandCanonical implements Tabular {
                     "Use Canonical.of (exact T -> 0 limit) or ChemicalPotential.fermiLevel for the T -> 0 limit.");
         }
         return g;
-    }
-
-    static void requireTemperature(double kT) {
-        if (!(kT > 0) || !Double.isFinite(kT)) {
-            throw InvalidInputException.of("temperature kT", kT, "a finite number > 0",
-                    "T -> 0 limits are separate calls: Canonical.groundState, ChemicalPotential.fermiLevel.");
-        }
     }
 
     /** The spectrum. */

@@ -3,6 +3,9 @@ package org.microtally.ensemble;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Dimension;
+import org.microtally.Quantity;
+import org.microtally.QuantityTable;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.occupation.MeanOccupation;
@@ -125,19 +128,27 @@ public final class LabelledGrandCanonical implements Tabular {
         return List.copyOf(w);
     }
 
+    /**
+     * The grand canonical quantities ({@link GrandCanonical#quantities()}) with the field h after the
+     * statistics, and &lt;L&gt;, Var L and U_0 (the mean energy without the field term) at the end.
+     */
+    public QuantityTable quantities() {
+        List<Quantity> base = ensemble.quantities().quantities();
+        QuantityTable.Builder t = QuantityTable.builder(ensemble.spectrum().scale()).add(base.get(0))
+                .value("h", field, Dimension.ENERGY);
+        base.subList(1, base.size()).forEach(t::add);
+        return t.value("<L>", meanLabel).value("Var L", labelVariance)
+                .value("U_0 (without field term)", energyWithoutField(), Dimension.ENERGY).build();
+    }
+
     @Override
     public List<String> columnNames() {
-        return List.of("quantity", "value");
+        return quantities().columnNames();
     }
 
     @Override
     public List<List<Object>> rows() {
-        List<List<Object>> r = new ArrayList<>(ensemble.rows());
-        r.add(1, List.of("h", field));
-        r.add(List.of("<L>", meanLabel));
-        r.add(List.of("Var L", labelVariance));
-        r.add(List.of("U_0 (without field term)", energyWithoutField()));
-        return r;
+        return quantities().rows();
     }
 
     @Override

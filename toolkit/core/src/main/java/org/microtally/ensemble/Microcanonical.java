@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Missing;
 import org.microtally.ProgressListener;
@@ -90,10 +91,8 @@ public final class Microcanonical implements Tabular {
 
     private static void requireInTable(CountTable table, int n) {
         Objects.requireNonNull(table, "table");
-        if (n < 1 || n > table.maxParticles()) {
-            throw InvalidInputException.of("particle number N", n, "in [1, " + table.maxParticles() + "] (the table's range)",
-                    "Build the count table with a larger maxParticles.");
-        }
+        Inputs.particleNumber("particle number N (the count table's range)", n, table.maxParticles(),
+                "Build the count table with a larger maxParticles.");
     }
 
     /**
@@ -126,9 +125,7 @@ public final class Microcanonical implements Tabular {
     /** As {@link #of(Spectrum, Statistics, int, int)}, reporting the count table's progress. */
     public static Microcanonical of(Spectrum spectrum, Statistics statistics, int n, int maxEnergy,
                                     ProgressListener progress) {
-        if (n < 1) {
-            throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
-        }
+        Inputs.particleNumber(n);
         return new Microcanonical(CountTable.of(spectrum, statistics, n, maxEnergy, progress), n,
                 Counting.defaultFor(statistics));
     }
@@ -407,7 +404,7 @@ public final class Microcanonical implements Tabular {
      * bound, and {@code warnings} of the canonical comparison should be consulted for the cutoff.
      */
     public double canonicalLnZ(double kT) {
-        GrandCanonical.requireTemperature(kT);
+        Inputs.temperature(kT);
         double max = Double.NEGATIVE_INFINITY;
         double[] t = new double[maxE + 1];
         for (int e = 0; e <= maxE; e++) {

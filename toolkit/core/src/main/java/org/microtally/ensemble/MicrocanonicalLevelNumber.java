@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.exact.Combinatorics;
@@ -81,9 +82,7 @@ public final class MicrocanonicalLevelNumber implements Tabular {
     public static MicrocanonicalLevelNumber of(Spectrum spectrum, Statistics statistics, int n, int e, int level) {
         Objects.requireNonNull(spectrum, "spectrum");
         Objects.requireNonNull(statistics, "statistics");
-        if (n < 1) {
-            throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
-        }
+        Inputs.particleNumber(n);
         if (e < 0) {
             throw InvalidInputException.of("total energy E", e, "an integer >= 0 (quanta)", "");
         }
