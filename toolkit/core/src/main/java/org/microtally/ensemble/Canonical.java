@@ -347,7 +347,7 @@ public final class Canonical implements Tabular {
 
     /** Whether {@link #condensate()} is available (bosons). */
     public boolean hasCondensate() {
-        return statistics.kind() == Statistics.Kind.BOSE;
+        return statistics.condenses();
     }
 
     /**

@@ -245,7 +245,7 @@ public final class GrandCanonical implements Tabular {
         if (!Double.isFinite(mu)) {
             throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
         }
-        if (statistics.kind() == Statistics.Kind.BOSE && !(mu < spectrum.groundEnergy())) {
+        if (statistics.condenses() && !(mu < spectrum.groundEnergy())) {
             throw InvalidInputException.of("chemical potential mu for bosons", mu,
                     "below the lowest level e_0 = " + spectrum.groundEnergy() + " " + spectrum.scale().name(),
                     "Bose occupations diverge at mu = e_0; fix <N> instead (atMeanNumber) to approach condensation.");

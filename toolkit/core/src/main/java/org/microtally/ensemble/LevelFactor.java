@@ -1,8 +1,5 @@
 package org.microtally.ensemble;
 
-import java.math.BigInteger;
-import org.microtally.exact.Combinatorics;
-
 /**
  * The generating factor of one whole level of g states, truncated at t^limit, in closed form:
  * f(y t)^g with f(w) = 1 + w (Fermi: C(g, j) y^j), 1/(1 - w) (Bose: C(g + j - 1, j) y^j) or
@@ -129,32 +126,5 @@ final class LevelFactor {
             z[m] = Math.scalb(z[m], -shift);
         }
         return new LevelFactor(z, xs + ys + shift * LN2);
-    }
-
-    /**
-     * Number of ways to put {@code r} indistinguishable particles into g states, at most k each:
-     * C(g, r) for k = 1, C(g + r - 1, r) for k &gt;= r, otherwise the inclusion-exclusion sum over the
-     * states forced above k, sum_i (-1)^i C(g, i) C(r - i(k+1) + g - 1, g - 1) (the standard count of
-     * bounded compositions, e.g. Stanley, <i>Enumerative Combinatorics</i> vol. 1, ch. 1, from memory).
-     * Exact; cost O(r^2 / k) big-integer operations, independent of g.
-     */
-    static BigInteger cappedWays(long g, int k, int r) {
-        if (k == 1) {
-            return Combinatorics.binomial(g, r);
-        }
-        if (k >= r) {
-            return Combinatorics.binomial(g + r - 1, r);
-        }
-        BigInteger sum = BigInteger.ZERO;
-        BigInteger choose = BigInteger.ONE;
-        for (int i = 0; i <= g && (long) i * (k + 1) <= r; i++) {
-            if (i > 0) {
-                choose = choose.multiply(BigInteger.valueOf(g - i + 1)).divide(BigInteger.valueOf(i));
-            }
-            long rest = r - (long) i * (k + 1);
-            BigInteger term = choose.multiply(Combinatorics.binomial(rest + g - 1, rest));
-            sum = (i & 1) == 0 ? sum.add(term) : sum.subtract(term);
-        }
-        return sum;
     }
 }

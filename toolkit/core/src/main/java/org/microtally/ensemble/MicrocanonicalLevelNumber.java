@@ -188,16 +188,8 @@ public final class MicrocanonicalLevelNumber implements Tabular {
 
     /** Ways to put j particles into the level's g states (distinguishable: choose the j of n, then a state each). */
     private static BigInteger ways(Statistics st, int g, int j, int n) {
-        switch (st.kind()) {
-            case BOSE:
-                return Combinatorics.binomial((long) g + j - 1, j);
-            case FERMI:
-                return Combinatorics.binomial(g, j);
-            case GENTILE:
-                return LevelFactor.cappedWays(g, st.maxOccupancy(), j);
-            default:
-                return Combinatorics.binomial(n, j).multiply(BigInteger.valueOf(g).pow(j));
-        }
+        BigInteger w = st.levelWays(g, j);
+        return st.indistinguishable() ? w : Combinatorics.binomial(n, j).multiply(w);
     }
 
     /** The spectrum without level {@code skip}, same scale and cutoff; null when it was the only level. */

@@ -103,7 +103,7 @@ final class ZeroTemperatureLimit {
      * filled; then the ground states are equally likely and P(N_0 = j) = W(g_0, j) W(G - g_0, r - j) /
      * W(G, r), with G the shell's states, r its particles and W(g, j) the number of ways to put j
      * particles into g states (C(g, j) Fermi, C(g + j - 1, j) Bose: in ln Gamma, about 1e-13 relative;
-     * Gentile: exact integers by {@link Canonical#cappedWays}, rounded once).
+     * Gentile: exact integers by {@link Statistics#levelWays}, rounded once).
      */
     static double[] groundLevelDistribution(Spectrum s, Statistics st, int n, double level0Particles) {
         double[] p = new double[n + 1];
@@ -118,9 +118,9 @@ final class ZeroTemperatureLimit {
         int rest = (int) (shell - g0);
         if (st.capped() && st.maxOccupancy() > 1) {
             int k = st.maxOccupancy();
-            BigDecimal all = new BigDecimal(LevelFactor.cappedWays(shell, k, (int) r));
+            BigDecimal all = new BigDecimal(st.levelWays(shell, (int) r));
             for (int j = 0; j <= Math.min(r, (long) k * g0); j++) {
-                BigInteger w = LevelFactor.cappedWays(g0, k, j).multiply(LevelFactor.cappedWays(rest, k, (int) r - j));
+                BigInteger w = st.levelWays(g0, j).multiply(st.levelWays(rest, (int) r - j));
                 p[j] = new BigDecimal(w).divide(all, MathContext.DECIMAL64).doubleValue();
             }
             return p;
@@ -184,7 +184,7 @@ final class ZeroTemperatureLimit {
                 }
                 e += put * spectrum.energy(i);
                 if (put < g * cap) {
-                    degeneracy = LevelFactor.cappedWays(g, (int) cap, (int) put);
+                    degeneracy = statistics.levelWays(g, (int) put);
                 }
                 left -= put;
                 i = top;

@@ -228,9 +228,9 @@ public final class ChemicalPotential {
             for (int i = from; i < to; i++) {
                 double x = beta * (e[i] - mu);
                 if (i >= split) {
-                    above += g[i] * (fermi ? fermiMean(x) : MeanOccupation.gentile(k, x));
+                    above += g[i] * (fermi ? fermiMean(x) : statistics.meanOccupation(x));
                 } else {
-                    holes += g[i] * (fermi ? fermiMean(-x) : MeanOccupation.gentile(k, -x));
+                    holes += g[i] * (fermi ? fermiMean(-x) : statistics.meanOccupation(-x));
                 }
             }
             noise[0] = noiseLevel(above + holes, to - from, target);
