@@ -22,6 +22,24 @@ public final class Inputs {
         return kT;
     }
 
+    /**
+     * A temperature given as an energy (e.g. {@code Energy.ofTemperature(4.2)}, or k_B T in meV) as a
+     * number kT of the spectrum's energy unit {@code scale}; the same checks as {@link #temperature(double)}.
+     *
+     * @throws InvalidInputException when {@code scale} has no declared physical size (the message says how
+     *                               to declare one, or to give kT as a number in the spectrum's unit)
+     */
+    public static double temperature(org.microtally.units.Energy kT, org.microtally.units.EnergyScale scale) {
+        java.util.Objects.requireNonNull(kT, "kT");
+        if (scale.quantum().isEmpty()) {
+            throw new InvalidInputException("temperature " + kT + " cannot be expressed in the spectrum's energy unit \""
+                    + scale.name() + "\", which has no physical size. Declare its size with withScale(EnergyScale.of(\"" + scale.name()
+                    + "\", Energy.of(value, unit))) on the spectrum or density of states, or give kT as a number in units of "
+                    + scale.name() + ".");
+        }
+        return temperature(kT.in(scale));
+    }
+
     /** A temperature in kelvin: finite and &gt; 0. */
     public static double kelvin(double kelvin) {
         return positive("temperature T (K)", kelvin,

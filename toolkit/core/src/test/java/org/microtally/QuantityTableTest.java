@@ -46,7 +46,7 @@ class QuantityTableTest {
 
     @Test
     void grandCanonicalRowsKeepTheirValues() {
-        GrandCanonical g = GrandCanonical.atChemicalPotential(Spectra.twoLevel(1.0), Statistics.FERMI, 0.5, 0.0);
+        GrandCanonical g = GrandCanonical.ofChemicalPotential(Spectra.twoLevel(1.0), Statistics.FERMI, 0.5, 0.0);
         // Source: Fermi-Dirac closed form, one state at 0 and one at 1, mu = 0, kT = 1/2:
         // <N> = 1/2 + 1/(e^2 + 1)
         assertEquals(0.5 + 1 / (Math.exp(2) + 1), (Double) g.quantities().get("<N>").value(), 1e-14);
@@ -102,5 +102,16 @@ class QuantityTableTest {
         InvalidInputException e = assertThrows(InvalidInputException.class,
                 () -> c.quantities().inUnits(EnergyUnit.KELVIN));
         assertTrue(e.getMessage().contains("EnergyScale.of("), e.getMessage());
+    }
+
+    @Test
+    void groundStateAndOccupationsPrintReadably() {
+        // 2D oscillator shells 1, 2, 3, ... states: 4 fermions fill 0 (1 state) and 1 (2 states), one in shell 2
+        var g = Canonical.groundState(Spectra.harmonicOscillator(2, 4), Statistics.FERMI, 4);
+        String text = g.toString();
+        // Source: closed form, the last fermion has C(3, 1) = 3 places in shell 2; E = 0 + 2 x 1 + 2 = 4
+        assertTrue(text.startsWith("GroundState[E = 4.0, 3 microstates (exact)"), text);
+        assertFalse(text.contains("@"), text);
+        assertFalse(g.occupations().toString().contains("@"));
     }
 }

@@ -37,7 +37,7 @@ class RootsAndInputsTest {
         String canonical = assertThrows(InvalidInputException.class,
                 () -> Canonical.of(dot, Statistics.FERMI, 3, -0.0)).getMessage();
         String grand = assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 0.0, 3)).getMessage();
+                () -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 0.0, 3)).getMessage();
         assertTrue(grand.startsWith("temperature kT = 0.0 is not allowed: must be a finite number > 0."), grand);
         assertTrue(canonical.startsWith("temperature kT = "), canonical);
         String micro = assertThrows(InvalidInputException.class,

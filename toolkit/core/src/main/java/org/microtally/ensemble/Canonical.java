@@ -14,6 +14,7 @@ import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.units.Energy;
 
 /**
  * The canonical ensemble (fixed N, T) of N ideal particles on a spectrum: exact partition function
@@ -174,6 +175,43 @@ public final class Canonical implements Tabular {
         Counting.require(statistics, counting);
         Canonical c = of(spectrum, statistics, n, kT);
         return counting == Counting.CORRECTED_BOLTZMANN ? new Canonical(c, counting) : c;
+    }
+
+    /**
+     * The canonical ensemble at a temperature given as an energy, e.g.
+     * {@code Canonical.of(dot, FERMI, 12, Energy.ofTemperature(4.2))}: kT is converted to the spectrum's
+     * unit through its {@link org.microtally.units.EnergyScale} (one division).
+     *
+     * @throws InvalidInputException when the spectrum's scale has no physical size (the message says how to
+     *                               declare one), and as {@link #of(Spectrum, Statistics, int, double)}
+     */
+    public static Canonical of(Spectrum spectrum, Statistics statistics, int n, Energy kT) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        return of(spectrum, statistics, n, Inputs.temperature(kT, spectrum.scale()));
+    }
+
+    /**
+     * The canonical ensemble of an exact density of states g(E) with BigInteger multiplicities
+     * (interacting lattices, count tables, user tables), through the same front door: delegates to
+     * {@link ExactCanonical} (method and accuracy stated there: log-sum-exp over ln g(E), no overflow
+     * at any size).
+     */
+    public static ExactCanonical of(ExactDensityOfStates g) {
+        return ExactCanonical.of(g);
+    }
+
+    /** The thermodynamic state (ln Z, U, C, S, F) of the exact density of states {@code g} at kT &gt; 0 in its unit. */
+    public static ExactCanonical.State of(ExactDensityOfStates g, double kT) {
+        return ExactCanonical.of(g).atTemperature(Inputs.temperature(kT));
+    }
+
+    /**
+     * As {@link #of(ExactDensityOfStates, double)} with the temperature as an energy (e.g. kelvin), converted
+     * through the density of states' scale; refused, saying how to declare it, when the scale has no physical size.
+     */
+    public static ExactCanonical.State of(ExactDensityOfStates g, Energy kT) {
+        Objects.requireNonNull(g, "g");
+        return of(g, Inputs.temperature(kT, g.scale()));
     }
 
     /** The canonical ensemble of {@code n} particles at temperature {@code kT}; see the class notes. */

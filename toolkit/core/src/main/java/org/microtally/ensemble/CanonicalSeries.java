@@ -253,7 +253,7 @@ final class CanonicalSeries {
 
     private static void flushCheck(Spectrum s, Statistics st, double kT, double muStar, int n, double lnZnScaled,
                                    List<String> out) {
-        double lnXi = GrandCanonical.atChemicalPotential(s, st, kT, muStar).lnXi();
+        double lnXi = GrandCanonical.ofChemicalPotential(s, st, kT, muStar).lnXi();
         double lnPgc = lnZnScaled - lnXi;
         double lnBound = Math.log((double) s.stateCount()) + Math.log(n + 1.0) - 1073 * Math.log(2.0) - lnPgc;
         if (lnBound > Math.log(FLUSH_WARNING)) {

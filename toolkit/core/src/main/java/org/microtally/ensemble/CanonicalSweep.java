@@ -118,7 +118,7 @@ public final class CanonicalSweep implements Tabular {
                 var[n] = n * v1;
                 varErr[n] = 4 * spectrum.size() * 0x1p-53 * var[n];
             }
-            warnings.addAll(GrandCanonical.atMeanNumber(spectrum, statistics, kT, maxN).warnings());
+            warnings.addAll(GrandCanonical.ofMeanNumber(spectrum, statistics, kT, maxN).warnings());
             return new CanonicalSweep(spectrum, statistics, kT, lnZ, u, var, varErr, 0, warnings);
         }
         boolean[] done = new boolean[maxN + 1];
@@ -131,7 +131,7 @@ public final class CanonicalSweep implements Tabular {
         while (missing > 0) {
             int target = missing;
             double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, Math.min(target, capacity - 0.5));
-            GrandCanonical gc = GrandCanonical.atChemicalPotential(spectrum, statistics, kT, mu);
+            GrandCanonical gc = GrandCanonical.ofChemicalPotential(spectrum, statistics, kT, mu);
             if (passes == 0) {
                 warnings.addAll(gc.warnings());
             }

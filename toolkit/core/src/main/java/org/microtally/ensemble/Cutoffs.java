@@ -78,7 +78,7 @@ public final class Cutoffs {
         if (st.capped() && (double) st.maxOccupancy() * s.stateCount() <= n) {
             return false;
         }
-        GrandCanonical g = GrandCanonical.atMeanNumber(s, st, kT, n);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(s, st, kT, n);
         double[] perState = new double[s.size()];
         for (int i = 0; i < perState.length; i++) {
             perState[i] = g.occupations().perState(i);

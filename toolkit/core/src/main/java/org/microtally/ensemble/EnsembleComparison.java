@@ -97,7 +97,7 @@ public final class EnsembleComparison implements Tabular {
         List<Row> out = new ArrayList<>();
         for (double kT : kTs) {
             Canonical c = Canonical.of(spectrum, statistics, n, kT, counting);
-            GrandCanonical g = GrandCanonical.atMeanNumber(spectrum, statistics, kT, n, counting);
+            GrandCanonical g = GrandCanonical.ofMeanNumber(spectrum, statistics, kT, n, counting);
             Row can = canonicalRow(c);
             out.add(can);
             out.add(relative(can, "grand canonical", kT, g.energy(), g.heatCapacity(), g.entropy(),

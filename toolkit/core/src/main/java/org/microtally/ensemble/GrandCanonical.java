@@ -2,6 +2,7 @@ package org.microtally.ensemble;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
 import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Dimension;
@@ -12,6 +13,7 @@ import org.microtally.occupation.LevelOccupations;
 import org.microtally.occupation.MeanOccupation;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.units.Energy;
 
 /**
  * The grand canonical ensemble of ideal particles on a spectrum at temperature kT and chemical
@@ -187,14 +189,14 @@ public final class GrandCanonical implements Tabular {
      * The ensemble at a given chemical potential with an explicit {@link Counting} (LABELLED or
      * CORRECTED_BOLTZMANN for distinguishable particles, IDENTICAL for quantum statistics).
      *
-     * @throws InvalidInputException as {@link #atChemicalPotential(Spectrum, Statistics, double, double)};
+     * @throws InvalidInputException as {@link #ofChemicalPotential(Spectrum, Statistics, double, double)};
      *                               for LABELLED also when z Z_1 &gt;= 1 (the geometric sum diverges)
      */
-    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
+    public static GrandCanonical ofChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
                                                      Counting counting) {
         Counting.require(statistics, counting);
         if (counting != Counting.LABELLED) {
-            return atChemicalPotential(spectrum, statistics, kT, mu);
+            return ofChemicalPotential(spectrum, statistics, kT, mu);
         }
         Inputs.temperature(kT);
         if (!Double.isFinite(mu)) {
@@ -205,28 +207,72 @@ public final class GrandCanonical implements Tabular {
         if (!(lnW < 0)) {
             throw InvalidInputException.of("chemical potential mu for labelled particles", mu,
                     "below -kT ln Z_1 = " + (-kT * lnZ1) + " (z Z_1 < 1, else sum_N (z Z_1)^N diverges)",
-                    "Fix <N> instead (atMeanNumber).");
+                    "Fix <N> instead (ofMeanNumber).");
         }
         return new GrandCanonical(spectrum, kT, mu, Math.exp(lnW));
     }
 
     /**
-     * The ensemble with mean particle number {@code targetN} and an explicit {@link Counting}; for
+     * The ensemble with mean particle number {@code n} and an explicit {@link Counting}; for
      * LABELLED, mu = kT (ln(N/(N+1)) - ln Z_1) in closed form.
      */
-    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN,
+    public static GrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n,
                                               Counting counting) {
         Counting.require(statistics, counting);
         if (counting != Counting.LABELLED) {
-            return atMeanNumber(spectrum, statistics, kT, targetN);
+            return ofMeanNumber(spectrum, statistics, kT, n);
         }
         Inputs.temperature(kT);
-        if (!(targetN > 0) || !Double.isFinite(targetN)) {
-            throw InvalidInputException.of("target mean particle number", targetN, "a finite number > 0", "");
+        if (!(n > 0) || !Double.isFinite(n)) {
+            throw InvalidInputException.of("target mean particle number", n, "a finite number > 0", "");
         }
         double lnZ1 = lnZ1(spectrum, kT);
-        double w = targetN / (targetN + 1);
+        double w = n / (n + 1);
         return new GrandCanonical(spectrum, kT, kT * (Math.log(w) - lnZ1), w);
+    }
+
+    /**
+     * The ensemble at a temperature given as an energy (e.g. {@code Energy.ofTemperature(4.2)}) whose
+     * chemical potential gives mean particle number {@code n}; kT is converted to the spectrum's unit
+     * through its scale, refused with a message saying how to declare one when it has no physical size.
+     */
+    public static GrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, Energy kT, double n) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        return ofMeanNumber(spectrum, statistics, Inputs.temperature(kT, spectrum.scale()), n);
+    }
+
+    /** As {@link #ofChemicalPotential(Spectrum, Statistics, double, double)}, kT and mu given as energies. */
+    public static GrandCanonical ofChemicalPotential(Spectrum spectrum, Statistics statistics, Energy kT, Energy mu) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        Objects.requireNonNull(mu, "mu");
+        return ofChemicalPotential(spectrum, statistics, Inputs.temperature(kT, spectrum.scale()),
+                mu.in(spectrum.scale()));
+    }
+
+    /** @deprecated the factories are named {@code of...}: use {@link #ofMeanNumber(Spectrum, Statistics, double, double)}. */
+    @Deprecated
+    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
+        return ofMeanNumber(spectrum, statistics, kT, n);
+    }
+
+    /** @deprecated use {@link #ofMeanNumber(Spectrum, Statistics, double, double, Counting)}. */
+    @Deprecated
+    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n,
+                                              Counting counting) {
+        return ofMeanNumber(spectrum, statistics, kT, n, counting);
+    }
+
+    /** @deprecated use {@link #ofChemicalPotential(Spectrum, Statistics, double, double)}. */
+    @Deprecated
+    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
+        return ofChemicalPotential(spectrum, statistics, kT, mu);
+    }
+
+    /** @deprecated use {@link #ofChemicalPotential(Spectrum, Statistics, double, double, Counting)}. */
+    @Deprecated
+    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
+                                                     Counting counting) {
+        return ofChemicalPotential(spectrum, statistics, kT, mu, counting);
     }
 
     /** How microstates are counted ({@link Counting}); distinguishable particles default to CORRECTED_BOLTZMANN. */
@@ -240,7 +286,7 @@ public final class GrandCanonical implements Tabular {
      * @throws InvalidInputException for kT &lt;= 0 or not finite, mu not finite, or (bosons) mu at
      *                               or above the lowest level
      */
-    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
+    public static GrandCanonical ofChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
         Inputs.temperature(kT);
         if (!Double.isFinite(mu)) {
             throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
@@ -248,21 +294,21 @@ public final class GrandCanonical implements Tabular {
         if (statistics.condenses() && !(mu < spectrum.groundEnergy())) {
             throw InvalidInputException.of("chemical potential mu for bosons", mu,
                     "below the lowest level e_0 = " + spectrum.groundEnergy() + " " + spectrum.scale().name(),
-                    "Bose occupations diverge at mu = e_0; fix <N> instead (atMeanNumber) to approach condensation.");
+                    "Bose occupations diverge at mu = e_0; fix <N> instead (ofMeanNumber) to approach condensation.");
         }
         return new GrandCanonical(spectrum, statistics, kT, mu);
     }
 
     /**
-     * The ensemble whose chemical potential gives mean particle number {@code targetN}
+     * The ensemble whose chemical potential gives mean particle number {@code n}
      * ({@link ChemicalPotential#forMeanNumber}).
      */
-    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
+    public static GrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
         Inputs.temperature(kT);
-        double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, targetN);
+        double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, n);
         GrandCanonical g = new GrandCanonical(spectrum, statistics, kT, mu);
-        if (!(Math.abs(g.meanN - targetN) <= 1e-9 * Math.max(1.0, targetN))) {
-            throw InvalidInputException.of("temperature kT for a grand canonical <N> = " + targetN, kT,
+        if (!(Math.abs(g.meanN - n) <= 1e-9 * Math.max(1.0, n))) {
+            throw InvalidInputException.of("temperature kT for a grand canonical <N> = " + n, kT,
                     "large enough that some mu gives that mean (here the best mu, " + mu + ", gives " + g.meanN
                             + ": at this kT the occupations are steps)",
                     "Use Canonical.of (exact T -> 0 limit) or ChemicalPotential.fermiLevel for the T -> 0 limit.");

@@ -67,7 +67,7 @@ public final class GroundLevelComparison implements Tabular {
         double lnKT = Roots.solve("ln kT at which the canonical U equals E = " + e, gap, lo, hi, 1e-12);
         double kT = Math.exp(lnKT);
         Canonical canonical = Canonical.of(spectrum, statistics, n, kT);
-        GrandCanonical grand = GrandCanonical.atMeanNumber(spectrum, statistics, kT, n);
+        GrandCanonical grand = GrandCanonical.ofMeanNumber(spectrum, statistics, kT, n);
         return new GroundLevelComparison(micro, canonical, grand);
     }
 

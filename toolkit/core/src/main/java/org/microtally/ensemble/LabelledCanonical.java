@@ -147,7 +147,7 @@ public final class LabelledCanonical implements Tabular {
         }
         LabelSeries z = series(spectrum, statistics, n, beta, h, mu, -1);
         GrandCanonical gc = statistics.indistinguishable()
-                ? GrandCanonical.atChemicalPotential(shifted, statistics, kT, mu) : null;
+                ? GrandCanonical.ofChemicalPotential(shifted, statistics, kT, mu) : null;
         // the untruncated total the flushed mantissas are measured against: Xi at (mu*, h) for
         // indistinguishable particles; for labelled ones the row sum Z_1^N (every row k <= N sums to Z_1^k)
         double lnTotal;

@@ -56,20 +56,20 @@ public final class LabelledGrandCanonical implements Tabular {
      * At chemical potential {@code mu} and field {@code h}.
      *
      * @throws InvalidInputException for an unlabelled spectrum, h not finite, or what
-     *                               {@link GrandCanonical#atChemicalPotential} refuses on the shifted spectrum
+     *                               {@link GrandCanonical#ofChemicalPotential} refuses on the shifted spectrum
      */
     public static LabelledGrandCanonical inField(Spectrum spectrum, Statistics statistics, double kT, double mu, double h) {
         requireLabelled(spectrum, h);
         Spectrum shifted = LabelledCanonical.shifted(spectrum, h);
-        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.atChemicalPotential(shifted, statistics, kT, mu));
+        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.ofChemicalPotential(shifted, statistics, kT, mu));
     }
 
     /** At the mu that gives mean number {@code targetN} in the field {@code h}. */
-    public static LabelledGrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT,
+    public static LabelledGrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, double kT,
                                                       double targetN, double h) {
         requireLabelled(spectrum, h);
         Spectrum shifted = LabelledCanonical.shifted(spectrum, h);
-        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.atMeanNumber(shifted, statistics, kT, targetN));
+        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.ofMeanNumber(shifted, statistics, kT, targetN));
     }
 
     private static void requireLabelled(Spectrum spectrum, double h) {

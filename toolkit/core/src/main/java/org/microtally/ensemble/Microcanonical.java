@@ -122,6 +122,15 @@ public final class Microcanonical implements Tabular {
         return of(spectrum, statistics, n, maxEnergy, ProgressListener.NONE);
     }
 
+    /**
+     * The microcanonical ensemble of an exact density of states g(E) with BigInteger multiplicities
+     * (interacting lattices, user tables), through the same front door: delegates to
+     * {@link ExactMicrocanonical} (Boltzmann and Gibbs entropies and temperatures from the exact counts).
+     */
+    public static ExactMicrocanonical of(ExactDensityOfStates g) {
+        return ExactMicrocanonical.of(g);
+    }
+
     /** As {@link #of(Spectrum, Statistics, int, int)}, reporting the count table's progress. */
     public static Microcanonical of(Spectrum spectrum, Statistics statistics, int n, int maxEnergy,
                                     ProgressListener progress) {

@@ -66,9 +66,9 @@ public final class BoseGas {
     }
 
     /** N spinless bosons in a 3D harmonic trap (any mass: the density of states does not depend on it). */
-    public static BoseGas inHarmonicTrap(HarmonicTrap trap, double atoms) {
-        Checks.positive("number of atoms N", atoms, "");
-        return new BoseGas(DensityOfStates.harmonic(trap, 1), atoms, trap);
+    public static BoseGas inHarmonicTrap(HarmonicTrap trap, double n) {
+        Checks.positive("number of n N", n, "");
+        return new BoseGas(DensityOfStates.harmonic(trap, 1), n, trap);
     }
 
     /**

@@ -43,13 +43,13 @@ public final class ChemicalPotential {
 
     /**
      * The chemical potential (in the spectrum's unit) at temperature {@code kT} for mean particle
-     * number {@code targetN}.
+     * number {@code n}.
      *
-     * @throws InvalidInputException for kT &lt;= 0 or not finite, targetN &lt;= 0 or not finite, or
-     *                               targetN at or above the capacity of a capped spectrum
+     * @throws InvalidInputException for kT &lt;= 0 or not finite, n &lt;= 0 or not finite, or
+     *                               n at or above the capacity of a capped spectrum
      */
-    public static double forMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
-        return solver(spectrum, statistics).forMeanNumber(kT, targetN);
+    public static double forMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
+        return solver(spectrum, statistics).forMeanNumber(kT, n);
     }
 
     /**
@@ -86,20 +86,20 @@ public final class ChemicalPotential {
             }
         }
 
-        /** mu at temperature kT for mean number targetN; see {@link ChemicalPotential#forMeanNumber}. */
-        public double forMeanNumber(double kT, double targetN) {
+        /** mu at temperature kT for mean number n; see {@link ChemicalPotential#forMeanNumber}. */
+        public double forMeanNumber(double kT, double n) {
             Inputs.temperature(kT);
-            if (!(targetN > 0) || !Double.isFinite(targetN)) {
-                throw InvalidInputException.of("target mean particle number <N>", targetN, "a finite number > 0",
+            if (!(n > 0) || !Double.isFinite(n)) {
+                throw InvalidInputException.of("target mean particle number <N>", n, "a finite number > 0",
                         "An empty system has mu = -infinity; give <N> > 0.");
             }
             double beta = 1.0 / kT;
             double cap = statistics.capped() ? statistics.maxOccupancy() : 1.0;
-            double window = Math.max(45.0, 45.0 + Math.log(cap * spectrum.stateCount() / targetN));
+            double window = Math.max(45.0, 45.0 + Math.log(cap * spectrum.stateCount() / n));
             return switch (statistics.kind()) {
-                case BOSE -> bose(beta, targetN, window);
-                case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, targetN);
-                case FERMI, GENTILE -> capped(beta, targetN, window);
+                case BOSE -> bose(beta, n, window);
+                case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, n);
+                case FERMI, GENTILE -> capped(beta, n, window);
             };
         }
 

@@ -281,7 +281,7 @@ class CanonicalTest {
             int n = ns[k];
             double kT = 0.5 * Math.cbrt(n);
             Canonical c = Canonical.of(s, Statistics.FERMI, n, kT);
-            GrandCanonical g = GrandCanonical.atMeanNumber(s, Statistics.FERMI, kT, n);
+            GrandCanonical g = GrandCanonical.ofMeanNumber(s, Statistics.FERMI, kT, n);
             diff[k] = Math.abs(c.entropy() - g.entropy()) / n;
         }
         // Source: common practice, no source (ensemble equivalence: per-particle differences are O(ln N / N))

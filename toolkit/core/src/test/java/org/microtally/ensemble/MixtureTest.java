@@ -127,7 +127,7 @@ class MixtureTest {
     @Test
     void grandCanonicalMixtureAtMeanNumbersHitsEveryTarget() {
         Spectrum trap = Spectra.harmonicOscillator(3, 40);
-        GrandCanonicalMixture g = GrandCanonicalMixture.atMeanNumbers(List.of(
+        GrandCanonicalMixture g = GrandCanonicalMixture.ofMeanNumbers(List.of(
                 new Species("Rb", trap, Statistics.BOSE, 500), new Species("K", trap, Statistics.FERMI, 200)), 4.0);
         // Source: common practice, no source (the solved mu reproduces each target <N_a>)
         assertEquals(500, g.part(0).meanNumber(), 1e-9 * 500);

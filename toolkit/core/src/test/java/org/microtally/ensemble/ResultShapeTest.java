@@ -23,7 +23,7 @@ class ResultShapeTest {
         Canonical bose = Canonical.of(dot, Statistics.BOSE, 10, 1.0);
         List<Tabular> all = List.of(bose, bose.occupations(), bose.condensate(),
                 Canonical.of(dot, Statistics.FERMI, 10, 1.0),
-                GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 1.0, 10),
+                GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 1.0, 10),
                 EnsembleComparison.overTemperatures(dot, Statistics.BOSE, 10, 0.5, 1.0),
                 EnsembleComparison.convergence(dot, Statistics.FERMI, new int[] {5, 10}, n -> 1.0),
                 Microcanonical.of(dot, Statistics.FERMI, 6, 20), Canonical.groundState(dot, Statistics.FERMI, 7));
