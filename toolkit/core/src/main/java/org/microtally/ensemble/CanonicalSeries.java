@@ -25,19 +25,22 @@ final class CanonicalSeries {
     /** Bose, Fermi or Gentile at kT &gt; 0: mu* from the grand canonical mean number, then the series. */
     static Canonical indistinguishable(Spectrum spectrum, Statistics statistics, int n, double kT,
                                        ProgressListener progress) {
-        double capacity = statistics.capped() ? (double) statistics.maxOccupancy() * spectrum.stateCount()
-                : Double.POSITIVE_INFINITY;
-        double target = Math.min(n, capacity - 0.5);
-        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, target);
-        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress, STORE_ALL_LIMIT)
-                : bose(spectrum, n, kT, muStar, progress);
+        return indistinguishable(spectrum, statistics, n, kT, progress, STORE_ALL_LIMIT);
     }
 
     /** Test hook: Fermi/Gentile with a given prefix-memory limit (0 forces the checkpoint path). */
     static Canonical cappedWithPrefixLimit(Spectrum spectrum, Statistics statistics, int n, double kT, long limit) {
-        double capacity = (double) statistics.maxOccupancy() * spectrum.stateCount();
-        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, Math.min(n, capacity - 0.5));
-        return capped(spectrum, statistics, n, kT, muStar, ProgressListener.NONE, limit);
+        return indistinguishable(spectrum, statistics, n, kT, ProgressListener.NONE, limit);
+    }
+
+    private static Canonical indistinguishable(Spectrum spectrum, Statistics statistics, int n, double kT,
+                                               ProgressListener progress, long storeAllLimit) {
+        double capacity = statistics.capped() ? (double) statistics.maxOccupancy() * spectrum.stateCount()
+                : Double.POSITIVE_INFINITY;
+        double target = Math.min(n, capacity - 0.5);
+        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, target);
+        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress, storeAllLimit)
+                : bose(spectrum, n, kT, muStar, progress);
     }
 
     static Canonical distinguishable(Spectrum s, int n, double kT) {

@@ -255,24 +255,10 @@ public final class GrandCanonical implements Tabular {
         return ofMeanNumber(spectrum, statistics, kT, n);
     }
 
-    /** @deprecated use {@link #ofMeanNumber(Spectrum, Statistics, double, double, Counting)}. */
-    @Deprecated
-    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n,
-                                              Counting counting) {
-        return ofMeanNumber(spectrum, statistics, kT, n, counting);
-    }
-
     /** @deprecated use {@link #ofChemicalPotential(Spectrum, Statistics, double, double)}. */
     @Deprecated
     public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
         return ofChemicalPotential(spectrum, statistics, kT, mu);
-    }
-
-    /** @deprecated use {@link #ofChemicalPotential(Spectrum, Statistics, double, double, Counting)}. */
-    @Deprecated
-    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
-                                                     Counting counting) {
-        return ofChemicalPotential(spectrum, statistics, kT, mu, counting);
     }
 
     /** How microstates are counted ({@link Counting}); distinguishable particles default to CORRECTED_BOLTZMANN. */

@@ -43,6 +43,12 @@ public final class GrandCanonicalMixture implements Tabular {
         this.warnings = CanonicalMixture.prefixedWarnings(species, parts, GrandCanonical::warnings);
     }
 
+    /** @deprecated the factories are named {@code of...}: use {@link #ofChemicalPotentials(List, double, double...)}. */
+    @Deprecated
+    public static GrandCanonicalMixture atChemicalPotentials(List<Species> species, double kT, double... mu) {
+        return ofChemicalPotentials(species, kT, mu);
+    }
+
     /**
      * The mixture at given chemical potentials, one per species in list order (the species' particle
      * numbers are not used).
@@ -51,7 +57,7 @@ public final class GrandCanonicalMixture implements Tabular {
      *                               {@link GrandCanonical#ofChemicalPotential} refuses (the message names
      *                               the species)
      */
-    public static GrandCanonicalMixture atChemicalPotentials(List<Species> species, double kT, double... mu) {
+    public static GrandCanonicalMixture ofChemicalPotentials(List<Species> species, double kT, double... mu) {
         List<Species> list = CanonicalMixture.validate(species);
         Objects.requireNonNull(mu, "mu");
         if (mu.length != list.size()) {

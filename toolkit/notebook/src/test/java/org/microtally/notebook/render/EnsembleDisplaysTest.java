@@ -66,7 +66,7 @@ class EnsembleDisplaysTest {
     void grandCanonicalFermionsCarryTheOccupationLaw() {
         // Halyard Bay quantum dot: 2D oscillator levels (hbar omega units), 12 electrons in spin-degenerate shells
         Spectrum dot = Spectra.harmonicOscillator(2, 10).withInternalMultiplicity(2);
-        GrandCanonical g = GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 0.3, 12);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 0.3, 12);
         MimeBundle b = Renderers.render(g);
         assertEquals("$$\\langle n \\rangle = \\frac{1}{e^{(\\varepsilon - \\mu)/kT} + 1}$$", b.get(MimeBundle.TEXT_LATEX));
         assertTrue(b.plain().contains("Occupation of one state: <n> = 1/(exp((e - mu)/kT) + 1)"), b.plain());
@@ -127,7 +127,7 @@ class EnsembleDisplaysTest {
         Spectrum s = Spectra.equallySpaced(6, 1.0);
         Map<String, LevelOccupations> profiles = new LinkedHashMap<>();
         for (Statistics st : List.of(Statistics.FERMI, Statistics.BOSE, Statistics.DISTINGUISHABLE)) {
-            profiles.put(st.toString(), GrandCanonical.atChemicalPotential(s, st, 1.0, -0.5).occupations());
+            profiles.put(st.toString(), GrandCanonical.ofChemicalPotential(s, st, 1.0, -0.5).occupations());
         }
         XYChart chart = OccupationCharts.occupations(profiles);
         assertEquals(3, chart.getSeriesCollection().size());
