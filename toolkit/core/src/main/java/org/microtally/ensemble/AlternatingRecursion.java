@@ -1,5 +1,6 @@
 package org.microtally.ensemble;
 
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -28,7 +29,7 @@ public final class AlternatingRecursion {
         if (statistics.kind() != Statistics.Kind.BOSE && statistics.kind() != Statistics.Kind.FERMI) {
             throw InvalidInputException.of("statistics for the alternating recursion", statistics, "BOSE or FERMI", "");
         }
-        GrandCanonical.requireTemperature(kT);
+        Inputs.temperature(kT);
         if (maxN < 1) {
             throw InvalidInputException.of("maxN", maxN, "an integer >= 1", "");
         }

@@ -1,20 +1,20 @@
 package org.microtally.ensemble;
 
-import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
-import org.microtally.MemoryEstimate;
 import org.microtally.ProgressListener;
+import org.microtally.Dimension;
+import org.microtally.QuantityTable;
 import org.microtally.Tabular;
-import org.microtally.exact.Combinatorics;
-import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.units.Energy;
 
 /**
  * The canonical ensemble (fixed N, T) of N ideal particles on a spectrum: exact partition function
@@ -89,8 +89,6 @@ import org.microtally.spectrum.Statistics;
  */
 public final class Canonical implements Tabular {
     private static final int MAX_N = 10_000_000;
-    private static final long STORE_ALL_LIMIT = 1L << 23;
-    private static final double FLUSH_WARNING = 1e-12;
 
     private final Spectrum spectrum;
     private final Statistics statistics;
@@ -112,7 +110,7 @@ public final class Canonical implements Tabular {
     /** At kT &lt; 0: the ensemble of the mirrored spectrum at -kT, whose moment pass gives Var E. */
     private final Canonical mirror;
 
-    private Canonical(Spectrum spectrum, Statistics statistics, int n, double kT, double muStar, double lnZ,
+    Canonical(Spectrum spectrum, Statistics statistics, int n, double kT, double muStar, double lnZ,
                       double[] perState, double[] vacancies, CondensateDistribution condensate,
                       List<String> extraWarnings, EnergyFluctuations knownFluctuations, Canonical mirror,
                       Double exactEntropy) {
@@ -179,6 +177,43 @@ public final class Canonical implements Tabular {
         return counting == Counting.CORRECTED_BOLTZMANN ? new Canonical(c, counting) : c;
     }
 
+    /**
+     * The canonical ensemble at a temperature given as an energy, e.g.
+     * {@code Canonical.of(dot, FERMI, 12, Energy.ofTemperature(4.2))}: kT is converted to the spectrum's
+     * unit through its {@link org.microtally.units.EnergyScale} (one division).
+     *
+     * @throws InvalidInputException when the spectrum's scale has no physical size (the message says how to
+     *                               declare one), and as {@link #of(Spectrum, Statistics, int, double)}
+     */
+    public static Canonical of(Spectrum spectrum, Statistics statistics, int n, Energy kT) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        return of(spectrum, statistics, n, Inputs.temperature(kT, spectrum.scale()));
+    }
+
+    /**
+     * The canonical ensemble of an exact density of states g(E) with BigInteger multiplicities
+     * (interacting lattices, count tables, user tables), through the same front door: delegates to
+     * {@link ExactCanonical} (method and accuracy stated there: log-sum-exp over ln g(E), no overflow
+     * at any size).
+     */
+    public static ExactCanonical of(ExactDensityOfStates g) {
+        return ExactCanonical.of(g);
+    }
+
+    /** The thermodynamic state (ln Z, U, C, S, F) of the exact density of states {@code g} at kT &gt; 0 in its unit. */
+    public static ExactCanonical.State of(ExactDensityOfStates g, double kT) {
+        return ExactCanonical.of(g).atTemperature(Inputs.temperature(kT));
+    }
+
+    /**
+     * As {@link #of(ExactDensityOfStates, double)} with the temperature as an energy (e.g. kelvin), converted
+     * through the density of states' scale; refused, saying how to declare it, when the scale has no physical size.
+     */
+    public static ExactCanonical.State of(ExactDensityOfStates g, Energy kT) {
+        Objects.requireNonNull(g, "g");
+        return of(g, Inputs.temperature(kT, g.scale()));
+    }
+
     /** The canonical ensemble of {@code n} particles at temperature {@code kT}; see the class notes. */
     public static Canonical of(Spectrum spectrum, Statistics statistics, int n, double kT) {
         return of(spectrum, statistics, n, kT, ProgressListener.NONE);
@@ -210,24 +245,12 @@ public final class Canonical implements Tabular {
         }
         double gap = ZeroTemperatureLimit.gap(spectrum, statistics, n);
         if (gap > ZeroTemperatureLimit.EXPONENT * kT) {
-            return zeroTemperatureLimit(spectrum, statistics, n, kT, gap);
+            return ZeroTemperatureLimit.canonical(spectrum, statistics, n, kT, gap);
         }
         if (statistics.kind() == Statistics.Kind.DISTINGUISHABLE) {
-            return distinguishable(spectrum, n, kT);
+            return CanonicalSeries.distinguishable(spectrum, n, kT);
         }
-        double capacity = statistics.capped() ? (double) statistics.maxOccupancy() * spectrum.stateCount()
-                : Double.POSITIVE_INFINITY;
-        double target = Math.min(n, capacity - 0.5);
-        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, target);
-        return statistics.capped() ? capped(spectrum, statistics, n, kT, muStar, progress, STORE_ALL_LIMIT)
-                : bose(spectrum, n, kT, muStar, progress);
-    }
-
-    /** Test hook: Fermi/Gentile with a given prefix-memory limit (0 forces the checkpoint path). */
-    static Canonical cappedWithPrefixLimit(Spectrum spectrum, Statistics statistics, int n, double kT, long limit) {
-        double capacity = (double) statistics.maxOccupancy() * spectrum.stateCount();
-        double muStar = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, Math.min(n, capacity - 0.5));
-        return capped(spectrum, statistics, n, kT, muStar, ProgressListener.NONE, limit);
+        return CanonicalSeries.indistinguishable(spectrum, statistics, n, kT, progress);
     }
 
     /**
@@ -238,83 +261,7 @@ public final class Canonical implements Tabular {
      */
     public static GroundState groundState(Spectrum spectrum, Statistics statistics, int n) {
         requireParticleNumber(spectrum, statistics, n);
-        int m = spectrum.size();
-        double[] occ = new double[m];
-        long cap = statistics.capped() ? statistics.maxOccupancy() : Long.MAX_VALUE;
-        BigInteger degeneracy;
-        double e;
-        if (!statistics.capped()) {
-            // every particle in the lowest energy, shared by all levels at that energy (labelled
-            // spectra may hold several levels there, one per label)
-            int top = energyGroupEnd(spectrum, 0);
-            long g0 = 0;
-            for (int i = 0; i < top; i++) {
-                g0 += spectrum.degeneracy(i);
-            }
-            for (int i = 0; i < top; i++) {
-                occ[i] = (double) n / g0;
-            }
-            e = n * spectrum.groundEnergy();
-            degeneracy = statistics.indistinguishable() ? Combinatorics.binomial(g0 + n - 1L, n)
-                    : BigInteger.valueOf(g0).pow(n);
-        } else {
-            long left = n;
-            e = 0;
-            degeneracy = BigInteger.ONE;
-            for (int i = 0; i < m && left > 0; ) {
-                int top = energyGroupEnd(spectrum, i);
-                long g = 0;
-                for (int j = i; j < top; j++) {
-                    g += spectrum.degeneracy(j);
-                }
-                long put = Math.min(left, g * cap);
-                for (int j = i; j < top; j++) {
-                    occ[j] = (double) put / g;
-                }
-                e += put * spectrum.energy(i);
-                if (put < g * cap) {
-                    degeneracy = cappedWays(g, (int) cap, (int) put);
-                }
-                left -= put;
-                i = top;
-            }
-        }
-        return new GroundState(e, degeneracy, new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), occ));
-    }
-
-    /** Canonical in the T -&gt; 0 limit (see {@link ZeroTemperatureLimit}): every quantity from the ground states. */
-    private static Canonical zeroTemperatureLimit(Spectrum s, Statistics st, int n, double kT, double gap) {
-        GroundState gs = groundState(s, st, n);
-        double lnZ = gs.entropy() - gs.energy() / kT;
-        if (!Double.isFinite(lnZ)) {
-            throw InvalidInputException.of("temperature kT", kT, "large enough that E_0/kT is finite (E_0 = "
-                    + gs.energy() + ")", "Measure energies from the ground level (E_0 = 0), or use Canonical.groundState.");
-        }
-        int m = s.size();
-        double[] occ = new double[m];
-        double[] vac = st.capped() ? new double[m] : null;
-        double top = s.groundEnergy();
-        for (int i = 0; i < m; i++) {
-            occ[i] = gs.occupations().perState(i);
-            if (vac != null) {
-                vac[i] = st.maxOccupancy() - occ[i];
-            }
-            if (occ[i] > 0) {
-                top = s.energy(i);
-            }
-        }
-        String note = gap == Double.POSITIVE_INFINITY
-                ? "no excitations: every N-particle state has the same energy, so ln Z = ln g - E_0/kT, U = E_0, "
-                        + "S/k = ln g (g = " + gs.degeneracy() + " states), C_V = Var E = 0 and the occupations are "
-                        + "exact at every temperature"
-                : String.format("T -> 0 limit: the lowest excitation (%.6g) is %.3g kT, so every excited state is "
-                        + "suppressed by a factor below e^-700; ln Z = ln g - E_0/kT, U = E_0, S/k = ln g (g = %s "
-                        + "ground states), C_V = Var E = 0 (exponentially small) and the occupations and ground-level "
-                        + "distribution are the ground-state values, all exact to double precision",
-                        gap, gap / kT, gs.degeneracy());
-        double[] dist = ZeroTemperatureLimit.groundLevelDistribution(s, st, n, occ[0] * s.degeneracy(0));
-        return new Canonical(s, st, n, kT, top, lnZ, occ, vac, new CondensateDistribution(dist), List.of(note),
-                EnergyFluctuations.exact(0), null, gs.entropy());
+        return ZeroTemperatureLimit.groundState(spectrum, statistics, n);
     }
 
     /**
@@ -338,252 +285,13 @@ public final class Canonical implements Tabular {
         return c;
     }
 
-    /** One past the last level with the same energy as level {@code from} (levels are sorted by energy). */
-    private static int energyGroupEnd(Spectrum spectrum, int from) {
-        int top = from + 1;
-        while (top < spectrum.size() && spectrum.energy(top) == spectrum.energy(from)) {
-            top++;
-        }
-        return top;
+
+    static void requireParticleNumber(Spectrum spectrum, Statistics statistics, int n) {
+        Inputs.particleNumber("particle number N", n, MAX_N,
+                "N = 0 is the empty system (Z = 1, U = S = C = 0) and needs no computation.");
+        Inputs.withinCapacity("particle number N", n, statistics.maxOccupancy(), spectrum.stateCount());
     }
 
-    private static void requireParticleNumber(Spectrum spectrum, Statistics statistics, int n) {
-        if (n < 1 || n > MAX_N) {
-            throw InvalidInputException.of("particle number N", n, "an integer in [1, " + MAX_N + "]",
-                    "N = 0 is the empty system (Z = 1, U = S = C = 0) and needs no computation.");
-        }
-        if (statistics.capped()) {
-            long capacity = (long) statistics.maxOccupancy() * spectrum.stateCount();
-            if (n > capacity) {
-                throw InvalidInputException.of("particle number N", n,
-                        "at most the capacity " + capacity + " of the spectrum (" + statistics.maxOccupancy()
-                                + " per state x " + spectrum.stateCount() + " states)",
-                        "Raise the spectrum's cutoff.");
-            }
-        }
-    }
-
-    private static Canonical distinguishable(Spectrum s, int n, double kT) {
-        double beta = 1.0 / kT;
-        double e0 = s.groundEnergy();
-        double z1 = 0;
-        double m1 = 0;
-        double m2 = 0;
-        for (int i = 0; i < s.size(); i++) {
-            double d = s.energy(i) - e0;
-            double w = s.degeneracy(i) * Math.exp(-beta * d);
-            z1 += w;
-            m1 += w * d;
-            m2 += w * d * d;
-        }
-        double mean = m1 / z1;
-        double var1 = Math.max(0.0, m2 / z1 - mean * mean);
-        double lnZ1 = Math.log(z1) - beta * e0;
-        double[] occ = new double[s.size()];
-        for (int i = 0; i < occ.length; i++) {
-            occ[i] = n * Math.exp(-beta * (s.energy(i) - e0)) / z1;
-        }
-        double mu = ChemicalPotential.forMeanNumber(s, Statistics.DISTINGUISHABLE, kT, n);
-        // each labelled particle is in the lowest level independently with p = g_0 / Z_1: binomial N_0
-        double excited = z1 - s.degeneracy(0);
-        double lnP = Math.log(s.degeneracy(0) / z1);
-        double lnQ = excited > 0 ? Math.log(excited / z1) : Double.NEGATIVE_INFINITY;
-        double[] dist = new double[n + 1];
-        double lnBinom = 0;
-        double total = 0;
-        for (int j = 0; j <= n; j++) {
-            if (j > 0) {
-                lnBinom += Math.log((n - j + 1.0) / j);
-            }
-            double lq = n - j == 0 ? 0.0 : (n - j) * lnQ;
-            dist[j] = lq == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lnBinom + j * lnP + lq);
-            total += dist[j];
-        }
-        for (int j = 0; j <= n; j++) {
-            dist[j] /= total;
-        }
-        return new Canonical(s, Statistics.DISTINGUISHABLE, n, kT, mu, n * lnZ1, occ, null,
-                new CondensateDistribution(dist), List.of(),
-                EnergyFluctuations.exact(n * var1), null, null);
-    }
-
-    private static double lnY(Spectrum s, int i, double beta, double muStar) {
-        return -beta * (s.energy(i) - muStar);
-    }
-
-    private static Canonical bose(Spectrum s, int n, double kT, double muStar, ProgressListener progress) {
-        double beta = 1.0 / kT;
-        int m = s.size();
-        ScaledSeries z = new ScaledSeries(n, false);
-        ScaledSeries others = null;
-        long every = Math.max(1, m / 100);
-        for (int i = m - 1; i >= 0; i--) {
-            if (i == 0) {
-                others = z.copy();
-            }
-            z.multiplyStates(s.degeneracy(i), lnY(s, i, beta, muStar), Integer.MAX_VALUE, 0);
-            if ((m - i) % every == 0) {
-                progress.progress(m - i, m, "levels");
-            }
-        }
-        double cn = z.c[n];
-        double[] occ = new double[m];
-        for (int i = 0; i < m; i++) {
-            double y = Math.exp(lnY(s, i, beta, muStar));
-            double acc = 0;
-            for (int k = 0; k < n; k++) {
-                acc = acc * y + z.c[k];
-            }
-            occ[i] = y * acc / cn;
-        }
-        double lnZn = z.logCoefficient(n);
-        double[] p = new double[n + 1];
-        double lnY0 = lnY(s, 0, beta, muStar);
-        int g0 = s.degeneracy(0);
-        double lnL = 0;
-        double sum = 0;
-        for (int j = 0; j <= n; j++) {
-            if (j > 0) {
-                lnL += lnY0 + Math.log(((double) g0 + j - 1) / j);
-            }
-            double lc = others.logCoefficient(n - j);
-            p[j] = lc == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lnL + lc - lnZn);
-            sum += p[j];
-        }
-        for (int j = 0; j <= n; j++) {
-            p[j] /= sum;
-        }
-        List<String> extra = new ArrayList<>();
-        flushCheck(s, Statistics.BOSE, kT, muStar, n, lnZn, extra);
-        if (Math.abs(sum - 1) > 1e-9) {
-            extra.add("internal consistency: condensate probabilities summed to " + sum + " before normalisation");
-        }
-        return new Canonical(s, Statistics.BOSE, n, kT, muStar, lnZn - beta * muStar * n, occ, null,
-                new CondensateDistribution(p), extra, null, null, null);
-    }
-
-    private static Canonical capped(Spectrum s, Statistics st, int n, double kT, double muStar,
-                                    ProgressListener progress, long storeAllLimit) {
-        double beta = 1.0 / kT;
-        int m = s.size();
-        int cap = st.maxOccupancy();
-        boolean storeAll = (long) m * (n + 1) <= storeAllLimit;
-        int block = storeAll ? m : (int) Math.ceil(Math.sqrt(m));
-        int blocks = (m + block - 1) / block;
-        MemoryEstimate.requireHeap("particle number N", n, "the kept partial products, " + (storeAll ? m : block + blocks)
-                        + " series of N + 1 numbers", (storeAll ? (double) m : (double) block + blocks) * (n + 1.0), 8,
-                "Lower N, or merge levels of equal energy (each level is one series), or give Java more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
-        ScaledSeries[] checkpoints = new ScaledSeries[blocks];
-        ScaledSeries[] q = new ScaledSeries[storeAll ? m : block];
-        ScaledSeries z = new ScaledSeries(n, false);
-        long total = 2L * m;
-        long every = Math.max(1, m / 50);
-        for (int i = 0; i < m; i++) {
-            if (i % block == 0) {
-                checkpoints[i / block] = storeAll ? null : z.copy();
-            }
-            double ly = lnY(s, i, beta, muStar);
-            z.multiplyStates(s.degeneracy(i) - 1, ly, cap, 0);
-            if (storeAll) {
-                q[i] = z.copy();
-            }
-            z.multiplyStates(1, ly, cap, 0);
-            if ((i + 1) % every == 0) {
-                progress.progress(i + 1, total, "levels (forward)");
-            }
-        }
-        double lnZn = z.logCoefficient(n);
-        double[] occ = new double[m];
-        double[] vac = new double[m];
-        double worstMismatch = 0;
-        ScaledSeries suffix = new ScaledSeries(n, false);
-        double[] lp = new double[cap + 1];
-        double[] groundDistribution = null;
-        for (int b = blocks - 1; b >= 0; b--) {
-            int from = b * block;
-            int to = Math.min(m, from + block);
-            if (!storeAll) {
-                ScaledSeries w = checkpoints[b].copy();
-                for (int i = from; i < to; i++) {
-                    double ly = lnY(s, i, beta, muStar);
-                    w.multiplyStates(s.degeneracy(i) - 1, ly, cap, 0);
-                    q[i - from] = w.copy();
-                    w.multiplyStates(1, ly, cap, 0);
-                }
-            }
-            for (int i = to - 1; i >= from; i--) {
-                ScaledSeries qi = q[storeAll ? i : i - from];
-                double ly = lnY(s, i, beta, muStar);
-                double max = Double.NEGATIVE_INFINITY;
-                for (int j = 0; j <= cap; j++) {
-                    double c = qi.logProductCoefficient(suffix, n - j);
-                    lp[j] = c == Double.NEGATIVE_INFINITY ? c : c + j * ly;
-                    max = Math.max(max, lp[j]);
-                }
-                double s0 = 0;
-                double s1 = 0;
-                double sv = 0;
-                for (int j = 0; j <= cap; j++) {
-                    double w = lp[j] == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(lp[j] - max);
-                    s0 += w;
-                    s1 += j * w;
-                    sv += (cap - j) * w;
-                }
-                occ[i] = s1 / s0;
-                vac[i] = sv / s0;
-                worstMismatch = Math.max(worstMismatch, Math.abs(max + Math.log(s0) - lnZn));
-                q[storeAll ? i : i - from] = null;
-                if (i == 0) {
-                    groundDistribution = levelDistribution(s.degeneracy(0), ly, cap, n, suffix, lnZn);
-                }
-                suffix.multiplyStates(s.degeneracy(i), ly, cap, 0);
-                long done = m + (m - i);
-                if ((m - i) % every == 0) {
-                    progress.progress(done, total, "levels (occupations)");
-                }
-            }
-        }
-        List<String> extra = new ArrayList<>();
-        flushCheck(s, st, kT, muStar, n, lnZn, extra);
-        if (worstMismatch > 1e-8) {
-            extra.add("internal consistency: a prefix x suffix product differed from Z_N by " + worstMismatch
-                    + " in ln; occupations may be inaccurate");
-        }
-        return new Canonical(s, st, n, kT, muStar, lnZn - beta * muStar * n, occ, vac,
-                new CondensateDistribution(groundDistribution), extra, null, null, null);
-    }
-
-    /**
-     * P(N_0 = j) for the lowest level: (level factor series of its g states)[j] x (series of all other
-     * levels)[N - j] / Z_N, positive terms only; normalised (the raw sum is Z_N / Z_N = 1 to rounding).
-     */
-    private static double[] levelDistribution(int g, double lnY, int cap, int n, ScaledSeries others, double lnZn) {
-        ScaledSeries level = new ScaledSeries(n, false);
-        level.multiplyStates(g, lnY, cap, 0);
-        double[] p = new double[n + 1];
-        double sum = 0;
-        for (int j = 0; j <= n; j++) {
-            double a = level.logCoefficient(j);
-            double b = others.logCoefficient(n - j);
-            p[j] = a == Double.NEGATIVE_INFINITY || b == Double.NEGATIVE_INFINITY ? 0.0 : Math.exp(a + b - lnZn);
-            sum += p[j];
-        }
-        for (int j = 0; j <= n; j++) {
-            p[j] /= sum;
-        }
-        return p;
-    }
-
-    private static void flushCheck(Spectrum s, Statistics st, double kT, double muStar, int n, double lnZnScaled,
-                                   List<String> out) {
-        double lnXi = GrandCanonical.atChemicalPotential(s, st, kT, muStar).lnXi();
-        double lnPgc = lnZnScaled - lnXi;
-        double lnBound = Math.log((double) s.stateCount()) + Math.log(n + 1.0) - 1073 * Math.log(2.0) - lnPgc;
-        if (lnBound > Math.log(FLUSH_WARNING)) {
-            out.add("underflow bound on the relative error of Z_N is e^" + lnBound
-                    + " (grand canonical probability of exactly N at mu* is e^" + lnPgc + ")");
-        }
-    }
 
     private EnergyFluctuations fluctuations() {
         synchronized (momentLock) {
@@ -677,7 +385,7 @@ public final class Canonical implements Tabular {
 
     /** Whether {@link #condensate()} is available (bosons). */
     public boolean hasCondensate() {
-        return statistics.kind() == Statistics.Kind.BOSE;
+        return statistics.condenses();
     }
 
     /**
@@ -735,62 +443,37 @@ public final class Canonical implements Tabular {
         return Collections.unmodifiableList(all);
     }
 
+    /**
+     * The reported quantities in the spectrum's energy unit: statistics, counting (labelled particles),
+     * N, kT, ln Z, F, U, S/k, C/k, Var E, the ground-level &lt;N_0&gt; and Var N_0 (where defined), and one
+     * row per warning. For physical units: {@code quantities().inUnits(EnergyUnit.KELVIN)} (needs a
+     * spectrum scale with a declared size).
+     */
+    public QuantityTable quantities() {
+        QuantityTable.Builder t = QuantityTable.builder(spectrum.scale()).value("statistics", statistics.toString());
+        if (!statistics.indistinguishable()) {
+            t.value("counting", counting.toString());
+        }
+        t.value("N", n).value("kT", kT, Dimension.ENERGY).value("ln Z", lnZ)
+                .value("F", freeEnergy(), Dimension.ENERGY).value("U", energy, Dimension.ENERGY)
+                .value("S/k", entropy()).value("C/k", heatCapacity())
+                .value("Var E", energyVariance(), Dimension.ENERGY_SQUARED);
+        if (condensate != null) {
+            t.value("<N_0>", condensate.mean()).value("Var N_0", condensate.variance());
+        }
+        return t.warnings(warnings()).build();
+    }
+
     @Override
     public List<String> columnNames() {
-        return List.of("quantity", "value");
+        return quantities().columnNames();
     }
 
     @Override
     public List<List<Object>> rows() {
-        List<List<Object>> r = new ArrayList<>();
-        r.add(List.of("statistics", statistics.toString()));
-        if (!statistics.indistinguishable()) {
-            r.add(List.of("counting", counting.toString()));
-        }
-        r.add(List.of("N", n));
-        r.add(List.of("kT", kT));
-        r.add(List.of("ln Z", lnZ));
-        r.add(List.of("F", freeEnergy()));
-        r.add(List.of("U", energy));
-        r.add(List.of("S/k", entropy()));
-        r.add(List.of("C/k", heatCapacity()));
-        r.add(List.of("Var E", energyVariance()));
-        if (condensate != null) {
-            r.add(List.of("<N_0>", condensate.mean()));
-            r.add(List.of("Var N_0", condensate.variance()));
-        }
-        for (String w : warnings()) {
-            r.add(List.of("warning", w));
-        }
-        return r;
+        return quantities().rows();
     }
 
-    /**
-     * Number of ways to put {@code r} indistinguishable particles into g states, at most k each:
-     * C(g, r) for k = 1, C(g + r - 1, r) for k &gt;= r, otherwise the inclusion-exclusion sum over the
-     * states forced above k, sum_i (-1)^i C(g, i) C(r - i(k+1) + g - 1, g - 1) (the standard count of
-     * bounded compositions, e.g. Stanley, <i>Enumerative Combinatorics</i> vol. 1, ch. 1, from memory).
-     * Exact; cost O(r^2 / k) big-integer operations, independent of g.
-     */
-    static BigInteger cappedWays(long g, int k, int r) {
-        if (k == 1) {
-            return Combinatorics.binomial(g, r);
-        }
-        if (k >= r) {
-            return Combinatorics.binomial(g + r - 1, r);
-        }
-        BigInteger sum = BigInteger.ZERO;
-        BigInteger choose = BigInteger.ONE;
-        for (int i = 0; i <= g && (long) i * (k + 1) <= r; i++) {
-            if (i > 0) {
-                choose = choose.multiply(BigInteger.valueOf(g - i + 1)).divide(BigInteger.valueOf(i));
-            }
-            long rest = r - (long) i * (k + 1);
-            BigInteger term = choose.multiply(Combinatorics.binomial(rest + g - 1, rest));
-            sum = (i & 1) == 0 ? sum.add(term) : sum.subtract(term);
-        }
-        return sum;
-    }
 
     /** A one-line summary (statistics, N, kT, ln Z, U, number of warnings); runs the C_V checks if not yet run. */
     @Override

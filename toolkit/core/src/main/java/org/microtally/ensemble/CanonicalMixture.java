@@ -6,6 +6,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.count.Species;
@@ -83,7 +84,7 @@ public final class CanonicalMixture implements Tabular {
      */
     public static CanonicalMixture of(List<Species> species, double kT) {
         List<Species> list = validate(species);
-        GrandCanonical.requireTemperature(kT);
+        Inputs.temperature(kT);
         for (Species s : list) {
             if (s.particles() < 1) {
                 throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.occupation.ChemicalPotential;
@@ -84,16 +85,10 @@ public final class CanonicalSweep implements Tabular {
     public static CanonicalSweep of(Spectrum spectrum, Statistics statistics, int maxN, double kT) {
         Objects.requireNonNull(spectrum, "spectrum");
         Objects.requireNonNull(statistics, "statistics");
-        GrandCanonical.requireTemperature(kT);
-        if (maxN < 1 || maxN > 1_000_000) {
-            throw InvalidInputException.of("largest particle number N of the sweep", maxN, "an integer in [1, 1000000]",
-                    "");
-        }
-        if (statistics.capped() && maxN > (long) statistics.maxOccupancy() * spectrum.stateCount()) {
-            throw InvalidInputException.of("largest particle number N of the sweep", maxN,
-                    "at most the capacity " + (long) statistics.maxOccupancy() * spectrum.stateCount() + " of the spectrum",
-                    "Raise the spectrum's cutoff.");
-        }
+        Inputs.temperature(kT);
+        Inputs.particleNumber("largest particle number N of the sweep", maxN, 1_000_000, "");
+        Inputs.withinCapacity("largest particle number N of the sweep", maxN, statistics.maxOccupancy(),
+                spectrum.stateCount());
         double beta = 1 / kT;
         double[] lnZ = new double[maxN + 1];
         double[] u = new double[maxN + 1];
@@ -123,7 +118,7 @@ public final class CanonicalSweep implements Tabular {
                 var[n] = n * v1;
                 varErr[n] = 4 * spectrum.size() * 0x1p-53 * var[n];
             }
-            warnings.addAll(GrandCanonical.atMeanNumber(spectrum, statistics, kT, maxN).warnings());
+            warnings.addAll(GrandCanonical.ofMeanNumber(spectrum, statistics, kT, maxN).warnings());
             return new CanonicalSweep(spectrum, statistics, kT, lnZ, u, var, varErr, 0, warnings);
         }
         boolean[] done = new boolean[maxN + 1];
@@ -136,7 +131,7 @@ public final class CanonicalSweep implements Tabular {
         while (missing > 0) {
             int target = missing;
             double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, Math.min(target, capacity - 0.5));
-            GrandCanonical gc = GrandCanonical.atChemicalPotential(spectrum, statistics, kT, mu);
+            GrandCanonical gc = GrandCanonical.ofChemicalPotential(spectrum, statistics, kT, mu);
             if (passes == 0) {
                 warnings.addAll(gc.warnings());
             }

@@ -2,6 +2,7 @@ package org.microtally.ensemble;
 
 import java.util.Objects;
 import java.util.function.IntFunction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -51,10 +52,8 @@ public final class Cutoffs {
             throw InvalidInputException.of("cutoff tolerance", tolerance, "in [1e-15, 0.1]",
                     "Below 1e-15 the estimate itself is not that accurate.");
         }
-        if (n < 1) {
-            throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
-        }
-        GrandCanonical.requireTemperature(kT);
+        Inputs.particleNumber(n);
+        Inputs.temperature(kT);
         int hi = 8;
         while (!meets(builder.apply(hi), statistics, n, kT, tolerance)) {
             if (hi >= LARGEST) {
@@ -79,7 +78,7 @@ public final class Cutoffs {
         if (st.capped() && (double) st.maxOccupancy() * s.stateCount() <= n) {
             return false;
         }
-        GrandCanonical g = GrandCanonical.atMeanNumber(s, st, kT, n);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(s, st, kT, n);
         double[] perState = new double[s.size()];
         for (int i = 0; i < perState.length; i++) {
             perState[i] = g.occupations().perState(i);

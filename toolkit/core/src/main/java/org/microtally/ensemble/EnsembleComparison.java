@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Objects;
 import java.util.function.IntToDoubleFunction;
 import org.microtally.InvalidInputException;
+import org.microtally.Missing;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
 import org.microtally.spectrum.Spectrum;
@@ -39,6 +40,10 @@ import org.microtally.spectrum.Statistics;
  * energy offset as well as by the ensemble.
  */
 public final class EnsembleComparison implements Tabular {
+    private static final Missing NO_OWN_TEMPERATURE = Missing.because(
+            "the microcanonical grid temperature 1/beta_B is undefined here (beta_B = 0 or no neighbouring states)");
+    private static final Missing NO_GROUND_VARIANCE = Missing.because(
+            "Var N_0 is not computed for the microcanonical row");
     /**
      * One row: an ensemble at one nominal temperature kT. {@code ownKT} is the temperature the
      * ensemble itself assigns (equal to kT for canonical and grand canonical; for the microcanonical
@@ -92,7 +97,7 @@ public final class EnsembleComparison implements Tabular {
         List<Row> out = new ArrayList<>();
         for (double kT : kTs) {
             Canonical c = Canonical.of(spectrum, statistics, n, kT, counting);
-            GrandCanonical g = GrandCanonical.atMeanNumber(spectrum, statistics, kT, n, counting);
+            GrandCanonical g = GrandCanonical.ofMeanNumber(spectrum, statistics, kT, n, counting);
             Row can = canonicalRow(c);
             out.add(can);
             out.add(relative(can, "grand canonical", kT, g.energy(), g.heatCapacity(), g.entropy(),
@@ -148,7 +153,7 @@ public final class EnsembleComparison implements Tabular {
      * a microcanonical row at the grid energy E* nearest to the canonical U (from the count table,
      * which must cover N and energies up to E* + one grid step). Microcanonical columns: U = E*,
      * C = C_B(E*), S = S_B(E*), &lt;N_0&gt; = exact g_0 &lt;n_0&gt;(N, E*); its Var N_0 is not
-     * computed ("n/a"). Cells that the grid cannot define are "n/a" (ownKT null, C = 0 is never
+     * computed ({@link Missing}). Cells that the grid cannot define are {@link Missing} (ownKT null, C = 0 is never
      * substituted: a row whose E* has no heat capacity is left out, with the reason in
      * {@link #notes()}).
      */
@@ -206,9 +211,9 @@ public final class EnsembleComparison implements Tabular {
     public List<List<Object>> rows() {
         List<List<Object>> out = new ArrayList<>(rows.size());
         for (Row r : rows) {
-            out.add(List.of(r.ensemble(), r.kT(), r.ownKT() == null ? "n/a" : r.ownKT(), r.energy(),
+            out.add(List.of(r.ensemble(), r.kT(), r.ownKT() == null ? NO_OWN_TEMPERATURE : r.ownKT(), r.energy(),
                     r.heatCapacity(), r.entropy(), r.groundMean(),
-                    r.groundVariance() == null ? "n/a" : r.groundVariance(), r.relEnergy(), r.relHeatCapacity(),
+                    r.groundVariance() == null ? NO_GROUND_VARIANCE : r.groundVariance(), r.relEnergy(), r.relHeatCapacity(),
                     r.relEntropy()));
         }
         return out;
@@ -243,7 +248,7 @@ public final class EnsembleComparison implements Tabular {
                 Row c = p.canonical();
                 Row g = p.grandCanonical();
                 out.add(List.of(p.n(), p.kT(), c.energy() / p.n(), g.energy() / p.n(), g.relEnergy(),
-                        g.relHeatCapacity(), g.relEntropy(), c.groundVariance() == null ? "n/a" : c.groundVariance(),
+                        g.relHeatCapacity(), g.relEntropy(), c.groundVariance() == null ? NO_GROUND_VARIANCE : c.groundVariance(),
                         g.groundVariance()));
             }
             return out;

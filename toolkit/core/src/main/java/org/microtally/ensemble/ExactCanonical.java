@@ -4,8 +4,7 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
-import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
-import org.apache.commons.math3.analysis.solvers.AllowedSolution;
+import org.microtally.Roots;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.exact.ExactLog;
@@ -161,14 +160,8 @@ public final class ExactCanonical {
         }
         double betaHi = 1 / kT[best - 1];
         double betaLo = 1 / kT[best + 1];
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-14 * betaHi, 1e-300, 5);
-        double beta;
-        try {
-            beta = solver.solve(200, this::slope, betaLo, betaHi, AllowedSolution.ANY_SIDE);
-        } catch (org.apache.commons.math3.exception.MathIllegalStateException
-                 | org.apache.commons.math3.exception.MathIllegalArgumentException e) {
-            throw new IllegalStateException("heat-capacity peak near kT = " + kT[best] + " could not be refined: " + e.getMessage(), e);
-        }
+        double beta = Roots.solve("heat-capacity peak (dC/dbeta = 0) near kT = " + kT[best], this::slope, betaLo, betaHi,
+                1e-14 * betaHi);
         State s = atBeta(beta);
         return new Peak(1 / beta, beta, s.heatCapacity(), byEnergy.scale().name());
     }

@@ -194,6 +194,15 @@ public final class ExactDensityOfStates implements Tabular {
         return Arrays.stream(energies).distinct().toArray();
     }
 
+    /**
+     * The same counts with energies in another declared unit (no numeric change: the integers are
+     * re-labelled), e.g. {@code withScale(EnergyScale.of("J", Energy.ofTemperature(12)))} for a
+     * coupling J/k = 12 K, so temperatures can then be given in kelvin.
+     */
+    public ExactDensityOfStates withScale(EnergyScale newScale) {
+        return new ExactDensityOfStates(Objects.requireNonNull(newScale, "scale"), labelName, energies, labels, counts);
+    }
+
     /** g(E) with the labels summed out (this object itself when unlabelled). */
     public ExactDensityOfStates byEnergy() {
         if (labels == null) {

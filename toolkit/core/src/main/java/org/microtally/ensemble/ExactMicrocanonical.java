@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
+import org.microtally.Missing;
 import org.microtally.Tabular;
 import org.microtally.exact.ExactLog;
 
@@ -17,7 +18,7 @@ import org.microtally.exact.ExactLog;
  * Nature Physics 10, 67 (2014) for the distinction). Inverse temperatures by the central difference
  * over the neighbouring occupied energies, beta(E_i) = (S(E_{i+1}) - S(E_{i-1})) / (E_{i+1} - E_{i-1});
  * where an energy between them has g = 0 (e.g. E = -2N + 4 on an Ising torus) this is the secant
- * across the gap. Undefined (shown "n/a") at the lowest and highest energy.
+ * across the gap. Undefined ({@link Missing}, shown "n/a") at the lowest and highest energy.
  *
  * <p>Accuracy: counts exact; logarithms within 2 ulp; the finite difference is the meaning of a
  * temperature on a discrete spectrum, with O(spacing^2 S''') discretisation error, not a rounding error.
@@ -100,13 +101,16 @@ public final class ExactMicrocanonical implements Tabular {
         return List.of("E [" + u + "]", "g", "S_B [k]", "S_G [k]", "beta_B [1/" + u + "]", "beta_G [1/" + u + "]");
     }
 
+    private static final Missing AT_EDGE = Missing.because(
+            "a temperature needs energy levels on both sides: undefined at the lowest and highest energy");
+
     @Override
     public List<List<Object>> rows() {
         List<List<Object>> rows = new ArrayList<>();
         for (int i = 0; i < energy.length; i++) {
             boolean t = i > 0 && i < energy.length - 1;
             rows.add(List.of(energy[i], count[i], boltzmann[i], gibbs[i],
-                    t ? (Object) boltzmannBeta(energy[i]) : "n/a", t ? (Object) gibbsBeta(energy[i]) : "n/a"));
+                    t ? (Object) boltzmannBeta(energy[i]) : AT_EDGE, t ? (Object) gibbsBeta(energy[i]) : AT_EDGE));
         }
         return Collections.unmodifiableList(rows);
     }

@@ -2,13 +2,18 @@ package org.microtally.ensemble;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
+import org.microtally.Dimension;
+import org.microtally.QuantityTable;
 import org.microtally.Tabular;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.occupation.MeanOccupation;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
+import org.microtally.units.Energy;
 
 /**
  * The grand canonical ensemble of ideal particles on a spectrum at temperature kT and chemical
@@ -184,16 +189,16 @@ public final class GrandCanonical implements Tabular {
      * The ensemble at a given chemical potential with an explicit {@link Counting} (LABELLED or
      * CORRECTED_BOLTZMANN for distinguishable particles, IDENTICAL for quantum statistics).
      *
-     * @throws InvalidInputException as {@link #atChemicalPotential(Spectrum, Statistics, double, double)};
+     * @throws InvalidInputException as {@link #ofChemicalPotential(Spectrum, Statistics, double, double)};
      *                               for LABELLED also when z Z_1 &gt;= 1 (the geometric sum diverges)
      */
-    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
+    public static GrandCanonical ofChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu,
                                                      Counting counting) {
         Counting.require(statistics, counting);
         if (counting != Counting.LABELLED) {
-            return atChemicalPotential(spectrum, statistics, kT, mu);
+            return ofChemicalPotential(spectrum, statistics, kT, mu);
         }
-        requireTemperature(kT);
+        Inputs.temperature(kT);
         if (!Double.isFinite(mu)) {
             throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
         }
@@ -202,28 +207,58 @@ public final class GrandCanonical implements Tabular {
         if (!(lnW < 0)) {
             throw InvalidInputException.of("chemical potential mu for labelled particles", mu,
                     "below -kT ln Z_1 = " + (-kT * lnZ1) + " (z Z_1 < 1, else sum_N (z Z_1)^N diverges)",
-                    "Fix <N> instead (atMeanNumber).");
+                    "Fix <N> instead (ofMeanNumber).");
         }
         return new GrandCanonical(spectrum, kT, mu, Math.exp(lnW));
     }
 
     /**
-     * The ensemble with mean particle number {@code targetN} and an explicit {@link Counting}; for
+     * The ensemble with mean particle number {@code n} and an explicit {@link Counting}; for
      * LABELLED, mu = kT (ln(N/(N+1)) - ln Z_1) in closed form.
      */
-    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN,
+    public static GrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n,
                                               Counting counting) {
         Counting.require(statistics, counting);
         if (counting != Counting.LABELLED) {
-            return atMeanNumber(spectrum, statistics, kT, targetN);
+            return ofMeanNumber(spectrum, statistics, kT, n);
         }
-        requireTemperature(kT);
-        if (!(targetN > 0) || !Double.isFinite(targetN)) {
-            throw InvalidInputException.of("target mean particle number", targetN, "a finite number > 0", "");
+        Inputs.temperature(kT);
+        if (!(n > 0) || !Double.isFinite(n)) {
+            throw InvalidInputException.of("target mean particle number", n, "a finite number > 0", "");
         }
         double lnZ1 = lnZ1(spectrum, kT);
-        double w = targetN / (targetN + 1);
+        double w = n / (n + 1);
         return new GrandCanonical(spectrum, kT, kT * (Math.log(w) - lnZ1), w);
+    }
+
+    /**
+     * The ensemble at a temperature given as an energy (e.g. {@code Energy.ofTemperature(4.2)}) whose
+     * chemical potential gives mean particle number {@code n}; kT is converted to the spectrum's unit
+     * through its scale, refused with a message saying how to declare one when it has no physical size.
+     */
+    public static GrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, Energy kT, double n) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        return ofMeanNumber(spectrum, statistics, Inputs.temperature(kT, spectrum.scale()), n);
+    }
+
+    /** As {@link #ofChemicalPotential(Spectrum, Statistics, double, double)}, kT and mu given as energies. */
+    public static GrandCanonical ofChemicalPotential(Spectrum spectrum, Statistics statistics, Energy kT, Energy mu) {
+        Objects.requireNonNull(spectrum, "spectrum");
+        Objects.requireNonNull(mu, "mu");
+        return ofChemicalPotential(spectrum, statistics, Inputs.temperature(kT, spectrum.scale()),
+                mu.in(spectrum.scale()));
+    }
+
+    /** @deprecated the factories are named {@code of...}: use {@link #ofMeanNumber(Spectrum, Statistics, double, double)}. */
+    @Deprecated
+    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
+        return ofMeanNumber(spectrum, statistics, kT, n);
+    }
+
+    /** @deprecated use {@link #ofChemicalPotential(Spectrum, Statistics, double, double)}. */
+    @Deprecated
+    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
+        return ofChemicalPotential(spectrum, statistics, kT, mu);
     }
 
     /** How microstates are counted ({@link Counting}); distinguishable particles default to CORRECTED_BOLTZMANN. */
@@ -237,41 +272,34 @@ public final class GrandCanonical implements Tabular {
      * @throws InvalidInputException for kT &lt;= 0 or not finite, mu not finite, or (bosons) mu at
      *                               or above the lowest level
      */
-    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
-        requireTemperature(kT);
+    public static GrandCanonical ofChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
+        Inputs.temperature(kT);
         if (!Double.isFinite(mu)) {
             throw InvalidInputException.of("chemical potential mu", mu, "a finite number", "");
         }
-        if (statistics.kind() == Statistics.Kind.BOSE && !(mu < spectrum.groundEnergy())) {
+        if (statistics.condenses() && !(mu < spectrum.groundEnergy())) {
             throw InvalidInputException.of("chemical potential mu for bosons", mu,
                     "below the lowest level e_0 = " + spectrum.groundEnergy() + " " + spectrum.scale().name(),
-                    "Bose occupations diverge at mu = e_0; fix <N> instead (atMeanNumber) to approach condensation.");
+                    "Bose occupations diverge at mu = e_0; fix <N> instead (ofMeanNumber) to approach condensation.");
         }
         return new GrandCanonical(spectrum, statistics, kT, mu);
     }
 
     /**
-     * The ensemble whose chemical potential gives mean particle number {@code targetN}
+     * The ensemble whose chemical potential gives mean particle number {@code n}
      * ({@link ChemicalPotential#forMeanNumber}).
      */
-    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
-        requireTemperature(kT);
-        double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, targetN);
+    public static GrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
+        Inputs.temperature(kT);
+        double mu = ChemicalPotential.forMeanNumber(spectrum, statistics, kT, n);
         GrandCanonical g = new GrandCanonical(spectrum, statistics, kT, mu);
-        if (!(Math.abs(g.meanN - targetN) <= 1e-9 * Math.max(1.0, targetN))) {
-            throw InvalidInputException.of("temperature kT for a grand canonical <N> = " + targetN, kT,
+        if (!(Math.abs(g.meanN - n) <= 1e-9 * Math.max(1.0, n))) {
+            throw InvalidInputException.of("temperature kT for a grand canonical <N> = " + n, kT,
                     "large enough that some mu gives that mean (here the best mu, " + mu + ", gives " + g.meanN
                             + ": at this kT the occupations are steps)",
                     "Use Canonical.of (exact T -> 0 limit) or ChemicalPotential.fermiLevel for the T -> 0 limit.");
         }
         return g;
-    }
-
-    static void requireTemperature(double kT) {
-        if (!(kT > 0) || !Double.isFinite(kT)) {
-            throw InvalidInputException.of("temperature kT", kT, "a finite number > 0",
-                    "T -> 0 limits are separate calls: Canonical.groundState, ChemicalPotential.fermiLevel.");
-        }
     }
 
     /** The spectrum. */
@@ -362,32 +390,30 @@ public final class GrandCanonical implements Tabular {
         return warnings;
     }
 
+    /**
+     * The reported quantities in the spectrum's energy unit: statistics, counting (labelled particles),
+     * kT, mu, ln Xi, &lt;N&gt;, Var N, U, S/k, C/k at fixed &lt;N&gt;, &lt;N_0&gt;, Var N_0, one row per
+     * warning. Physical units: {@code quantities().inUnits(EnergyUnit.MILLIELECTRONVOLT)}.
+     */
+    public QuantityTable quantities() {
+        QuantityTable.Builder t = QuantityTable.builder(spectrum.scale()).value("statistics", statistics.toString());
+        if (!statistics.indistinguishable()) {
+            t.value("counting", counting.toString());
+        }
+        return t.value("kT", kT, Dimension.ENERGY).value("mu", mu, Dimension.ENERGY).value("ln Xi", lnXi)
+                .value("<N>", meanN).value("Var N", varN).value("U", energy, Dimension.ENERGY)
+                .value("S/k", entropy()).value("C/k (fixed <N>)", heatCapacity())
+                .value("<N_0>", groundMean).value("Var N_0", groundVariance).warnings(warnings).build();
+    }
+
     @Override
     public List<String> columnNames() {
-        return List.of("quantity", "value");
+        return quantities().columnNames();
     }
 
     @Override
     public List<List<Object>> rows() {
-        List<List<Object>> r = new ArrayList<>();
-        r.add(List.of("statistics", statistics.toString()));
-        if (!statistics.indistinguishable()) {
-            r.add(List.of("counting", counting.toString()));
-        }
-        r.add(List.of("kT", kT));
-        r.add(List.of("mu", mu));
-        r.add(List.of("ln Xi", lnXi));
-        r.add(List.of("<N>", meanN));
-        r.add(List.of("Var N", varN));
-        r.add(List.of("U", energy));
-        r.add(List.of("S/k", entropy()));
-        r.add(List.of("C/k (fixed <N>)", heatCapacity()));
-        r.add(List.of("<N_0>", groundMean));
-        r.add(List.of("Var N_0", groundVariance));
-        for (String w : warnings) {
-            r.add(List.of("warning", w));
-        }
-        return r;
+        return quantities().rows();
     }
 
     /** A one-line summary (statistics, kT, mu, ln Xi, &lt;N&gt;, U, number of warnings). */

@@ -43,15 +43,21 @@ public final class GrandCanonicalMixture implements Tabular {
         this.warnings = CanonicalMixture.prefixedWarnings(species, parts, GrandCanonical::warnings);
     }
 
+    /** @deprecated the factories are named {@code of...}: use {@link #ofChemicalPotentials(List, double, double...)}. */
+    @Deprecated
+    public static GrandCanonicalMixture atChemicalPotentials(List<Species> species, double kT, double... mu) {
+        return ofChemicalPotentials(species, kT, mu);
+    }
+
     /**
      * The mixture at given chemical potentials, one per species in list order (the species' particle
      * numbers are not used).
      *
      * @throws InvalidInputException for a wrong number of chemical potentials, or any input
-     *                               {@link GrandCanonical#atChemicalPotential} refuses (the message names
+     *                               {@link GrandCanonical#ofChemicalPotential} refuses (the message names
      *                               the species)
      */
-    public static GrandCanonicalMixture atChemicalPotentials(List<Species> species, double kT, double... mu) {
+    public static GrandCanonicalMixture ofChemicalPotentials(List<Species> species, double kT, double... mu) {
         List<Species> list = CanonicalMixture.validate(species);
         Objects.requireNonNull(mu, "mu");
         if (mu.length != list.size()) {
@@ -62,19 +68,25 @@ public final class GrandCanonicalMixture implements Tabular {
         for (int a = 0; a < list.size(); a++) {
             Species s = list.get(a);
             double m = mu[a];
-            parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.atChemicalPotential(s.spectrum(),
+            parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.ofChemicalPotential(s.spectrum(),
                     s.statistics(), kT, m)));
         }
         return new GrandCanonicalMixture(list, Collections.unmodifiableList(parts), kT);
+    }
+
+    /** @deprecated the factories are named {@code of...}: use {@link #ofMeanNumbers(List, double)}. */
+    @Deprecated
+    public static GrandCanonicalMixture atMeanNumbers(List<Species> species, double kT) {
+        return ofMeanNumbers(species, kT);
     }
 
     /**
      * The mixture whose chemical potentials give &lt;N_a&gt; = the particle number of each species.
      *
      * @throws InvalidInputException for a species with N = 0, or any input
-     *                               {@link GrandCanonical#atMeanNumber} refuses (the message names the species)
+     *                               {@link GrandCanonical#ofMeanNumber} refuses (the message names the species)
      */
-    public static GrandCanonicalMixture atMeanNumbers(List<Species> species, double kT) {
+    public static GrandCanonicalMixture ofMeanNumbers(List<Species> species, double kT) {
         List<Species> list = CanonicalMixture.validate(species);
         List<GrandCanonical> parts = new ArrayList<>();
         for (Species s : list) {
@@ -82,7 +94,7 @@ public final class GrandCanonicalMixture implements Tabular {
                 throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),
                         "an integer >= 1 as a target mean number", "Leave an empty species out of the list.");
             }
-            parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.atMeanNumber(s.spectrum(), s.statistics(),
+            parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.ofMeanNumber(s.spectrum(), s.statistics(),
                     kT, s.particles())));
         }
         return new GrandCanonicalMixture(list, Collections.unmodifiableList(parts), kT);

@@ -2,7 +2,7 @@ package org.microtally.ensemble;
 
 import java.util.List;
 import java.util.Objects;
-import org.apache.commons.math3.analysis.solvers.BrentSolver;
+import org.microtally.Roots;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Spectrum;
@@ -17,10 +17,10 @@ import org.microtally.spectrum.Statistics;
  * for a condensed Bose gas the grand canonical variance n_0 (n_0 + 1) is of order N^2, the canonical
  * and microcanonical ones are far smaller, and the microcanonical one is the smallest. Immutable.
  *
- * <p>Method: the canonical temperature is the root of U(kT) = E in ln kT by Brent's method
- * (Commons Math {@link BrentSolver}, R. P. Brent, <i>Algorithms for Minimization without
- * Derivatives</i> (1973)), to a relative accuracy of 1e-12 in kT; each evaluation is one canonical
- * run. The grand canonical ensemble at that kT has mean number N but a mean energy that differs from
+ * <p>Method: the canonical temperature is the root of U(kT) = E in ln kT by {@link org.microtally.Roots}
+ * (Brent-type bracketed search, R. P. Brent, <i>Algorithms for Minimization without Derivatives</i>
+ * (1973)), to 1e-12 + 1e-15 |ln kT| in ln kT, i.e. a relative accuracy of about 1e-12 in kT; each
+ * evaluation is one canonical run. The grand canonical ensemble at that kT has mean number N but a mean energy that differs from
  * E at finite N (reported by {@link #grandCanonicalEnergy()}).
  *
  * <p>Accuracy: microcanonical values exact (correctly rounded); canonical and grand canonical as
@@ -64,10 +64,10 @@ public final class GroundLevelComparison implements Tabular {
                     + Canonical.of(spectrum, statistics, n, Math.exp(hi)).energy() + ")",
                     "Raise the spectrum's cutoff.");
         }
-        double lnKT = new BrentSolver(1e-12, 1e-14).solve(200, gap::applyAsDouble, lo, hi);
+        double lnKT = Roots.solve("ln kT at which the canonical U equals E = " + e, gap, lo, hi, 1e-12);
         double kT = Math.exp(lnKT);
         Canonical canonical = Canonical.of(spectrum, statistics, n, kT);
-        GrandCanonical grand = GrandCanonical.atMeanNumber(spectrum, statistics, kT, n);
+        GrandCanonical grand = GrandCanonical.ofMeanNumber(spectrum, statistics, kT, n);
         return new GroundLevelComparison(micro, canonical, grand);
     }
 

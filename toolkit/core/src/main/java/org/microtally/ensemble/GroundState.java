@@ -48,6 +48,19 @@ public record GroundState(double energy, BigInteger degeneracy, LevelOccupations
         return ExactLog.ln(degeneracy);
     }
 
+    /** E.g. {@code "GroundState[E = 19.0, 3 microstates (exact), S/k = 1.0986, 12 particles on 5 of 13 levels]"}. */
+    @Override
+    public String toString() {
+        int occupied = 0;
+        for (int i = 0; i < occupations.size(); i++) {
+            if (occupations.perState(i) > 0) {
+                occupied++;
+            }
+        }
+        return "GroundState[E = " + energy + ", " + degeneracy + " microstates (exact), S/k = " + entropy() + ", "
+                + occupations.total() + " particles on " + occupied + " of " + occupations.size() + " levels]";
+    }
+
     @Override
     public List<String> columnNames() {
         return List.of("quantity", "value");

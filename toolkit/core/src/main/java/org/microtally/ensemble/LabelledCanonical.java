@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.occupation.ChemicalPotential;
@@ -110,15 +111,13 @@ public final class LabelledCanonical implements Tabular {
             throw InvalidInputException.of("spectrum labels", "none (unlabelled spectrum)", "a labelled spectrum",
                     "Without labels every total label is 0: use Canonical.");
         }
-        GrandCanonical.requireTemperature(kT);
+        Inputs.temperature(kT);
         if (!Double.isFinite(h)) {
             throw InvalidInputException.of("field h", h, "a finite number", "");
         }
         long capacity = statistics.capped() ? (long) statistics.maxOccupancy() * spectrum.stateCount() : Long.MAX_VALUE;
-        if (n < 1 || n > Math.min(capacity, 100_000)) {
-            throw InvalidInputException.of("particle number N", n, "an integer in [1, " + Math.min(capacity, 100_000) + "]",
-                    statistics.capped() && n > capacity ? "Raise the spectrum's cutoff." : "");
-        }
+        Inputs.withinCapacity("particle number N", n, statistics.maxOccupancy(), spectrum.stateCount());
+        Inputs.particleNumber("particle number N", n, 100_000, "");
         int minLabel = Integer.MAX_VALUE;
         int maxLabel = Integer.MIN_VALUE;
         for (Level l : spectrum.levels()) {
@@ -148,7 +147,7 @@ public final class LabelledCanonical implements Tabular {
         }
         LabelSeries z = series(spectrum, statistics, n, beta, h, mu, -1);
         GrandCanonical gc = statistics.indistinguishable()
-                ? GrandCanonical.atChemicalPotential(shifted, statistics, kT, mu) : null;
+                ? GrandCanonical.ofChemicalPotential(shifted, statistics, kT, mu) : null;
         // the untruncated total the flushed mantissas are measured against: Xi at (mu*, h) for
         // indistinguishable particles; for labelled ones the row sum Z_1^N (every row k <= N sums to Z_1^k)
         double lnTotal;

@@ -3,6 +3,9 @@ package org.microtally.ensemble;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Dimension;
+import org.microtally.Quantity;
+import org.microtally.QuantityTable;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.occupation.MeanOccupation;
@@ -53,20 +56,20 @@ public final class LabelledGrandCanonical implements Tabular {
      * At chemical potential {@code mu} and field {@code h}.
      *
      * @throws InvalidInputException for an unlabelled spectrum, h not finite, or what
-     *                               {@link GrandCanonical#atChemicalPotential} refuses on the shifted spectrum
+     *                               {@link GrandCanonical#ofChemicalPotential} refuses on the shifted spectrum
      */
     public static LabelledGrandCanonical inField(Spectrum spectrum, Statistics statistics, double kT, double mu, double h) {
         requireLabelled(spectrum, h);
         Spectrum shifted = LabelledCanonical.shifted(spectrum, h);
-        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.atChemicalPotential(shifted, statistics, kT, mu));
+        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.ofChemicalPotential(shifted, statistics, kT, mu));
     }
 
     /** At the mu that gives mean number {@code targetN} in the field {@code h}. */
-    public static LabelledGrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT,
+    public static LabelledGrandCanonical ofMeanNumber(Spectrum spectrum, Statistics statistics, double kT,
                                                       double targetN, double h) {
         requireLabelled(spectrum, h);
         Spectrum shifted = LabelledCanonical.shifted(spectrum, h);
-        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.atMeanNumber(shifted, statistics, kT, targetN));
+        return new LabelledGrandCanonical(spectrum, h, GrandCanonical.ofMeanNumber(shifted, statistics, kT, targetN));
     }
 
     private static void requireLabelled(Spectrum spectrum, double h) {
@@ -125,19 +128,27 @@ public final class LabelledGrandCanonical implements Tabular {
         return List.copyOf(w);
     }
 
+    /**
+     * The grand canonical quantities ({@link GrandCanonical#quantities()}) with the field h after the
+     * statistics, and &lt;L&gt;, Var L and U_0 (the mean energy without the field term) at the end.
+     */
+    public QuantityTable quantities() {
+        List<Quantity> base = ensemble.quantities().quantities();
+        QuantityTable.Builder t = QuantityTable.builder(ensemble.spectrum().scale()).add(base.get(0))
+                .value("h", field, Dimension.ENERGY);
+        base.subList(1, base.size()).forEach(t::add);
+        return t.value("<L>", meanLabel).value("Var L", labelVariance)
+                .value("U_0 (without field term)", energyWithoutField(), Dimension.ENERGY).build();
+    }
+
     @Override
     public List<String> columnNames() {
-        return List.of("quantity", "value");
+        return quantities().columnNames();
     }
 
     @Override
     public List<List<Object>> rows() {
-        List<List<Object>> r = new ArrayList<>(ensemble.rows());
-        r.add(1, List.of("h", field));
-        r.add(List.of("<L>", meanLabel));
-        r.add(List.of("Var L", labelVariance));
-        r.add(List.of("U_0 (without field term)", energyWithoutField()));
-        return r;
+        return quantities().rows();
     }
 
     @Override

@@ -6,7 +6,9 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
+import org.microtally.Missing;
 import org.microtally.ProgressListener;
 import org.microtally.Tabular;
 import org.microtally.count.CountTable;
@@ -89,10 +91,8 @@ public final class Microcanonical implements Tabular {
 
     private static void requireInTable(CountTable table, int n) {
         Objects.requireNonNull(table, "table");
-        if (n < 1 || n > table.maxParticles()) {
-            throw InvalidInputException.of("particle number N", n, "in [1, " + table.maxParticles() + "] (the table's range)",
-                    "Build the count table with a larger maxParticles.");
-        }
+        Inputs.particleNumber("particle number N (the count table's range)", n, table.maxParticles(),
+                "Build the count table with a larger maxParticles.");
     }
 
     /**
@@ -122,12 +122,19 @@ public final class Microcanonical implements Tabular {
         return of(spectrum, statistics, n, maxEnergy, ProgressListener.NONE);
     }
 
+    /**
+     * The microcanonical ensemble of an exact density of states g(E) with BigInteger multiplicities
+     * (interacting lattices, user tables), through the same front door: delegates to
+     * {@link ExactMicrocanonical} (Boltzmann and Gibbs entropies and temperatures from the exact counts).
+     */
+    public static ExactMicrocanonical of(ExactDensityOfStates g) {
+        return ExactMicrocanonical.of(g);
+    }
+
     /** As {@link #of(Spectrum, Statistics, int, int)}, reporting the count table's progress. */
     public static Microcanonical of(Spectrum spectrum, Statistics statistics, int n, int maxEnergy,
                                     ProgressListener progress) {
-        if (n < 1) {
-            throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
-        }
+        Inputs.particleNumber(n);
         return new Microcanonical(CountTable.of(spectrum, statistics, n, maxEnergy, progress), n,
                 Counting.defaultFor(statistics));
     }
@@ -406,7 +413,7 @@ public final class Microcanonical implements Tabular {
      * bound, and {@code warnings} of the canonical comparison should be consulted for the cutoff.
      */
     public double canonicalLnZ(double kT) {
-        GrandCanonical.requireTemperature(kT);
+        Inputs.temperature(kT);
         double max = Double.NEGATIVE_INFINITY;
         double[] t = new double[maxE + 1];
         for (int e = 0; e <= maxE; e++) {
@@ -422,13 +429,20 @@ public final class Microcanonical implements Tabular {
         return max + Math.log(s) - lnDivisor;
     }
 
+    private static final Missing NO_STATES = Missing.because("no microstate at this energy: S_B = ln Omega undefined");
+    private static final Missing NO_BOLTZMANN_BETA = Missing.because(
+            "beta_B needs microstates at E - d, E and E + d (d the grid step)");
+    private static final Missing NO_GIBBS_BETA = Missing.because("beta_G needs grid energies on both sides within the table");
+    private static final Missing NO_HEAT_CAPACITY = Missing.because(
+            "C needs beta_B here and a non-zero second difference of S_B (where S_B is locally linear C is unbounded)");
+
     @Override
     public List<String> columnNames() {
         return List.of("E", "Omega", "S_B", "S_G", "beta_B", "beta_G", "C/k", "negative T_B");
     }
 
     /**
-     * One row per grid energy from the lowest accessible one to E_max; undefined cells are "n/a", and a
+     * One row per grid energy from the lowest accessible one to E_max; undefined cells are {@link Missing} (shown "n/a"), and a
      * heat capacity the grid does not resolve ({@link #isHeatCapacityResolved}) is shown as text marked
      * "(grid artefact?)".
      */
@@ -440,15 +454,15 @@ public final class Microcanonical implements Tabular {
             List<Object> r = new ArrayList<>();
             r.add(e);
             r.add(count(e));
-            r.add(isAccessible(e) ? (Object) boltzmannEntropy(e) : "n/a");
+            r.add(isAccessible(e) ? (Object) boltzmannEntropy(e) : NO_STATES);
             r.add(gibbsEntropy(e));
             boolean hb = hasBoltzmannTemperature(e);
-            r.add(hb ? (Object) boltzmannBeta(e) : "n/a");
+            r.add(hb ? (Object) boltzmannBeta(e) : NO_BOLTZMANN_BETA);
             boolean hg = e - step >= lo && e + step <= maxE;
-            r.add(hg ? (Object) gibbsBeta(e) : "n/a");
-            r.add(!hasHeatCapacity(e) ? "n/a" : isHeatCapacityResolved(e) ? (Object) heatCapacity(e)
+            r.add(hg ? (Object) gibbsBeta(e) : NO_GIBBS_BETA);
+            r.add(!hasHeatCapacity(e) ? NO_HEAT_CAPACITY : isHeatCapacityResolved(e) ? (Object) heatCapacity(e)
                     : String.format("%.4g (grid artefact?)", heatCapacity(e)));
-            r.add(hb ? (Object) (boltzmannBeta(e) < 0) : "n/a");
+            r.add(hb ? (Object) (boltzmannBeta(e) < 0) : NO_BOLTZMANN_BETA);
             out.add(Collections.unmodifiableList(r));
         }
         return out;

@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.exact.Combinatorics;
@@ -81,9 +82,7 @@ public final class MicrocanonicalLevelNumber implements Tabular {
     public static MicrocanonicalLevelNumber of(Spectrum spectrum, Statistics statistics, int n, int e, int level) {
         Objects.requireNonNull(spectrum, "spectrum");
         Objects.requireNonNull(statistics, "statistics");
-        if (n < 1) {
-            throw InvalidInputException.of("particle number N", n, "an integer >= 1", "");
-        }
+        Inputs.particleNumber(n);
         if (e < 0) {
             throw InvalidInputException.of("total energy E", e, "an integer >= 0 (quanta)", "");
         }
@@ -189,16 +188,8 @@ public final class MicrocanonicalLevelNumber implements Tabular {
 
     /** Ways to put j particles into the level's g states (distinguishable: choose the j of n, then a state each). */
     private static BigInteger ways(Statistics st, int g, int j, int n) {
-        switch (st.kind()) {
-            case BOSE:
-                return Combinatorics.binomial((long) g + j - 1, j);
-            case FERMI:
-                return Combinatorics.binomial(g, j);
-            case GENTILE:
-                return Canonical.cappedWays(g, st.maxOccupancy(), j);
-            default:
-                return Combinatorics.binomial(n, j).multiply(BigInteger.valueOf(g).pow(j));
-        }
+        BigInteger w = st.levelWays(g, j);
+        return st.indistinguishable() ? w : Combinatorics.binomial(n, j).multiply(w);
     }
 
     /** The spectrum without level {@code skip}, same scale and cutoff; null when it was the only level. */

@@ -3,7 +3,12 @@ package org.microtally.ensemble;
 import java.math.BigDecimal;
 import java.math.BigInteger;
 import java.math.MathContext;
+import java.util.List;
 import org.apache.commons.math3.special.Gamma;
+import org.microtally.InvalidInputException;
+import org.microtally.exact.Combinatorics;
+import org.microtally.occupation.CondensateDistribution;
+import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
@@ -98,7 +103,7 @@ final class ZeroTemperatureLimit {
      * filled; then the ground states are equally likely and P(N_0 = j) = W(g_0, j) W(G - g_0, r - j) /
      * W(G, r), with G the shell's states, r its particles and W(g, j) the number of ways to put j
      * particles into g states (C(g, j) Fermi, C(g + j - 1, j) Bose: in ln Gamma, about 1e-13 relative;
-     * Gentile: exact integers by {@link Canonical#cappedWays}, rounded once).
+     * Gentile: exact integers by {@link Statistics#levelWays}, rounded once).
      */
     static double[] groundLevelDistribution(Spectrum s, Statistics st, int n, double level0Particles) {
         double[] p = new double[n + 1];
@@ -113,9 +118,9 @@ final class ZeroTemperatureLimit {
         int rest = (int) (shell - g0);
         if (st.capped() && st.maxOccupancy() > 1) {
             int k = st.maxOccupancy();
-            BigDecimal all = new BigDecimal(Canonical.cappedWays(shell, k, (int) r));
+            BigDecimal all = new BigDecimal(st.levelWays(shell, (int) r));
             for (int j = 0; j <= Math.min(r, (long) k * g0); j++) {
-                BigInteger w = Canonical.cappedWays(g0, k, j).multiply(Canonical.cappedWays(rest, k, (int) r - j));
+                BigInteger w = st.levelWays(g0, j).multiply(st.levelWays(rest, (int) r - j));
                 p[j] = new BigDecimal(w).divide(all, MathContext.DECIMAL64).doubleValue();
             }
             return p;
@@ -140,5 +145,86 @@ final class ZeroTemperatureLimit {
 
     private static double lnBinomial(long a, long b) {
         return Gamma.logGamma(a + 1.0) - Gamma.logGamma(b + 1.0) - Gamma.logGamma(a - b + 1.0);
+    }
+
+    /** The exact ground state (see {@link GroundState}); n already validated. */
+    static GroundState groundState(Spectrum spectrum, Statistics statistics, int n) {
+        int m = spectrum.size();
+        double[] occ = new double[m];
+        long cap = statistics.capped() ? statistics.maxOccupancy() : Long.MAX_VALUE;
+        BigInteger degeneracy;
+        double e;
+        if (!statistics.capped()) {
+            // every particle in the lowest energy, shared by all levels at that energy (labelled
+            // spectra may hold several levels there, one per label)
+            int top = shellEnd(spectrum, 0);
+            long g0 = 0;
+            for (int i = 0; i < top; i++) {
+                g0 += spectrum.degeneracy(i);
+            }
+            for (int i = 0; i < top; i++) {
+                occ[i] = (double) n / g0;
+            }
+            e = n * spectrum.groundEnergy();
+            degeneracy = statistics.indistinguishable() ? Combinatorics.binomial(g0 + n - 1L, n)
+                    : BigInteger.valueOf(g0).pow(n);
+        } else {
+            long left = n;
+            e = 0;
+            degeneracy = BigInteger.ONE;
+            for (int i = 0; i < m && left > 0; ) {
+                int top = shellEnd(spectrum, i);
+                long g = 0;
+                for (int j = i; j < top; j++) {
+                    g += spectrum.degeneracy(j);
+                }
+                long put = Math.min(left, g * cap);
+                for (int j = i; j < top; j++) {
+                    occ[j] = (double) put / g;
+                }
+                e += put * spectrum.energy(i);
+                if (put < g * cap) {
+                    degeneracy = statistics.levelWays(g, (int) put);
+                }
+                left -= put;
+                i = top;
+            }
+        }
+        return new GroundState(e, degeneracy, new LevelOccupations(spectrum.energies(), spectrum.degeneracies(), occ));
+    }
+
+    /** Canonical in the T -&gt; 0 limit (see {@link ZeroTemperatureLimit}): every quantity from the ground states. */
+    static Canonical canonical(Spectrum s, Statistics st, int n, double kT, double gap) {
+        GroundState gs = groundState(s, st, n);
+        double lnZ = gs.entropy() - gs.energy() / kT;
+        if (!Double.isFinite(lnZ)) {
+            throw InvalidInputException.of("temperature kT", kT, "large enough that E_0/kT is finite (E_0 = "
+                    + gs.energy() + ")", "Measure energies from the ground level (E_0 = 0), or use Canonical.groundState.");
+        }
+        int m = s.size();
+        double[] occ = new double[m];
+        double[] vac = st.capped() ? new double[m] : null;
+        double top = s.groundEnergy();
+        for (int i = 0; i < m; i++) {
+            occ[i] = gs.occupations().perState(i);
+            if (vac != null) {
+                vac[i] = st.maxOccupancy() - occ[i];
+            }
+            if (occ[i] > 0) {
+                top = s.energy(i);
+            }
+        }
+        String note = gap == Double.POSITIVE_INFINITY
+                ? "no excitations: every N-particle state has the same energy, so ln Z = ln g - E_0/kT, U = E_0, "
+                        + "S/k = ln g (g = " + gs.degeneracy() + " states), C_V = Var E = 0 and the occupations are "
+                        + "exact at every temperature"
+                : String.format("T -> 0 limit: the lowest excitation (%.6g) is %.3g kT, so every excited state is "
+                        + "suppressed by a factor below e^-700; ln Z = ln g - E_0/kT, U = E_0, S/k = ln g (g = %s "
+                        + "ground states), C_V = Var E = 0 (exponentially small) and the occupations and ground-level "
+                        + "distribution are the ground-state values, all exact to double precision",
+                        gap, gap / kT, gs.degeneracy());
+        double[] dist = ZeroTemperatureLimit.groundLevelDistribution(s, st, n, occ[0] * s.degeneracy(0));
+        return new Canonical(s, st, n, kT, top, lnZ, occ, vac, new CondensateDistribution(dist), List.of(note),
+                EnergyFluctuations.exact(0), null, gs.entropy());
     }
 }

@@ -3,9 +3,8 @@ package org.microtally.limit;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
-import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
-import org.apache.commons.math3.analysis.solvers.AllowedSolution;
 import org.apache.commons.math3.special.Gamma;
+import org.microtally.Roots;
 import org.microtally.InvalidInputException;
 import org.microtally.special.Polylog;
 import org.microtally.special.Zeta;
@@ -67,9 +66,9 @@ public final class BoseGas {
     }
 
     /** N spinless bosons in a 3D harmonic trap (any mass: the density of states does not depend on it). */
-    public static BoseGas inHarmonicTrap(HarmonicTrap trap, double atoms) {
-        Checks.positive("number of atoms N", atoms, "");
-        return new BoseGas(DensityOfStates.harmonic(trap, 1), atoms, trap);
+    public static BoseGas inHarmonicTrap(HarmonicTrap trap, double n) {
+        Checks.positive("number of n N", n, "");
+        return new BoseGas(DensityOfStates.harmonic(trap, 1), n, trap);
     }
 
     /**
@@ -207,13 +206,12 @@ public final class BoseGas {
             return 0.0;
         }
         double lnY = Math.log(y);
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-300, 1e-16, 5);
-        return solver.solve(200, x -> {
+        return Roots.solve("ln fugacity of the Bose gas", x -> {
             if (x >= 0.0) {
                 return Math.log(Zeta.zeta(alpha)) - lnY;
             }
             return Math.log(Polylog.li(alpha, Math.exp(x))) - lnY;
-        }, lo, hi, AllowedSolution.ANY_SIDE);
+        }, lo, hi, Double.MIN_NORMAL, 1e-16);
     }
 
     @Override

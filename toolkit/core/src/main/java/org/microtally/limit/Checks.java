@@ -1,23 +1,20 @@
 package org.microtally.limit;
 
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 
-/** Input checks shared by the reference-formula classes (package-private). */
+/** Input checks of the reference-formula classes (package-private), delegating to {@link Inputs}. */
 final class Checks {
     private Checks() { }
 
     /** Returns {@code value} if it is finite and &gt; 0, else throws naming it. */
     static double positive(String what, double value, String remedy) {
-        if (!(value > 0) || !Double.isFinite(value)) {
-            throw InvalidInputException.of(what, value, "a finite number > 0", remedy);
-        }
-        return value;
+        return Inputs.positive(what, value, remedy);
     }
 
     /** A temperature in kelvin: finite and &gt; 0. */
     static double temperature(double kelvin) {
-        return positive("temperature T (K)", kelvin,
-                "T = 0 is a limit, not a state: use the ground-state quantities (e.g. fermiEnergy()) instead.");
+        return Inputs.kelvin(kelvin);
     }
 
     /** A spin (or other internal) degeneracy: an integer &gt;= 1. */

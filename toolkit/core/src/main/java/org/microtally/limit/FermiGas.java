@@ -2,9 +2,8 @@ package org.microtally.limit;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.apache.commons.math3.analysis.solvers.AllowedSolution;
-import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
 import org.apache.commons.math3.special.Gamma;
+import org.microtally.Roots;
 import org.microtally.InvalidInputException;
 import org.microtally.special.FermiDirac;
 import org.microtally.special.Zeta;
@@ -208,8 +207,8 @@ public final class FermiGas {
         while (Math.log(FermiDirac.integral(j, lo)) > lnY) {
             lo -= Math.max(1.0, Math.abs(lo));
         }
-        BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-15, 1e-16, 5);
-        return solver.solve(300, e -> Math.log(FermiDirac.integral(j, e)) - lnY, lo, hi, AllowedSolution.ANY_SIDE);
+        return Roots.solve("degeneracy parameter eta = mu/kT", e -> Math.log(FermiDirac.integral(j, e)) - lnY, lo, hi,
+                1e-15, 1e-16);
     }
 
     /**

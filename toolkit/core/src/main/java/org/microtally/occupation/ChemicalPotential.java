@@ -1,8 +1,8 @@
 package org.microtally.occupation;
 
-import org.apache.commons.math3.analysis.solvers.AllowedSolution;
-import org.apache.commons.math3.analysis.solvers.BracketingNthOrderBrentSolver;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
+import org.microtally.Roots;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
@@ -10,7 +10,7 @@ import org.microtally.spectrum.Statistics;
  * The grand canonical chemical potential that gives a prescribed mean particle number,
  * {@code sum_i g_i n(beta (e_i - mu)) = N}, and its T -&gt; 0 limit for capped statistics.
  *
- * <p>Method: a bracketed root search (Commons Math {@link BracketingNthOrderBrentSolver}, order 5)
+ * <p>Method: a bracketed root search ({@link Roots}: Brent-type, order 5; its tolerance is stated there)
  * on a bracket that is valid by construction, so the search cannot leave the physical domain:
  * <ul>
  *   <li>Bose-Einstein: the unknown is {@code u = ln(beta (e_0 - mu))}, so mu approaches the ground
@@ -40,17 +40,16 @@ import org.microtally.spectrum.Statistics;
 public final class ChemicalPotential {
     private ChemicalPotential() { }
 
-    private static final int MAX_EVALUATIONS = 400;
 
     /**
      * The chemical potential (in the spectrum's unit) at temperature {@code kT} for mean particle
-     * number {@code targetN}.
+     * number {@code n}.
      *
-     * @throws InvalidInputException for kT &lt;= 0 or not finite, targetN &lt;= 0 or not finite, or
-     *                               targetN at or above the capacity of a capped spectrum
+     * @throws InvalidInputException for kT &lt;= 0 or not finite, n &lt;= 0 or not finite, or
+     *                               n at or above the capacity of a capped spectrum
      */
-    public static double forMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double targetN) {
-        return solver(spectrum, statistics).forMeanNumber(kT, targetN);
+    public static double forMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
+        return solver(spectrum, statistics).forMeanNumber(kT, n);
     }
 
     /**
@@ -87,20 +86,20 @@ public final class ChemicalPotential {
             }
         }
 
-        /** mu at temperature kT for mean number targetN; see {@link ChemicalPotential#forMeanNumber}. */
-        public double forMeanNumber(double kT, double targetN) {
-            requireTemperature(kT);
-            if (!(targetN > 0) || !Double.isFinite(targetN)) {
-                throw InvalidInputException.of("target mean particle number <N>", targetN, "a finite number > 0",
+        /** mu at temperature kT for mean number n; see {@link ChemicalPotential#forMeanNumber}. */
+        public double forMeanNumber(double kT, double n) {
+            Inputs.temperature(kT);
+            if (!(n > 0) || !Double.isFinite(n)) {
+                throw InvalidInputException.of("target mean particle number <N>", n, "a finite number > 0",
                         "An empty system has mu = -infinity; give <N> > 0.");
             }
             double beta = 1.0 / kT;
             double cap = statistics.capped() ? statistics.maxOccupancy() : 1.0;
-            double window = Math.max(45.0, 45.0 + Math.log(cap * spectrum.stateCount() / targetN));
+            double window = Math.max(45.0, 45.0 + Math.log(cap * spectrum.stateCount() / n));
             return switch (statistics.kind()) {
-                case BOSE -> bose(beta, targetN, window);
-                case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, targetN);
-                case FERMI, GENTILE -> capped(beta, targetN, window);
+                case BOSE -> bose(beta, n, window);
+                case DISTINGUISHABLE -> maxwellBoltzmann(spectrum, beta, n);
+                case FERMI, GENTILE -> capped(beta, n, window);
             };
         }
 
@@ -129,8 +128,7 @@ public final class ChemicalPotential {
             }
             double lnTarget = Math.log(target);
             int end = upper(e0 + window / beta);
-            BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-15, 1e-15, 1e-300, 5);
-            double u = solver.solve(MAX_EVALUATIONS, uu -> {
+            double u = Roots.solve("ln(beta (e_0 - mu)) of the Bose chemical potential", uu -> {
                 double bd = Math.exp(uu);
                 double sum = 0;
                 for (int i = 0; i < end; i++) {
@@ -139,7 +137,7 @@ public final class ChemicalPotential {
                 double v = Math.log(sum) - lnTarget;
                 // within 4 ulp of 1 in ln <N>: rounding noise, reported as an exact root to end the search there
                 return Math.abs(v) <= 4 * Math.ulp(1.0) ? 0.0 : v;
-            }, Math.log(lo), Math.log(hi), AllowedSolution.ANY_SIDE);
+            }, Math.log(lo), Math.log(hi), 1e-15);
             return e0 - Math.exp(u) / beta;
         }
 
@@ -194,15 +192,13 @@ public final class ChemicalPotential {
                     step *= 4;
                 } while (a > lo && f.applyAsDouble(a) > 0);
             }
-            BracketingNthOrderBrentSolver solver = new BracketingNthOrderBrentSolver(1e-16, 4 * Math.ulp(
-                    Math.max(Math.abs(a), Math.abs(b))), 1e-300, 5);
             // a residual within its own rounding noise is reported as an exact root, which ends the search there
             // (the solver otherwise insists on shrinking the bracket from both sides)
             java.util.function.DoubleUnaryOperator g = f;
-            return solver.solve(MAX_EVALUATIONS, mu -> {
+            return Roots.solve("chemical potential mu", mu -> {
                 double v = g.applyAsDouble(mu);
                 return Math.abs(v) <= noise[0] ? 0.0 : v;
-            }, a, b, AllowedSolution.ANY_SIDE);
+            }, a, b, 4 * Math.ulp(Math.max(Math.abs(a), Math.abs(b))));
         }
 
         /** The energy at which filling the states from below reaches {@code states} (T = 0 estimate of mu). */
@@ -232,9 +228,9 @@ public final class ChemicalPotential {
             for (int i = from; i < to; i++) {
                 double x = beta * (e[i] - mu);
                 if (i >= split) {
-                    above += g[i] * (fermi ? fermiMean(x) : MeanOccupation.gentile(k, x));
+                    above += g[i] * (fermi ? fermiMean(x) : statistics.meanOccupation(x));
                 } else {
-                    holes += g[i] * (fermi ? fermiMean(-x) : MeanOccupation.gentile(k, -x));
+                    holes += g[i] * (fermi ? fermiMean(-x) : statistics.meanOccupation(-x));
                 }
             }
             noise[0] = noiseLevel(above + holes, to - from, target);
@@ -315,13 +311,6 @@ public final class ChemicalPotential {
             }
         }
         throw new IllegalStateException("unreachable: n below capacity");
-    }
-
-    static void requireTemperature(double kT) {
-        if (!(kT > 0) || !Double.isFinite(kT)) {
-            throw InvalidInputException.of("temperature kT", kT, "a finite number > 0",
-                    "For T -> 0 use the explicit ground-state / Fermi-level calls.");
-        }
     }
 
     private static double maxwellBoltzmann(Spectrum s, double beta, double target) {

@@ -99,4 +99,10 @@ public final class CondensateDistribution implements Tabular {
         }
         return rows;
     }
+
+    /** E.g. {@code "CondensateDistribution[N_0 = 0..40, <N_0> = 31.2, Var N_0 = 4.1]"}. */
+    @Override
+    public String toString() {
+        return "CondensateDistribution[N_0 = 0.." + maxNumber() + ", <N_0> = " + mean() + ", Var N_0 = " + variance() + "]";
+    }
 }

@@ -89,4 +89,11 @@ public final class LevelOccupations implements Tabular {
         }
         return rows;
     }
+
+    /** E.g. {@code "LevelOccupations[13 levels, 12.0 particles, lowest level 1.0 per state]"}. */
+    @Override
+    public String toString() {
+        return "LevelOccupations[" + perState.length + " levels, " + total() + " particles"
+                + (perState.length > 0 ? ", lowest level " + perState[0] + " per state" : "") + "]";
+    }
 }

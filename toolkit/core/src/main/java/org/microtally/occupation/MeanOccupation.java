@@ -1,174 +1,51 @@
 package org.microtally.occupation;
 
-import org.microtally.InvalidInputException;
 import org.microtally.spectrum.Statistics;
 
 /**
  * Grand canonical occupation of one single-particle state as a function of
- * {@code x = (e - mu) / kT}: mean, variance and the state's contribution to ln Xi.
- *
- * <table>
- *   <caption>Formulas (common practice, e.g. any statistical mechanics text)</caption>
- *   <tr><th>law</th><th>mean n</th><th>variance</th><th>ln xi</th></tr>
- *   <tr><td>Bose-Einstein (x &gt; 0)</td><td>1/(e^x - 1)</td><td>n(n+1)</td><td>-ln(1 - e^-x)</td></tr>
- *   <tr><td>Fermi-Dirac</td><td>1/(e^x + 1)</td><td>n(1-n)</td><td>ln(1 + e^-x)</td></tr>
- *   <tr><td>Maxwell-Boltzmann</td><td>e^-x</td><td>n</td><td>e^-x</td></tr>
- *   <tr><td>Gentile, at most k</td><td>sum m y^m / sum y^m, y = e^-x</td><td>&lt;m^2&gt; - n^2</td>
- *       <td>ln sum_{m=0..k} y^m</td></tr>
- * </table>
- *
- * <p>Method: each formula is evaluated in the branch that never forms e^{|x|} (expm1/log1p for the
- * Bose and Fermi laws; for Gentile the geometric sums run over powers of e^{-|x|} &lt;= 1, the
- * particle-hole image m -&gt; k - m is used for x &lt; 0). Accuracy: a few ulp relative for mean and
- * ln xi, and for the variance, wherever the result is a finite double. That is not the whole real
- * line: the Maxwell-Boltzmann mean, variance and ln xi (e^-x) overflow for x below about -709.78;
- * the Bose-Einstein mean (about 1/x) overflows for x below about 5.6e-309 and its variance (about
- * 1/x^2) for x below about 7.5e-155; the Gentile ln xi (about -k x) overflows for x below about
- * -1.8e308/k. Fermi-Dirac results are finite for every finite x. Where a result would not be
- * finite, the method throws {@link InvalidInputException} naming x, never returning Infinity.
- *
- * <p>{@link Statistics#DISTINGUISHABLE} is mapped to Maxwell-Boltzmann: the grand canonical
- * ensemble of classical particles with Boltzmann's 1/N! counting.
+ * {@code x = (e - mu) / kT}: the named laws (Bose-Einstein, Fermi-Dirac, Maxwell-Boltzmann, Gentile).
+ * The formulas, method, accuracy and the ranges of x where a result is finite are stated once, on
+ * {@link Statistics} (its one-state laws, which these methods call); where a result would not be a
+ * finite double an {@link org.microtally.InvalidInputException} names x, never returning Infinity.
  */
 public final class MeanOccupation {
+    private static final Statistics MAXWELL_BOLTZMANN = Statistics.DISTINGUISHABLE;
+
     private MeanOccupation() { }
 
     /** Bose-Einstein mean 1/(e^x - 1); x must be &gt; 0 (mu below the state). */
     public static double boseEinstein(double x) {
-        requireBoseArgument(x);
-        return requireFiniteResult("Bose-Einstein mean occupation", x, 1.0 / Math.expm1(x));
+        return Statistics.BOSE.meanOccupation(x);
     }
 
     /** Fermi-Dirac mean 1/(e^x + 1), any finite x. */
     public static double fermiDirac(double x) {
-        requireFinite(x);
-        if (x > 0) {
-            double t = Math.exp(-x);
-            return t / (1.0 + t);
-        }
-        return 1.0 / (1.0 + Math.exp(x));
+        return Statistics.FERMI.meanOccupation(x);
     }
 
     /** Maxwell-Boltzmann mean e^-x. */
     public static double maxwellBoltzmann(double x) {
-        requireFinite(x);
-        return requireFiniteResult("Maxwell-Boltzmann mean occupation", x, Math.exp(-x));
+        return MAXWELL_BOLTZMANN.meanOccupation(x);
     }
 
     /** Gentile mean occupation with at most {@code k} particles per state. */
     public static double gentile(int k, double x) {
-        return gentileMoments(k, x)[0];
+        return Statistics.maxOccupancy(k).meanOccupation(x);
     }
 
-    /** The mean occupation of one state under {@code statistics} at x = (e - mu)/kT. */
+    /** The mean occupation of one state under {@code statistics}: {@link Statistics#meanOccupation}. */
     public static double mean(Statistics statistics, double x) {
-        return switch (statistics.kind()) {
-            case BOSE -> boseEinstein(x);
-            case FERMI -> fermiDirac(x);
-            case DISTINGUISHABLE -> maxwellBoltzmann(x);
-            case GENTILE -> gentile(statistics.maxOccupancy(), x);
-        };
+        return statistics.meanOccupation(x);
     }
 
-    /** The variance of the occupation of one state. */
+    /** The variance of the occupation of one state: {@link Statistics#occupationVariance}. */
     public static double variance(Statistics statistics, double x) {
-        return switch (statistics.kind()) {
-            case BOSE -> {
-                double n = boseEinstein(x);
-                yield requireFiniteResult("Bose-Einstein occupation variance", x, n * (n + 1));
-            }
-            case FERMI -> {
-                double n = fermiDirac(x);
-                yield n * fermiDirac(-x);
-            }
-            case DISTINGUISHABLE -> maxwellBoltzmann(x);
-            case GENTILE -> gentileMoments(statistics.maxOccupancy(), x)[1];
-        };
+        return statistics.occupationVariance(x);
     }
 
-    /** The state's contribution to ln Xi (the log of its grand canonical factor). */
+    /** The state's contribution to ln Xi: {@link Statistics#lnStateSum}. */
     public static double logFactor(Statistics statistics, double x) {
-        requireFinite(x);
-        return switch (statistics.kind()) {
-            case BOSE -> {
-                requireBoseArgument(x);
-                yield -Math.log(-Math.expm1(-x));
-            }
-            case FERMI -> x > 0 ? Math.log1p(Math.exp(-x)) : -x + Math.log1p(Math.exp(x));
-            case DISTINGUISHABLE -> requireFiniteResult("Maxwell-Boltzmann ln xi", x, Math.exp(-x));
-            case GENTILE -> requireFiniteResult("Gentile ln xi", x, gentileLogFactor(statistics.maxOccupancy(), x));
-        };
-    }
-
-    /** Mean and variance of the Gentile occupation, {mean, variance}. */
-    static double[] gentileMoments(int k, double x) {
-        requireFinite(x);
-        if (k < 1) {
-            throw InvalidInputException.of("maximum occupancy k", k, "an integer >= 1", "");
-        }
-        boolean flip = x < 0;
-        double y = Math.exp(-Math.abs(x));
-        double p = 1;
-        double s0 = 1;
-        double s1 = 0;
-        double s2 = 0;
-        for (int m = 1; m <= k; m++) {
-            p *= y;
-            if (p < 1e-300 * s0 || p == 0) {
-                break;
-            }
-            s0 += p;
-            s1 += m * p;
-            s2 += (double) m * m * p;
-        }
-        double mean = s1 / s0;
-        double var = s2 / s0 - mean * mean;
-        if (var < 0) {
-            var = 0;
-        }
-        return new double[] {flip ? k - mean : mean, var};
-    }
-
-    private static double gentileLogFactor(int k, double x) {
-        double y = Math.exp(-Math.abs(x));
-        double p = 1;
-        double s0 = 1;
-        for (int m = 1; m <= k; m++) {
-            p *= y;
-            if (p < 1e-300 * s0 || p == 0) {
-                break;
-            }
-            s0 += p;
-        }
-        return Math.log(s0) + (x < 0 ? -k * x : 0.0);
-    }
-
-    private static void requireFinite(double x) {
-        if (!Double.isFinite(x)) {
-            throw InvalidInputException.of("(e - mu)/kT", x, "a finite number",
-                    "Check that kT > 0 and mu are finite.");
-        }
-    }
-
-    /**
-     * Returns {@code result} if it is finite; otherwise throws naming x, the range of x for which
-     * {@code quantity} is a finite double, and what to do.
-     */
-    private static double requireFiniteResult(String quantity, double x, double result) {
-        if (Double.isFinite(result)) {
-            return result;
-        }
-        throw InvalidInputException.of("(e - mu)/kT", x,
-                "such that the " + quantity + " is a finite double (it overflows here)",
-                "Choose mu and kT so that x lies in the range given in the MeanOccupation Javadoc"
-                        + " (e.g. mu further below the level).");
-    }
-
-    private static void requireBoseArgument(double x) {
-        requireFinite(x);
-        if (!(x > 0)) {
-            throw InvalidInputException.of("(e - mu)/kT for a Bose-Einstein state", x, "> 0 (mu below every level)",
-                    "Choose mu below the lowest level, or fix <N> and let the solver find mu.");
-        }
+        return statistics.lnStateSum(x);
     }
 }

@@ -1,5 +1,6 @@
 package org.microtally.spectrum;
 
+import java.math.BigInteger;
 import org.microtally.InvalidInputException;
 
 /**
@@ -13,6 +14,27 @@ import org.microtally.InvalidInputException;
  *   <li>{@link #maxOccupancy(int)}: Gentile's intermediate statistics, at most k per state
  *       (G. Gentile, Nuovo Cimento 17, 493 (1940)); k = 1 is Fermi, k &gt;= N is Bose.</li>
  * </ul>
+ *
+ *
+ * <h2>One-state laws</h2>
+ * For one single-particle state at x = (e - mu)/kT (grand canonical; formulas common practice, e.g.
+ * any statistical mechanics text; Gentile's from Gentile 1940):
+ * <table>
+ *   <caption>mean, variance and ln of the one-state grand sum</caption>
+ *   <tr><th>statistics</th><th>{@link #meanOccupation}</th><th>{@link #occupationVariance}</th>
+ *       <th>{@link #lnStateSum}</th></tr>
+ *   <tr><td>BOSE (x &gt; 0)</td><td>1/(e^x - 1)</td><td>n(n+1)</td><td>-ln(1 - e^-x)</td></tr>
+ *   <tr><td>FERMI</td><td>1/(e^x + 1)</td><td>n(1-n)</td><td>ln(1 + e^-x)</td></tr>
+ *   <tr><td>DISTINGUISHABLE (Maxwell-Boltzmann, 1/N! counting)</td><td>e^-x</td><td>n</td><td>e^-x</td></tr>
+ *   <tr><td>GENTILE, at most k</td><td>sum m y^m / sum y^m, y = e^-x</td><td>&lt;m^2&gt; - n^2</td>
+ *       <td>ln sum_{m=0..k} y^m</td></tr>
+ * </table>
+ * Accuracy: a few ulp relative wherever the result is a finite double; evaluated without forming
+ * e^{|x|} (expm1/log1p; Gentile sums over powers of e^{-|x|}, particle-hole image for x &lt; 0). Not
+ * finite, and then refused with an exception naming x: the Maxwell-Boltzmann laws for x below about
+ * -709.78; the Bose mean for x below about 5.6e-309 and its variance below about 7.5e-155; the
+ * Gentile ln sum for x below about -1.8e308/k. Fermi results are finite for every finite x.
+ * {@link #levelWays} counts the ways to put j particles into the g states of one level (exact).
  *
  * @param kind         which family
  * @param maxOccupancy largest number of particles per single-particle state
@@ -55,6 +77,45 @@ public record Statistics(Kind kind, int maxOccupancy) {
             throw InvalidInputException.of("maximum occupancy k", k, "an integer >= 1", "");
         }
         return new Statistics(Kind.GENTILE, k);
+    }
+
+    /** Mean occupation of one state at x = (e - mu)/kT (see the class table); Bose needs x &gt; 0. */
+    public double meanOccupation(double x) {
+        return OneStateLaws.mean(this, x);
+    }
+
+    /** Variance of the occupation of one state at x = (e - mu)/kT (see the class table). */
+    public double occupationVariance(double x) {
+        return OneStateLaws.variance(this, x);
+    }
+
+    /** ln of the one-state grand sum, sum over allowed m of e^{-m x} (Maxwell-Boltzmann: e^-x; see the class table). */
+    public double lnStateSum(double x) {
+        return OneStateLaws.logFactor(this, x);
+    }
+
+    /**
+     * Exact number of ways to put {@code j} particles into the {@code g} states of one level: Bose
+     * C(g + j - 1, j), Fermi C(g, j), Gentile the bounded compositions (inclusion-exclusion, exact),
+     * distinguishable g^j (each labelled particle picks a state; choosing which j particles is the caller's).
+     */
+    public BigInteger levelWays(long g, int j) {
+        if (g < 0 || j < 0) {
+            throw InvalidInputException.of("level states g and particles j", "(" + g + ", " + j + ")", "both >= 0", "");
+        }
+        return switch (kind) {
+            case DISTINGUISHABLE -> BigInteger.valueOf(g).pow(j);
+            case BOSE -> OneStateLaws.boundedWays(g, Math.max(j, 1), j);
+            case FERMI, GENTILE -> OneStateLaws.boundedWays(g, maxOccupancy, j);
+        };
+    }
+
+    /**
+     * True for Bose statistics only: the mean occupation diverges as mu approaches a level from below,
+     * so mu must stay below the lowest level and the lowest level can hold a condensate.
+     */
+    public boolean condenses() {
+        return kind == Kind.BOSE;
     }
 
     /** True for every kind except {@link Kind#DISTINGUISHABLE}. */

@@ -24,9 +24,9 @@ class BadInputTest {
             assertNames(assertThrows(InvalidInputException.class,
                     () -> Canonical.of(dot, Statistics.FERMI, 3, t)), "kT = " + t);
             assertNames(assertThrows(InvalidInputException.class,
-                    () -> GrandCanonical.atMeanNumber(dot, Statistics.BOSE, t, 3)), "kT = " + t);
+                    () -> GrandCanonical.ofMeanNumber(dot, Statistics.BOSE, t, 3)), "kT = " + t);
             assertNames(assertThrows(InvalidInputException.class,
-                    () -> GrandCanonical.atChemicalPotential(dot, Statistics.FERMI, t, 0.5)), "kT = " + t);
+                    () -> GrandCanonical.ofChemicalPotential(dot, Statistics.FERMI, t, 0.5)), "kT = " + t);
         }
     }
 
@@ -34,13 +34,13 @@ class BadInputTest {
     void targetAboveFermiCapacity() {
         // 21 states in the 2D oscillator up to 5 quanta
         InvalidInputException e = assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 1.0, 21));
+                () -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 1.0, 21));
         assertNames(e, "= 21.0");
         assertTrue(e.getMessage().contains("capacity 21"), e.getMessage());
         assertNames(assertThrows(InvalidInputException.class,
                 () -> Canonical.of(dot, Statistics.FERMI, 22, 1.0)), "N = 22");
         assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atMeanNumber(dot, Statistics.maxOccupancy(2), 1.0, 50)), "= 50.0");
+                () -> GrandCanonical.ofMeanNumber(dot, Statistics.maxOccupancy(2), 1.0, 50)), "= 50.0");
         assertNames(assertThrows(InvalidInputException.class,
                 () -> ChemicalPotential.fermiLevel(dot, Statistics.FERMI, 21)), "= 21");
     }
@@ -48,9 +48,9 @@ class BadInputTest {
     @Test
     void boseChemicalPotentialOutsideBracket() {
         assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atChemicalPotential(dot, Statistics.BOSE, 1.0, 0.0)), "mu for bosons = 0.0");
+                () -> GrandCanonical.ofChemicalPotential(dot, Statistics.BOSE, 1.0, 0.0)), "mu for bosons = 0.0");
         assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atChemicalPotential(dot, Statistics.BOSE, 1.0, 2.5)), "= 2.5");
+                () -> GrandCanonical.ofChemicalPotential(dot, Statistics.BOSE, 1.0, 2.5)), "= 2.5");
     }
 
     @Test
@@ -58,17 +58,17 @@ class BadInputTest {
         assertNames(assertThrows(InvalidInputException.class,
                 () -> Canonical.of(dot, Statistics.BOSE, 0, 1.0)), "N = 0");
         assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 1.0, 0)), "= 0.0");
+                () -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 1.0, 0)), "= 0.0");
     }
 
     @Test
     void cutoffThatMattersIsReportedWithTheTopLevelOccupation() {
         Spectrum low = Spectra.harmonicOscillator(3, 4);
-        GrandCanonical hot = GrandCanonical.atMeanNumber(low, Statistics.FERMI, 5.0, 10);
+        GrandCanonical hot = GrandCanonical.ofMeanNumber(low, Statistics.FERMI, 5.0, 10);
         double top = hot.occupations().levelTotal(low.size() - 1);
         assertTrue(hot.warnings().size() == 1 && hot.warnings().get(0).contains(String.format("%.3g", top)),
                 hot.warnings().toString());
-        assertTrue(GrandCanonical.atMeanNumber(low, Statistics.FERMI, 0.05, 10).warnings().isEmpty());
+        assertTrue(GrandCanonical.ofMeanNumber(low, Statistics.FERMI, 0.05, 10).warnings().isEmpty());
     }
 
     @Test

@@ -85,7 +85,7 @@ class CanonicalTest {
         Spectrum s = randomSpectrum(rnd, 45, 3);
         for (Statistics st : List.of(Statistics.FERMI, Statistics.maxOccupancy(2))) {
             Canonical stored = Canonical.of(s, st, 30, 0.7);
-            Canonical checkpointed = Canonical.cappedWithPrefixLimit(s, st, 30, 0.7, 0);
+            Canonical checkpointed = CanonicalSeries.cappedWithPrefixLimit(s, st, 30, 0.7, 0);
             // Source: common practice, no source (the same exact computation with prefixes recomputed block-wise
             // from sqrt(M) checkpoints must reproduce the stored-prefix result)
             for (int i = 0; i < s.size(); i++) {
@@ -281,7 +281,7 @@ class CanonicalTest {
             int n = ns[k];
             double kT = 0.5 * Math.cbrt(n);
             Canonical c = Canonical.of(s, Statistics.FERMI, n, kT);
-            GrandCanonical g = GrandCanonical.atMeanNumber(s, Statistics.FERMI, kT, n);
+            GrandCanonical g = GrandCanonical.ofMeanNumber(s, Statistics.FERMI, kT, n);
             diff[k] = Math.abs(c.entropy() - g.entropy()) / n;
         }
         // Source: common practice, no source (ensemble equivalence: per-particle differences are O(ln N / N))

@@ -110,7 +110,7 @@ class CountingAndGridTest {
         assertEquals(EnsembleComparison.overTemperatures(osc, Statistics.DISTINGUISHABLE, n, Counting.CORRECTED_BOLTZMANN,
                 kT).comparisonRows(), def.comparisonRows());
         // Source: closed form for labelled particles in the grand canonical ensemble, <N> = w/(1 - w) at w = z Z_1
-        GrandCanonical lab = GrandCanonical.atMeanNumber(osc, Statistics.DISTINGUISHABLE, kT, n, Counting.LABELLED);
+        GrandCanonical lab = GrandCanonical.ofMeanNumber(osc, Statistics.DISTINGUISHABLE, kT, n, Counting.LABELLED);
         assertEquals(n, lab.meanNumber(), 1e-12 * n);
         assertEquals(n * (n + 1.0), lab.numberVariance(), 1e-10 * n * n);
         assertEquals(n * 1 / Math.expm1(1 / kT), lab.energy(), 1e-10 * n * kT);

@@ -16,7 +16,7 @@ class GrandCanonicalLowTemperatureTest {
 
     @Test
     void closedShellFermionEntropyKeepsItsRelativeAccuracy() {
-        GrandCanonical g = GrandCanonical.atMeanNumber(osc, Statistics.FERMI, 0.01, 10);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(osc, Statistics.FERMI, 0.01, 10);
         double mu = g.chemicalPotential();
         double expected = 0;
         for (int i = 0; i < osc.size(); i++) {
@@ -30,12 +30,12 @@ class GrandCanonicalLowTemperatureTest {
 
     @Test
     void tinyTemperaturesGiveFiniteResultsOrARefusal() {
-        GrandCanonical b = GrandCanonical.atMeanNumber(osc, Statistics.BOSE, 1e-300, 10);
+        GrandCanonical b = GrandCanonical.ofMeanNumber(osc, Statistics.BOSE, 1e-300, 10);
         // Source: closed form, T -> 0 limit of the one-state Bose law: all 10 in the ground state, C -> 0
         assertEquals(0.0, b.heatCapacity(), 0.0);
         assertEquals(10, b.meanNumber(), 1e-12);
         InvalidInputException e = assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.atMeanNumber(osc, Statistics.FERMI, 1e-300, 10));
+                () -> GrandCanonical.ofMeanNumber(osc, Statistics.FERMI, 1e-300, 10));
         assertTrue(e.getMessage().contains("gives 7.0"), e.getMessage());
     }
 }

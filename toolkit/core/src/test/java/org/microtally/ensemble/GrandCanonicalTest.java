@@ -16,7 +16,7 @@ class GrandCanonicalTest {
     void boseOccupationsFollowTheClosedForm() {
         Spectrum s = Spectra.harmonicOscillator(3, 40);
         double kT = 4.0;
-        GrandCanonical g = GrandCanonical.atMeanNumber(s, Statistics.BOSE, kT, 500);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(s, Statistics.BOSE, kT, 500);
         assertEquals(500, g.meanNumber(), 1e-10 * 500);
         for (int i = 0; i < s.size(); i++) {
             double x = (s.energy(i) - g.chemicalPotential()) / kT;
@@ -33,7 +33,7 @@ class GrandCanonicalTest {
     @Test
     void deepCondensationApproachesTheGroundLevelWithoutNaN() {
         Spectrum s = Spectra.harmonicOscillator(3, 30);
-        GrandCanonical g = GrandCanonical.atMeanNumber(s, Statistics.BOSE, 1.0, 1e12);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(s, Statistics.BOSE, 1.0, 1e12);
         assertTrue(g.chemicalPotential() < 0);
         // Source: closed form, N_0 = 1/(e^{-mu/kT} - 1) ~ N - N_thermal when condensed; here the ground level holds
         // nearly all of 1e12
@@ -56,8 +56,8 @@ class GrandCanonicalTest {
         }
         // and the same through a grand canonical state on a spectrum
         Spectrum s = Spectrum.ofEnergies(0, 1, 2, 3);
-        GrandCanonical b = GrandCanonical.atChemicalPotential(s, Statistics.BOSE, 1.0, -12);
-        GrandCanonical m = GrandCanonical.atChemicalPotential(s, Statistics.DISTINGUISHABLE, 1.0, -12);
+        GrandCanonical b = GrandCanonical.ofChemicalPotential(s, Statistics.BOSE, 1.0, -12);
+        GrandCanonical m = GrandCanonical.ofChemicalPotential(s, Statistics.DISTINGUISHABLE, 1.0, -12);
         for (int i = 0; i < 4; i++) {
             double ex = Math.exp(-(i + 12));
             double rel = b.occupations().perState(i) / m.occupations().perState(i) - 1;
@@ -92,7 +92,7 @@ class GrandCanonicalTest {
         // Source: closed form low-T expansion (holes below balance particles above):
         // mu = (e_h + e_l)/2 + (kT/2) ln(g_h/g_l) + O(e^{-gap/kT})
         assertEquals(2.5 + 0.5 * kT * Math.log(3.0 / 4.0), mu, 1e-12);
-        GrandCanonical g = GrandCanonical.atChemicalPotential(dot, Statistics.FERMI, kT, mu);
+        GrandCanonical g = GrandCanonical.ofChemicalPotential(dot, Statistics.FERMI, kT, mu);
         assertEquals(6, g.meanNumber(), 1e-12);
     }
 
@@ -105,9 +105,9 @@ class GrandCanonicalTest {
             // Source: common practice, no source (the full, unwindowed grand canonical sum at the solved mu must give
             // back the target; the window only drops terms below e^-50 of it)
             double mu = fermi.forMeanNumber(kT, 10_000);
-            assertEquals(10_000, GrandCanonical.atChemicalPotential(many, Statistics.FERMI, kT, mu).meanNumber(), 1e-8);
+            assertEquals(10_000, GrandCanonical.ofChemicalPotential(many, Statistics.FERMI, kT, mu).meanNumber(), 1e-8);
             double mu3 = gentile.forMeanNumber(kT, 10_000);
-            assertEquals(10_000, GrandCanonical.atChemicalPotential(many, Statistics.maxOccupancy(3), kT, mu3)
+            assertEquals(10_000, GrandCanonical.ofChemicalPotential(many, Statistics.maxOccupancy(3), kT, mu3)
                     .meanNumber(), 1e-8);
         }
     }
@@ -117,15 +117,15 @@ class GrandCanonicalTest {
         Spectrum s = Spectra.harmonicOscillator(3, 60);
         double kT = 3.0;
         double h = 1e-4;
-        GrandCanonical g = GrandCanonical.atMeanNumber(s, Statistics.FERMI, kT, 200);
-        double up = GrandCanonical.atMeanNumber(s, Statistics.FERMI, kT + h, 200).energy();
-        double dn = GrandCanonical.atMeanNumber(s, Statistics.FERMI, kT - h, 200).energy();
+        GrandCanonical g = GrandCanonical.ofMeanNumber(s, Statistics.FERMI, kT, 200);
+        double up = GrandCanonical.ofMeanNumber(s, Statistics.FERMI, kT + h, 200).energy();
+        double dn = GrandCanonical.ofMeanNumber(s, Statistics.FERMI, kT - h, 200).energy();
         // Source: common practice, no source (C = dU/dT at fixed <N>; central difference as an independent check)
         assertEquals((up - dn) / (2 * h), g.heatCapacity(), 1e-5 * g.heatCapacity());
         // and S = -dOmega/dT at fixed mu
         double mu = g.chemicalPotential();
-        double om1 = GrandCanonical.atChemicalPotential(s, Statistics.FERMI, kT + h, mu).grandPotential();
-        double om0 = GrandCanonical.atChemicalPotential(s, Statistics.FERMI, kT - h, mu).grandPotential();
+        double om1 = GrandCanonical.ofChemicalPotential(s, Statistics.FERMI, kT + h, mu).grandPotential();
+        double om0 = GrandCanonical.ofChemicalPotential(s, Statistics.FERMI, kT - h, mu).grandPotential();
         // Source: common practice, no source (thermodynamic identity S = -(dOmega/dT)_mu)
         assertEquals(-(om1 - om0) / (2 * h), g.entropy(), 1e-6 * g.entropy());
     }

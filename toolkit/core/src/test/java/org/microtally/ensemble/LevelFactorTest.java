@@ -124,7 +124,7 @@ class LevelFactorTest {
                     }
                 }
             }
-            assertEquals(ways[r], Canonical.cappedWays(g, k, r), "g=" + g + " k=" + k + " r=" + r);
+            assertEquals(ways[r], Statistics.maxOccupancy(k).levelWays(g, r), "g=" + g + " k=" + k + " r=" + r);
         }
     }
 }

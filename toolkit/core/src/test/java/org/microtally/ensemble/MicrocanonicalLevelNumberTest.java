@@ -174,7 +174,7 @@ class MicrocanonicalLevelNumberTest {
             }
         }
         Canonical c = Canonical.of(trap, Statistics.BOSE, n, lo);
-        GrandCanonical g = GrandCanonical.atMeanNumber(trap, Statistics.BOSE, lo, n);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(trap, Statistics.BOSE, lo, n);
         // Source: Politzer, PRA 54, 5048 (1996); Wilkens & Weiss, J. Mod. Opt. 44, 1801 (1997):
         // at equal mean energy, Var N_0 (microcanonical) < Var N_0 (canonical) < grand canonical n0(n0+1)
         assertTrue(mc.variance() < c.condensate().variance(), mc.variance() + " vs " + c.condensate().variance());

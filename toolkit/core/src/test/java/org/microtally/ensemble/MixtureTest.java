@@ -100,7 +100,7 @@ class MixtureTest {
         double beta = 1 / kT;
         double muA = 3.2;
         double muB = -0.4;
-        GrandCanonicalMixture g = GrandCanonicalMixture.atChemicalPotentials(List.of(
+        GrandCanonicalMixture g = GrandCanonicalMixture.ofChemicalPotentials(List.of(
                 new Species("fermions", ladderA, Statistics.FERMI, 0),
                 new Species("bosons", ladderB, Statistics.BOSE, 0)), kT, muA, muB);
         // Source: Xi = sum over (N_a, N_b) of e^{beta(mu_a N_a + mu_b N_b)} Z_{N_a} Z_{N_b}, Z from the
@@ -127,7 +127,7 @@ class MixtureTest {
     @Test
     void grandCanonicalMixtureAtMeanNumbersHitsEveryTarget() {
         Spectrum trap = Spectra.harmonicOscillator(3, 40);
-        GrandCanonicalMixture g = GrandCanonicalMixture.atMeanNumbers(List.of(
+        GrandCanonicalMixture g = GrandCanonicalMixture.ofMeanNumbers(List.of(
                 new Species("Rb", trap, Statistics.BOSE, 500), new Species("K", trap, Statistics.FERMI, 200)), 4.0);
         // Source: common practice, no source (the solved mu reproduces each target <N_a>)
         assertEquals(500, g.part(0).meanNumber(), 1e-9 * 500);
@@ -150,9 +150,9 @@ class MixtureTest {
         InvalidInputException units = assertThrows(InvalidInputException.class, () -> CanonicalMixture.of(
                 List.of(new Species("a", dot, Statistics.BOSE, 2), new Species("b", other, Statistics.BOSE, 2)), 1.0));
         assertTrue(units.getMessage().contains("meV"), units.getMessage());
-        assertThrows(InvalidInputException.class, () -> GrandCanonicalMixture.atChemicalPotentials(
+        assertThrows(InvalidInputException.class, () -> GrandCanonicalMixture.ofChemicalPotentials(
                 List.of(new Species("a", dot, Statistics.BOSE, 2)), 1.0, 0.5, 0.1));
-        assertThrows(InvalidInputException.class, () -> GrandCanonicalMixture.atChemicalPotentials(
+        assertThrows(InvalidInputException.class, () -> GrandCanonicalMixture.ofChemicalPotentials(
                 List.of(new Species("a", dot, Statistics.BOSE, 2)), 1.0, 0.5));
     }
 }

@@ -46,7 +46,7 @@ class NewResultTablesTest {
         LabelledCanonical lc = LabelledCanonical.of(sd.spectrum(), Statistics.FERMI, 3, 1.0);
         BinnedCounts b = BinnedCounts.of(List.of(new Species("p", Spectra.equallySpaced(40, 1.0), Statistics.BOSE, 30),
                 new Species("n", Spectra.equallySpaced(40, 1.0), Statistics.BOSE, 30)), 1.0, 30);
-        for (Tabular t : List.of(CanonicalMixture.of(two, 0.7), GrandCanonicalMixture.atMeanNumbers(two, 0.7),
+        for (Tabular t : List.of(CanonicalMixture.of(two, 0.7), GrandCanonicalMixture.ofMeanNumbers(two, 0.7),
                 CanonicalSweep.of(dot, Statistics.FERMI, 10, 0.5),
                 MicrocanonicalLevelNumber.groundLevel(dot, Statistics.BOSE, 5, 6), lc,
                 AngularMomentumProjection.of(lc),

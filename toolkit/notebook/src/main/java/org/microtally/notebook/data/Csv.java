@@ -147,7 +147,7 @@ public final class Csv {
 
     /** The exact text of one cell: all digits of exact numbers, p/q for fractions, empty when missing. */
     static String field(Object v) {
-        if (v == null || "n/a".equals(v)) {
+        if (v == null || v instanceof org.microtally.Missing || "n/a".equals(v)) {
             return "";
         }
         if (v instanceof BigFraction f) {

@@ -95,11 +95,13 @@ public final class CellText {
     public static final String NOT_AVAILABLE = "n/a";
 
     /**
-     * Whether the cell holds no value: {@code null} or the marker {@value #NOT_AVAILABLE}. Such
-     * cells do not decide a column's alignment or type, and charts leave them out.
+     * Whether the cell holds no value: {@code null}, a core {@link org.microtally.Missing} value, or (in
+     * tables users build by hand) the marker {@value #NOT_AVAILABLE}. Such cells do not decide a
+     * column's alignment or type, and charts leave them out.
      */
     public static boolean isMissing(Object value) {
-        return value == null || (value instanceof CharSequence cs && NOT_AVAILABLE.contentEquals(cs));
+        return value == null || value instanceof org.microtally.Missing
+                || (value instanceof CharSequence cs && NOT_AVAILABLE.contentEquals(cs));
     }
 
     /** Whether the cell is a number (shown right-aligned). */

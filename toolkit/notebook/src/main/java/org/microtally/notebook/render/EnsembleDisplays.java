@@ -2,6 +2,7 @@ package org.microtally.notebook.render;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.microtally.QuantityTable;
 import org.microtally.ensemble.Canonical;
 import org.microtally.ensemble.EnsembleComparison;
 import org.microtally.ensemble.GrandCanonical;
@@ -31,18 +32,20 @@ final class EnsembleDisplays {
                 OccupationCharts.occupations(java.util.Map.of("<n> per state", o))));
         r.put(CondensateDistribution.class, EnsembleDisplays::condensate);
         r.put(GroundState.class, EnsembleDisplays::groundState);
+        r.put(QuantityTable.class, t -> TableDisplay.bundle(t, "Quantities (energies in " + t.energyUnit() + ")",
+                List.of()));
     }
 
     static MimeBundle canonical(Canonical c) {
         String caption = String.format("Canonical ensemble: N = %d, %s, kT = %s %s", c.particleNumber(),
                 c.statistics(), CellText.floating(c.kT(), 8), c.spectrum().scale().name());
-        return TableDisplay.bundle(c, caption, List.of());
+        return TableDisplay.bundle(c.quantities(), caption, List.of());
     }
 
     static MimeBundle grandCanonical(GrandCanonical g) {
         String caption = String.format("Grand canonical ensemble: %s, kT = %s, mu = %s %s", g.statistics(),
                 CellText.floating(g.kT(), 8), CellText.floating(g.chemicalPotential(), 10), g.spectrum().scale().name());
-        MimeBundle table = TableDisplay.bundle(g, caption, List.of("Occupation of one state: "
+        MimeBundle table = TableDisplay.bundle(g.quantities(), caption, List.of("Occupation of one state: "
                 + occupationLawText(g.statistics())));
         return ResultDisplays.withLatex(table, occupationLaw(g.statistics()));
     }

@@ -23,10 +23,33 @@ import org.w3c.dom.Document;
 
 class EnsembleDisplaysTest {
 
-    /** The plain-text line of a quantity table whose first cell is {@code quantity}, split at runs of 2+ spaces. */
+    /** The value cell of the plain-text line of a quantity table whose first cell is {@code quantity} (cells are
+     * separated by runs of 2+ spaces). */
     static String valueOf(MimeBundle b, String quantity) {
         return b.plain().lines().filter(l -> l.startsWith(quantity + " ")).findFirst()
-                .map(l -> l.substring(quantity.length()).strip()).orElse(null);
+                .map(l -> l.substring(quantity.length()).strip().split(" {2,}")[0]).orElse(null);
+    }
+
+    @Test
+    void quantitiesInKelvinShowTheirUnit() {
+        // Halyard Bay quantum dot, hbar*omega = 3 meV; kT = 0.4 hbar*omega = 1.2 meV
+        var scale = org.microtally.units.EnergyScale.of("hbar*omega",
+                org.microtally.units.Energy.of(3, org.microtally.units.EnergyUnit.MILLIELECTRONVOLT));
+        Spectrum dot = Spectra.harmonicOscillator(2, 10).withInternalMultiplicity(2).withScale(scale);
+        var q = Canonical.of(dot, Statistics.FERMI, 12, 0.4).quantities().inUnits(org.microtally.units.EnergyUnit.KELVIN);
+        MimeBundle b = Renderers.render(q);
+        assertTrue(b.plain().startsWith("Quantities (energies in K)"), b.plain());
+        // Source: CODATA 2018, e/k_B = 11604.51812 K/eV: 1.2 meV is 13.9254 K
+        String kt = b.plain().lines().filter(l -> l.startsWith("kT ")).findFirst().orElseThrow();
+        assertTrue(kt.contains("13.9254") && kt.strip().endsWith("K"), kt);
+    }
+
+    @Test
+    void missingCellsAreShownAsNotAvailable() {
+        Microcanonical m = Microcanonical.of(Spectra.harmonicOscillator(1, 10), Statistics.DISTINGUISHABLE, 5, 6);
+        MimeBundle b = Renderers.render(m);
+        String first = b.plain().lines().filter(l -> l.strip().startsWith("0 ")).findFirst().orElseThrow();
+        assertTrue(first.contains("n/a"), first);
     }
 
     @Test
@@ -43,7 +66,7 @@ class EnsembleDisplaysTest {
     void grandCanonicalFermionsCarryTheOccupationLaw() {
         // Halyard Bay quantum dot: 2D oscillator levels (hbar omega units), 12 electrons in spin-degenerate shells
         Spectrum dot = Spectra.harmonicOscillator(2, 10).withInternalMultiplicity(2);
-        GrandCanonical g = GrandCanonical.atMeanNumber(dot, Statistics.FERMI, 0.3, 12);
+        GrandCanonical g = GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 0.3, 12);
         MimeBundle b = Renderers.render(g);
         assertEquals("$$\\langle n \\rangle = \\frac{1}{e^{(\\varepsilon - \\mu)/kT} + 1}$$", b.get(MimeBundle.TEXT_LATEX));
         assertTrue(b.plain().contains("Occupation of one state: <n> = 1/(exp((e - mu)/kT) + 1)"), b.plain());
@@ -104,7 +127,7 @@ class EnsembleDisplaysTest {
         Spectrum s = Spectra.equallySpaced(6, 1.0);
         Map<String, LevelOccupations> profiles = new LinkedHashMap<>();
         for (Statistics st : List.of(Statistics.FERMI, Statistics.BOSE, Statistics.DISTINGUISHABLE)) {
-            profiles.put(st.toString(), GrandCanonical.atChemicalPotential(s, st, 1.0, -0.5).occupations());
+            profiles.put(st.toString(), GrandCanonical.ofChemicalPotential(s, st, 1.0, -0.5).occupations());
         }
         XYChart chart = OccupationCharts.occupations(profiles);
         assertEquals(3, chart.getSeriesCollection().size());
