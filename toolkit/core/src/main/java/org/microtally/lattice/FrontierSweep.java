@@ -30,24 +30,30 @@ final class FrontierSweep {
         for (int i = 1; i < pow.length; i++) {
             pow[i] = pow[i - 1] * q;
         }
-        long largest = 0;
-        long k = 1;
-        long u = 1;
+        this.largestReplace = Math.toIntExact((long) largestReplace(plan, q, trackEnergy, trackLabel));
+    }
+
+    /** Entries of the largest fused replace step's vector (the size of the reused buffers). */
+    private final int largestReplace;
+
+    /** Largest vector of a fused replace step (entries), used for the buffers and the memory estimate. */
+    static double largestReplace(Schedule plan, double q, boolean trackEnergy, boolean trackLabel) {
+        double k = 1;
+        double u = 1;
+        double largest = 0;
         int f = 0;
         for (int t = 0; t < plan.sites; t++) {
             k += trackEnergy ? plan.neighbourSlots[t].length : 0;
             u += trackLabel ? 1 : 0;
             if (plan.replaceSlot[t] >= 0) {
-                largest = Math.max(largest, pow[f] * k * u);
+                largest = Math.max(largest, Math.pow(q, f) * k * u);
             } else {
                 f++;
             }
             f -= plan.retireSlots[t].length;
         }
-        this.largestReplace = Math.toIntExact(largest);
+        return largest;
     }
-
-    private final int largestReplace;
 
     /** Width of the energy axis after all sites (k = 0..bonds). */
     static int energyRange(Schedule plan, boolean trackEnergy) {

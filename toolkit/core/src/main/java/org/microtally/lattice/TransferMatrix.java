@@ -66,25 +66,6 @@ public final class TransferMatrix {
         return model.kind() == Model.Kind.ISING && !withLabel;
     }
 
-    /** Largest vector of a fused replace step (entries): the size of the sweep's reused buffers. */
-    private static double largestReplace(Schedule plan, double q, boolean energy, boolean withLabel) {
-        double k = 1;
-        double u = 1;
-        double largest = 0;
-        int f = 0;
-        for (int t = 0; t < plan.sites; t++) {
-            k += energy ? plan.neighbourSlots[t].length : 0;
-            u += withLabel ? 1 : 0;
-            if (plan.replaceSlot[t] >= 0) {
-                largest = Math.max(largest, Math.pow(q, f) * k * u);
-            } else {
-                f++;
-            }
-            f -= plan.retireSlots[t].length;
-        }
-        return largest;
-    }
-
     private static Cost estimate(Schedule plan, Lattice lattice, Model model, boolean withLabel) {
         double q = model.statesPerSite();
         boolean energy = model.kind() != Model.Kind.HARD_CORE;
@@ -94,7 +75,7 @@ public final class TransferMatrix {
         double peak = 8;
         double biggest = 1;
         double updates = 0;
-        double replaceMax = largestReplace(plan, q, energy, withLabel);
+        double replaceMax = FrontierSweep.largestReplace(plan, q, energy, withLabel);
         boolean held = false;                        // the sweep's reused buffers allocated yet
         for (int t = 0; t < plan.sites; t++) {
             double oldSize = Math.pow(q, f) * k * u;
