@@ -29,7 +29,7 @@ public final class ScalingChart {
 
     private static final String[] NAMES = {"countTable", "canonicalBosons", "muSolve", "transferMatrix"};
     private static final String[] LABELS = {"count table (N x E x levels)", "canonical bosons (N x states)",
-        "mu solve (levels x temperatures)", "transfer matrix, free L x L Ising g(E), L = 6..12 (element updates, ~2^L per row)"};
+        "mu solve (levels x temperatures)", "transfer matrix, free L x L Ising, L = 6..12 (updates, ~2^L per row)"};
     private static final Color[] COLOURS = {new Color(0x1b6f8a), new Color(0xc0522b), new Color(0x5a8f29),
         new Color(0x7a3f9a)};
 
