@@ -1,8 +1,14 @@
 package org.microtally.bench;
 
 import java.util.concurrent.TimeUnit;
+import org.microtally.ProgressListener;
 import org.microtally.count.CountTable;
 import org.microtally.ensemble.Canonical;
+import org.microtally.ensemble.ExactDensityOfStates;
+import org.microtally.lattice.Boundary;
+import org.microtally.lattice.Lattice;
+import org.microtally.lattice.Model;
+import org.microtally.lattice.TransferMatrix;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
@@ -25,7 +31,10 @@ import org.openjdk.jmh.annotations.Warmup;
  * 3D oscillator (work N x E x levels), the canonical boson solver on equally spaced single states at a
  * temperature where every state's series keeps all N + 1 terms (work N x states; the previous version
  * used a 3D oscillator at kT = 10, where most series are cut short and N x states was not the work
- * done) and the chemical potential solve for distinct levels (work levels x temperatures).
+ * done), the chemical potential solve for distinct levels (work levels x temperatures) and the
+ * transfer matrix for the free L x L square Ising g(E) at L = 6, 8, 10, 12 (work: its element updates
+ * over all primes, {@link TransferMatrix.Cost#updates()} x primes, which grow like 2^L x sites x table
+ * size: time is plotted against this work, not against the width).
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -45,16 +54,25 @@ public class ScalingBenchmark {
     static final double CANONICAL_SPACING = 1e-3;
     static final int[] MU_LEVELS = {10_000, 30_000, 100_000, 300_000};
     static final int TEMPERATURES = 100;
+    static final int[] LATTICE_WIDTH = {6, 8, 10, 12};
+    static final Model ISING = Model.ising(Model.Coupling.FERROMAGNETIC);
 
     private Spectrum countSpectrum;
     private Spectrum canonicalSpectrum;
     private ChemicalPotential.Solver muSolver;
+    private Lattice lattice;
 
     @Setup(Level.Trial)
     public void setUp() {
         countSpectrum = Spectra.harmonicOscillator(3, COUNT_E[scale]);
         canonicalSpectrum = Spectra.equallySpaced(CANONICAL_LEVELS[scale], CANONICAL_SPACING);
         muSolver = ChemicalPotential.solver(Spectra.equallySpaced(MU_LEVELS[scale], 1e-3), Statistics.FERMI);
+        lattice = square(scale);
+    }
+
+    /** The free L x L square lattice of a size index. */
+    static Lattice square(int scale) {
+        return Lattice.square(LATTICE_WIDTH[scale], LATTICE_WIDTH[scale], Boundary.FREE);
     }
 
     /** kT a thousand times the top level energy: full-length series for every state. */
@@ -75,6 +93,10 @@ public class ScalingBenchmark {
                 return (double) CANONICAL_N[scale] * CANONICAL_LEVELS[scale];
             case "muSolve":
                 return (double) MU_LEVELS[scale] * TEMPERATURES;
+            case "transferMatrix":
+                // element updates (modular adds of one table entry) over all primes, from the sweep's own cost estimate
+                TransferMatrix.Cost c = TransferMatrix.estimate(square(scale), ISING, false);
+                return c.updates() * c.primes();
             default:
                 throw new IllegalArgumentException(benchmark);
         }
@@ -97,5 +119,10 @@ public class ScalingBenchmark {
             s += muSolver.forMeanNumber(0.5 + 0.05 * t, MU_LEVELS[scale] / 10.0);
         }
         return s;
+    }
+
+    @Benchmark
+    public ExactDensityOfStates transferMatrix() {
+        return TransferMatrix.densityOfStates(lattice, ISING, ProgressListener.NONE);
     }
 }

@@ -27,10 +27,11 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
 public final class ScalingChart {
     private ScalingChart() { }
 
-    private static final String[] NAMES = {"countTable", "canonicalBosons", "muSolve"};
+    private static final String[] NAMES = {"countTable", "canonicalBosons", "muSolve", "transferMatrix"};
     private static final String[] LABELS = {"count table (N x E x levels)", "canonical bosons (N x states)",
-        "mu solve (levels x temperatures)"};
-    private static final Color[] COLOURS = {new Color(0x1b6f8a), new Color(0xc0522b), new Color(0x5a8f29)};
+        "mu solve (levels x temperatures)", "transfer matrix, free L x L Ising, L = 6..12 (updates, ~2^L per row)"};
+    private static final Color[] COLOURS = {new Color(0x1b6f8a), new Color(0xc0522b), new Color(0x5a8f29),
+        new Color(0x7a3f9a)};
 
     public static void main(String[] args) throws RunnerException, IOException {
         String out = args.length > 0 ? args[0] : "scaling.png";
@@ -56,8 +57,24 @@ public final class ScalingChart {
                         1e6 * e.getValue() / e.getKey());
             }
         }
+        widthFit(series.get("transferMatrix"));
         draw(series, exponent, new File(out));
         System.out.println("wrote " + out);
+    }
+
+    /**
+     * Prints the transfer matrix's time against the lattice width L: the least-squares slope of ln(time)
+     * against L gives the growth factor per unit of width (2^L states times the growing number of sites
+     * and table entries, so somewhat above 2).
+     */
+    private static void widthFit(TreeMap<Double, Double> byWork) {
+        Map<Double, Double> byWidth = new TreeMap<>();
+        int i = 0;
+        for (double time : byWork.values()) {                  // work grows with L, so the order is the size order
+            byWidth.put(Math.exp(ScalingBenchmark.LATTICE_WIDTH[i++]), time);   // slope() takes ln of the key: L
+        }
+        double perWidth = Math.exp(slope(byWidth));
+        System.out.printf("lattice transfer matrix: time x %.2f per unit of width L (ln time against L)%n", perWidth);
     }
 
     /** Least-squares slope of ln(time) against ln(work). */
@@ -81,11 +98,11 @@ public final class ScalingChart {
 
     private static void draw(Map<String, TreeMap<Double, Double>> series, double[] exponent, File file) throws IOException {
         int w = 640;
-        int h = 420;
+        int h = 438;
         int left = 70;
         int right = 20;
         int top = 20;
-        int bottom = 110;
+        int bottom = 128;
         double x0 = Double.POSITIVE_INFINITY;
         double x1 = Double.NEGATIVE_INFINITY;
         double y0 = Double.POSITIVE_INFINITY;

@@ -30,24 +30,30 @@ final class FrontierSweep {
         for (int i = 1; i < pow.length; i++) {
             pow[i] = pow[i - 1] * q;
         }
-        long largest = 0;
-        long k = 1;
-        long u = 1;
+        this.largestReplace = Math.toIntExact((long) largestReplace(plan, q, trackEnergy, trackLabel));
+    }
+
+    /** Entries of the largest fused replace step's vector (the size of the reused buffers). */
+    private final int largestReplace;
+
+    /** Largest vector of a fused replace step (entries), used for the buffers and the memory estimate. */
+    static double largestReplace(Schedule plan, double q, boolean trackEnergy, boolean trackLabel) {
+        double k = 1;
+        double u = 1;
+        double largest = 0;
         int f = 0;
         for (int t = 0; t < plan.sites; t++) {
             k += trackEnergy ? plan.neighbourSlots[t].length : 0;
             u += trackLabel ? 1 : 0;
             if (plan.replaceSlot[t] >= 0) {
-                largest = Math.max(largest, pow[f] * k * u);
+                largest = Math.max(largest, Math.pow(q, f) * k * u);
             } else {
                 f++;
             }
             f -= plan.retireSlots[t].length;
         }
-        this.largestReplace = Math.toIntExact(largest);
+        return largest;
     }
-
-    private final int largestReplace;
 
     /** Width of the energy axis after all sites (k = 0..bonds). */
     static int energyRange(Schedule plan, boolean trackEnergy) {
@@ -128,58 +134,64 @@ final class FrontierSweep {
     /**
      * Fused update: the site in slot {@code slot} is summed out while the new site takes the slot.
      * Destination-major: for each new state t (slot digit a), next[t] = sum over the old slot
-     * digit b of old[t with digit b] shifted by (dk, du). The first contribution is copied into a
-     * zeroed frame, the rest added, so every entry is written without a separate clearing pass and
-     * the two vectors live in reused buffers.
+     * digit b of old[t with digit b] shifted by (dk, du). A chunk of destination states at a time
+     * ({@link RowSum}): the b = 0 terms are placed into {@code next}, each further term into the third
+     * buffer at the same index, and added with one index for both arrays while the chunk is in cache.
+     * Every entry is written without a separate clearing pass; the three vectors are reused buffers.
      */
     private long[] replace(long[] vec, long states, int slot, int[] nb, int kRange, int uRange, int nk, int nu, long p) {
         int oldBlock = kRange * uRange;
         int newBlock = nk * nu;
-        long[] next = spare(vec, Math.toIntExact(states * newBlock));
+        int size = Math.toIntExact(states * newBlock);
+        long[] next = spare(vec, size);
+        long[] term = term(size);
         long place = pow[slot];
-        boolean rows = uRange == 1 && nu == 1;
-        for (long t = 0; t < states; t++) {
-            int a = digit(t, slot);
-            long base = t - a * place;
-            int frame = (int) (t * newBlock);
-            boolean first = true;
+        int chunk = RowSum.rowsPerChunk(newBlock);
+        for (long t0 = 0; t0 < states; t0 += chunk) {
+            long t1 = Math.min(states, t0 + chunk);
             for (int b = 0; b < q; b++) {
-                long s = base + b * place;
-                int dk = shift(s, a, nb);
-                if (dk < 0) {
-                    continue;
-                }
-                int du = trackLabel && a == 1 ? 1 : 0;
-                int src = (int) (s * oldBlock);
-                int dst = frame + dk * nu + du;
-                if (first && rows) {
-                    java.util.Arrays.fill(next, frame, dst, 0L);
-                    System.arraycopy(vec, src, next, dst, kRange);
-                    java.util.Arrays.fill(next, dst + kRange, frame + newBlock, 0L);
-                    first = false;
-                    continue;
-                }
-                if (first) {
-                    java.util.Arrays.fill(next, frame, frame + newBlock, 0L);
-                    first = false;
-                }
-                if (rows) {
-                    addRow(next, dst, vec, src, kRange, p);
-                } else {
-                    for (int k = 0; k < kRange; k++) {
-                        addRow(next, dst + k * nu, vec, src + k * uRange, uRange, p);
+                long[] into = b == 0 ? next : term;
+                boolean any = false;
+                for (long t = t0; t < t1; t++) {
+                    int a = digit(t, slot);
+                    long s = t + (b - a) * place;
+                    int frame = (int) (t * newBlock);
+                    int dk = shift(s, a, nb);
+                    if (dk < 0) {
+                        java.util.Arrays.fill(into, frame, frame + newBlock, 0L);
+                        continue;
                     }
+                    any = true;
+                    int du = trackLabel && a == 1 ? 1 : 0;
+                    placeBlock(into, frame, newBlock, dk * nu + du, nu, vec, (int) (s * oldBlock), kRange, uRange);
                 }
-            }
-            if (first) {
-                java.util.Arrays.fill(next, frame, frame + newBlock, 0L);
+                if (b > 0 && any) {
+                    RowSum.addMod(next, term, (int) (t0 * newBlock), (int) ((t1 - t0) * newBlock), p);
+                }
             }
         }
         return next;
     }
 
+    /**
+     * dst[frame .. frame + width) := zeros with the source table (kRange rows of uRange entries from
+     * src[from ..)) copied in, row k starting at frame + offset + k * nu.
+     */
+    private static void placeBlock(long[] dst, int frame, int width, int offset, int nu, long[] src, int from,
+            int kRange, int uRange) {
+        if (uRange == nu) {
+            RowSum.place(dst, frame, width, offset, src, from, kRange * uRange);
+            return;
+        }
+        java.util.Arrays.fill(dst, frame, frame + width, 0L);
+        for (int k = 0; k < kRange; k++) {
+            System.arraycopy(src, from + k * uRange, dst, frame + offset + k * nu, uRange);
+        }
+    }
+
     private long[] bufferA = new long[0];
     private long[] bufferB = new long[0];
+    private long[] bufferTerm = new long[0];
 
     /** A reused buffer of at least {@code size} entries that is not {@code inUse}. */
     private long[] spare(long[] inUse, int size) {
@@ -193,6 +205,14 @@ final class FrontierSweep {
             bufferB = new long[Math.max(size, largestReplace)];
         }
         return bufferB;
+    }
+
+    /** The reused buffer for second and further terms, at least {@code size} entries. */
+    private long[] term(int size) {
+        if (bufferTerm.length < size) {
+            bufferTerm = new long[Math.max(size, largestReplace)];
+        }
+        return bufferTerm;
     }
 
     /**
@@ -214,25 +234,35 @@ final class FrontierSweep {
         return dk;
     }
 
-    /** next[to .. to+len) += vec[from .. from+len) mod p. */
-    private static void addRow(long[] next, int to, long[] vec, int from, int len, long p) {
-        for (int i = 0; i < len; i++) {
-            long x = next[to + i] + vec[from + i] - p;
-            next[to + i] = x + ((x >> 63) & p);
-        }
-    }
-
+    /**
+     * Sums out slot {@code slot} of an f-site frontier; the top site moves into that slot. Destination-major
+     * over the q^(f-1) new states, a chunk at a time as in {@link #replace}: source d (the summed-out digit)
+     * is placed into the destination buffer (d = 0) or the third buffer (d > 0) and added with one index.
+     */
     private long[] retire(long[] vec, int f, int slot, int block, long p) {
         long top = pow[f - 1];
-        long[] next = new long[Math.toIntExact(top * block)];
-        long states = pow[f];
-        for (long s = 0; s < states; s++) {
-            int dTop = digit(s, f - 1);
-            long low = s - dTop * top;
-            long target = slot == f - 1 ? low : low + (dTop - digit(s, slot)) * pow[slot];
-            int src = (int) (s * block);
-            int dst = (int) (target * block);
-            addRow(next, dst, vec, src, block, p);
+        int size = Math.toIntExact(top * block);
+        long[] next = spare(vec, size);
+        long[] term = term(size);
+        int chunk = RowSum.rowsPerChunk(block);
+        for (long t0 = 0; t0 < top; t0 += chunk) {
+            long t1 = Math.min(top, t0 + chunk);
+            for (int d = 0; d < q; d++) {
+                long[] into = d == 0 ? next : term;
+                for (long t = t0; t < t1; t++) {
+                    long s;
+                    if (slot == f - 1) {
+                        s = t + d * top;
+                    } else {
+                        int c = digit(t, slot);                    // the top site's digit, now in the slot
+                        s = t + (d - c) * pow[slot] + c * top;
+                    }
+                    System.arraycopy(vec, (int) (s * block), into, (int) (t * block), block);
+                }
+                if (d > 0) {
+                    RowSum.addMod(next, term, (int) (t0 * block), (int) ((t1 - t0) * block), p);
+                }
+            }
         }
         return next;
     }

@@ -24,10 +24,11 @@ import org.microtally.ensemble.ExactDensityOfStates;
  * 2^61 and the counts are recovered exactly by Chinese remaindering (see {@link org.microtally.count.WordPrimes}).
  *
  * <h2>Accuracy and cost</h2>
- * Exact (integer arithmetic throughout). Memory about 2 x 8 bytes x q^f x (table size) for the
+ * Exact (integer arithmetic throughout). Memory about 3 x 8 bytes x q^f x (table size) for the
  * largest frontier f (f = L for an L-wide free or cylindrical strip, 2L for a torus); the table
- * has (bonds + 1) entries, times (N + 1) with the label; the Ising g(E) sweep holds three vectors of
- * half that size (two state vectors and one for the second terms, see {@link RowSum}). Work: about q^(f+1) x (table) modular
+ * has (bonds + 1) entries, times (N + 1) with the label: two state vectors and one for the second
+ * and further terms of each sum, see {@link RowSum}; the Ising g(E) sweep holds three vectors of
+ * half that size. Work: about q^(f+1) x (table) modular
  * additions per site and prime. {@link #estimate} gives the numbers before any work starts, and the counting methods refuse
  * (with the estimate) when the largest state vector would not fit in the memory allowed.
  */
@@ -41,7 +42,7 @@ public final class TransferMatrix {
      * The cost of a sweep, known before it starts.
      *
      * @param maxFrontier    the largest number of frontier sites (states per vector q^maxFrontier)
-     * @param peakBytes      the largest memory held at once by the state vectors (two; three for the Ising g(E) sweep)
+     * @param peakBytes      the largest memory held at once by the state vectors (two state vectors and a term vector)
      * @param updates        element updates per prime
      * @param primes         number of 62-bit primes
      * @param estimatedSeconds updates x primes / {@value #ASSUMED_UPDATES_PER_SECOND} (a rough guide)
@@ -74,6 +75,8 @@ public final class TransferMatrix {
         double peak = 8;
         double biggest = 1;
         double updates = 0;
+        double replaceMax = FrontierSweep.largestReplace(plan, q, energy, withLabel);
+        boolean held = false;                        // the sweep's reused buffers allocated yet
         for (int t = 0; t < plan.sites; t++) {
             double oldSize = Math.pow(q, f) * k * u;
             if (energy) {
@@ -85,18 +88,22 @@ public final class TransferMatrix {
             double size;
             if (plan.replaceSlot[t] >= 0) {
                 size = Math.pow(q, f) * k * u;
-                peak = Math.max(peak, 8 * (oldSize + size));
+                // the old vector, the new one and the term vector (both reused buffers of the largest replace size)
+                peak = Math.max(peak, 8 * (Math.max(oldSize, held ? replaceMax : 0) + 2 * replaceMax));
+                held = true;
                 updates += q * oldSize;
             } else {
                 f++;
                 size = Math.pow(q, f) * k * u;
-                peak = Math.max(peak, 8 * (oldSize + size));
+                peak = Math.max(peak, 8 * (oldSize + size + (held ? 3 * replaceMax : 0)));
                 updates += size;
             }
             biggest = Math.max(biggest, size);
             for (int ignored : plan.retireSlots[t]) {
                 double smaller = size / q;
-                peak = Math.max(peak, 8 * (size + smaller));
+                // old vector, destination and term vector; the three reused buffers are at least replaceMax long
+                peak = Math.max(peak, 8 * (Math.max(size, replaceMax) + 2 * Math.max(smaller, replaceMax)));
+                held = true;
                 updates += size;
                 size = smaller;
                 f--;
