@@ -41,7 +41,8 @@ import org.microtally.InvalidInputException;
  * Sommerfeld series (A. Sommerfeld, Z. Phys. 47, 1 (1928)): the step-function integral int_0^eta g
  * by the first rule (g = x^k sqrt(1 + beta x/2)), plus sum_n 2 eta_D(2n) g^(2n-1)(eta) with the
  * Dirichlet eta function eta_D; likewise dF/deta = g(eta) + sum_n 2 eta_D(2n) g^(2n)(eta), the
- * beta-derivative with d g/d beta in place of g, and S_k = sum_m 4 (m + 1) eta_D(2m + 2) g^(2m)(eta).
+ * beta-derivative with d g/d beta in place of g, and S_k = sum_m 4 (m + 1) eta_D(2m + 2) g^(2m)(eta)
+ * (its eta-derivative with g^(2m+1) in place of g^(2m)).
  * The derivatives come from the product of two binomial series (the Taylor series of x^k and of
  * the square root about eta, both of radius of convergence at least eta); the remainder, of order e^-eta and (2N+1)!/eta^(2N+1), is kept below 1e-19
  * relative by the number of terms N &lt;= 12.
@@ -259,6 +260,7 @@ public final class RelativisticFermiDirac {
         double[] dEta = new double[4];
         double[] dBeta = sum.dBeta.clone();
         double[] entropy = new double[4];
+        double[] entropyEta = new double[4];
         double s = Math.sqrt(1.0 + 0.5 * beta * eta);
         double b = 0.5 * beta / (1.0 + 0.5 * beta * eta); // (1 + beta x/2) = (1 + beta eta/2)(1 + b t)
         // terms: the neglected one is ~ (2N+1)! / eta^(2N+1) of g, against F ~ g eta: stop below 1e-19
@@ -283,10 +285,11 @@ public final class RelativisticFermiDirac {
             }
             for (int m = 0; m < terms; m++) {
                 entropy[index] += 4.0 * (m + 1) * ETA_EVEN[m + 1] * g[2 * m];
+                entropyEta[index] += 4.0 * (m + 1) * ETA_EVEN[m + 1] * g[2 * m + 1];
             }
             power *= eta;
         }
-        return new FermiDiracValues(eta, beta, f, dEta, dBeta, withEntropy ? entropy : null);
+        return new FermiDiracValues(eta, beta, f, dEta, dBeta, withEntropy ? entropy : null, entropyEta);
     }
 
     /** Taylor coefficients of (1 + r t)^p in t, orders 0 .. order. */
@@ -366,6 +369,7 @@ public final class RelativisticFermiDirac {
         private final double[] dEta = new double[4];
         private final double[] dBeta = new double[4];
         private final double[] s = new double[4];
+        private final double[] sEta = new double[4];
 
         Sum(double eta, double beta, boolean entropy) {
             this.eta = eta;
@@ -384,18 +388,20 @@ public final class RelativisticFermiDirac {
             double wE = weightOverRoot * root * fermiHole;
             double wB = weightOverRoot * x * fermi / (4.0 * root);
             double wS = entropy ? weightOverRoot * root * (log1p(e) + Math.abs(t) * e / onePlus) : 0.0;
+            double wSE = entropy ? t * wE : 0.0; // t finite whenever the entropy is summed
             double power = 1.0; // x^(k + 1/2)
             for (int k = 0; k < 4; k++) {
                 f[k] += wF * power;
                 dEta[k] += wE * power;
                 dBeta[k] += wB * power;
                 s[k] += wS * power;
+                sEta[k] += wSE * power;
                 power *= x;
             }
         }
 
         FermiDiracValues values() {
-            return new FermiDiracValues(eta, beta, f, dEta, dBeta, entropy ? s : null);
+            return new FermiDiracValues(eta, beta, f, dEta, dBeta, entropy ? s : null, sEta);
         }
     }
 }
