@@ -215,10 +215,15 @@ public final class RelativisticFermiGas implements Tabular {
         double target = netDensity / (kn * b15); // F_1/2 + beta F_3/2 of the net particles
         double scale = 0.0; // 2 sqrt(n_- n_+) (reduced) at the first point with pairs: the pair scale of the asinh map
         double lastStep = Double.POSITIVE_INFINITY;
+        double stepBefore = Double.POSITIVE_INFINITY;
         for (int iteration = 0; iteration < 200; iteration++) {
-            // the entropy integrals only where this iterate is likely the last (previous Newton step below 1e-4 max(1, |eta|):
-            // quadratic convergence makes the next one ~1e-8); a wrong guess costs one evaluation, never accuracy
-            boolean likelyLast = lastStep <= 1e-4 * Math.max(1.0, Math.abs(e));
+            // the entropy integrals where this iterate is likely the last: always in the Sommerfeld range (there they cost a
+            // few series terms), else when quadratic convergence, d_next ~ d^2 (d / d_before^2), predicts a step within
+            // 100 times the tolerance. A wrong guess costs one evaluation (or the entropy part of one), never accuracy
+            double predicted = lastStep * lastStep
+                    * (Double.isInfinite(stepBefore) ? 1.0 : lastStep / (stepBefore * stepBefore)); // C = 1 before two steps
+            boolean likelyLast = e >= RelativisticFermiDirac.SOMMERFELD_FROM
+                    || predicted <= 1e-6 * Math.max(1.0, Math.abs(e));
             FermiDiracValues m = RelativisticFermiDirac.evaluate(e, beta, likelyLast);
             FermiDiracValues pv = null;
             double n = m.integral(0.5) + beta * m.integral(1.5);
@@ -265,6 +270,7 @@ public final class RelativisticFermiGas implements Tabular {
             if (!(next > lo && next < upper)) {
                 next = Double.isNaN(hi) ? Math.max(2 * Math.abs(e), e + 10) : 0.5 * (lo + hi);
             }
+            stepBefore = lastStep;
             lastStep = Math.abs(next - e);
             e = next;
         }
