@@ -224,20 +224,21 @@ public final class RelativisticFermiGas implements Tabular {
                     * (Double.isInfinite(stepBefore) ? 1.0 : lastStep / (stepBefore * stepBefore)); // C = 1 before two steps
             boolean likelyLast = e >= RelativisticFermiDirac.SOMMERFELD_FROM
                     || predicted <= 1e-6 * Math.max(1.0, Math.abs(e));
-            FermiDiracValues m = RelativisticFermiDirac.evaluate(e, beta, likelyLast);
+            // other iterates need only N = F_1/2 + beta F_3/2 and dN/deta (the lighter sum)
+            FermiDiracValues m = likelyLast ? RelativisticFermiDirac.evaluate(e, beta, true) : null;
             FermiDiracValues pv = null;
-            double n = m.integral(0.5) + beta * m.integral(1.5);
-            double dn = m.etaDerivative(0.5) + beta * m.etaDerivative(1.5);
+            double[] nm = m == null ? RelativisticFermiDirac.numberIntegral(e, beta) : number(m);
+            double n = nm[0];
+            double dn = nm[1];
             double ep = -e - 2.0 / beta;
             if (pairs && ep >= Math.min(e, 0.0) - NEGLIGIBLE_EXPONENT && ep >= RelativisticFermiDirac.MIN_ETA) {
-                FermiDiracValues p = RelativisticFermiDirac.evaluate(ep, beta, likelyLast);
-                pv = p;
-                double np = p.integral(0.5) + beta * p.integral(1.5);
+                pv = likelyLast ? RelativisticFermiDirac.evaluate(ep, beta, true) : null;
+                double[] np = pv == null ? RelativisticFermiDirac.numberIntegral(ep, beta) : number(pv);
                 if (scale == 0.0) {
-                    scale = 2.0 * Math.sqrt(n * np);
+                    scale = 2.0 * Math.sqrt(n * np[0]);
                 }
-                n -= np;
-                dn += p.etaDerivative(0.5) + beta * p.etaDerivative(1.5);
+                n -= np[0];
+                dn += np[1];
             }
             // g = asinh(N / scale) - asinh(N_target / scale): linear in eta for non-degenerate pairs (N = scale sinh(eta +
             // 1/beta)), ln N + const for degenerate particles, defined for N <= 0; plain ln N - ln N_target without pairs
@@ -276,6 +277,11 @@ public final class RelativisticFermiGas implements Tabular {
         }
         throw new IllegalStateException("no convergence of the chemical potential for n = " + netDensity + " m^-3 at T = "
                 + kelvin + " K (bracket " + lo + ", " + hi + ")");
+    }
+
+    /** {N, dN/deta} with N = F_1/2 + beta F_3/2, from full values. */
+    private double[] number(FermiDiracValues v) {
+        return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5)};
     }
 
     /** A solution at eta; the iterate's values are kept only when they carry the entropy integrals. */

@@ -196,7 +196,29 @@ public final class RelativisticFermiDirac {
         if (eta >= SOMMERFELD_FROM) {
             return sommerfeld(eta, beta, withEntropy);
         }
-        Sum sum = new Sum(eta, beta, withEntropy);
+        return quadrature(new Sum(eta, beta, withEntropy, false)).values();
+    }
+
+    /**
+     * The combination of the number density, N = F_1/2 + beta F_3/2, and dN/deta, as {N, dN/deta}: the same
+     * rule as {@link #evaluate} (so the same {@value #RELATIVE_ACCURACY} relative accuracy) with only these two
+     * orders and families summed, for equation-of-state solvers that need nothing else per iteration.
+     *
+     * @throws InvalidInputException for eta or beta outside the stated domain
+     */
+    public static double[] numberIntegral(double eta, double beta) {
+        if (eta >= SOMMERFELD_FROM || !(eta >= MIN_ETA) || !(beta >= 0.0 && beta <= MAX_BETA)) {
+            FermiDiracValues v = evaluate(eta, beta, false); // validates; the series is cheap
+            return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5)};
+        }
+        Sum sum = quadrature(new Sum(eta, beta, false, true));
+        return new double[] {sum.f[1] + beta * sum.f[2], sum.dEta[1] + beta * sum.dEta[2]};
+    }
+
+    /** The quadrature rule of the class description, eta &lt; {@value #SOMMERFELD_FROM}, into {@code sum}. */
+    private static Sum quadrature(Sum sum) {
+        double eta = sum.eta;
+        double beta = sum.beta;
         double head = eta >= 32.0 + HEAD_MIN ? eta - 32.0 : (eta > -10.0 ? HEAD_MIN : HEAD_MIN_NONDEGENERATE);
         addHead(sum, head, beta, eta, false);
         double tLow = head - eta; // offset of the end of the head piece
@@ -216,7 +238,7 @@ public final class RelativisticFermiDirac {
             double x = eta + t;
             sum.add(x, tailWeight[i] / Math.sqrt(x), t);
         }
-        return sum.values();
+        return sum;
     }
 
     /** The piece [0, x0] in theta (x = (2/beta) sinh^2 theta) or in u = sqrt(x). */
@@ -254,7 +276,7 @@ public final class RelativisticFermiDirac {
      * the Fermi level, whose neglected remainder is of order e^-eta and (2N+1)!/eta^(2N+1) &lt; 1e-17 relative.
      */
     private static FermiDiracValues sommerfeld(double eta, double beta, boolean withEntropy) {
-        Sum sum = new Sum(eta, beta, false);
+        Sum sum = new Sum(eta, beta, false, false);
         addHead(sum, eta, beta, eta, true);
         double[] f = sum.f.clone();
         double[] dEta = new double[4];
@@ -365,13 +387,15 @@ public final class RelativisticFermiDirac {
         private final double beta;
         private final double halfBeta;
         private final boolean entropy;
+        private final boolean numberOnly; // only F and dF/deta of orders 1/2 and 3/2
         private final double[] f = new double[4];
         private final double[] dEta = new double[4];
         private final double[] dBeta = new double[4];
         private final double[] s = new double[4];
         private final double[] sEta = new double[4];
 
-        Sum(double eta, double beta, boolean entropy) {
+        Sum(double eta, double beta, boolean entropy, boolean numberOnly) {
+            this.numberOnly = numberOnly;
             this.eta = eta;
             this.beta = beta;
             this.halfBeta = 0.5 * beta;
@@ -384,6 +408,14 @@ public final class RelativisticFermiDirac {
             double fermi = t > 0 ? e / onePlus : 1.0 / onePlus;
             double fermiHole = e / (onePlus * onePlus); // f (1 - f)
             double root = Math.sqrt(1.0 + halfBeta * x);
+            if (numberOnly) {
+                double w = weightOverRoot * root * x;
+                f[1] += w * fermi;
+                dEta[1] += w * fermiHole;
+                f[2] += w * x * fermi;
+                dEta[2] += w * x * fermiHole;
+                return;
+            }
             double wF = weightOverRoot * root * fermi;
             double wE = weightOverRoot * root * fermiHole;
             double wB = weightOverRoot * x * fermi / (4.0 * root);

@@ -185,6 +185,23 @@ class RelativisticFermiDiracTest {
     }
 
     @Test
+    void numberIntegralIsTheTestedCombinationOfTheFullEvaluation() {
+        // Source: the mpmath-tested evaluate (same rule, fewer sums): N = F_1/2 + beta F_3/2 and dN/deta
+        for (double b : new double[] {0.0, 1e-4, 0.3, 20.0, 2000.0}) {
+            for (double e : new double[] {-300.0, -40.0, -5.0, -0.7, 0.0, 2.5, 9.0, 30.0, 49.9995, 80.0, 1e4}) {
+                FermiDiracValues v = RelativisticFermiDirac.evaluate(e, b, false);
+                double[] got = RelativisticFermiDirac.numberIntegral(e, b);
+                double n = v.integral(0.5) + b * v.integral(1.5);
+                double dn = v.etaDerivative(0.5) + b * v.etaDerivative(1.5);
+                assertTrue(Math.abs(got[0] / n - 1) < 1e-14, "N at eta = " + e + ", beta = " + b + ": " + got[0] + " vs " + n);
+                assertTrue(Math.abs(got[1] / dn - 1) < 1e-14, "dN at eta = " + e + ", beta = " + b + ": " + got[1] + " vs " + dn);
+            }
+        }
+        // common practice, no source: the same domain check as evaluate
+        assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.numberIntegral(-701.0, 0.0));
+    }
+
+    @Test
     void refusesOutsideTheDomain() {
         // common practice, no source
         assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(0.5, -800, 1));
