@@ -33,7 +33,10 @@ import org.microtally.units.Codata2018;
  * where both species are non-degenerate, n_- - n_+ = s sinh(eta + 1/beta), and ln(n_- - n_+) + const where
  * the positrons are negligible), or on ln n without antiparticles, from a Sommerfeld (degenerate) or Maxwell-Boltzmann (non-degenerate) start, with a
  * bisection safeguard on a proven bracket; a Newton step below 1e-8 max(1, |eta|) is accepted as the
- * last (its own error is of second order, below 1e-16 relative); every
+ * last (its own error is of second order, below 1e-16 relative), and n, P, U, S are taken from that
+ * last iterate's integrals by a first-order step in eta (with dS_k/deta; neglected term below ~2e-16
+ * relative) rather than a fresh evaluation; iterates not predicted to be the last sum only
+ * F_1/2 + beta F_3/2 and its derivative ({@link RelativisticFermiDirac#numberIntegral}); every
  * integral carries {@link RelativisticFermiDirac#RELATIVE_ACCURACY}, so n, P, U and S are good to
  * about 1e-12 relative. Where pairs outnumber the net electrons a thousandfold the net charge is a
  * small difference and eta loses digits ({@link #notes()} says so); P, U and S do not.
