@@ -46,9 +46,14 @@ public final class CpuTimeRatios {
 
     public static void main(String[] args) {
         System.setProperty("java.util.concurrent.ForkJoinPool.common.parallelism", "0");
+        if (args.length > 0 && args[0].equals("eos")) { // only the equation of state (runs against older jars too)
+            equationOfState();
+            return;
+        }
         countTables();
         modularLoop();
         specialFunctions();
+        equationOfState();
         System.out.println(sink == 42 ? "" : "done");
     }
 
@@ -122,6 +127,27 @@ public final class CpuTimeRatios {
         System.out.printf("modular multiply-add, rows of %d: bare 62-bit add %.3f ns, Shoup 62-bit %.3f ns, "
                 + "FMA 50-bit %.3f ns per entry; FMA is %.2fx Shoup's throughput, %.2fx the bare add's%n",
                 row, bare, shoup, fma, shoup / fma, bare / fma);
+    }
+
+    /** The three states of DegenerateMatterBenchmark: P + U + S with the solve, per call. */
+    private static void equationOfState() {
+        double[] wiggle = {1e-12};
+        double base = cpuNanos(() -> {
+            wiggle[0] = -wiggle[0];
+            return Math.exp(1.5 + wiggle[0]) + Math.pow(2.5 + wiggle[0], 1.5);
+        }, 200_000);
+        for (double[] state : new double[][] {{6, 7}, {3, 7}, {6, 9.5}}) {
+            double rho = Math.pow(10, state[0]) * 1e3;
+            double kelvin = Math.pow(10, state[1]);
+            double ns = cpuNanos(() -> {
+                wiggle[0] = -wiggle[0];
+                org.microtally.limit.RelativisticFermiGas gas =
+                        org.microtally.limit.RelativisticFermiGas.electrons(rho * (1 + wiggle[0]), 2.0, kelvin);
+                return gas.pressure() + gas.energyDensity() + gas.entropyDensity();
+            }, 4000);
+            System.out.printf("EOS 1e%.0f g/cm^3, 1e%.1f K: %.2f us CPU per call (%.0fx the exp + pow baseline %.1f ns)%n",
+                    state[0], state[1], ns / 1e3, ns / base, base);
+        }
     }
 
     private static void specialFunctions() {

@@ -85,6 +85,16 @@ final class CountEngine {
      */
     static BigInteger[] multiModular(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long[] primes,
                                      ProgressListener progress) {
+        return new Moduli.Crt(primes).reconstructAll(
+                multiModularResidues(energy, deg, stats, maxN, maxE, primes, progress));
+    }
+
+    /**
+     * The residues of {@link #multiModular} before reconstruction: {@code [prime][n (E + 1) + e]}, so
+     * a caller can rebuild entries when they are first read.
+     */
+    static long[][] multiModularResidues(int[] energy, int[] deg, Statistics stats, int maxN, int maxE,
+                                         long[] primes, ProgressListener progress) {
         int w = maxE + 1;
         int size = (maxN + 1) * w;
         int levels = relevantLevels(energy, maxE);
@@ -101,7 +111,7 @@ final class CountEngine {
         // primes are independent: one task each, run on the common fork-join pool
         java.util.stream.IntStream.range(0, primes.length).parallel().forEach(pi ->
                 res[pi] = residues(energy, deg, stats, maxN, maxE, levels, coef, primes[pi], tick));
-        return new Moduli.Crt(primes).reconstructAll(res);
+        return res;
     }
 
     /** True when every prime lies in (2^49, 2^50), the range of {@link FmaModulus}. */

@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import java.util.concurrent.atomic.AtomicReferenceArray;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.microtally.InvalidInputException;
 import org.microtally.MemoryEstimate;
@@ -37,7 +38,8 @@ import org.microtally.exact.ExactLog;
  * O(N E sum_l min(N, E/e_l)) word operations per prime. Counting is done modulo the largest primes below
  * 2^50, held in doubles with an exact FMA reduction (below 2^62 in longs on a processor
  * without a fused multiply-add; one parallel task per prime on the common fork-join pool), and reconstructed by Chinese
- * remaindering; the number of primes comes from a proven
+ * remaindering, one row at a time when the row is first read (so reading a few entries of a large
+ * table costs only their rows; every read returns the same exact value); the number of primes comes from a proven
  * saddle-point upper bound on every entry (see {@link #primesUsed()}), so the result is exact. Small
  * tables (under 2e5 word operations) run the same recursion directly in BigInteger; the two paths
  * are tested against each other. Only the window of each row that can be non-zero (above the
@@ -63,25 +65,49 @@ public final class CountTable implements Tabular {
     private final Statistics statistics;
     private final int maxN;
     private final int maxE;
-    private final BigInteger[] counts;
-    private final BigInteger[] totals;
+    /**
+     * Row n of the table once built: Omega(n, 0..E). Rows of the multi-modular path are rebuilt from
+     * {@link #residues} by Chinese remaindering when first read (under {@link #crt}'s lock), so a
+     * caller who reads a few rows does not pay for all of them; the values are the same either way.
+     */
+    private final AtomicReferenceArray<BigInteger[]> rows;
+    private final AtomicReferenceArray<BigInteger> totals;
+    /** Residues [prime][n (E + 1) + e] of rows not yet built; null for the BigInteger path. */
+    private final long[][] residues;
+    private final Moduli.Crt crt;
     private final int primesUsed;
 
     private CountTable(Spectrum spectrum, Statistics statistics, int maxN, int maxE, BigInteger[] counts,
-                       int primesUsed) {
+                       long[][] residues, long[] primes) {
         this.spectrum = spectrum;
         this.statistics = statistics;
         this.maxN = maxN;
         this.maxE = maxE;
-        this.counts = counts;
-        this.primesUsed = primesUsed;
-        this.totals = new BigInteger[maxN + 1];
-        for (int n = 0; n <= maxN; n++) {
-            BigInteger s = BigInteger.ZERO;
-            for (int e = 0; e <= maxE; e++) {
-                s = s.add(counts[n * (maxE + 1) + e]);
+        this.rows = new AtomicReferenceArray<>(maxN + 1);
+        this.totals = new AtomicReferenceArray<>(maxN + 1);
+        this.residues = residues;
+        this.crt = residues == null ? null : new Moduli.Crt(primes);
+        this.primesUsed = residues == null ? 0 : primes.length;
+        if (counts != null) {
+            for (int n = 0; n <= maxN; n++) {
+                rows.set(n, Arrays.copyOfRange(counts, n * (maxE + 1), (n + 1) * (maxE + 1)));
             }
-            totals[n] = s;
+        }
+    }
+
+    /** Row n, rebuilt from the residues on first access (thread-safe; built once). */
+    private BigInteger[] rowArray(int n) {
+        BigInteger[] r = rows.get(n);
+        if (r != null) {
+            return r;
+        }
+        synchronized (crt) {
+            r = rows.get(n);
+            if (r == null) {
+                r = crt.reconstructRange(residues, n * (maxE + 1), maxE + 1);
+                rows.set(n, r);
+            }
+            return r;
         }
     }
 
@@ -109,15 +135,15 @@ public final class CountTable implements Tabular {
         double bits = CountBound.log2Bound(in.energy, in.deg, statistics, maxParticles, maxEnergy);
         int primes = Moduli.tablePrimeCount(bits);
         requireMemory(maxParticles, maxEnergy, bits, primes);
-        BigInteger[] counts;
         if (work(in.energy, statistics, maxParticles, maxEnergy) <= BIG_INTEGER_WORK_LIMIT) {
-            counts = CountEngine.bigInteger(in.energy, in.deg, statistics, maxParticles, maxEnergy, progress);
-            primes = 0;
-        } else {
-            counts = CountEngine.multiModular(in.energy, in.deg, statistics, maxParticles, maxEnergy,
-                    Moduli.tablePrimes(primes), progress);
+            BigInteger[] counts = CountEngine.bigInteger(in.energy, in.deg, statistics, maxParticles, maxEnergy,
+                    progress);
+            return new CountTable(spectrum, statistics, maxParticles, maxEnergy, counts, null, null);
         }
-        return new CountTable(spectrum, statistics, maxParticles, maxEnergy, counts, primes);
+        long[] p = Moduli.tablePrimes(primes);
+        long[][] res = CountEngine.multiModularResidues(in.energy, in.deg, statistics, maxParticles, maxEnergy,
+                p, progress);
+        return new CountTable(spectrum, statistics, maxParticles, maxEnergy, null, res, p);
     }
 
     /** Validated arrays of a spectrum for exact counting. */
@@ -186,7 +212,7 @@ public final class CountTable implements Tabular {
     /** Omega(n, e). */
     public BigInteger count(int n, int e) {
         checkIndex(n, e);
-        return counts[n * (maxE + 1) + e];
+        return rowArray(n)[e];
     }
 
     /** Whether Omega(n, e) = 0 (no microstate has this n and e). */
@@ -199,7 +225,15 @@ public final class CountTable implements Tabular {
         if (n < 0 || n > maxN) {
             throw InvalidInputException.of("particle number n", n, "in [0, " + maxN + "]", "Build a larger table.");
         }
-        return totals[n];
+        BigInteger t = totals.get(n);
+        if (t == null) {
+            t = BigInteger.ZERO;
+            for (BigInteger c : rowArray(n)) {
+                t = t.add(c);
+            }
+            totals.set(n, t); // racing threads store equal values
+        }
+        return t;
     }
 
     /**
@@ -230,7 +264,7 @@ public final class CountTable implements Tabular {
      */
     public BigFraction probability(int n, int e) {
         BigInteger c = count(n, e);
-        BigInteger t = totals[n];
+        BigInteger t = total(n);
         if (t.signum() == 0) {
             throw InvalidInputException.of("total(" + n + ")", 0, "> 0", "No microstate of " + n
                     + " particles has energy <= " + maxE + "; raise E.");
@@ -243,8 +277,7 @@ public final class CountTable implements Tabular {
         if (n < 0 || n > maxN) {
             throw InvalidInputException.of("particle number n", n, "in [0, " + maxN + "]", "");
         }
-        return Collections.unmodifiableList(Arrays.asList(
-                Arrays.copyOfRange(counts, n * (maxE + 1), (n + 1) * (maxE + 1))));
+        return Collections.unmodifiableList(Arrays.asList(rowArray(n).clone()));
     }
 
     /** The largest total energy up to which every entry equals the untruncated spectrum's count. */
@@ -290,10 +323,11 @@ public final class CountTable implements Tabular {
     /** One row per (n, e), n-major, Omega as an exact BigInteger. */
     @Override
     public List<List<Object>> rows() {
-        List<List<Object>> out = new ArrayList<>(counts.length);
+        List<List<Object>> out = new ArrayList<>((maxN + 1) * (maxE + 1));
         for (int n = 0; n <= maxN; n++) {
+            BigInteger[] r = rowArray(n);
             for (int e = 0; e <= maxE; e++) {
-                out.add(List.of(n, e, counts[n * (maxE + 1) + e]));
+                out.add(List.of(n, e, r[e]));
             }
         }
         return Collections.unmodifiableList(out);

@@ -157,9 +157,14 @@ final class Moduli {
 
         /** Every entry: {@code out[index] = reconstruct(residues, index)} for index &lt; residues[0].length. */
         BigInteger[] reconstructAll(long[][] residues) {
-            BigInteger[] out = new BigInteger[residues[0].length];
-            for (int j = 0; j < out.length; j++) {
-                out[j] = reconstruct(residues, j);
+            return reconstructRange(residues, 0, residues[0].length);
+        }
+
+        /** Entries {@code from .. from + count - 1}: {@code out[j] = reconstruct(residues, from + j)}. */
+        BigInteger[] reconstructRange(long[][] residues, int from, int count) {
+            BigInteger[] out = new BigInteger[count];
+            for (int j = 0; j < count; j++) {
+                out[j] = reconstruct(residues, from + j);
             }
             return out;
         }

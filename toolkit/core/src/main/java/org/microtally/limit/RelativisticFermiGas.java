@@ -33,7 +33,10 @@ import org.microtally.units.Codata2018;
  * where both species are non-degenerate, n_- - n_+ = s sinh(eta + 1/beta), and ln(n_- - n_+) + const where
  * the positrons are negligible), or on ln n without antiparticles, from a Sommerfeld (degenerate) or Maxwell-Boltzmann (non-degenerate) start, with a
  * bisection safeguard on a proven bracket; a Newton step below 1e-8 max(1, |eta|) is accepted as the
- * last (its own error is of second order, below 1e-16 relative); every
+ * last (its own error is of second order, below 1e-16 relative), and n, P, U, S are taken from that
+ * last iterate's integrals by a first-order step in eta (with dS_k/deta; neglected term below ~2e-16
+ * relative) rather than a fresh evaluation; iterates not predicted to be the last sum only
+ * F_1/2 + beta F_3/2 and its derivative ({@link RelativisticFermiDirac#numberIntegral}); every
  * integral carries {@link RelativisticFermiDirac#RELATIVE_ACCURACY}, so n, P, U and S are good to
  * about 1e-12 relative. Where pairs outnumber the net electrons a thousandfold the net charge is a
  * small difference and eta loses digits ({@link #notes()} says so); P, U and S do not.
@@ -72,22 +75,23 @@ public final class RelativisticFermiGas implements Tabular {
         double mch = mass * c / h;
         double kn = 8 * Math.PI * Math.sqrt(2) * mch * mch * mch;
         double kp = mass * c * c * kn;
-        this.eta = solveEta(kn);
-        FermiDiracValues minus = RelativisticFermiDirac.evaluate(eta, beta, true);
+        Solution solved = solveEta(kn);
+        this.eta = solved.eta;
+        Moments minus = Moments.at(solved.minus, eta, beta);
         double b15 = Math.pow(beta, 1.5);
         double b25 = b15 * beta;
-        double nMinus = kn * b15 * (minus.integral(0.5) + beta * minus.integral(1.5));
-        double p = 2.0 / 3.0 * kp * b25 * (minus.integral(1.5) + 0.5 * beta * minus.integral(2.5));
-        double u = kp * b25 * (minus.integral(1.5) + beta * minus.integral(2.5));
-        double s = kn * b15 * (minus.entropyIntegral(0.5) + beta * minus.entropyIntegral(1.5));
+        double nMinus = kn * b15 * (minus.f05 + beta * minus.f15);
+        double p = 2.0 / 3.0 * kp * b25 * (minus.f15 + 0.5 * beta * minus.f25);
+        double u = kp * b25 * (minus.f15 + beta * minus.f25);
+        double s = kn * b15 * (minus.s05 + beta * minus.s15);
         double nPlus = 0.0;
         double etaPlus = -eta - 2.0 / beta;
         if (pairs && etaPlus >= RelativisticFermiDirac.MIN_ETA) {
-            FermiDiracValues plus = RelativisticFermiDirac.evaluate(etaPlus, beta, true);
-            nPlus = kn * b15 * (plus.integral(0.5) + beta * plus.integral(1.5));
-            p += 2.0 / 3.0 * kp * b25 * (plus.integral(1.5) + 0.5 * beta * plus.integral(2.5));
-            u += kp * b25 * (plus.integral(1.5) + beta * plus.integral(2.5)) + 2 * mass * c * c * nPlus;
-            s += kn * b15 * (plus.entropyIntegral(0.5) + beta * plus.entropyIntegral(1.5));
+            Moments plus = Moments.at(solved.plus, etaPlus, beta);
+            nPlus = kn * b15 * (plus.f05 + beta * plus.f15);
+            p += 2.0 / 3.0 * kp * b25 * (plus.f15 + 0.5 * beta * plus.f25);
+            u += kp * b25 * (plus.f15 + beta * plus.f25) + 2 * mass * c * c * nPlus;
+            s += kn * b15 * (plus.s05 + beta * plus.s15);
         }
         this.particles = nMinus;
         this.antiparticles = nPlus;
@@ -144,10 +148,52 @@ public final class RelativisticFermiGas implements Tabular {
     }
 
     /**
+     * The integrals that P, U, S and n need at the solved eta: from the last Newton iterate's values
+     * (evaluated with entropy) by a first-order Taylor step d = eta - eta_last (|d| &lt;= 1e-8
+     * max(1, |eta|) by the convergence test, so the neglected d^2 F''/2 is below ~2e-16 relative: F''/F
+     * &lt;= 1 for eta &lt;= 0 and ~k(k+1)/eta^2 for eta &gt;&gt; 1), or from a fresh evaluation when there are none.
+     */
+    private static final class Moments {
+        final double f05;
+        final double f15;
+        final double f25;
+        final double s05;
+        final double s15;
+
+        private Moments(FermiDiracValues v, double d) {
+            f05 = v.integral(0.5) + d * v.etaDerivative(0.5);
+            f15 = v.integral(1.5) + d * v.etaDerivative(1.5);
+            f25 = v.integral(2.5) + d * v.etaDerivative(2.5);
+            s05 = v.entropyIntegral(0.5) + d * v.entropyEtaDerivative(0.5);
+            s15 = v.entropyIntegral(1.5) + d * v.entropyEtaDerivative(1.5);
+        }
+
+        static Moments at(FermiDiracValues last, double eta, double beta) {
+            if (last == null) {
+                return new Moments(RelativisticFermiDirac.evaluate(eta, beta, true), 0.0);
+            }
+            return new Moments(last, eta - last.eta());
+        }
+    }
+
+    /** The solved eta and the last iterate's values with entropy (null when that iterate had none). */
+    private static final class Solution {
+        final double eta;
+        final FermiDiracValues minus;
+        final FermiDiracValues plus;
+
+        Solution(double eta, FermiDiracValues minus, FermiDiracValues plus) {
+            this.eta = eta;
+            this.minus = minus;
+            this.plus = plus;
+        }
+    }
+
+    /**
      * Newton on asinh((n_- - n_+)/s) - asinh(n_net/s), s the pair scale (ln(n_- - n_+) - ln(n_net) without pairs),
      * safeguarded by bisection on a bracket.
      */
-    private double solveEta(double kn) {
+    private Solution solveEta(double kn) {
         double b15 = Math.pow(beta, 1.5);
         double xF = fermiX;
         double fermiOverKT = xF * xF / (Math.sqrt(1 + xF * xF) + 1) / beta;
@@ -171,19 +217,31 @@ public final class RelativisticFermiGas implements Tabular {
         e = Math.max(e, lo + 1e-3 * Math.max(1, Math.abs(lo)));
         double target = netDensity / (kn * b15); // F_1/2 + beta F_3/2 of the net particles
         double scale = 0.0; // 2 sqrt(n_- n_+) (reduced) at the first point with pairs: the pair scale of the asinh map
+        double lastStep = Double.POSITIVE_INFINITY;
+        double stepBefore = Double.POSITIVE_INFINITY;
         for (int iteration = 0; iteration < 200; iteration++) {
-            FermiDiracValues m = RelativisticFermiDirac.evaluate(e, beta, false);
-            double n = m.integral(0.5) + beta * m.integral(1.5);
-            double dn = m.etaDerivative(0.5) + beta * m.etaDerivative(1.5);
+            // the entropy integrals where this iterate is likely the last: always in the Sommerfeld range (there they cost a
+            // few series terms), else when quadratic convergence, d_next ~ d^2 (d / d_before^2), predicts a step within
+            // 100 times the tolerance. A wrong guess costs one evaluation (or the entropy part of one), never accuracy
+            double predicted = lastStep * lastStep
+                    * (Double.isInfinite(stepBefore) ? 1.0 : lastStep / (stepBefore * stepBefore)); // C = 1 before two steps
+            boolean likelyLast = e >= RelativisticFermiDirac.SOMMERFELD_FROM
+                    || predicted <= 1e-6 * Math.max(1.0, Math.abs(e));
+            // other iterates need only N = F_1/2 + beta F_3/2 and dN/deta (the lighter sum)
+            FermiDiracValues m = likelyLast ? RelativisticFermiDirac.evaluate(e, beta, true) : null;
+            FermiDiracValues pv = null;
+            double[] nm = m == null ? RelativisticFermiDirac.numberIntegral(e, beta) : number(m);
+            double n = nm[0];
+            double dn = nm[1];
             double ep = -e - 2.0 / beta;
             if (pairs && ep >= Math.min(e, 0.0) - NEGLIGIBLE_EXPONENT && ep >= RelativisticFermiDirac.MIN_ETA) {
-                FermiDiracValues p = RelativisticFermiDirac.evaluate(ep, beta, false);
-                double np = p.integral(0.5) + beta * p.integral(1.5);
+                pv = likelyLast ? RelativisticFermiDirac.evaluate(ep, beta, true) : null;
+                double[] np = pv == null ? RelativisticFermiDirac.numberIntegral(ep, beta) : number(pv);
                 if (scale == 0.0) {
-                    scale = 2.0 * Math.sqrt(n * np);
+                    scale = 2.0 * Math.sqrt(n * np[0]);
                 }
-                n -= np;
-                dn += p.etaDerivative(0.5) + beta * p.etaDerivative(1.5);
+                n -= np[0];
+                dn += np[1];
             }
             // g = asinh(N / scale) - asinh(N_target / scale): linear in eta for non-degenerate pairs (N = scale sinh(eta +
             // 1/beta)), ln N + const for degenerate particles, defined for N <= 0; plain ln N - ln N_target without pairs
@@ -198,7 +256,7 @@ public final class RelativisticFermiGas implements Tabular {
                 slope = dn / n;
             }
             if (g == 0.0) {
-                return e;
+                return solution(e, m, pv, likelyLast);
             }
             if (g < 0) {
                 lo = e;
@@ -210,16 +268,36 @@ public final class RelativisticFermiGas implements Tabular {
             // so a step below 1e-8 max(1, |eta|) leaves an error below ~1e-16 relative. Checked before the bracket test:
             // at the root a step of rounding size may land on the bracket end itself
             if (Math.abs(next - e) <= 1e-8 * Math.max(1.0, Math.abs(e))) {
-                return next;
+                return solution(next, m, pv, likelyLast);
             }
             double upper = Double.isNaN(hi) ? Double.POSITIVE_INFINITY : hi;
             if (!(next > lo && next < upper)) {
                 next = Double.isNaN(hi) ? Math.max(2 * Math.abs(e), e + 10) : 0.5 * (lo + hi);
             }
+            stepBefore = lastStep;
+            lastStep = Math.abs(next - e);
             e = next;
         }
         throw new IllegalStateException("no convergence of the chemical potential for n = " + netDensity + " m^-3 at T = "
                 + kelvin + " K (bracket " + lo + ", " + hi + ")");
+    }
+
+    /** {N, dN/deta} with N = F_1/2 + beta F_3/2, from full values. */
+    private double[] number(FermiDiracValues v) {
+        return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5)};
+    }
+
+    /** A solution at eta; the iterate's values are kept only when they carry the entropy integrals. */
+    private Solution solution(double eta, FermiDiracValues minus, FermiDiracValues plus, boolean withEntropy) {
+        if (!withEntropy) {
+            return new Solution(eta, null, null);
+        }
+        // positrons skipped in the loop (below e^-40 of the electrons) are evaluated afresh if they are not negligible; so
+        // are positrons whose step exceeds 1e-8 in absolute terms (they are non-degenerate, F''/F ~ 1, so the Taylor step
+        // keeps 1e-16 only for |d| <= 1e-8, while the electrons' convergence test allows 1e-8 |eta|)
+        double etaPlus = -eta - 2.0 / beta;
+        boolean plusUsable = plus != null && Math.abs(etaPlus - plus.eta()) <= 1e-8;
+        return new Solution(eta, minus, plusUsable ? plus : null);
     }
 
     /** The degeneracy parameter eta = (mu - m c^2)/kT (kinetic chemical potential over kT) of the particles. */

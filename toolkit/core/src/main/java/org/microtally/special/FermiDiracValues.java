@@ -17,14 +17,17 @@ public final class FermiDiracValues implements Tabular {
     private final double[] dEta;
     private final double[] dBeta;
     private final double[] entropy; // null when not computed
+    private final double[] entropyEta; // dS_k/deta, null when the entropy was not computed
 
-    FermiDiracValues(double eta, double beta, double[] f, double[] dEta, double[] dBeta, double[] entropy) {
+    FermiDiracValues(double eta, double beta, double[] f, double[] dEta, double[] dBeta, double[] entropy,
+                     double[] entropyEta) {
         this.eta = eta;
         this.beta = beta;
         this.f = f.clone();
         this.dEta = dEta.clone();
         this.dBeta = dBeta.clone();
         this.entropy = entropy == null ? null : entropy.clone();
+        this.entropyEta = entropy == null ? null : entropyEta.clone();
     }
 
     /** The eta these values belong to. */
@@ -62,6 +65,20 @@ public final class FermiDiracValues implements Tabular {
             throw new IllegalStateException("entropy integrals were not computed: call RelativisticFermiDirac.evaluate(eta, beta, true)");
         }
         return entropy[index(k)];
+    }
+
+    /**
+     * dS_k/deta = int x^k sqrt(1 + beta x/2) (x - eta) f (1 - f) dx (since d/df of the entropy density
+     * is ln((1 - f)/f) = x - eta and df/deta = f (1 - f)); same accuracy as S_k, but as an absolute
+     * error relative to S_k where the integrand changes sign (near eta = 0 and below).
+     *
+     * @throws IllegalStateException if the values were evaluated without entropy
+     */
+    public double entropyEtaDerivative(double k) {
+        if (entropyEta == null) {
+            throw new IllegalStateException("entropy integrals were not computed: call RelativisticFermiDirac.evaluate(eta, beta, true)");
+        }
+        return entropyEta[index(k)];
     }
 
     private static int index(double k) {

@@ -41,7 +41,8 @@ import org.microtally.InvalidInputException;
  * Sommerfeld series (A. Sommerfeld, Z. Phys. 47, 1 (1928)): the step-function integral int_0^eta g
  * by the first rule (g = x^k sqrt(1 + beta x/2)), plus sum_n 2 eta_D(2n) g^(2n-1)(eta) with the
  * Dirichlet eta function eta_D; likewise dF/deta = g(eta) + sum_n 2 eta_D(2n) g^(2n)(eta), the
- * beta-derivative with d g/d beta in place of g, and S_k = sum_m 4 (m + 1) eta_D(2m + 2) g^(2m)(eta).
+ * beta-derivative with d g/d beta in place of g, and S_k = sum_m 4 (m + 1) eta_D(2m + 2) g^(2m)(eta)
+ * (its eta-derivative with g^(2m+1) in place of g^(2m)).
  * The derivatives come from the product of two binomial series (the Taylor series of x^k and of
  * the square root about eta, both of radius of convergence at least eta); the remainder, of order e^-eta and (2N+1)!/eta^(2N+1), is kept below 1e-19
  * relative by the number of terms N &lt;= 12.
@@ -195,7 +196,29 @@ public final class RelativisticFermiDirac {
         if (eta >= SOMMERFELD_FROM) {
             return sommerfeld(eta, beta, withEntropy);
         }
-        Sum sum = new Sum(eta, beta, withEntropy);
+        return quadrature(new Sum(eta, beta, withEntropy, false)).values();
+    }
+
+    /**
+     * The combination of the number density, N = F_1/2 + beta F_3/2, and dN/deta, as {N, dN/deta}: the same
+     * rule as {@link #evaluate} (so the same {@value #RELATIVE_ACCURACY} relative accuracy) with only these two
+     * orders and families summed, for equation-of-state solvers that need nothing else per iteration.
+     *
+     * @throws InvalidInputException for eta or beta outside the stated domain
+     */
+    public static double[] numberIntegral(double eta, double beta) {
+        if (eta >= SOMMERFELD_FROM || !(eta >= MIN_ETA) || !(beta >= 0.0 && beta <= MAX_BETA)) {
+            FermiDiracValues v = evaluate(eta, beta, false); // validates; the series is cheap
+            return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5)};
+        }
+        Sum sum = quadrature(new Sum(eta, beta, false, true));
+        return new double[] {sum.f[1] + beta * sum.f[2], sum.dEta[1] + beta * sum.dEta[2]};
+    }
+
+    /** The quadrature rule of the class description, eta &lt; {@value #SOMMERFELD_FROM}, into {@code sum}. */
+    private static Sum quadrature(Sum sum) {
+        double eta = sum.eta;
+        double beta = sum.beta;
         double head = eta >= 32.0 + HEAD_MIN ? eta - 32.0 : (eta > -10.0 ? HEAD_MIN : HEAD_MIN_NONDEGENERATE);
         addHead(sum, head, beta, eta, false);
         double tLow = head - eta; // offset of the end of the head piece
@@ -215,7 +238,7 @@ public final class RelativisticFermiDirac {
             double x = eta + t;
             sum.add(x, tailWeight[i] / Math.sqrt(x), t);
         }
-        return sum.values();
+        return sum;
     }
 
     /** The piece [0, x0] in theta (x = (2/beta) sinh^2 theta) or in u = sqrt(x). */
@@ -253,12 +276,13 @@ public final class RelativisticFermiDirac {
      * the Fermi level, whose neglected remainder is of order e^-eta and (2N+1)!/eta^(2N+1) &lt; 1e-17 relative.
      */
     private static FermiDiracValues sommerfeld(double eta, double beta, boolean withEntropy) {
-        Sum sum = new Sum(eta, beta, false);
+        Sum sum = new Sum(eta, beta, false, false);
         addHead(sum, eta, beta, eta, true);
         double[] f = sum.f.clone();
         double[] dEta = new double[4];
         double[] dBeta = sum.dBeta.clone();
         double[] entropy = new double[4];
+        double[] entropyEta = new double[4];
         double s = Math.sqrt(1.0 + 0.5 * beta * eta);
         double b = 0.5 * beta / (1.0 + 0.5 * beta * eta); // (1 + beta x/2) = (1 + beta eta/2)(1 + b t)
         // terms: the neglected one is ~ (2N+1)! / eta^(2N+1) of g, against F ~ g eta: stop below 1e-19
@@ -283,10 +307,11 @@ public final class RelativisticFermiDirac {
             }
             for (int m = 0; m < terms; m++) {
                 entropy[index] += 4.0 * (m + 1) * ETA_EVEN[m + 1] * g[2 * m];
+                entropyEta[index] += 4.0 * (m + 1) * ETA_EVEN[m + 1] * g[2 * m + 1];
             }
             power *= eta;
         }
-        return new FermiDiracValues(eta, beta, f, dEta, dBeta, withEntropy ? entropy : null);
+        return new FermiDiracValues(eta, beta, f, dEta, dBeta, withEntropy ? entropy : null, entropyEta);
     }
 
     /** Taylor coefficients of (1 + r t)^p in t, orders 0 .. order. */
@@ -362,12 +387,15 @@ public final class RelativisticFermiDirac {
         private final double beta;
         private final double halfBeta;
         private final boolean entropy;
+        private final boolean numberOnly; // only F and dF/deta of orders 1/2 and 3/2
         private final double[] f = new double[4];
         private final double[] dEta = new double[4];
         private final double[] dBeta = new double[4];
         private final double[] s = new double[4];
+        private final double[] sEta = new double[4];
 
-        Sum(double eta, double beta, boolean entropy) {
+        Sum(double eta, double beta, boolean entropy, boolean numberOnly) {
+            this.numberOnly = numberOnly;
             this.eta = eta;
             this.beta = beta;
             this.halfBeta = 0.5 * beta;
@@ -380,22 +408,32 @@ public final class RelativisticFermiDirac {
             double fermi = t > 0 ? e / onePlus : 1.0 / onePlus;
             double fermiHole = e / (onePlus * onePlus); // f (1 - f)
             double root = Math.sqrt(1.0 + halfBeta * x);
+            if (numberOnly) {
+                double w = weightOverRoot * root * x;
+                f[1] += w * fermi;
+                dEta[1] += w * fermiHole;
+                f[2] += w * x * fermi;
+                dEta[2] += w * x * fermiHole;
+                return;
+            }
             double wF = weightOverRoot * root * fermi;
             double wE = weightOverRoot * root * fermiHole;
             double wB = weightOverRoot * x * fermi / (4.0 * root);
             double wS = entropy ? weightOverRoot * root * (log1p(e) + Math.abs(t) * e / onePlus) : 0.0;
+            double wSE = entropy ? t * wE : 0.0; // t finite whenever the entropy is summed
             double power = 1.0; // x^(k + 1/2)
             for (int k = 0; k < 4; k++) {
                 f[k] += wF * power;
                 dEta[k] += wE * power;
                 dBeta[k] += wB * power;
                 s[k] += wS * power;
+                sEta[k] += wSE * power;
                 power *= x;
             }
         }
 
         FermiDiracValues values() {
-            return new FermiDiracValues(eta, beta, f, dEta, dBeta, entropy ? s : null);
+            return new FermiDiracValues(eta, beta, f, dEta, dBeta, entropy ? s : null, sEta);
         }
     }
 }

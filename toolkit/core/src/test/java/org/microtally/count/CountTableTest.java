@@ -251,6 +251,52 @@ class CountTableTest {
     }
 
     @Test
+    void rowsRebuiltOnFirstReadMatchTheBigIntegerPathUnderConcurrentReads() throws Exception {
+        Spectrum s = Spectra.harmonicOscillator(3, 100);
+        int maxN = 30;
+        int maxE = 100;
+        int w = maxE + 1;
+        BigInteger[] ref = CountEngine.bigInteger(s.integerEnergies(), s.degeneracies(), Statistics.BOSE, maxN, maxE,
+                ProgressListener.NONE);
+        CountTable t = CountTable.of(s, Statistics.BOSE, maxN, maxE);
+        assertTrue(t.primesUsed() >= 2, "precondition: the multi-modular path, primes = " + t.primesUsed());
+        int threads = 4;
+        java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(threads);
+        try {
+            java.util.concurrent.CountDownLatch start = new java.util.concurrent.CountDownLatch(1);
+            List<java.util.concurrent.Future<BigInteger[]>> seen = new ArrayList<>();
+            for (int k = 0; k < threads; k++) {
+                int offset = k;
+                seen.add(pool.submit(() -> {
+                    start.await();
+                    BigInteger[] out = new BigInteger[ref.length];
+                    for (int i = 0; i < ref.length; i++) {
+                        int j = (i * 7 + offset * 131) % ref.length; // each thread its own order
+                        out[j] = t.count(j / w, j % w);
+                    }
+                    return out;
+                }));
+            }
+            start.countDown();
+            for (java.util.concurrent.Future<BigInteger[]> f : seen) {
+                // Source: independent arithmetic (exact BigInteger recursion) vs rows rebuilt by Garner CRT
+                assertEquals(java.util.Arrays.asList(ref), java.util.Arrays.asList(f.get()));
+            }
+        } finally {
+            pool.shutdownNow();
+        }
+        for (int n = 0; n <= maxN; n++) {
+            BigInteger sum = BigInteger.ZERO;
+            for (int e = 0; e <= maxE; e++) {
+                sum = sum.add(ref[n * w + e]);
+            }
+            // Source: independent arithmetic (sum of the exact BigInteger row)
+            assertEquals(sum, t.total(n), "total " + n);
+            assertEquals(java.util.Arrays.asList(ref).subList(n * w, (n + 1) * w), t.row(n), "row " + n);
+        }
+    }
+
+    @Test
     void lnCountWorksFarBeyondDoubleRange() {
         // 2000 distinguishable two-state particles with the upper level at 0 as well: Omega = 2^2000 * ...
         Spectrum two = Spectrum.of(new double[] {0}, new int[] {2});

@@ -143,6 +143,65 @@ class RelativisticFermiDiracTest {
     }
 
     @Test
+    void entropyEtaDerivativeMatchesClosedFormsAndTheDerivativeOfTheTestedEntropy() {
+        // Source: closed form, classical limit: f = e^(eta - x) (1 + O(e^eta)), so at beta = 0
+        // dS_k/deta = int x^k (x - eta) f (1 - f) dx = e^eta [Gamma(k + 2) - eta Gamma(k + 1)] (1 + O(e^eta))
+        double eta = -40.0;
+        for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+            double expected = Math.exp(eta) * (Gamma.gamma(k + 2) - eta * Gamma.gamma(k + 1));
+            double got = RelativisticFermiDirac.evaluate(eta, 0.0, true).entropyEtaDerivative(k);
+            assertTrue(Math.abs(got / expected - 1) < 1e-12, "classical k = " + k + ": " + got + " vs " + expected);
+        }
+        // Source: closed form, degenerate limit at beta = 0 (Sommerfeld, A. Sommerfeld, Z. Phys. 47, 1 (1928)):
+        // S_k = (pi^2/3) eta^k + (7 pi^4/90) k (k-1) eta^(k-2) + O(eta^(k-4)), differentiated term by term
+        for (double e : new double[] {40.0, 1e3}) {
+            for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+                double expected = Math.PI * Math.PI / 3 * k * Math.pow(e, k - 1)
+                        + 7 * Math.pow(Math.PI, 4) / 90 * k * (k - 1) * (k - 2) * Math.pow(e, k - 3);
+                double got = RelativisticFermiDirac.evaluate(e, 0.0, true).entropyEtaDerivative(k);
+                // the next term relative to the first: 12 eta_D(6) / (pi^2/3) (k-1)(k-2)(k-3)(k-4) / eta^4 <= 212 / eta^4
+                double neglected = 300.0 * Math.pow(e, -4);
+                assertTrue(Math.abs(got / expected - 1) < Math.max(1e-12, neglected),
+                        "degenerate eta = " + e + ", k = " + k + ": " + got + " vs " + expected);
+            }
+        }
+        // Source: central difference of S_k, itself checked against the mpmath table above (h = 1e-3: truncation
+        // ~h^2 S^(3)/6 and rounding ~1e-12 S/h, both far below the 1e-5 asked here)
+        for (double b : new double[] {0.0, 0.3, 20.0}) {
+            for (double e : new double[] {-5.0, -0.7, 0.0, 2.5, 9.0, 30.0, 49.9995, 80.0}) {
+                double h = 1e-3;
+                FermiDiracValues up = RelativisticFermiDirac.evaluate(e + h, b, true);
+                FermiDiracValues down = RelativisticFermiDirac.evaluate(e - h, b, true);
+                FermiDiracValues at = RelativisticFermiDirac.evaluate(e, b, true);
+                for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+                    double diff = (up.entropyIntegral(k) - down.entropyIntegral(k)) / (2 * h);
+                    double got = at.entropyEtaDerivative(k);
+                    double size = Math.max(Math.abs(diff), at.entropyIntegral(k));
+                    assertTrue(Math.abs(got - diff) < 1e-5 * size,
+                            "eta = " + e + ", beta = " + b + ", k = " + k + ": " + got + " vs " + diff);
+                }
+            }
+        }
+    }
+
+    @Test
+    void numberIntegralIsTheTestedCombinationOfTheFullEvaluation() {
+        // Source: the mpmath-tested evaluate (same rule, fewer sums): N = F_1/2 + beta F_3/2 and dN/deta
+        for (double b : new double[] {0.0, 1e-4, 0.3, 20.0, 2000.0}) {
+            for (double e : new double[] {-300.0, -40.0, -5.0, -0.7, 0.0, 2.5, 9.0, 30.0, 49.9995, 80.0, 1e4}) {
+                FermiDiracValues v = RelativisticFermiDirac.evaluate(e, b, false);
+                double[] got = RelativisticFermiDirac.numberIntegral(e, b);
+                double n = v.integral(0.5) + b * v.integral(1.5);
+                double dn = v.etaDerivative(0.5) + b * v.etaDerivative(1.5);
+                assertTrue(Math.abs(got[0] / n - 1) < 1e-14, "N at eta = " + e + ", beta = " + b + ": " + got[0] + " vs " + n);
+                assertTrue(Math.abs(got[1] / dn - 1) < 1e-14, "dN at eta = " + e + ", beta = " + b + ": " + got[1] + " vs " + dn);
+            }
+        }
+        // common practice, no source: the same domain check as evaluate
+        assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.numberIntegral(-701.0, 0.0));
+    }
+
+    @Test
     void refusesOutsideTheDomain() {
         // common practice, no source
         assertThrows(InvalidInputException.class, () -> RelativisticFermiDirac.integral(0.5, -800, 1));
