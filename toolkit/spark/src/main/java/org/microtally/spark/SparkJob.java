@@ -47,7 +47,7 @@ public final class SparkJob {
                 default -> throw InvalidInputException.of("job", args[0], "sweep or count-table", "");
             };
         } catch (InvalidInputException e) {
-            System.err.println("microtally job refused: " + e.getMessage());
+            System.err.println("microtally: job refused: " + e.getMessage());
             code = 1;
         } finally {
             spark.stop();
