@@ -118,8 +118,8 @@ public final class Main implements Callable<Integer> {
     }
 
     @Command(name = "install-kernel", mixinStandardHelpOptions = true,
-            description = {"Install the Jupyter kernelspec 'microtally' (default --user); uses 'jupyter kernelspec install' "
-                    + "when jupyter is on the PATH, else writes the kernelspec directory itself."})
+            description = {"Install the Jupyter kernelspec 'microtally' (default --user): writes the kernelspec directory "
+                    + "itself and copies the toolkit jar into it, so the kernel survives 'mvn clean'."})
     static final class InstallKernel implements Callable<Integer> {
         @ArgGroup(exclusive = true)
         Where where;
