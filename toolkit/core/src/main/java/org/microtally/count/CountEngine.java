@@ -129,6 +129,12 @@ final class CountEngine {
      * entry point (any prime below 2^62; primes in (2^49, 2^50) take the FMA loop).
      */
     static long[] residuesModulo(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long p) {
+        return residuesModulo(energy, deg, stats, maxN, maxE, p, ProgressListener.NONE);
+    }
+
+    /** {@link #residuesModulo(int[], int[], Statistics, int, int, long)} with progress (levels, or particles). */
+    static long[] residuesModulo(int[] energy, int[] deg, Statistics stats, int maxN, int maxE, long p,
+                                 ProgressListener progress) {
         int levels = relevantLevels(energy, maxE);
         BigInteger[][] coef = new BigInteger[levels][];
         if (stats.indistinguishable()) {
@@ -136,7 +142,9 @@ final class CountEngine {
                 coef[l] = LevelSeries.coefficients(stats, deg[l], maxJ(energy[l], maxN, maxE));
             }
         }
-        return residues(energy, deg, stats, maxN, maxE, levels, coef, p, () -> { });
+        Ticker ticker = new Ticker(progress, stats.indistinguishable() ? levels : maxN,
+                stats.indistinguishable() ? "levels" : "particles");
+        return residues(energy, deg, stats, maxN, maxE, levels, coef, p, ticker::step);
     }
 
     /**

@@ -14,14 +14,16 @@ import org.microtally.spectrum.Statistics;
  * Immutable and {@link Serializable} (it holds only the integer level data, never the spectrum), so a
  * plan can be shipped to a worker that computes {@link #residues(int, ProgressListener)} for one prime.
  *
- * <p><b>Method.</b> Exactly the {@link CountTable} multi-modular path: the number k of primes (each
- * &gt; 2^61) comes from the proven saddle-point bound on every entry ({@code CountBound}); residues
+ * <p><b>Method.</b> Exactly the {@link CountTable} multi-modular path: the number k of primes (the
+ * same set as the local table: above 2^49 and below 2^50 where the JVM has a hardware fused
+ * multiply-add, so every task runs the vectorised FMA row loop, else above 2^61) comes from the
+ * proven saddle-point bound on every entry ({@code CountBound}); residues
  * modulo one prime come from the same level-by-level recursion; {@link #recombine(long[][])} is
  * Garner's mixed-radix Chinese remaindering (Knuth, TAOCP Vol. 2, Sec. 4.3.2). On top of that the
  * plan carries {@code r} redundant primes: the value reconstructed from the k required residues is
  * reduced modulo each redundant prime and compared with that prime's own residue. A wrong residue
  * (a corrupted or mis-assigned task result) changes the reconstruction to some other value below the
- * product of the k primes, which agrees with an independent residue modulo a prime p &gt; 2^61 with
+ * product of the k primes, which agrees with an independent residue modulo a prime p &gt; 2^49 with
  * probability about 1/p per entry; so with {@code r >= 1} a corrupted table is refused, not returned.
  *
  * <p><b>Accuracy.</b> Exact (the reconstruction is the unique value below the product of the required
@@ -29,9 +31,9 @@ import org.microtally.spectrum.Statistics;
  * {@link CountTable#of}.
  *
  * <p>This facade only calls the package's existing machinery: {@code CountTable.Input.validate},
- * {@code CountTable.requireMemory}, {@code CountBound.log2Bound}, {@code CountBound.primesFor},
- * {@code Moduli.primes}, {@code CountEngine.multiModular} (with a single prime, whose one-prime
- * reconstruction is the residue itself) and {@code Moduli.Crt}.
+ * {@code CountTable.requireMemory}, {@code CountBound.log2Bound}, {@code Moduli.tablePrimeCount},
+ * {@code Moduli.tablePrimes}, {@code CountEngine.residuesModulo} (one prime's table) and
+ * {@code Moduli.Crt}.
  */
 public final class PrimePlan implements Serializable {
     private static final long serialVersionUID = 1L;
@@ -72,14 +74,14 @@ public final class PrimePlan implements Serializable {
                 ProgressListener.NONE);
         if (redundantPrimes < 0 || redundantPrimes > 8) {
             throw InvalidInputException.of("number of redundant primes", redundantPrimes, "in [0, 8]",
-                    "One redundant prime already detects a corrupted residue with probability 1 - 2^-61.");
+                    "One redundant prime already detects a corrupted residue with probability about 1 - 2^-49.");
         }
         CountTable.requireMemory(maxParticles, maxEnergy, 0, 1);
         double bits = CountBound.log2Bound(in.energy, in.deg, statistics, maxParticles, maxEnergy);
-        int k = CountBound.primesFor(bits);
+        int k = Moduli.tablePrimeCount(bits);
         CountTable.requireMemory(maxParticles, maxEnergy, bits, k + redundantPrimes);
         return new PrimePlan(in.energy, in.deg, statistics, maxParticles, maxEnergy, bits, k,
-                Moduli.primes(k + redundantPrimes));
+                Moduli.tablePrimes(k + redundantPrimes));
     }
 
     /** Number of primes whose product is proven to exceed every entry. */
@@ -135,13 +137,7 @@ public final class PrimePlan implements Serializable {
     public long[] residues(int i, ProgressListener progress) {
         checkPrimeIndex(i);
         Objects.requireNonNull(progress, "progress");
-        BigInteger[] one = CountEngine.multiModular(energy, deg, statistics(), maxN, maxE,
-                new long[] {primes[i]}, progress);
-        long[] out = new long[one.length];
-        for (int j = 0; j < one.length; j++) {
-            out[j] = one[j].longValueExact();
-        }
-        return out;
+        return CountEngine.residuesModulo(energy, deg, statistics(), maxN, maxE, primes[i], progress);
     }
 
     /**
