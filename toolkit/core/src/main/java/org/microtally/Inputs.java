@@ -85,4 +85,12 @@ public final class Inputs {
         }
         return value;
     }
+
+    /** {@code value} if it is an integer &gt;= {@code min}, else an exception naming {@code what} and the bound. */
+    public static int atLeast(String what, int value, int min) {
+        if (value < min) {
+            throw InvalidInputException.of(what, value, "an integer >= " + min, "");
+        }
+        return value;
+    }
 }

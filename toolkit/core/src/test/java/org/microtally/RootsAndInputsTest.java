@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.function.Executable;
 import org.microtally.ensemble.Canonical;
 import org.microtally.ensemble.GrandCanonical;
 import org.microtally.ensemble.Microcanonical;
@@ -34,21 +35,21 @@ class RootsAndInputsTest {
     @Test
     void oneMessagePerKindOfValue() {
         var dot = Spectra.harmonicOscillator(2, 6);
-        String canonical = assertThrows(InvalidInputException.class,
-                () -> Canonical.of(dot, Statistics.FERMI, 3, -0.0)).getMessage();
-        String grand = assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 0.0, 3)).getMessage();
+        String canonical = refusal(() -> Canonical.of(dot, Statistics.FERMI, 3, -0.0));
+        String grand = refusal(() -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 0.0, 3));
         assertTrue(grand.startsWith("temperature kT = 0.0 is not allowed: must be a finite number > 0."), grand);
         assertTrue(canonical.startsWith("temperature kT = "), canonical);
-        String micro = assertThrows(InvalidInputException.class,
-                () -> Microcanonical.of(dot, Statistics.FERMI, 0, 10)).getMessage();
-        String can = assertThrows(InvalidInputException.class,
-                () -> Canonical.of(dot, Statistics.FERMI, 0, 1.0)).getMessage();
+        String micro = refusal(() -> Microcanonical.of(dot, Statistics.FERMI, 0, 10));
+        String can = refusal(() -> Canonical.of(dot, Statistics.FERMI, 0, 1.0));
         assertTrue(micro.startsWith("particle number N = 0 is not allowed: must be an integer"), micro);
         assertTrue(can.startsWith("particle number N = 0 is not allowed: must be an integer"), can);
-        String full = assertThrows(InvalidInputException.class,
-                () -> Canonical.of(dot, Statistics.FERMI, 29, 1.0)).getMessage();
+        String full = refusal(() -> Canonical.of(dot, Statistics.FERMI, 29, 1.0));
         // 2D oscillator with shells 0..6: 1 + 2 + ... + 7 = 28 states
         assertTrue(full.contains("capacity 28") && full.contains("Raise the spectrum's cutoff"), full);
+    }
+
+    /** The message of the {@link InvalidInputException} that {@code call} throws (failing when it throws none). */
+    private static String refusal(Executable call) {
+        return assertThrows(InvalidInputException.class, call).getMessage();
     }
 }

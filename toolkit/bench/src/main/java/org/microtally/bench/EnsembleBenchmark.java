@@ -1,5 +1,7 @@
 package org.microtally.bench;
 
+import static org.microtally.bench.OscillatorWorkload.N;
+
 import java.util.concurrent.TimeUnit;
 import org.microtally.ensemble.Canonical;
 import org.microtally.occupation.ChemicalPotential;
@@ -25,18 +27,14 @@ import org.openjdk.jmh.annotations.State;
 @BenchmarkMode(Mode.SingleShotTime)
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
 public class EnsembleBenchmark {
-    static final int N = 10_000;
-    static final int CUT = 83;
-
-    Spectrum oscillator;
     double[] stateFactors;
     Spectrum million;
     Spectrum millionStates;
     double[] temperatures;
 
     @Setup
-    public void setUp() {
-        oscillator = Spectra.harmonicOscillator(3, CUT);
+    public void setUp(OscillatorWorkload w) {
+        Spectrum oscillator = w.oscillator;
         stateFactors = new double[(int) oscillator.stateCount()];
         int k = 0;
         for (int i = 0; i < oscillator.size(); i++) {
@@ -66,14 +64,14 @@ public class EnsembleBenchmark {
     }
 
     @Benchmark
-    public double canonicalFermionsZAndOccupations() {
-        Canonical c = Canonical.of(oscillator, Statistics.FERMI, N, 5.0);
+    public double canonicalFermionsZAndOccupations(OscillatorWorkload w) {
+        Canonical c = Canonical.of(w.oscillator, Statistics.FERMI, N, 5.0);
         return c.lnZ() + c.occupations().perState(40);
     }
 
     @Benchmark
-    public double canonicalBosonsZAndOccupations() {
-        Canonical c = Canonical.of(oscillator, Statistics.BOSE, N, 10.0);
+    public double canonicalBosonsZAndOccupations(OscillatorWorkload w) {
+        Canonical c = Canonical.of(w.oscillator, Statistics.BOSE, N, 10.0);
         return c.lnZ() + c.occupations().perState(1) + c.condensate().mean();
     }
 

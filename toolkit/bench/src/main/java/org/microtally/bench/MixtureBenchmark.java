@@ -1,19 +1,18 @@
 package org.microtally.bench;
 
+import static org.microtally.bench.OscillatorWorkload.N;
+
 import java.util.List;
 import java.util.concurrent.TimeUnit;
 import org.microtally.count.Species;
 import org.microtally.ensemble.Canonical;
 import org.microtally.ensemble.CanonicalMixture;
-import org.microtally.spectrum.Spectra;
-import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Mode;
 import org.openjdk.jmh.annotations.OutputTimeUnit;
 import org.openjdk.jmh.annotations.Scope;
-import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 
 /**
@@ -27,44 +26,36 @@ import org.openjdk.jmh.annotations.State;
 @BenchmarkMode(Mode.SingleShotTime)
 @OutputTimeUnit(TimeUnit.MILLISECONDS)
 public class MixtureBenchmark {
-    static final int N = 10_000;
     static final double KT = 5.0;
 
-    Spectrum oscillator;
-
-    @Setup
-    public void setUp() {
-        oscillator = Spectra.harmonicOscillator(3, 83);
-    }
-
     @Benchmark
-    public double singleFermions() {
-        Canonical c = Canonical.of(oscillator, Statistics.FERMI, N, KT);
+    public double singleFermions(OscillatorWorkload w) {
+        Canonical c = Canonical.of(w.oscillator, Statistics.FERMI, N, KT);
         return c.lnZ() + c.occupations().perState(40);
     }
 
     @Benchmark
-    public double singleBosons() {
-        Canonical c = Canonical.of(oscillator, Statistics.BOSE, N, KT);
+    public double singleBosons(OscillatorWorkload w) {
+        Canonical c = Canonical.of(w.oscillator, Statistics.BOSE, N, KT);
         return c.lnZ() + c.occupations().perState(1);
     }
 
     @Benchmark
-    public double mixtureSpinUpDownEqualN() {
-        return mix(new Species("up", oscillator, Statistics.FERMI, N),
-                new Species("down", oscillator, Statistics.FERMI, N));
+    public double mixtureSpinUpDownEqualN(OscillatorWorkload w) {
+        return mix(new Species("up", w.oscillator, Statistics.FERMI, N),
+                new Species("down", w.oscillator, Statistics.FERMI, N));
     }
 
     @Benchmark
-    public double mixtureTwoFermionNumbers() {
-        return mix(new Species("protons", oscillator, Statistics.FERMI, N),
-                new Species("neutrons", oscillator, Statistics.FERMI, N - 500));
+    public double mixtureTwoFermionNumbers(OscillatorWorkload w) {
+        return mix(new Species("protons", w.oscillator, Statistics.FERMI, N),
+                new Species("neutrons", w.oscillator, Statistics.FERMI, N - 500));
     }
 
     @Benchmark
-    public double mixtureBoseFermi() {
-        return mix(new Species("bosons", oscillator, Statistics.BOSE, N),
-                new Species("fermions", oscillator, Statistics.FERMI, N));
+    public double mixtureBoseFermi(OscillatorWorkload w) {
+        return mix(new Species("bosons", w.oscillator, Statistics.BOSE, N),
+                new Species("fermions", w.oscillator, Statistics.FERMI, N));
     }
 
     private static double mix(Species a, Species b) {

@@ -1,12 +1,6 @@
 package org.microtally.bench;
 
-import java.util.HashMap;
-import java.util.Map;
-import org.openjdk.jmh.results.RunResult;
-import org.openjdk.jmh.runner.Runner;
 import org.openjdk.jmh.runner.RunnerException;
-import org.openjdk.jmh.runner.options.Options;
-import org.openjdk.jmh.runner.options.OptionsBuilder;
 
 /**
  * Runs {@link MixtureBenchmark} and prints each two-species time as a ratio to the single-species
@@ -17,18 +11,12 @@ public final class MixtureRatio {
     private MixtureRatio() { }
 
     public static void main(String[] args) throws RunnerException {
-        Options opt = new OptionsBuilder().include(MixtureBenchmark.class.getSimpleName()).forks(1)
-                .warmupIterations(1).measurementIterations(3).build();
-        Map<String, Double> score = new HashMap<>();
-        for (RunResult r : new Runner(opt).run()) {
-            String name = r.getParams().getBenchmark();
-            score.put(name.substring(name.lastIndexOf('.') + 1), r.getPrimaryResult().getScore());
-        }
-        double base = score.getOrDefault("singleFermions", Double.NaN);
+        JmhScores score = JmhScores.run(MixtureBenchmark.class);
+        double base = score.of("singleFermions");
         System.out.printf("single species, 10^4 fermions on 102340 states: %.0f ms%n", base);
         for (String k : new String[] {"singleBosons", "mixtureSpinUpDownEqualN", "mixtureTwoFermionNumbers",
                 "mixtureBoseFermi"}) {
-            double t = score.getOrDefault(k, Double.NaN);
+            double t = score.of(k);
             System.out.printf("%s: %.0f ms = %.2f x single fermions%n", k, t, t / base);
         }
     }

@@ -1,12 +1,6 @@
 package org.microtally.bench;
 
-import java.util.HashMap;
-import java.util.Map;
-import org.openjdk.jmh.results.RunResult;
-import org.openjdk.jmh.runner.Runner;
 import org.openjdk.jmh.runner.RunnerException;
-import org.openjdk.jmh.runner.options.Options;
-import org.openjdk.jmh.runner.options.OptionsBuilder;
 
 /**
  * Runs {@link SweepBenchmark} and prints each sweep's time as a ratio to the separate canonical runs
@@ -17,18 +11,12 @@ public final class SweepRatio {
     private SweepRatio() { }
 
     public static void main(String[] args) throws RunnerException {
-        Options opt = new OptionsBuilder().include(SweepBenchmark.class.getSimpleName()).forks(1)
-                .warmupIterations(1).measurementIterations(3).build();
-        Map<String, Double> score = new HashMap<>();
-        for (RunResult r : new Runner(opt).run()) {
-            String name = r.getParams().getBenchmark();
-            score.put(name.substring(name.lastIndexOf('.') + 1), r.getPrimaryResult().getScore());
-        }
-        double dotRuns = score.getOrDefault("dotSeparateRuns", Double.NaN);
-        double dot = score.getOrDefault("dotSweep", Double.NaN);
+        JmhScores score = JmhScores.run(SweepBenchmark.class);
+        double dotRuns = score.of("dotSeparateRuns");
+        double dot = score.of("dotSweep");
         System.out.printf("dot, n = 1..42: 42 canonical runs %.0f ms, sweep %.0f ms = %.3f x%n", dotRuns, dot, dot / dotRuns);
-        double trapRuns = score.getOrDefault("trapSeparateRunsEveryTenth", Double.NaN);
-        double trap = score.getOrDefault("trapSweepEveryN", Double.NaN);
+        double trapRuns = score.of("trapSeparateRunsEveryTenth");
+        double trap = score.of("trapSweepEveryN");
         System.out.printf("trap, 1000 bosons: 100 canonical runs (every 10th n) %.0f ms, sweep of every n %.0f ms = %.3f x%n",
                 trapRuns, trap, trap / trapRuns);
     }

@@ -4,6 +4,7 @@ import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 
 /**
@@ -22,12 +23,8 @@ public final class ClosedFormBlocks {
      * @throws InvalidInputException for N &lt; 1 or maxQuanta &lt; 0
      */
     public static List<BigInteger> einsteinSolid(int oscillators, int maxQuanta) {
-        if (oscillators < 1) {
-            throw InvalidInputException.of("number of oscillators", oscillators, "an integer >= 1", "");
-        }
-        if (maxQuanta < 0) {
-            throw InvalidInputException.of("largest number of quanta", maxQuanta, "an integer >= 0", "");
-        }
+        Inputs.atLeast("number of oscillators", oscillators, 1);
+        Inputs.atLeast("largest number of quanta", maxQuanta, 0);
         List<BigInteger> out = new ArrayList<>(maxQuanta + 1);
         BigInteger c = BigInteger.ONE;
         out.add(c);
@@ -46,12 +43,8 @@ public final class ClosedFormBlocks {
      * @throws InvalidInputException for N &lt; 1 or maxExcited &lt; 0
      */
     public static List<BigInteger> twoState(int elements, int maxExcited) {
-        if (elements < 1) {
-            throw InvalidInputException.of("number of two-state elements", elements, "an integer >= 1", "");
-        }
-        if (maxExcited < 0) {
-            throw InvalidInputException.of("largest number excited", maxExcited, "an integer >= 0", "");
-        }
+        Inputs.atLeast("number of two-state elements", elements, 1);
+        Inputs.atLeast("largest number excited", maxExcited, 0);
         List<BigInteger> out = new ArrayList<>(maxExcited + 1);
         BigInteger c = BigInteger.ONE;
         out.add(c);

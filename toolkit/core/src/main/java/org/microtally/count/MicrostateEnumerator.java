@@ -132,16 +132,43 @@ public final class MicrostateEnumerator {
         private boolean ready;
         private boolean done;
 
-        abstract boolean findFirst();
+        /** Extends the partial solution at the current position to a full one (backtracking); false when none is left. */
+        abstract boolean descend();
 
-        abstract boolean findNext();
+        /** The position being chosen: a state index (occupations) or a particle index (assignments). */
+        int pos;
+
+        /**
+         * Moves the deepest choice that can still change to its next value and the position past it;
+         * false when all are exhausted.
+         */
+        final boolean retreat() {
+            while (--pos >= 0) {
+                if (nextChoiceAtPos()) {
+                    pos++;
+                    return true;
+                }
+            }
+            return false;
+        }
+
+        /** Changes the choice at {@link #pos} to its next feasible value, undoing the current one; false if none. */
+        abstract boolean nextChoiceAtPos();
+
+        /** Puts the position back at the end of the solution last found, so that {@link #retreat()} moves past it. */
+        abstract void returnToLastSolution();
 
         abstract int[] current();
+
+        private boolean findNext() {
+            returnToLastSolution();
+            return retreat() && descend();
+        }
 
         @Override
         public boolean hasNext() {
             if (!ready && !done) {
-                boolean found = started ? findNext() : findFirst();
+                boolean found = started ? findNext() : descend();
                 started = true;
                 ready = found;
                 done = !found;
@@ -164,7 +191,6 @@ public final class MicrostateEnumerator {
         private final int[] se;
         private final int[] occ;
         private final int k;
-        private int pos;
         private int lastPos;
         private long remN;
         private long remE;
@@ -178,14 +204,8 @@ public final class MicrostateEnumerator {
         }
 
         @Override
-        boolean findFirst() {
-            return descend();
-        }
-
-        @Override
-        boolean findNext() {
+        void returnToLastSolution() {
             pos = lastPos;
-            return retreat() && descend();
         }
 
         @Override
@@ -201,7 +221,8 @@ public final class MicrostateEnumerator {
             return remN <= (long) k * (s - pos) && se[pos] * remN <= remE && remE <= remN * se[s - 1];
         }
 
-        private boolean descend() {
+        @Override
+        boolean descend() {
             while (true) {
                 if (remN == 0 && remE == 0) {
                     for (int s = pos; s < occ.length; s++) {
@@ -227,20 +248,15 @@ public final class MicrostateEnumerator {
             }
         }
 
-        private boolean retreat() {
-            while (true) {
-                pos--;
-                if (pos < 0) {
-                    return false;
-                }
-                if (occ[pos] > 0) {
-                    occ[pos]--;
-                    remN++;
-                    remE += se[pos];
-                    pos++;
-                    return true;
-                }
+        @Override
+        boolean nextChoiceAtPos() {
+            if (occ[pos] == 0) {
+                return false;
             }
+            occ[pos]--;
+            remN++;
+            remE += se[pos];
+            return true;
         }
     }
 
@@ -249,7 +265,6 @@ public final class MicrostateEnumerator {
         private final int[] se;
         private final int[] a;
         private final int n;
-        private int pos;
         private long remE;
         private final long eMin;
         private final long eMax;
@@ -264,14 +279,8 @@ public final class MicrostateEnumerator {
         }
 
         @Override
-        boolean findFirst() {
-            return descend();
-        }
-
-        @Override
-        boolean findNext() {
+        void returnToLastSolution() {
             pos = n;
-            return retreat() && descend();
         }
 
         @Override
@@ -294,7 +303,8 @@ public final class MicrostateEnumerator {
             return -1;
         }
 
-        private boolean descend() {
+        @Override
+        boolean descend() {
             while (true) {
                 if (pos == n) {
                     if (remE == 0) {
@@ -318,21 +328,16 @@ public final class MicrostateEnumerator {
             }
         }
 
-        private boolean retreat() {
-            while (true) {
-                pos--;
-                if (pos < 0) {
-                    return false;
-                }
-                remE += se[a[pos]];
-                int s = choice(a[pos] + 1);
-                if (s >= 0) {
-                    a[pos] = s;
-                    remE -= se[s];
-                    pos++;
-                    return true;
-                }
+        @Override
+        boolean nextChoiceAtPos() {
+            remE += se[a[pos]];
+            int s = choice(a[pos] + 1);
+            if (s < 0) {
+                return false;
             }
+            a[pos] = s;
+            remE -= se[s];
+            return true;
         }
     }
 }

@@ -9,7 +9,7 @@ import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.Dimension;
 import org.microtally.QuantityTable;
-import org.microtally.Tabular;
+import org.microtally.QuantityResult;
 import org.microtally.occupation.CondensateDistribution;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.spectrum.Spectrum;
@@ -87,7 +87,7 @@ import org.microtally.units.Energy;
  * lowest excitation exceeds 700 kT the exact T -&gt; 0 limit is returned with a note. Truncated
  * spectra carry the estimated effect of their cutoff in {@link #warnings()}.
  */
-public final class Canonical implements Tabular {
+public final class Canonical implements QuantityResult {
     private static final int MAX_N = 10_000_000;
 
     private final Spectrum spectrum;
@@ -449,6 +449,7 @@ public final class Canonical implements Tabular {
      * row per warning. For physical units: {@code quantities().inUnits(EnergyUnit.KELVIN)} (needs a
      * spectrum scale with a declared size).
      */
+    @Override
     public QuantityTable quantities() {
         QuantityTable.Builder t = QuantityTable.builder(spectrum.scale()).value("statistics", statistics.toString());
         if (!statistics.indistinguishable()) {
@@ -463,17 +464,6 @@ public final class Canonical implements Tabular {
         }
         return t.warnings(warnings()).build();
     }
-
-    @Override
-    public List<String> columnNames() {
-        return quantities().columnNames();
-    }
-
-    @Override
-    public List<List<Object>> rows() {
-        return quantities().rows();
-    }
-
 
     /** A one-line summary (statistics, N, kT, ln Z, U, number of warnings); runs the C_V checks if not yet run. */
     @Override

@@ -86,10 +86,7 @@ public final class CanonicalMixture implements Tabular {
         List<Species> list = validate(species);
         Inputs.temperature(kT);
         for (Species s : list) {
-            if (s.particles() < 1) {
-                throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),
-                        "an integer >= 1 in a canonical mixture", "Leave an empty species out of the list.");
-            }
+            requireParticles(s, "in a canonical mixture");
         }
         Map<Key, Canonical> computed = new HashMap<>();
         List<Key> distinct = new ArrayList<>();
@@ -115,6 +112,31 @@ public final class CanonicalMixture implements Tabular {
     private static Canonical compute(Key k, double kT) {
         Species s = k.species;
         return forSpecies(s, () -> Canonical.of(s.spectrum(), s.statistics(), s.particles(), kT));
+    }
+
+    /** Refuses a species with N &lt; 1 where {@code role} (e.g. "in a canonical mixture") needs particles. */
+    static void requireParticles(Species s, String role) {
+        if (s.particles() < 1) {
+            throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),
+                    "an integer >= 1 " + role, "Leave an empty species out of the list.");
+        }
+    }
+
+    /** The index {@code a} of one of {@code count} species, else an exception naming the range. */
+    static int speciesIndex(int a, int count) {
+        if (a < 0 || a >= count) {
+            throw InvalidInputException.of("species index", a, "in [0, " + (count - 1) + "]", "");
+        }
+        return a;
+    }
+
+    /** sum_a q(part a), added in species order (the one summation of both mixtures' totals). */
+    static <T> double total(List<T> parts, java.util.function.ToDoubleFunction<T> q) {
+        double s = 0;
+        for (T p : parts) {
+            s += q.applyAsDouble(p);
+        }
+        return s;
     }
 
     /** Checks the list shared by the canonical and grand canonical mixtures; returns an unmodifiable copy. */
@@ -162,8 +184,7 @@ public final class CanonicalMixture implements Tabular {
 
     /** The canonical ensemble of species {@code a} alone (its occupations, P(N_0), warnings). */
     public Canonical part(int a) {
-        checkSpecies(a);
-        return parts.get(a);
+        return parts.get(speciesIndex(a, species.size()));
     }
 
     /** Exact mean occupation of every level of species {@code a}'s spectrum. */
@@ -192,11 +213,7 @@ public final class CanonicalMixture implements Tabular {
 
     /** ln Z = sum_a ln Z_{N_a}. */
     public double lnZ() {
-        double s = 0;
-        for (Canonical c : parts) {
-            s += c.lnZ();
-        }
-        return s;
+        return total(parts, Canonical::lnZ);
     }
 
     /** F = -kT ln Z. */
@@ -206,11 +223,7 @@ public final class CanonicalMixture implements Tabular {
 
     /** U = sum_a U_a. */
     public double energy() {
-        double s = 0;
-        for (Canonical c : parts) {
-            s += c.energy();
-        }
-        return s;
+        return total(parts, Canonical::energy);
     }
 
     /** S/k = ln Z + U/kT. */
@@ -245,12 +258,6 @@ public final class CanonicalMixture implements Tabular {
     /** Warnings of every species, each prefixed with the species' name; empty when none. */
     public List<String> warnings() {
         return warnings;
-    }
-
-    private void checkSpecies(int a) {
-        if (a < 0 || a >= species.size()) {
-            throw InvalidInputException.of("species index", a, "in [0, " + (species.size() - 1) + "]", "");
-        }
     }
 
     /** Columns: species, statistics, N, ln Z, U, S/k, C/k, &lt;N_0&gt;, Var N_0, warnings. */

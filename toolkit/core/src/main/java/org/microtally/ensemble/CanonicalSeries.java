@@ -45,20 +45,11 @@ final class CanonicalSeries {
 
     static Canonical distinguishable(Spectrum s, int n, double kT) {
         double beta = 1.0 / kT;
-        double e0 = s.groundEnergy();
-        double z1 = 0;
-        double m1 = 0;
-        double m2 = 0;
-        for (int i = 0; i < s.size(); i++) {
-            double d = s.energy(i) - e0;
-            double w = s.degeneracy(i) * Math.exp(-beta * d);
-            z1 += w;
-            m1 += w * d;
-            m2 += w * d * d;
-        }
-        double mean = m1 / z1;
-        double var1 = Math.max(0.0, m2 / z1 - mean * mean);
-        double lnZ1 = Math.log(z1) - beta * e0;
+        OneParticleMoments one = OneParticleMoments.of(s, beta);
+        double e0 = one.groundEnergy();
+        double z1 = one.shiftedSum();
+        double var1 = one.excitationVariance();
+        double lnZ1 = one.lnZ1();
         double[] occ = new double[s.size()];
         for (int i = 0; i < occ.length; i++) {
             occ[i] = n * Math.exp(-beta * (s.energy(i) - e0)) / z1;

@@ -97,25 +97,11 @@ public final class CanonicalSweep implements Tabular {
         List<String> warnings = new ArrayList<>();
         double e0 = spectrum.groundEnergy();
         if (!statistics.indistinguishable()) {
-            double z1 = 0;
-            double m1 = 0;
-            for (int i = 0; i < spectrum.size(); i++) {
-                double d = spectrum.energy(i) - e0;
-                double w = spectrum.degeneracy(i) * Math.exp(-beta * d);
-                z1 += w;
-                m1 += w * d;
-            }
-            double mean1 = m1 / z1;
-            double v1 = 0;
-            for (int i = 0; i < spectrum.size(); i++) {
-                double d = spectrum.energy(i) - e0 - mean1;
-                v1 += spectrum.degeneracy(i) * Math.exp(-beta * (spectrum.energy(i) - e0)) * d * d;
-            }
-            v1 /= z1;
+            OneParticleMoments one = OneParticleMoments.of(spectrum, beta);
             for (int n = 0; n <= maxN; n++) {
-                lnZ[n] = n * (Math.log(z1) - beta * e0);
-                u[n] = n * (e0 + mean1);
-                var[n] = n * v1;
+                lnZ[n] = n * one.lnZ1();
+                u[n] = n * (e0 + one.meanExcitation());
+                var[n] = n * one.excitationVariance();
                 varErr[n] = 4 * spectrum.size() * 0x1p-53 * var[n];
             }
             warnings.addAll(GrandCanonical.ofMeanNumber(spectrum, statistics, kT, maxN).warnings());

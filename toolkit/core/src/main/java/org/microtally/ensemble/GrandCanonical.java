@@ -7,7 +7,7 @@ import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Dimension;
 import org.microtally.QuantityTable;
-import org.microtally.Tabular;
+import org.microtally.QuantityResult;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.occupation.LevelOccupations;
 import org.microtally.occupation.MeanOccupation;
@@ -46,7 +46,7 @@ import org.microtally.units.Energy;
  * (relative error ~ M ulp for M levels), except C, whose difference of fluctuations can lose digits
  * where it is small compared with Var E.
  */
-public final class GrandCanonical implements Tabular {
+public final class GrandCanonical implements QuantityResult {
     private final Spectrum spectrum;
     private final Statistics statistics;
     private final double kT;
@@ -395,6 +395,7 @@ public final class GrandCanonical implements Tabular {
      * kT, mu, ln Xi, &lt;N&gt;, Var N, U, S/k, C/k at fixed &lt;N&gt;, &lt;N_0&gt;, Var N_0, one row per
      * warning. Physical units: {@code quantities().inUnits(EnergyUnit.MILLIELECTRONVOLT)}.
      */
+    @Override
     public QuantityTable quantities() {
         QuantityTable.Builder t = QuantityTable.builder(spectrum.scale()).value("statistics", statistics.toString());
         if (!statistics.indistinguishable()) {
@@ -404,16 +405,6 @@ public final class GrandCanonical implements Tabular {
                 .value("<N>", meanN).value("Var N", varN).value("U", energy, Dimension.ENERGY)
                 .value("S/k", entropy()).value("C/k (fixed <N>)", heatCapacity())
                 .value("<N_0>", groundMean).value("Var N_0", groundVariance).warnings(warnings).build();
-    }
-
-    @Override
-    public List<String> columnNames() {
-        return quantities().columnNames();
-    }
-
-    @Override
-    public List<List<Object>> rows() {
-        return quantities().rows();
     }
 
     /** A one-line summary (statistics, kT, mu, ln Xi, &lt;N&gt;, U, number of warnings). */

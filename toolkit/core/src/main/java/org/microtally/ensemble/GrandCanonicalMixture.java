@@ -90,10 +90,7 @@ public final class GrandCanonicalMixture implements Tabular {
         List<Species> list = CanonicalMixture.validate(species);
         List<GrandCanonical> parts = new ArrayList<>();
         for (Species s : list) {
-            if (s.particles() < 1) {
-                throw InvalidInputException.of("particle number of species " + s.name(), s.particles(),
-                        "an integer >= 1 as a target mean number", "Leave an empty species out of the list.");
-            }
+            CanonicalMixture.requireParticles(s, "as a target mean number");
             parts.add(CanonicalMixture.forSpecies(s, () -> GrandCanonical.ofMeanNumber(s.spectrum(), s.statistics(),
                     kT, s.particles())));
         }
@@ -107,10 +104,7 @@ public final class GrandCanonicalMixture implements Tabular {
 
     /** The grand canonical ensemble of species {@code a} alone. */
     public GrandCanonical part(int a) {
-        if (a < 0 || a >= parts.size()) {
-            throw InvalidInputException.of("species index", a, "in [0, " + (parts.size() - 1) + "]", "");
-        }
-        return parts.get(a);
+        return parts.get(CanonicalMixture.speciesIndex(a, parts.size()));
     }
 
     /** Temperature kT. */
@@ -154,11 +148,7 @@ public final class GrandCanonicalMixture implements Tabular {
     }
 
     private double sum(java.util.function.ToDoubleFunction<GrandCanonical> f) {
-        double s = 0;
-        for (GrandCanonical g : parts) {
-            s += f.applyAsDouble(g);
-        }
-        return s;
+        return CanonicalMixture.total(parts, f);
     }
 
     /** Columns: species, statistics, mu, &lt;N&gt;, Var N, U, S/k, C/k, &lt;N_0&gt;, Var N_0, warnings. */

@@ -7,7 +7,7 @@ import org.microtally.Dimension;
 import org.microtally.Quantity;
 import org.microtally.QuantityTable;
 import org.microtally.InvalidInputException;
-import org.microtally.Tabular;
+import org.microtally.QuantityResult;
 import org.microtally.occupation.MeanOccupation;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -28,7 +28,7 @@ import org.microtally.spectrum.Statistics;
  * {@link GrandCanonical}. Model limits: the truncation warning of a truncated spectrum in a field
  * carries the caveat of {@link LabelledCanonical} (omitted levels may carry large labels).
  */
-public final class LabelledGrandCanonical implements Tabular {
+public final class LabelledGrandCanonical implements QuantityResult {
     private final Spectrum spectrum;
     private final double field;
     private final GrandCanonical ensemble;
@@ -132,6 +132,7 @@ public final class LabelledGrandCanonical implements Tabular {
      * The grand canonical quantities ({@link GrandCanonical#quantities()}) with the field h after the
      * statistics, and &lt;L&gt;, Var L and U_0 (the mean energy without the field term) at the end.
      */
+    @Override
     public QuantityTable quantities() {
         List<Quantity> base = ensemble.quantities().quantities();
         QuantityTable.Builder t = QuantityTable.builder(ensemble.spectrum().scale()).add(base.get(0))
@@ -139,16 +140,6 @@ public final class LabelledGrandCanonical implements Tabular {
         base.subList(1, base.size()).forEach(t::add);
         return t.value("<L>", meanLabel).value("Var L", labelVariance)
                 .value("U_0 (without field term)", energyWithoutField(), Dimension.ENERGY).build();
-    }
-
-    @Override
-    public List<String> columnNames() {
-        return quantities().columnNames();
-    }
-
-    @Override
-    public List<List<Object>> rows() {
-        return quantities().rows();
     }
 
     @Override

@@ -22,21 +22,35 @@ class SingleNumberCountsTest {
     void randomSpectraAgreeWithTheFullTable() {
         Random rnd = new Random(4242L);
         for (int trial = 0; trial < 20; trial++) {
-            List<Level> levels = new ArrayList<>();
-            int e = rnd.nextInt(3);
-            for (int i = 0; i < 2 + rnd.nextInt(4); i++) {
-                levels.add(new Level(e, 1 + rnd.nextInt(3)));
-                e += 1 + rnd.nextInt(3);
-            }
-            Spectrum s = Spectrum.of(levels);
+            Spectrum s = randomLadder(rnd, 3, 2, 4, 3, 3);
             int n = 1 + rnd.nextInt(7);
-            int maxE = 25;
-            SingleNumberCounts single = SingleNumberCounts.of(s, Statistics.DISTINGUISHABLE, n, maxE);
-            CountTable full = CountTable.of(s, Statistics.DISTINGUISHABLE, n, maxE);
-            for (int k = 0; k <= maxE; k++) {
-                // Source: the full exact table (CountTable, an independent level-by-level recursion)
-                assertEquals(full.count(n, k), single.count(k), levels + " n=" + n + " e=" + k);
-            }
+            // Source: the full exact table (CountTable, an independent level-by-level recursion)
+            assertRowMatchesFullTable(s, Statistics.DISTINGUISHABLE, n, 25);
+        }
+    }
+
+    /**
+     * Levels at integer energies from {@code [0, firstBelow)} upwards with gaps in {@code [1, maxGap]},
+     * {@code minLevels + [0, moreLevels)} of them (the bound is redrawn each step, as the loop condition
+     * always did), degeneracies in {@code [1, maxDegeneracy]}.
+     */
+    private static Spectrum randomLadder(Random rnd, int firstBelow, int minLevels, int moreLevels, int maxDegeneracy,
+                                         int maxGap) {
+        List<Level> levels = new ArrayList<>();
+        int e = rnd.nextInt(firstBelow);
+        for (int i = 0; i < minLevels + rnd.nextInt(moreLevels); i++) {
+            levels.add(new Level(e, 1 + rnd.nextInt(maxDegeneracy)));
+            e += 1 + rnd.nextInt(maxGap);
+        }
+        return Spectrum.of(levels);
+    }
+
+    /** The single-N row of {@code n} particles against row n of the full table, every e in [0, maxE]. */
+    private static void assertRowMatchesFullTable(Spectrum s, Statistics st, int n, int maxE) {
+        SingleNumberCounts single = SingleNumberCounts.of(s, st, n, maxE);
+        CountTable full = CountTable.of(s, st, n, maxE);
+        for (int k = 0; k <= maxE; k++) {
+            assertEquals(full.count(n, k), single.count(k), st + " " + s.levels() + " n=" + n + " e=" + k);
         }
     }
 
@@ -45,21 +59,10 @@ class SingleNumberCountsTest {
         Random rnd = new Random(777L);
         for (Statistics st : List.of(Statistics.BOSE, Statistics.FERMI, Statistics.maxOccupancy(3))) {
             for (int trial = 0; trial < 6; trial++) {
-                List<Level> levels = new ArrayList<>();
-                int e = rnd.nextInt(2);
-                for (int i = 0; i < 3 + rnd.nextInt(5); i++) {
-                    levels.add(new Level(e, 1 + rnd.nextInt(4)));
-                    e += 1 + rnd.nextInt(2);
-                }
-                Spectrum s = Spectrum.of(levels);
+                Spectrum s = randomLadder(rnd, 2, 3, 5, 4, 2);
                 int n = 1 + rnd.nextInt(9);
-                int maxE = 40;
-                SingleNumberCounts single = SingleNumberCounts.of(s, st, n, maxE);
-                CountTable full = CountTable.of(s, st, n, maxE);
-                for (int k = 0; k <= maxE; k++) {
-                    // Source: the full exact table (CountTable: 61-bit primes in parallel or plain BigInteger)
-                    assertEquals(full.count(n, k), single.count(k), st + " " + levels + " n=" + n + " e=" + k);
-                }
+                // Source: the full exact table (CountTable: 61-bit primes in parallel or plain BigInteger)
+                assertRowMatchesFullTable(s, st, n, 40);
             }
         }
         // large counts need several primes: 30 bosons on a 3D oscillator, against the full table

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.function.Executable;
 import org.microtally.InvalidInputException;
 import org.microtally.occupation.ChemicalPotential;
 import org.microtally.spectrum.Spectra;
@@ -18,15 +19,17 @@ class BadInputTest {
         assertTrue(e.getMessage().contains(value), e.getMessage());
     }
 
+    /** {@code call} is refused with an {@link InvalidInputException} whose message names {@code value}. */
+    private static void assertRefused(Executable call, String value) {
+        assertNames(assertThrows(InvalidInputException.class, call), value);
+    }
+
     @Test
     void nonPositiveOrNaNTemperature() {
         for (double t : new double[] {0.0, -1.5, Double.NaN, Double.POSITIVE_INFINITY}) {
-            assertNames(assertThrows(InvalidInputException.class,
-                    () -> Canonical.of(dot, Statistics.FERMI, 3, t)), "kT = " + t);
-            assertNames(assertThrows(InvalidInputException.class,
-                    () -> GrandCanonical.ofMeanNumber(dot, Statistics.BOSE, t, 3)), "kT = " + t);
-            assertNames(assertThrows(InvalidInputException.class,
-                    () -> GrandCanonical.ofChemicalPotential(dot, Statistics.FERMI, t, 0.5)), "kT = " + t);
+            assertRefused(() -> Canonical.of(dot, Statistics.FERMI, 3, t), "kT = " + t);
+            assertRefused(() -> GrandCanonical.ofMeanNumber(dot, Statistics.BOSE, t, 3), "kT = " + t);
+            assertRefused(() -> GrandCanonical.ofChemicalPotential(dot, Statistics.FERMI, t, 0.5), "kT = " + t);
         }
     }
 
@@ -37,28 +40,21 @@ class BadInputTest {
                 () -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 1.0, 21));
         assertNames(e, "= 21.0");
         assertTrue(e.getMessage().contains("capacity 21"), e.getMessage());
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> Canonical.of(dot, Statistics.FERMI, 22, 1.0)), "N = 22");
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.ofMeanNumber(dot, Statistics.maxOccupancy(2), 1.0, 50)), "= 50.0");
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> ChemicalPotential.fermiLevel(dot, Statistics.FERMI, 21)), "= 21");
+        assertRefused(() -> Canonical.of(dot, Statistics.FERMI, 22, 1.0), "N = 22");
+        assertRefused(() -> GrandCanonical.ofMeanNumber(dot, Statistics.maxOccupancy(2), 1.0, 50), "= 50.0");
+        assertRefused(() -> ChemicalPotential.fermiLevel(dot, Statistics.FERMI, 21), "= 21");
     }
 
     @Test
     void boseChemicalPotentialOutsideBracket() {
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.ofChemicalPotential(dot, Statistics.BOSE, 1.0, 0.0)), "mu for bosons = 0.0");
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.ofChemicalPotential(dot, Statistics.BOSE, 1.0, 2.5)), "= 2.5");
+        assertRefused(() -> GrandCanonical.ofChemicalPotential(dot, Statistics.BOSE, 1.0, 0.0), "mu for bosons = 0.0");
+        assertRefused(() -> GrandCanonical.ofChemicalPotential(dot, Statistics.BOSE, 1.0, 2.5), "= 2.5");
     }
 
     @Test
     void zeroParticles() {
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> Canonical.of(dot, Statistics.BOSE, 0, 1.0)), "N = 0");
-        assertNames(assertThrows(InvalidInputException.class,
-                () -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 1.0, 0)), "= 0.0");
+        assertRefused(() -> Canonical.of(dot, Statistics.BOSE, 0, 1.0), "N = 0");
+        assertRefused(() -> GrandCanonical.ofMeanNumber(dot, Statistics.FERMI, 1.0, 0), "= 0.0");
     }
 
     @Test

@@ -4,49 +4,45 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
 
 /** Expected HTML follows the CommonMark spec 0.31.2 examples (from memory); math as MathML. */
 class PageMarkdownTest {
-    @Test
-    void headings() {
-        // Source: CommonMark spec 0.31.2, §4.2 ATX headings (from memory)
-        assertEquals("<h1>foo</h1>\n<h3>bar</h3>\n", PageMarkdown.toHtml("# foo\n### bar ###"));
-        assertEquals("<p>#5 bolt</p>\n", PageMarkdown.toHtml("#5 bolt"));
+    /** One CommonMark case: its source beside it, the markdown, the HTML our page writes. */
+    static Stream<Arguments> commonMarkCases() {
+        String atx = "CommonMark spec 0.31.2, §4.2 ATX headings (from memory)";
+        String emphasis = "CommonMark spec 0.31.2, §6.2 emphasis and strong emphasis (from memory)";
+        String code = "CommonMark spec 0.31.2, §6.1 code spans and §4.5 fenced code blocks (from memory)";
+        String blocks = "CommonMark spec 0.31.2, §5.2-5.3 lists, §6.3 links, §5.1 block quotes (from memory)";
+        String safety = "common practice, no source: raw HTML and javascript: links are neutralised";
+        return Stream.of(
+                Arguments.of(atx, "# foo\n### bar ###", "<h1>foo</h1>\n<h3>bar</h3>\n"),
+                Arguments.of(atx, "#5 bolt", "<p>#5 bolt</p>\n"),
+                Arguments.of(emphasis, "*foo bar*", "<p><em>foo bar</em></p>\n"),
+                Arguments.of(emphasis, "**foo bar**", "<p><strong>foo bar</strong></p>\n"),
+                Arguments.of(emphasis, "aaa\nbbb\n\nccc", "<p>aaa\nbbb</p>\n<p>ccc</p>\n"),
+                Arguments.of(emphasis, "snake_case_name stays", "<p>snake_case_name stays</p>\n"),
+                Arguments.of(code, "`a *b* <c>`", "<p><code>a *b* &lt;c&gt;</code></p>\n"),
+                Arguments.of(code, "```java\nint x = 1 < 2;\n```",
+                        "<pre><code class=\"language-java\">int x = 1 &lt; 2;\n</code></pre>\n"),
+                Arguments.of(code, "    indented", "<pre><code>indented\n</code></pre>\n"),
+                Arguments.of(blocks, "- one\n- two", "<ul>\n<li>one</li>\n<li>two</li>\n</ul>\n"),
+                Arguments.of(blocks, "1. one\n2. two", "<ol>\n<li>one</li>\n<li>two</li>\n</ol>\n"),
+                Arguments.of(blocks, "[link](/uri)", "<p><a rel=\"nofollow\" href=\"/uri\">link</a></p>\n"),
+                Arguments.of(blocks, "> quoted", "<blockquote>\n<p>quoted</p>\n</blockquote>\n"),
+                Arguments.of(blocks, "***", "<hr />\n"),
+                Arguments.of(safety, "<script>x</script>", "<p>&lt;script&gt;x&lt;/script&gt;</p>\n"),
+                Arguments.of(safety, "[x](javascript:alert)", "<p><a rel=\"nofollow\" href=\"\">x</a></p>\n"));
     }
 
-    @Test
-    void paragraphsAndEmphasis() {
-        // Source: CommonMark spec 0.31.2, §6.2 emphasis and strong emphasis (from memory)
-        assertEquals("<p><em>foo bar</em></p>\n", PageMarkdown.toHtml("*foo bar*"));
-        assertEquals("<p><strong>foo bar</strong></p>\n", PageMarkdown.toHtml("**foo bar**"));
-        assertEquals("<p>aaa\nbbb</p>\n<p>ccc</p>\n", PageMarkdown.toHtml("aaa\nbbb\n\nccc"));
-        assertEquals("<p>snake_case_name stays</p>\n", PageMarkdown.toHtml("snake_case_name stays"));
-    }
-
-    @Test
-    void codeIsLiteral() {
-        // Source: CommonMark spec 0.31.2, §6.1 code spans and §4.5 fenced code blocks (from memory)
-        assertEquals("<p><code>a *b* &lt;c&gt;</code></p>\n", PageMarkdown.toHtml("`a *b* <c>`"));
-        assertEquals("<pre><code class=\"language-java\">int x = 1 &lt; 2;\n</code></pre>\n",
-                PageMarkdown.toHtml("```java\nint x = 1 < 2;\n```"));
-        assertEquals("<pre><code>indented\n</code></pre>\n", PageMarkdown.toHtml("    indented"));
-    }
-
-    @Test
-    void listsLinksQuotes() {
-        // Source: CommonMark spec 0.31.2, §5.2-5.3 lists, §6.3 links, §5.1 block quotes (from memory)
-        assertEquals("<ul>\n<li>one</li>\n<li>two</li>\n</ul>\n", PageMarkdown.toHtml("- one\n- two"));
-        assertEquals("<ol>\n<li>one</li>\n<li>two</li>\n</ol>\n", PageMarkdown.toHtml("1. one\n2. two"));
-        assertEquals("<p><a rel=\"nofollow\" href=\"/uri\">link</a></p>\n", PageMarkdown.toHtml("[link](/uri)"));
-        assertEquals("<blockquote>\n<p>quoted</p>\n</blockquote>\n", PageMarkdown.toHtml("> quoted"));
-        assertEquals("<hr />\n", PageMarkdown.toHtml("***"));
-    }
-
-    @Test
-    void htmlAndScriptsAreNeutralised() {
-        assertEquals("<p>&lt;script&gt;x&lt;/script&gt;</p>\n", PageMarkdown.toHtml("<script>x</script>"));
-        assertEquals("<p><a rel=\"nofollow\" href=\"\">x</a></p>\n", PageMarkdown.toHtml("[x](javascript:alert)"));
+    @ParameterizedTest(name = "[{index}] {1}")
+    @MethodSource("commonMarkCases")
+    void commonMarkCase(String source, String markdown, String expectedHtml) {
+        assertEquals(expectedHtml, PageMarkdown.toHtml(markdown), "Source: " + source);
     }
 
     @Test

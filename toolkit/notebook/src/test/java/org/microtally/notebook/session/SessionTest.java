@@ -273,15 +273,7 @@ class SessionTest {
     }
 
     private static void assertInterrupted(String code) throws Exception {
-        Thread stopper = new Thread(() -> {
-            try {
-                Thread.sleep(400);
-            } catch (InterruptedException e) {
-                return;
-            }
-            session.interrupt();
-        });
-        stopper.start();
+        Thread stopper = DelayedInterrupt.after(session, 400);
         long t0 = System.nanoTime();
         CellResult r = run(code);
         stopper.join();

@@ -99,15 +99,7 @@ class ValueExpressionTest {
     void expressionOnTheRouteCanBeInterrupted() throws InterruptedException {
         assertTrue(run("long spinForever() { long s = 0; while (true) { s++; } }").ok());
         assertTrue(ValueExpression.declaration("spinForever() + 1").isPresent());
-        Thread stopper = new Thread(() -> {
-            try {
-                Thread.sleep(800);
-            } catch (InterruptedException e) {
-                return;
-            }
-            session.interrupt();
-        });
-        stopper.start();
+        Thread stopper = DelayedInterrupt.after(session, 800);
         CellResult r = run("spinForever() + 1");
         stopper.join();
         assertEquals(CellResult.Outcome.INTERRUPTED, r.outcome());
