@@ -1,9 +1,12 @@
 package org.microtally.limit;
 
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
 import java.io.IOException;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.microtally.MeasuredAccuracy;
+import org.microtally.special.RelativisticFermiDirac;
 import org.microtally.units.Codata2018;
 import org.microtally.units.EnergyUnit;
 
@@ -108,5 +111,26 @@ class LimitStatedAccuracyTest {
         }
         MeasuredAccuracy.assertStated("MaxwellBoltzmannGas speed cdf (absolute)", worst,
                 MaxwellBoltzmannGas.MAX_CDF_ABSOLUTE_ERROR, points);
+    }
+
+    @Test
+    void relativisticGasInTheColdLimitMeetsTheIntegralsAccuracy() {
+        double worst = 0;
+        int points = 0;
+        for (double rho : new double[] {1e3, 1e5, 1e7, 1e9, 1e11, 1e13, 1e15}) {
+            ColdFermiGas cold = ColdFermiGas.electrons(rho, 2.0);
+            // kT = 1e-9 of the Fermi kinetic energy: thermal corrections ~ (kT/E_F)^2 = 1e-18, below rounding
+            double kelvin = 1e-9 * cold.fermiKineticEnergy() / Codata2018.BOLTZMANN;
+            RelativisticFermiGas hot = RelativisticFermiGas.electrons(rho, 2.0, kelvin);
+            // Source: Chandrasekhar's T = 0 closed forms (MNRAS 95, 207 (1935)), ColdFermiGas (a few ulp, its own test)
+            worst = Math.max(worst, Math.abs(hot.pressure() / cold.pressure() - 1));
+            worst = Math.max(worst, Math.abs(hot.energyDensity() / cold.kineticEnergyDensity() - 1));
+            worst = Math.max(worst, Math.abs(hot.netDensity() / cold.numberDensity() - 1));
+            points += 3;
+        }
+        System.out.printf("RelativisticFermiGas n, P, U vs the T = 0 closed forms: worst %.3g over %d values%n", worst, points);
+        // Source: as above; a bound, not a maximum over a table, so only measured <= stated is asserted
+        assertTrue(worst <= RelativisticFermiDirac.RELATIVE_ACCURACY,
+                "measured " + worst + " above the stated " + RelativisticFermiDirac.RELATIVE_ACCURACY);
     }
 }
