@@ -7,6 +7,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import org.microtally.count.Multinomial;
+import org.microtally.ensemble.Canonical;
 import org.microtally.limit.BoseGas;
 import org.microtally.limit.FermiGas;
 import org.microtally.limit.MaxwellBoltzmannGas;
@@ -83,19 +84,22 @@ public final class AccuracyTable {
                     "exact (the independent cross-check)"),
             row("`Multinomial` logs",
                     "exact rearrangement into non-negative terms plus the Stirling remainder (DLMF 5.11.1)",
-                    "<= 1e-12 relative up to N ~ 1e27"),
+                    "<= " + figure(Multinomial.MAX_ERROR) + " relative to max(1, abs ln) for every input (`Multinomial.MAX_ERROR`: a "
+                            + "bound; measured on exact logarithms and Stirling closed forms up to N ~ 1e27)"),
             row("`SharedTotal` mean and width",
                     "exact rational moments, rounded once",
                     "a few ulp"),
             row("`Canonical` Z_N",
                     "positive-term elementary / complete symmetric-polynomial products level by level, Boltzmann factors scaled by the grand canonical mu, one shared power-of-two exponent",
-                    "<= (S+N) 2^-53 relative worst case, ~1e-15 typical"),
+                    "<= (S+N) 2^-53 relative worst case; U within " + figure(Canonical.MEASURED_ENERGY_ERROR)
+                            + " relative on a 60-digit mpmath table (`Canonical.MEASURED_ENERGY_ERROR`: " + MEASURED + ")"),
             row("`Canonical` <n_i>, holes",
                     "Bose: sum of y^j Z_{N-j}/Z_N; Fermi/Gentile: prefix x suffix series (no deflation)",
                     "same relative bound, holes included"),
             row("`Canonical` C_V, Var E",
                     "energy moments through the same products, measured from the ground states' top shell in particle-hole form (non-negative terms); checked against U from occupations and a forward-difference dU/dT, disagreement warned",
-                    "~(S+N) 2^-53 (1 + <X>^2/Var X) relative, X the excitation energy; 1e-12 vs 60-digit mpmath in the tests"),
+                    "~(S+N) 2^-53 (1 + <X>^2/Var X) relative, X the excitation energy; Var E within "
+                            + figure(Canonical.MEASURED_VARIANCE_ERROR) + " relative on the same table (`Canonical.MEASURED_VARIANCE_ERROR`)"),
             row("`Canonical` large levels",
                     "a level of many states (g > 8(N+1) Bose, 3(N+1) Fermi, a cost model for Gentile) as one closed-form factor: binomial / negative binomial series, binary powering for Gentile",
                     "about 3 N 2^-53 relative per level; cost independent of g"),
