@@ -11,6 +11,7 @@ import org.microtally.ensemble.Canonical;
 import org.microtally.limit.BoseGas;
 import org.microtally.limit.FermiGas;
 import org.microtally.limit.MaxwellBoltzmannGas;
+import org.microtally.occupation.ChemicalPotential;
 import org.microtally.special.FermiDirac;
 import org.microtally.special.Polylog;
 import org.microtally.special.RelativisticFermiDirac;
@@ -138,7 +139,9 @@ public final class AccuracyTable {
                     "Z(M) accuracy x the stated cancellation factor; refused above 1e6"),
             row("`ChemicalPotential`",
                     "Brent (order 5) on a bracket valid by construction; bosons solved in ln(beta(e0 - mu))",
-                    "<N> to ~1e-14 relative"),
+                    "<N> within " + figure(ChemicalPotential.MEAN_NUMBER_ERROR) + " relative on an mpmath table of roots up to 5,000 "
+                            + "states (`ChemicalPotential.MEAN_NUMBER_ERROR`: " + MEASURED + "); the stopping noise grows like "
+                            + "sqrt(terms)"),
             row("`Microcanonical`",
                     "exact counts; central differences on the integer grid; exact integer deflation for occupations",
                     "counts exact, logs within 2 ulp"),
