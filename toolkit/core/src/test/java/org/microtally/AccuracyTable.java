@@ -16,6 +16,9 @@ import org.microtally.special.FermiDirac;
 import org.microtally.special.Polylog;
 import org.microtally.special.RelativisticFermiDirac;
 import org.microtally.special.Zeta;
+import org.microtally.structure.LaneEmden;
+import org.microtally.structure.NeutronStar;
+import org.microtally.structure.WhiteDwarf;
 
 /**
  * The README's "Methods and accuracy" table, generated: every figure in the accuracy column is
@@ -188,10 +191,11 @@ public final class AccuracyTable {
                             + "against the T = 0 closed forms); eta loses digits where pairs outnumber net electrons 1000-fold: flagged"),
             row("`LaneEmden`",
                     "series to xi = 1e-3, Dormand-Prince 8(5,3) (Hairer, Norsett & Wanner 1993) at 1e-13, surface as event root",
-                    "<= 1e-10 relative (closed forms n = 0, 1; refinement)"),
+                    "<= " + figure(LaneEmden.RELATIVE_ACCURACY) + " relative (`LaneEmden.RELATIVE_ACCURACY`: a bound; closed forms n = 0, 1; refinement)"),
             row("`WhiteDwarf`, `NeutronStar`",
                     "hydrostatic / TOV (Oppenheimer & Volkoff 1939) in the Fermi-energy variable, DP853 at 1e-12, surface (E_F = rest energy) as event root; maximum mass by Brent",
-                    "~1e-9 relative (refinement against tolerance 3e-15)"),
+                    "<= " + figure(WhiteDwarf.RELATIVE_ACCURACY) + " / " + figure(NeutronStar.RELATIVE_ACCURACY)
+                            + " relative (`RELATIVE_ACCURACY` constants: bounds, checked by refinement against tolerance 3e-15)"),
             row("lattice g(E), g(E, M), Potts g(E), hard-core g(n) (`TransferMatrix`)",
                     "site-by-site frontier transfer matrix, modular additions over floor(N log2 q/61)+1 primes in (2^61, 2^62), Garner CRT; checked sum = q^N; rows summed with one index (`RowSum`, vectorised by C2), three vectors (two state vectors and a term vector)",
                     "exact"),
