@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.microtally.count.Multinomial;
 import org.microtally.ensemble.Canonical;
+import org.microtally.ensemble.ExactCanonical;
 import org.microtally.limit.BoseGas;
 import org.microtally.limit.FermiGas;
 import org.microtally.limit.MaxwellBoltzmannGas;
@@ -210,7 +211,8 @@ public final class AccuracyTable {
                     "~ (levels) x 2^-53 relative"),
             row("`ExactCanonical` C peak",
                     "400-point scan, Brent root of dC/dbeta = beta(2k2 - beta k3)",
-                    "~1e-10 relative in kT"),
+                    "within " + figure(ExactCanonical.PEAK_LOCATION_ERROR) + " relative in kT on Ising rings of 4-32 spins "
+                            + "(`ExactCanonical.PEAK_LOCATION_ERROR`: " + MEASURED + "); more energies, more rounding"),
             row("<abs M>, <M^2>, chi, Binder U_4",
                     "from g(E, M), same weights",
                     "~ (entries) x 2^-53 relative"),
