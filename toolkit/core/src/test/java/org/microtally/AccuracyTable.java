@@ -8,6 +8,8 @@ import java.nio.file.Path;
 import java.util.List;
 import org.microtally.count.Multinomial;
 import org.microtally.ensemble.Canonical;
+import org.microtally.ensemble.Cutoffs;
+import org.microtally.ensemble.GroundLevelComparison;
 import org.microtally.ensemble.ExactCanonical;
 import org.microtally.limit.BoseGas;
 import org.microtally.limit.FermiGas;
@@ -83,7 +85,7 @@ public final class AccuracyTable {
                     "exact counts; energies within the stated smearing N x max rounding <= N delta/2"),
             row("`LevelDensityFit`",
                     "back-shifted Bethe state density (Bethe, PR 50, 332 (1936); Dilg et al., NPA 217, 269 (1973)) by Levenberg-Marquardt (More 1978; Commons Math)",
-                    "a description: rms residual reported; a within 2e-4 of pi^2 g/6 on the two-kind Fermi-gas test"),
+                    "a description: rms residual reported; a matches pi^2 g/6 on the two-kind Fermi-gas test"),
             row("`MicrostateEnumerator`",
                     "depth-first enumeration, lazy, capped at 10^7 by default",
                     "exact (the independent cross-check)"),
@@ -112,8 +114,10 @@ public final class AccuracyTable {
                     "exact ground-state limit where the lowest excitation > 700 kT; kT < 0 via Z_N(beta; e) = Z_N(-beta; -e) on bounded spectra",
                     "limit exact to double precision; as at kT > 0"),
             row("cutoff effect (`warnings()`, `Cutoffs`)",
-                    "geometric extrapolation of the top two level occupations; effect stated on N, U, S, <N_0>, C_V; target 1e-12",
-                    "an estimate: within 30% of the actual change in the tests"),
+                    "geometric extrapolation of the top two level occupations; effect stated on N, U, S, <N_0>, C_V; warned above "
+                            + figure(Cutoffs.DEFAULT_TOLERANCE) + " (`Cutoffs.DEFAULT_TOLERANCE`)",
+                    "an estimate: within " + Math.round(100 * Cutoffs.ESTIMATE_RELATIVE_ERROR) + "% of the actual change in the tests "
+                            + "(`Cutoffs.ESTIMATE_RELATIVE_ERROR`)"),
             row("`AlternatingRecursion`",
                     "Borrmann & Franke, J. Chem. Phys. 98, 2484 (1993); for comparison only",
                     "loses all digits for fermions at low T (shown in a test)"),
@@ -157,7 +161,8 @@ public final class AccuracyTable {
                     "exact (BigFraction), doubles correctly rounded"),
             row("`GroundLevelComparison`",
                     "kT from U(kT) = E by Brent in ln kT (Brent 1973)",
-                    "kT to 1e-12 relative"),
+                    "kT bracketed to " + figure(GroundLevelComparison.LN_KT_TOLERANCE) + " in ln kT (`GroundLevelComparison.LN_KT_TOLERANCE`), "
+                            + "the root of U(kT) as accurate as Canonical's U"),
             row("`Zeta.zeta(s)`, s > 1",
                     "eta(s)/(1 - 2^(1-s)) by Borwein's algorithm with 24 terms (CMS Conf. Proc. 27, 2000); direct sum for s >= 16; powers k^-s from one exponential per prime",
                     "<= " + figure(Zeta.MAX_RELATIVE_ERROR) + " relative (`Zeta.MAX_RELATIVE_ERROR`: " + MEASURED + ")"),
