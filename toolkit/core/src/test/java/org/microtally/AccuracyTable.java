@@ -7,9 +7,13 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import org.microtally.count.Multinomial;
+import org.microtally.ensemble.AngularMomentumProjection;
 import org.microtally.ensemble.Canonical;
+import org.microtally.ensemble.CanonicalSweep;
 import org.microtally.ensemble.Cutoffs;
 import org.microtally.ensemble.GroundLevelComparison;
+import org.microtally.ensemble.LabelResolvedGrandCanonical;
+import org.microtally.ensemble.Microcanonical;
 import org.microtally.ensemble.ExactCanonical;
 import org.microtally.limit.BoseGas;
 import org.microtally.limit.FermiGas;
@@ -128,8 +132,8 @@ public final class AccuracyTable {
                     "Z = prod Z_a of independent species (factorisation); one Canonical / GrandCanonical per species, identical species shared, distinct ones in parallel",
                     "as Canonical / GrandCanonical, one rounding per species in the totals"),
             row("`CanonicalSweep` ln Z_n, U_n, mu_n, addition energies",
-                    "the Canonical generating product read at every n; extra passes at lower mu* until every n meets the flushing bound S(N+1)2^-1073/P_GC(n) <= 1e-12; odd-even staggering (Satula, Dobaczewski & Nazarewicz, PRL 81, 3599 (1998))",
-                    "ln Z_n absolute <= (S+n)2^-53 + 1e-12; mu_n, Delta_n absolute ~2-4 kT times that"),
+                    "the Canonical generating product read at every n; extra passes at lower mu* until every n meets the flushing bound S(N+1)2^-1073/P_GC(n) <= " + figure(CanonicalSweep.FLUSH_TOLERANCE) + " (`CanonicalSweep.FLUSH_TOLERANCE`); odd-even staggering (Satula, Dobaczewski & Nazarewicz, PRL 81, 3599 (1998))",
+                    "ln Z_n absolute <= (S+n)2^-53 + " + figure(CanonicalSweep.FLUSH_TOLERANCE) + "; mu_n, Delta_n absolute ~2-4 kT times that"),
             row("`LabelledCanonical`, `LabelResolvedGrandCanonical`",
                     "positive-term series in particle number and label (symmetric-polynomial recurrences with a label exponent), fugacity-scaled; exact bit-set reachability for empty vs flushed labels",
                     "Z(L) relative <= (S+N)2^-53; labels with flushing bound > 1e-12 refused"),
@@ -141,10 +145,10 @@ public final class AccuracyTable {
                     "2(S+N)2^-53 relative + 1e-12 absolute"),
             row("`LabelResolvedGrandCanonical` (bosons)",
                     "particle numbers summed to n_max from a Chernoff bound e^{K - theta(n_max+1)} <= e^-60",
-                    "labels refused where the tail exceeds 1e-12 of P(L)"),
+                    "labels refused where the tail exceeds " + figure(LabelResolvedGrandCanonical.FLUSH_TOLERANCE) + " of P(L) (`LabelResolvedGrandCanonical.FLUSH_TOLERANCE`)"),
             row("`AngularMomentumProjection`",
                     "Z(J) = Z(M=J) - Z(M=J+1) (de-Shalit & Talmi)",
-                    "Z(M) accuracy x the stated cancellation factor; refused above 1e6"),
+                    "Z(M) accuracy x the stated cancellation factor; refused above " + figure(AngularMomentumProjection.MAX_CANCELLATION) + " (`AngularMomentumProjection.MAX_CANCELLATION`)"),
             row("`ChemicalPotential`",
                     "Brent (order 5) on a bracket valid by construction; bosons solved in ln(beta(e0 - mu))",
                     "<N> within " + figure(ChemicalPotential.MEAN_NUMBER_ERROR) + " relative on an mpmath table of roots up to 5,000 "
@@ -155,7 +159,7 @@ public final class AccuracyTable {
                     "counts exact, logs within 2 ulp"),
             row("`Microcanonical` beta_B, beta_G, C",
                     "central differences formed from exact integer ratios (log1p of a correctly rounded ratio)",
-                    "a few ulp relative, also for beta_G ~ 1e-36; C flagged where steps d and 2d disagree by > 10%"),
+                    "a few ulp relative, also for beta_G ~ 1e-36; C flagged where steps d and 2d disagree by > " + Math.round(100 * Microcanonical.HEAT_CAPACITY_STEP_AGREEMENT) + "%"),
             row("`MicrocanonicalLevelNumber`",
                     "Omega_l(j) = w_j Omega'(N-j, E-j e_l), Omega' the exact counts without level l",
                     "exact (BigFraction), doubles correctly rounded"),
