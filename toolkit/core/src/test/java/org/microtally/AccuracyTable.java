@@ -187,7 +187,8 @@ public final class AccuracyTable {
                     "Bose fugacity, U/N, C within " + figure(BoseGas.MAX_RELATIVE_ERROR) + " relative; Fermi U/N within "
                             + figure(FermiGas.MAX_RELATIVE_ERROR) + ", C within " + figure(FermiGas.MAX_HEAT_CAPACITY_ERROR)
                             + " relative, mu within " + figure(FermiGas.MAX_CHEMICAL_POTENTIAL_ERROR)
-                            + " of max(abs mu, kT) (`MAX_...` constants: " + MEASURED + ")"),
+                            + " x max(abs mu, kT) (`BoseGas.MAX_RELATIVE_ERROR`, `FermiGas.MAX_RELATIVE_ERROR`, `MAX_HEAT_CAPACITY_ERROR`, "
+                            + "`MAX_CHEMICAL_POTENTIAL_ERROR`: " + MEASURED + ")"),
             row("`MaxwellBoltzmannGas`",
                     "closed forms (series for small x in the cdf)",
                     "a few ulp; speed and energy cdf within " + figure(MaxwellBoltzmannGas.MAX_CDF_ABSOLUTE_ERROR)
