@@ -36,7 +36,11 @@ def moments(stat, energies, n, kT):
     return mean, v[n] / c[n] - mean * mean
 
 cases = [("FERMI", 1, 30, 60, "0.5"), ("FERMI", 2, 30, 90, "0.25"), ("FERMI", 2, 30, 90, "2.0"),
-         ("BOSE", 1, 30, 40, "1.5")]
+         ("BOSE", 1, 30, 40, "1.5"),
+         # added for the stated-accuracy test of Canonical (CanonicalStatedAccuracyTest)
+         ("FERMI", 1, 30, 60, "0.1"), ("FERMI", 1, 30, 60, "1.0"), ("FERMI", 1, 30, 60, "5.0"),
+         ("FERMI", 2, 40, 200, "0.5"), ("BOSE", 1, 30, 40, "0.5"), ("BOSE", 1, 30, 40, "3.0"),
+         ("BOSE", 2, 30, 100, "1.0")]
 with open("canonical_moments_mpmath.csv", "w") as f:
     f.write("statistics,spin,cutoff,N,kT,U,VarE\n")
     for stat, spin, cut, n, kT in cases:

@@ -30,7 +30,8 @@ import org.microtally.spectrum.Spectrum;
  * digits. A J whose Z(J) is zero to rounding (no multiplet) reads as no states: {@link #hasJ(int)}.
  */
 public final class AngularMomentumProjection implements Tabular {
-    private static final double MAX_CANCELLATION = 1e6;
+    /** Largest cancellation factor Z(M=J) / Z(J) accepted; beyond it Z(J) is refused (too few digits left). */
+    public static final double MAX_CANCELLATION = 1e6;
 
     private final LabelledCanonical source;
     private final int parity;

@@ -51,7 +51,8 @@ import org.microtally.spectrum.Statistics;
  * largest N (smaller n are less affected by a cutoff).
  */
 public final class CanonicalSweep implements Tabular {
-    private static final double FLUSH_TOLERANCE = 1e-12;
+    /** Largest flushing bound S(N+1) 2^-1073 / P_GC(n) accepted for an n read from a pass (relative error of Z_n). */
+    public static final double FLUSH_TOLERANCE = 1e-12;
 
     private final Spectrum spectrum;
     private final Statistics statistics;

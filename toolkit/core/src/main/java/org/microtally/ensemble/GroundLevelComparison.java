@@ -19,7 +19,8 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>Method: the canonical temperature is the root of U(kT) = E in ln kT by {@link org.microtally.Roots}
  * (Brent-type bracketed search, R. P. Brent, <i>Algorithms for Minimization without Derivatives</i>
- * (1973)), to 1e-12 + 1e-15 |ln kT| in ln kT, i.e. a relative accuracy of about 1e-12 in kT; each
+ * (1973)), bracketed to {@value #LN_KT_TOLERANCE} + 1e-15 |ln kT| in ln kT, i.e. kT within about
+ * {@value #LN_KT_TOLERANCE} relative of the root of the computed U(kT) (whose accuracy is Canonical's); each
  * evaluation is one canonical run. The grand canonical ensemble at that kT has mean number N but a mean energy that differs from
  * E at finite N (reported by {@link #grandCanonicalEnergy()}).
  *
@@ -27,6 +28,8 @@ import org.microtally.spectrum.Statistics;
  * stated on their classes.
  */
 public final class GroundLevelComparison implements Tabular {
+    /** Absolute tolerance of the matched ln kT (so kT is bracketed to about this relative). */
+    public static final double LN_KT_TOLERANCE = 1e-12;
     private final MicrocanonicalLevelNumber micro;
     private final Canonical canonical;
     private final GrandCanonical grand;
@@ -64,7 +67,7 @@ public final class GroundLevelComparison implements Tabular {
                     + Canonical.of(spectrum, statistics, n, Math.exp(hi)).energy() + ")",
                     "Raise the spectrum's cutoff.");
         }
-        double lnKT = Roots.solve("ln kT at which the canonical U equals E = " + e, gap, lo, hi, 1e-12);
+        double lnKT = Roots.solve("ln kT at which the canonical U equals E = " + e, gap, lo, hi, LN_KT_TOLERANCE);
         double kT = Math.exp(lnKT);
         Canonical canonical = Canonical.of(spectrum, statistics, n, kT);
         GrandCanonical grand = GrandCanonical.ofMeanNumber(spectrum, statistics, kT, n);

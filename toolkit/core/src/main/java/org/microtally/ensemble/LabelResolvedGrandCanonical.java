@@ -39,7 +39,8 @@ import org.microtally.spectrum.Statistics;
  * (up to n_max), are refused by the accessors ({@link #hasLabel} tells which).
  */
 public final class LabelResolvedGrandCanonical implements Tabular {
-    private static final double FLUSH_TOLERANCE = 1e-12;
+    /** Largest flushing bound, and (bosons) tail beyond n_max, accepted relative to P(L); labels beyond it are refused. */
+    public static final double FLUSH_TOLERANCE = 1e-12;
 
     private final double kT;
     private final double mu;

@@ -48,6 +48,8 @@ import org.microtally.spectrum.Statistics;
  * temperature on a discrete grid, not a rounding error.
  */
 public final class Microcanonical implements Tabular {
+    /** Relative agreement of C from steps d and 2d below which {@link #isHeatCapacityResolved} says no. */
+    public static final double HEAT_CAPACITY_STEP_AGREEMENT = 0.1;
     private final CountTable table;
     private final int n;
     private final int step;
@@ -304,7 +306,7 @@ public final class Microcanonical implements Tabular {
 
     /**
      * Whether the grid resolves the heat capacity at e: C from the central differences of step d and of
-     * step 2d agree within 10% (same sign). Where they do not (low energies, a few quanta per
+     * step 2d agree within a fraction {@value #HEAT_CAPACITY_STEP_AGREEMENT} (same sign). Where they do not (low energies, a few quanta per
      * particle) C(E) on the grid is a discretisation artefact (it can even come out negative for an
      * ideal gas at positive temperature), not a property of the system; false also where step 2d
      * leaves the table or meets Omega = 0.
@@ -320,7 +322,8 @@ public final class Microcanonical implements Tabular {
         }
         double b = lnRatio(table.count(n, e + 2 * step), table.count(n, e - 2 * step)) / (4.0 * step);
         double coarse = -b * b / s2;
-        return Math.signum(fine) == Math.signum(coarse) && Math.abs(fine - coarse) <= 0.1 * Math.abs(fine);
+        return Math.signum(fine) == Math.signum(coarse)
+                && Math.abs(fine - coarse) <= HEAT_CAPACITY_STEP_AGREEMENT * Math.abs(fine);
     }
 
     /**

@@ -31,11 +31,24 @@ import org.microtally.units.EnergyUnit;
  *       alpha(alpha+1) (zeta(alpha+1)/zeta(alpha)) (T/T_c)^alpha below;</li>
  *   <li>pressure (box only) P = (U/V)/alpha, i.e. 2U/(3V) in 3D.</li>
  * </ul>
- * Accuracy: that of the Bose functions (1e-13), about 1e-14 for the solved fugacity; the formulas
- * themselves are the thermodynamic limit (semiclassical density of states, zero-point energy
- * dropped), so finite-N corrections such as {@link #criticalTemperatureShift()} are separate.
+ * <p>Temperatures go in as kelvin ({@code double kelvin}) and come out as an {@link Energy} (k T),
+ * like every energy here: {@link #criticalThermalEnergy()}{@code .in(EnergyUnit.KELVIN)} is T_c in K.
+ *
+ * <p><b>Accuracy.</b> Fugacity, U/N and C/(N k) within {@value #MAX_RELATIVE_ERROR} relative, the
+ * largest error measured against a committed 30-digit mpmath table (test resource
+ * {@code limit/ideal-gas-mpmath.csv}, alpha = 3/2 and 3, T/T_c from 0.3 to 100), rounded up; it
+ * comes from the Bose functions ({@link Polylog#MAX_RELATIVE_ERROR}) and the fugacity solve. The
+ * formulas themselves are the thermodynamic limit (semiclassical density of states, zero-point
+ * energy dropped), so finite-N corrections such as {@link #criticalTemperatureShift()} are separate.
  */
 public final class BoseGas {
+    /**
+     * Largest relative error of fugacity, U/N and C/(N k) measured against the committed mpmath table
+     * (test resource {@code limit/ideal-gas-mpmath.csv}), rounded up; LimitStatedAccuracyTest fails if any
+     * row is worse, or if this figure is more than twice the measured maximum.
+     */
+    public static final double MAX_RELATIVE_ERROR = 3e-14;
+
     private final DensityOfStates dos;
     private final double amount;
     private final HarmonicTrap trap; // null unless built from a trap
@@ -95,8 +108,27 @@ public final class BoseGas {
         return Optional.ofNullable(trap);
     }
 
-    /** T_c in kelvin, k T_c = [N / (C Gamma(alpha) zeta(alpha))]^(1/alpha). */
+    /**
+     * k T_c = [N / (C Gamma(alpha) zeta(alpha))]^(1/alpha), the thermal energy at the condensation
+     * temperature, shown in kelvin ({@code .in(EnergyUnit.KELVIN)} is T_c in K).
+     */
+    public Energy criticalThermalEnergy() {
+        return Energy.of(criticalKelvin(), EnergyUnit.KELVIN);
+    }
+
+    /**
+     * T_c in kelvin.
+     *
+     * @deprecated temperatures leave this package as an {@link Energy}: use
+     *     {@link #criticalThermalEnergy()}{@code .in(EnergyUnit.KELVIN)}. Kept because worked notebook 01
+     *     calls it.
+     */
+    @Deprecated
     public double criticalTemperature() {
+        return criticalKelvin();
+    }
+
+    private double criticalKelvin() {
         return criticalEnergy / Codata2018.BOLTZMANN;
     }
 
@@ -131,7 +163,7 @@ public final class BoseGas {
 
     /** N_0/N = 1 - (T/T_c)^alpha below T_c, 0 above. */
     public double condensateFraction(double kelvin) {
-        double t = Checks.temperature(kelvin) / criticalTemperature();
+        double t = Checks.temperature(kelvin) / criticalKelvin();
         return t >= 1.0 ? 0.0 : -Math.expm1(dos.exponent() * Math.log(t));
     }
 
@@ -140,7 +172,7 @@ public final class BoseGas {
         double kt = Codata2018.BOLTZMANN * Checks.temperature(kelvin);
         double alpha = dos.exponent();
         double x = logFugacity(kelvin);
-        double t = kelvin / criticalTemperature();
+        double t = kelvin / criticalKelvin();
         double perKt;
         if (t <= 1.0) {
             perKt = alpha * Math.pow(t, alpha) * Zeta.zeta(alpha + 1.0) / Zeta.zeta(alpha);
@@ -154,7 +186,7 @@ public final class BoseGas {
     /** The heat capacity per particle at fixed N (and volume), C/(N k), dimensionless. */
     public double heatCapacityPerParticle(double kelvin) {
         double alpha = dos.exponent();
-        double t = Checks.temperature(kelvin) / criticalTemperature();
+        double t = Checks.temperature(kelvin) / criticalKelvin();
         if (t <= 1.0) {
             return alpha * (alpha + 1.0) * Zeta.zeta(alpha + 1.0) / Zeta.zeta(alpha) * Math.pow(t, alpha);
         }
@@ -184,7 +216,7 @@ public final class BoseGas {
     public ReferenceTable sweep(double... kelvins) {
         List<List<Object>> rows = new ArrayList<>();
         for (double t : kelvins) {
-            rows.add(List.of(t, t / criticalTemperature(), fugacity(t), condensateFraction(t),
+            rows.add(List.of(t, t / criticalKelvin(), fugacity(t), condensateFraction(t),
                     energyPerParticle(t).in(EnergyUnit.KELVIN), heatCapacityPerParticle(t)));
         }
         return new ReferenceTable(List.of("T (K)", "T/Tc", "fugacity", "condensate fraction", "U/(N k) (K)", "C/(N k)"),
@@ -194,7 +226,7 @@ public final class BoseGas {
     /** ln z: 0 at and below T_c, else the root of g_alpha(e^x) = zeta(alpha) (T_c/T)^alpha. */
     private double logFugacity(double kelvin) {
         double alpha = dos.exponent();
-        double t = kelvin / criticalTemperature();
+        double t = kelvin / criticalKelvin();
         if (t <= 1.0) {
             return 0.0;
         }
@@ -216,6 +248,6 @@ public final class BoseGas {
 
     @Override
     public String toString() {
-        return "ideal Bose gas (" + dos + "), amount " + amount + ", T_c = " + criticalTemperature() + " K";
+        return "ideal Bose gas (" + dos + "), amount " + amount + ", T_c = " + criticalKelvin() + " K";
     }
 }

@@ -35,10 +35,33 @@ import org.microtally.units.EnergyUnit;
  * ch. 2), with t = kT/E_F: mu = E_F [1 - (pi^2/6)(alpha-1) t^2], U/N = alpha/(alpha+1) E_F
  * [1 + (pi^2/6)(alpha+1) t^2], C/(N k) = (pi^2/3) alpha t (pi^2/2 T/T_F in a 3D box).
  *
- * <p>Accuracy of the exact route: about 1e-13 relative (that of F_j), mu to about 1e-14 relative to
- * max(|mu|, kT).
+ * <p>Temperatures go in as kelvin ({@code double kelvin}) and come out as an {@link Energy}:
+ * {@link #fermiEnergy()}{@code .in(EnergyUnit.KELVIN)} is T_F in K.
+ *
+ * <p><b>Accuracy</b> of the exact route: U/N within {@value #MAX_RELATIVE_ERROR} relative, C/(N k)
+ * within {@value #MAX_HEAT_CAPACITY_ERROR} relative, mu within {@value #MAX_CHEMICAL_POTENTIAL_ERROR}
+ * of max(|mu|, kT); the largest errors measured against a committed 30-digit mpmath table (test
+ * resource {@code limit/ideal-gas-mpmath.csv}, alpha = 3/2, 2 and 3, T/T_F from 0.001 to 100),
+ * rounded up. They come from the Fermi-Dirac integrals ({@link FermiDirac#MAX_RELATIVE_ERROR}) and
+ * the eta solve; C/(N k) is a difference of two terms that cancel by a factor ~eta^2 when the gas is
+ * degenerate, so it is worst just below the switch to the series at eta = 60 (T/T_F ~ 0.02 in a
+ * box). The Sommerfeld methods are truncated expansions: their error is the next order in
+ * (kT/E_F)^2, not a rounding figure.
  */
 public final class FermiGas {
+    /**
+     * Largest relative error of U/N measured against the committed mpmath table, rounded up;
+     * LimitStatedAccuracyTest fails if any row is worse, or if this is more than twice the maximum.
+     */
+    public static final double MAX_RELATIVE_ERROR = 1.5e-15;
+    /** Largest relative error of C/(N k) measured against the same table, rounded up (checked the same way). */
+    public static final double MAX_HEAT_CAPACITY_ERROR = 1e-12;
+    /**
+     * Largest error of mu relative to max(|mu|, kT) measured against the same table, rounded up
+     * (checked the same way).
+     */
+    public static final double MAX_CHEMICAL_POTENTIAL_ERROR = 1e-15;
+
     private static final double SERIES_FROM_ETA = 60.0;
 
     private final DensityOfStates dos;
@@ -97,8 +120,18 @@ public final class FermiGas {
         return Energy.of(fermiEnergy, EnergyUnit.JOULE);
     }
 
-    /** The Fermi temperature T_F = E_F / k in kelvin. */
+    /**
+     * The Fermi temperature T_F = E_F / k in kelvin.
+     *
+     * @deprecated temperatures leave this package as an {@link Energy}: use
+     *     {@link #fermiEnergy()}{@code .in(EnergyUnit.KELVIN)}. Kept because worked notebook 06 calls it.
+     */
+    @Deprecated
     public double fermiTemperature() {
+        return fermiKelvin();
+    }
+
+    private double fermiKelvin() {
         return fermiEnergy / Codata2018.BOLTZMANN;
     }
 
@@ -116,7 +149,7 @@ public final class FermiGas {
 
     /** Sommerfeld to second order: mu = E_F [1 - (pi^2/6)(alpha-1)(kT/E_F)^2]. */
     public Energy sommerfeldChemicalPotential(double kelvin) {
-        double t = Checks.temperature(kelvin) / fermiTemperature();
+        double t = Checks.temperature(kelvin) / fermiKelvin();
         return Energy.of(fermiEnergy * (1.0 - Math.PI * Math.PI / 6.0 * (dos.exponent() - 1.0) * t * t), EnergyUnit.JOULE);
     }
 
@@ -131,7 +164,7 @@ public final class FermiGas {
 
     /** Sommerfeld to second order: U/N = alpha/(alpha+1) E_F [1 + (pi^2/6)(alpha+1)(kT/E_F)^2]. */
     public Energy sommerfeldEnergyPerParticle(double kelvin) {
-        double t = Checks.temperature(kelvin) / fermiTemperature();
+        double t = Checks.temperature(kelvin) / fermiKelvin();
         double alpha = dos.exponent();
         return Energy.of(alpha / (alpha + 1.0) * fermiEnergy * (1.0 + Math.PI * Math.PI / 6.0 * (alpha + 1.0) * t * t),
                 EnergyUnit.JOULE);
@@ -160,7 +193,7 @@ public final class FermiGas {
 
     /** Sommerfeld to first order: C/(N k) = (pi^2/3) alpha T/T_F. */
     public double sommerfeldHeatCapacityPerParticle(double kelvin) {
-        return Math.PI * Math.PI / 3.0 * dos.exponent() * Checks.temperature(kelvin) / fermiTemperature();
+        return Math.PI * Math.PI / 3.0 * dos.exponent() * Checks.temperature(kelvin) / fermiKelvin();
     }
 
     /**
@@ -180,7 +213,7 @@ public final class FermiGas {
         List<List<Object>> rows = new ArrayList<>();
         Energy ef = fermiEnergy();
         for (double t : kelvins) {
-            rows.add(List.of(t, t / fermiTemperature(),
+            rows.add(List.of(t, t / fermiKelvin(),
                     chemicalPotential(t).ratio(ef), sommerfeldChemicalPotential(t).ratio(ef),
                     energyPerParticle(t).ratio(ef), sommerfeldEnergyPerParticle(t).ratio(ef),
                     heatCapacityPerParticle(t), sommerfeldHeatCapacityPerParticle(t)));
@@ -193,7 +226,7 @@ public final class FermiGas {
     private double reducedChemicalPotential(double kelvin) {
         double alpha = dos.exponent();
         double j = alpha - 1.0;
-        double lnY = alpha * Math.log(fermiTemperature() / kelvin) - Gamma.logGamma(alpha + 1.0);
+        double lnY = alpha * Math.log(fermiKelvin() / kelvin) - Gamma.logGamma(alpha + 1.0);
         double lo = lnY; // F_j(eta) <= e^eta, so F_j(lnY) <= Y
         double hi = Math.max(lnY, 0.0) + 1.0;
         double leadingRoot = Math.exp((lnY + Gamma.logGamma(alpha + 1.0)) / alpha); // eta^(j+1)/Gamma(j+2) = Y
@@ -271,6 +304,6 @@ public final class FermiGas {
     @Override
     public String toString() {
         return "ideal Fermi gas (" + dos + "), amount " + amount + ", E_F = " + fermiEnergy().in(EnergyUnit.ELECTRONVOLT)
-                + " eV, T_F = " + fermiTemperature() + " K";
+                + " eV, T_F = " + fermiKelvin() + " K";
     }
 }

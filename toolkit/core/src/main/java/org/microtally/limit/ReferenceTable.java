@@ -10,10 +10,12 @@ import org.microtally.Tabular;
  * with the exact numbers next to the Sommerfeld expansion. Immutable.
  *
  * <p>A container only: it computes nothing and adds no error. Its cells carry the accuracy of the
- * class that filled them, stated there: {@link FermiGas#sweep} (the columns without a suffix about
- * 1e-13 relative; the Sommerfeld columns are truncated expansions, mu and U to second order with the
+ * class that filled them, stated there: {@link FermiGas#sweep} (the columns without a suffix as
+ * stated on {@link FermiGas}: U within {@value FermiGas#MAX_RELATIVE_ERROR}, C within
+ * {@value FermiGas#MAX_HEAT_CAPACITY_ERROR} relative, mu within {@value FermiGas#MAX_CHEMICAL_POTENTIAL_ERROR}
+ * of max(|mu|, kT); the Sommerfeld columns are truncated expansions, mu and U to second order with the
  * next term of order (T/T_F)^4, C to first order with the next term of order (T/T_F)^3) and
- * {@link BoseGas#sweep} (about 1e-13 relative, from the Bose functions). Those accuracies are within
+ * {@link BoseGas#sweep} (within {@value BoseGas#MAX_RELATIVE_ERROR} relative). Those accuracies are within
  * the thermodynamic-limit model (a power-law density of states, {@link DensityOfStates}); they are
  * not statements about a finite N.
  *

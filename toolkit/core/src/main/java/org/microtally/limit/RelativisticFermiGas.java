@@ -37,9 +37,10 @@ import org.microtally.units.Codata2018;
  * last iterate's integrals by a first-order step in eta (with dS_k/deta; neglected term below ~2e-16
  * relative) rather than a fresh evaluation; iterates not predicted to be the last sum only
  * F_1/2 + beta F_3/2 and its derivative ({@link RelativisticFermiDirac#numberIntegral}); every
- * integral carries {@link RelativisticFermiDirac#RELATIVE_ACCURACY}, so n, P, U and S are good to
- * about 1e-12 relative. Where pairs outnumber the net electrons a thousandfold the net charge is a
- * small difference and eta loses digits ({@link #notes()} says so); P, U and S do not.
+ * integral carries {@value RelativisticFermiDirac#RELATIVE_ACCURACY} relative, and so do n, P, U and S
+ * (a sum of positive integrals, plus the first-order step above; measured against the T = 0 closed
+ * forms in the degenerate limit by LimitStatedAccuracyTest). Where pairs outnumber the net
+ * electrons a thousandfold the net charge is a small difference and eta loses digits ({@link #notes()} says so); P, U and S do not.
  *
  * <p><b>Model limits.</b> Ideal gas of one species and its antiparticles only: no ions, no photons
  * (radiation pressure), no Coulomb corrections, no neutrinos, no nuclear forces (neutrons),

@@ -16,11 +16,13 @@ import org.microtally.Tabular;
  * theta = 0 found as a root (theta^n is taken as max(theta, 0)^n so that no step overshooting the
  * surface sees a negative base).
  *
- * <p><b>Accuracy.</b> xi_1 and omega_n to 1e-10 relative or better for 0 &lt;= n &lt;= 4.5 (tested
- * against the closed forms for n = 0 and 1, and by step refinement). n &gt;= 5 has no finite radius
+ * <p><b>Accuracy.</b> xi_1 and omega_n within {@value #RELATIVE_ACCURACY} relative for
+ * 0 &lt;= n &lt;= 4.5 (a bound, tested against the closed forms for n = 0 and 1, and by step refinement). n &gt;= 5 has no finite radius
  * and is refused.
  */
 public final class LaneEmden implements Tabular {
+    /** Stated relative accuracy of xi_1 and omega_n (a bound; LaneEmdenTest checks it). */
+    public static final double RELATIVE_ACCURACY = 1e-10;
     private static final double START = 1e-3;
     static final double TOLERANCE = 1e-13;
 

@@ -23,14 +23,17 @@ import org.microtally.units.Codata2018;
  * A = m_n^4 c^5 / (24 pi^2 hbar^3), r = L s, L = c^2 / sqrt(4 pi A G), m = (c^2 L / G) q. Power series
  * near the centre, then the adaptive Dormand-Prince 8(5,3) pair at tolerance 1e-12; the surface is
  * the root of ln y = 0 (chemical potential equal to the rest energy). The maximum mass is located by
- * Brent's minimiser over ln rho_c (relative tolerance 1e-8 in rho_c). Mass and radius to about 1e-9
- * relative (tested by step refinement); the maximum mass to about 1e-12 relative (it is stationary).
+ * Brent's minimiser over ln rho_c (relative tolerance 1e-8 in rho_c). Mass and radius within
+ * {@value #RELATIVE_ACCURACY} relative (a bound, tested by step refinement); locating the maximum
+ * mass adds only about 1e-12 relative to that (the mass is stationary in rho_c there).
  *
  * <p><b>Model limits.</b> A toy: pure neutrons without protons, electrons or nuclear forces,
  * non-rotating, cold. Its maximum mass (about 0.71 M_sun) is far below that of observed neutron stars;
  * the models beyond the maximum-mass density are unstable. Not for engineering or safety use.
  */
 public final class NeutronStar extends CompactStar {
+    /** Stated relative accuracy of mass and radius (a bound; NeutronStarTest checks it by step refinement). */
+    public static final double RELATIVE_ACCURACY = 1e-9;
     /** Smallest accepted central density, kg/m^3 (1e14 g/cm^3). */
     public static final double MIN_CENTRAL_DENSITY = 1e17;
     /** Largest accepted central density, kg/m^3 (1e18 g/cm^3). */

@@ -22,8 +22,8 @@ import org.microtally.units.Codata2018;
  * {@link LaneEmden}), about 5.83 / mu_e^2 solar masses with CODATA 2018 constants and IAU 2015 M_sun.
  *
  * <p><b>Method and accuracy.</b> Power series to s = 1e-4 of the central scale, then the adaptive
- * Dormand-Prince 8(5,3) pair at tolerance 1e-12 ({@link SurfaceIntegration}); mass and radius to
- * about 1e-9 relative (tested by step refinement).
+ * Dormand-Prince 8(5,3) pair at tolerance 1e-12 ({@link SurfaceIntegration}); mass and radius within
+ * {@value #RELATIVE_ACCURACY} relative (a bound, tested by step refinement).
  *
  * <p><b>Model limits.</b> Ideal, cold, non-rotating, non-magnetic, Newtonian gravity; no Coulomb
  * (lattice) corrections, no inverse beta decay (neutronisation, which sets in near 1e10-1e11 g/cm^3
@@ -32,6 +32,8 @@ import org.microtally.units.Codata2018;
  * safety use.
  */
 public final class WhiteDwarf extends CompactStar {
+    /** Stated relative accuracy of mass and radius (a bound; WhiteDwarfTest checks it by step refinement). */
+    public static final double RELATIVE_ACCURACY = 1e-9;
     /** Central densities accepted, kg/m^3 (1e3 to 1e11 g/cm^3). */
     public static final double MIN_CENTRAL_DENSITY = 1e6;
     /** Largest accepted central density, kg/m^3 (1e11 g/cm^3). */

@@ -40,10 +40,10 @@ class CutoffEffectTest {
         double dU = Math.abs(far.energy() - cut.energy()) / far.energy();
         double dS = Math.abs(far.entropy() - cut.entropy()) / far.entropy();
         double dC = Math.abs(far.heatCapacity() - cut.heatCapacity());
-        assertEquals(dN0, f.groundLevel(), 0.3 * dN0);
-        assertEquals(dU, f.energy(), 0.3 * dU);
-        assertEquals(dS, f.entropy(), 0.3 * dS);
-        assertEquals(dC, f.heatCapacity(), 0.3 * dC);
+        assertEquals(dN0, f.groundLevel(), Cutoffs.ESTIMATE_RELATIVE_ERROR * dN0);
+        assertEquals(dU, f.energy(), Cutoffs.ESTIMATE_RELATIVE_ERROR * dU);
+        assertEquals(dS, f.entropy(), Cutoffs.ESTIMATE_RELATIVE_ERROR * dS);
+        assertEquals(dC, f.heatCapacity(), Cutoffs.ESTIMATE_RELATIVE_ERROR * dC);
         // the old top-level threshold (1e-8 N) stayed silent here although <N_0> moves by 2.6e-8
         assertTrue(cut.warnings().stream().anyMatch(w -> w.contains("<N_0> by 2.6e-08")), cut.warnings().toString());
         assertTrue(far.warnings().isEmpty(), far.warnings().toString());

@@ -42,8 +42,8 @@ class LimitReferenceTest {
         // Source: k T_c = hbar omega_g (N / zeta(3))^(1/3) (Bagnato, Pritchard, Kleppner, PRA 35, 4354 (1987)),
         // hand calculation with CODATA 2018 and OEIS A002117: 34.392 nK
         double handTc = HBAR * omegaG * Math.cbrt(2000 / ZETA_3) / K_B;
-        assertRelative(handTc, gas.criticalTemperature(), 1e-13, "T_c of the demo trap");
-        assertEquals(34.392e-9, gas.criticalTemperature(), 0.001e-9);
+        assertRelative(handTc, gas.criticalThermalEnergy().in(EnergyUnit.KELVIN), 1e-13, "T_c of the demo trap");
+        assertEquals(34.392e-9, gas.criticalThermalEnergy().in(EnergyUnit.KELVIN), 0.001e-9);
     }
 
     @Test
@@ -54,8 +54,8 @@ class LimitReferenceTest {
         // Source: n lambda_T^3 = zeta(3/2), lambda_T = sqrt(2 pi hbar^2 / (m k T)) (K. Huang, Statistical
         // Mechanics, 2nd ed., ch. 12, from memory); hand calculation with CODATA 2018 and OEIS A078434: 85.728 nK
         double handTc = 2 * Math.PI * HBAR * HBAR / (m * K_B) * Math.pow(n / ZETA_3_2, 2.0 / 3.0);
-        assertRelative(handTc, gas.criticalTemperature(), 1e-13, "box T_c");
-        double tc = gas.criticalTemperature();
+        assertRelative(handTc, gas.criticalThermalEnergy().in(EnergyUnit.KELVIN), 1e-13, "box T_c");
+        double tc = gas.criticalThermalEnergy().in(EnergyUnit.KELVIN);
         double lambda = Math.sqrt(2 * Math.PI * HBAR * HBAR / (m * K_B * tc));
         // Source: same definition, n lambda^3 at T_c equals zeta(3/2)
         assertRelative(ZETA_3_2, n * lambda * lambda * lambda, 1e-13, "n lambda^3 at T_c");
@@ -66,11 +66,11 @@ class LimitReferenceTest {
         BoseGas trap = BoseGas.inHarmonicTrap(DEMO_TRAP, 2000);
         BoseGas box = BoseGas.inBox(87 * U, 1e19);
         // Source: N_0/N = 1 - (T/T_c)^3 in a harmonic trap, 1 - (T/T_c)^(3/2) in a box (Bagnato et al. 1987)
-        assertEquals(0.875, trap.condensateFraction(0.5 * trap.criticalTemperature()), 1e-15);
-        assertEquals(1.0 - Math.pow(0.5, 1.5), box.condensateFraction(0.5 * box.criticalTemperature()), 1e-15);
+        assertEquals(0.875, trap.condensateFraction(0.5 * trap.criticalThermalEnergy().in(EnergyUnit.KELVIN)), 1e-15);
+        assertEquals(1.0 - Math.pow(0.5, 1.5), box.condensateFraction(0.5 * box.criticalThermalEnergy().in(EnergyUnit.KELVIN)), 1e-15);
         // Source: no condensate above T_c (same)
-        assertEquals(0.0, trap.condensateFraction(1.2 * trap.criticalTemperature()));
-        assertEquals(1.0, trap.fugacity(0.9 * trap.criticalTemperature()));
+        assertEquals(0.0, trap.condensateFraction(1.2 * trap.criticalThermalEnergy().in(EnergyUnit.KELVIN)));
+        assertEquals(1.0, trap.fugacity(0.9 * trap.criticalThermalEnergy().in(EnergyUnit.KELVIN)));
     }
 
     @Test
@@ -90,14 +90,14 @@ class LimitReferenceTest {
     @Test
     void boseHeatCapacityAtTcFromBothSides() {
         BoseGas box = BoseGas.inBox(87 * U, 1e19);
-        double tc = box.criticalTemperature();
+        double tc = box.criticalThermalEnergy().in(EnergyUnit.KELVIN);
         // Source: C/(N k) at T_c = 15 zeta(5/2) / (4 zeta(3/2)) = 1.925 for the ideal Bose gas in a box, continuous
         // there (Huang, Statistical Mechanics, 2nd ed., sec. 12.3)
         double atTc = 15 * ZETA_5_2 / (4 * ZETA_3_2);
         assertRelative(atTc, box.heatCapacityPerParticle(tc), 1e-14, "box C at T_c from below");
         assertRelative(atTc, box.heatCapacityPerParticle(tc * (1 + 1e-10)), 1e-3, "box C at T_c from above");
         BoseGas trap = BoseGas.inHarmonicTrap(DEMO_TRAP, 2000);
-        double tcTrap = trap.criticalTemperature();
+        double tcTrap = trap.criticalThermalEnergy().in(EnergyUnit.KELVIN);
         // Source: harmonic trap, C/(N k) = 12 zeta(4)/zeta(3) just below T_c and 12 zeta(4)/zeta(3) - 9 zeta(3)/zeta(2)
         // just above (a jump; L. Pitaevskii and S. Stringari, Bose-Einstein Condensation (2003), ch. 10, from memory)
         assertRelative(12 * ZETA_4 / ZETA_3, trap.heatCapacityPerParticle(tcTrap), 1e-14, "trap C below T_c");
@@ -109,7 +109,7 @@ class LimitReferenceTest {
     void bosePressureBelowTc() {
         double m = 87 * U;
         BoseGas box = BoseGas.inBox(m, 1e19);
-        double t = 0.7 * box.criticalTemperature();
+        double t = 0.7 * box.criticalThermalEnergy().in(EnergyUnit.KELVIN);
         double lambda = Math.sqrt(2 * Math.PI * HBAR * HBAR / (m * K_B * t));
         // Source: P = kT zeta(5/2) / lambda^3 below T_c, independent of n (Huang, ch. 12, from memory; hand calculation)
         assertRelative(K_B * t * ZETA_5_2 / (lambda * lambda * lambda), box.pressure(t), 1e-13, "P below T_c");
@@ -121,7 +121,7 @@ class LimitReferenceTest {
         double n = 1e19;
         BoseGas bose = BoseGas.inBox(m, n);
         FermiGas fermi = FermiGas.inBox(m, n, 1);
-        double t = 300 * bose.criticalTemperature();
+        double t = 300 * bose.criticalThermalEnergy().in(EnergyUnit.KELVIN);
         double lambda = Math.sqrt(2 * Math.PI * HBAR * HBAR / (m * K_B * t));
         double degeneracy = n * lambda * lambda * lambda; // ~ 1.5e-4
         // Source: C/(N k) -> 3/2 for the classical ideal gas, with the first quantum correction
@@ -142,14 +142,14 @@ class LimitReferenceTest {
         // Source: Ashcroft & Mermin, Solid State Physics (1976), Table 2.1, Cu: E_F = 7.00 eV, T_F = 8.16e4 K
         // (the table's E_F and T_F are rounded separately; E_F = hbar^2 (3 pi^2 n)^(2/3) / 2m gives 7.03 eV)
         assertEquals(7.00, cu.fermiEnergy().in(EnergyUnit.ELECTRONVOLT), 0.05);
-        assertEquals(8.16e4, cu.fermiTemperature(), 0.01e4);
+        assertEquals(8.16e4, cu.fermiEnergy().in(EnergyUnit.KELVIN), 0.01e4);
         // Source: E_F = hbar^2/(2 m_e) (3 pi^2 n)^(2/3), Ashcroft & Mermin ch. 2 with k_F^3 = 3 pi^2 n, hand calculation
         double hand = HBAR * HBAR / (2 * M_E) * Math.pow(3 * Math.PI * Math.PI * 8.47e28, 2.0 / 3.0);
         assertRelative(hand / EV, cu.fermiEnergy().in(EnergyUnit.ELECTRONVOLT), 1e-13, "E_F(Cu)");
-        assertRelative(hand / K_B, cu.fermiTemperature(), 1e-13, "T_F(Cu)");
+        assertRelative(hand / K_B, cu.fermiEnergy().in(EnergyUnit.KELVIN), 1e-13, "T_F(Cu)");
         // Source: ground-state pressure P = (2/5) n E_F (Ashcroft & Mermin ch. 2, from memory), at T = 1e-4 T_F
         // where the thermal correction (5 pi^2/12)(T/T_F)^2 ~ 4e-8 is below the tolerance
-        assertRelative(0.4 * 8.47e28 * hand, cu.pressure(1e-4 * cu.fermiTemperature()), 1e-7, "P(Cu)");
+        assertRelative(0.4 * 8.47e28 * hand, cu.pressure(1e-4 * cu.fermiEnergy().in(EnergyUnit.KELVIN)), 1e-7, "P(Cu)");
     }
 
     @Test
@@ -169,7 +169,7 @@ class LimitReferenceTest {
     @Test
     void sommerfeldChemicalPotentialAgreesToFourthOrderThenFails() {
         FermiGas cu = FermiGas.freeElectrons(8.47e28);
-        double tf = cu.fermiTemperature();
+        double tf = cu.fermiEnergy().in(EnergyUnit.KELVIN);
         Energy ef = cu.fermiEnergy();
         double t = 0.01;
         double exact = cu.chemicalPotential(t * tf).ratio(ef);
@@ -193,7 +193,7 @@ class LimitReferenceTest {
     @Test
     void degenerateHeatCapacityIsContinuousAcrossTheSeriesSwitch() {
         FermiGas cu = FermiGas.freeElectrons(8.47e28);
-        double tf = cu.fermiTemperature();
+        double tf = cu.fermiEnergy().in(EnergyUnit.KELVIN);
         // the exact route switches to the cancellation-free series at eta = 60 (T/T_F ~ 1/60):
         // Source: Sommerfeld series C/(N k) = (pi^2/2) t - (3 pi^4/20) t^3 + O(t^5) (as above), both sides
         for (double t : new double[] {1.0 / 59.0, 1.0 / 61.0, 1e-3, 1e-6}) {
@@ -207,7 +207,7 @@ class LimitReferenceTest {
         double m = 6 * U;
         double n = 1e18;
         FermiGas gas = FermiGas.inBox(m, n, 2);
-        double t = 1000 * gas.fermiTemperature();
+        double t = 1000 * gas.fermiEnergy().in(EnergyUnit.KELVIN);
         double lambda = Math.sqrt(2 * Math.PI * HBAR * HBAR / (m * K_B * t));
         double y = n * lambda * lambda * lambda / 2;
         // Source: classical limit mu/kT = ln(n lambda^3 / g) + (n lambda^3/g)/2^(3/2) + O((n lambda^3)^2)
@@ -277,6 +277,20 @@ class LimitReferenceTest {
         assertTrue(d < 1.95 / Math.sqrt(n), "KS distance " + d);
         // same seed, same sample
         assertEquals(v[12345], n2.sampleSpeeds(n, 20261201L)[12345]);
+    }
+
+    @Test
+    @SuppressWarnings("deprecation")
+    void temperaturesLeaveAsEnergiesAndTheDeprecatedKelvinMethodsAgree() {
+        BoseGas bose = BoseGas.inHarmonicTrap(DEMO_TRAP, 2000);
+        FermiGas foil = FermiGas.freeElectrons(5.0e28);
+        MaxwellBoltzmannGas n2 = MaxwellBoltzmannGas.ofAtomicMass(28.0134, 300);
+        // Source: T = E / k_B with CODATA 2018 k_B (exact since 2019), typed in by hand above
+        assertRelative(bose.criticalThermalEnergy().in(EnergyUnit.JOULE) / K_B, bose.criticalTemperature(), 4e-16, "T_c");
+        assertRelative(foil.fermiEnergy().in(EnergyUnit.JOULE) / K_B, foil.fermiTemperature(), 4e-16, "T_F");
+        assertRelative(300 * K_B, n2.thermalEnergy().in(EnergyUnit.JOULE), 4e-16, "k T");
+        // common practice, no source: an energy made from a temperature prints in kelvin
+        assertTrue(bose.criticalThermalEnergy().toString().endsWith(" K"), bose.criticalThermalEnergy().toString());
     }
 
     @Test

@@ -31,12 +31,12 @@ class LaneEmdenTest {
     void closedFormsForNZeroOneAndFive() {
         // Source: closed form theta = 1 - xi^2/6 (n = 0): xi_1 = sqrt 6, omega = 2 sqrt 6 (Chandrasekhar 1939, ch. IV)
         LaneEmden zero = LaneEmden.solve(0.0);
-        assertEquals(Math.sqrt(6), zero.firstZero(), 1e-10 * Math.sqrt(6));
-        assertEquals(2 * Math.sqrt(6), zero.massConstant(), 1e-10 * 2 * Math.sqrt(6));
+        assertEquals(Math.sqrt(6), zero.firstZero(), LaneEmden.RELATIVE_ACCURACY * Math.sqrt(6));
+        assertEquals(2 * Math.sqrt(6), zero.massConstant(), LaneEmden.RELATIVE_ACCURACY * 2 * Math.sqrt(6));
         // Source: closed form theta = sin(xi)/xi (n = 1): xi_1 = pi, omega = pi
         LaneEmden one = LaneEmden.solve(1.0);
-        assertEquals(Math.PI, one.firstZero(), 1e-10 * Math.PI);
-        assertEquals(Math.PI, one.massConstant(), 1e-10 * Math.PI);
+        assertEquals(Math.PI, one.firstZero(), LaneEmden.RELATIVE_ACCURACY * Math.PI);
+        assertEquals(Math.PI, one.massConstant(), LaneEmden.RELATIVE_ACCURACY * Math.PI);
         assertEquals(Math.sin(2.0) / 2.0, LaneEmden.theta(1.0, 2.0), 1e-11);
         // Source: closed form theta = (1 + xi^2/3)^(-1/2) (n = 5, Schuster 1883)
         for (double xi : new double[] {5e-4, 0.5, 3.0, 20.0}) {
@@ -52,8 +52,8 @@ class LaneEmdenTest {
             LaneEmden reference = LaneEmden.solve(n, 3e-15);
             LaneEmden standard = LaneEmden.solve(n);
             LaneEmden coarse = LaneEmden.solve(n, 1e-11);
-            assertEquals(reference.firstZero(), standard.firstZero(), 1e-10 * reference.firstZero(), "xi_1, n = " + n);
-            assertEquals(reference.massConstant(), standard.massConstant(), 1e-10 * reference.massConstant(), "omega, n = " + n);
+            assertEquals(reference.firstZero(), standard.firstZero(), LaneEmden.RELATIVE_ACCURACY * reference.firstZero(), "xi_1, n = " + n);
+            assertEquals(reference.massConstant(), standard.massConstant(), LaneEmden.RELATIVE_ACCURACY * reference.massConstant(), "omega, n = " + n);
             assertEquals(reference.firstZero(), coarse.firstZero(), 1e-8 * reference.firstZero(), "coarse xi_1, n = " + n);
             assertEquals(reference.massConstant(), coarse.massConstant(), 1e-8 * reference.massConstant(), "coarse omega, n = " + n);
         }

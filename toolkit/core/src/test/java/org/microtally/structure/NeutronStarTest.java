@@ -47,8 +47,8 @@ class NeutronStarTest {
         for (double xc : new double[] {0.1, 0.83, 3}) {
             NeutronStar ref = NeutronStar.solve(xc, 1, 3e-15);
             NeutronStar std = NeutronStar.solve(xc, 1, NeutronStar.TOLERANCE);
-            assertEquals(ref.mass(), std.mass(), 1e-9 * ref.mass(), "M at x_c = " + xc);
-            assertEquals(ref.radiusKm(), std.radiusKm(), 1e-9 * ref.radiusKm(), "R at x_c = " + xc);
+            assertEquals(ref.mass(), std.mass(), NeutronStar.RELATIVE_ACCURACY * ref.mass(), "M at x_c = " + xc);
+            assertEquals(ref.radiusKm(), std.radiusKm(), NeutronStar.RELATIVE_ACCURACY * ref.radiusKm(), "R at x_c = " + xc);
         }
     }
 

@@ -81,8 +81,8 @@ class WhiteDwarfTest {
         for (double xc : new double[] {1e-3, 0.3, 3, 30}) {
             WhiteDwarf ref = WhiteDwarf.ofCentralRelativityParameter(xc, 2.0, 3e-15);
             WhiteDwarf std = WhiteDwarf.ofCentralRelativityParameter(xc, 2.0, WhiteDwarf.TOLERANCE);
-            assertEquals(ref.mass(), std.mass(), 1e-9 * ref.mass(), "M at x_c = " + xc);
-            assertEquals(ref.radius(), std.radius(), 1e-9 * ref.radius(), "R at x_c = " + xc);
+            assertEquals(ref.mass(), std.mass(), WhiteDwarf.RELATIVE_ACCURACY * ref.mass(), "M at x_c = " + xc);
+            assertEquals(ref.radius(), std.radius(), WhiteDwarf.RELATIVE_ACCURACY * ref.radius(), "R at x_c = " + xc);
         }
     }
 

@@ -13,7 +13,7 @@ import java.util.regex.Pattern;
 final class HeapSize {
     /** The environment variable of our own name. */
     static final String ENV = "MICROTALLY_HEAP";
-    /** The plain kernel's heap when nothing is set (issue 4: a 55-cell session stayed near 470 MB in 1 GiB). */
+    /** The plain kernel's heap when nothing is set (a 55-cell session fits well within it: see Session's measured footprint). */
     static final String KERNEL_DEFAULT = "1g";
     /** The Spark kernel's heap when nothing is set (the driver holds Spark's own structures as well). */
     static final String SPARK_DEFAULT = "2g";

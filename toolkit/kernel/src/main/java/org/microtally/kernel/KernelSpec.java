@@ -25,9 +25,11 @@ import org.microtally.notebook.session.KernelIdentity;
  * the new files.
  *
  * <p>The argv runs this JVM's own {@code java} executable with {@link #jvmOptions(String)} on the
- * copied jar. The heap settings keep a long notebook session small: measured for issue 4, a session
- * of 55 cells grew to about 1.8 GB with the default collector and heap, and stayed near 470 MB with
- * {@code -Xmx1g -XX:+UseSerialGC}; SerialGC also starts fastest on a 2-core machine. The heap is
+ * copied jar. The heap settings keep a long notebook session small: a session of 55 cells grows far
+ * beyond what is live with the default collector and heap, and stays small with
+ * {@code -Xmx1g -XX:+UseSerialGC} (the measured figures and the command that measured them are in
+ * {@code org.microtally.notebook.session.Session}'s documentation); SerialGC also starts fastest on a
+ * 2-core machine. The heap is
  * settable ({@link HeapSize}: {@code install-kernel --heap SIZE} or {@code MICROTALLY_HEAP}).
  */
 final class KernelSpec {

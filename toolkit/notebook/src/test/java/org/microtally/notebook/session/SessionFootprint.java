@@ -9,10 +9,14 @@ import java.util.Locale;
  * A measurement, not a test: session start time, trivial-cell time and the resident set size of
  * the JVM over a long session of 55 cells. Run it with the JVM flags under study, e.g.
  * <pre>
- * mvn -q -o -pl toolkit/notebook -am test-compile
- * java -Xmx1g -XX:+UseSerialGC -cp toolkit/notebook/target/test-classes:toolkit/notebook/target/classes:toolkit/core/target/classes:$HOME/.m2/repository/com/google/code/gson/gson/2.15.0/gson-2.15.0.jar \
- *      org.microtally.notebook.session.SessionFootprint
+ * mvn -B -q -o -pl toolkit/core,toolkit/notebook test-compile dependency:build-classpath \
+ *     -Dmdep.includeScope=test -Dmdep.outputFile=/tmp/microtally-notebook.classpath
+ * java -Xmx1g -XX:+UseSerialGC \
+ *     -cp toolkit/notebook/target/test-classes:toolkit/notebook/target/classes:$(cat /tmp/microtally-notebook.classpath) \
+ *     org.microtally.notebook.session.SessionFootprint
  * </pre>
+ * (the session needs the notebook module's whole class path, Tablesaw included). The figures quoted in
+ * {@link Session}'s documentation and the README come from this program; quote them from there.
  * Each cell allocates and sums a fresh array of 200,000 doubles, defines a method and a record,
  * and prints a line: the kind of work a notebook cell does, not a stress test.
  */
