@@ -21,8 +21,10 @@ import jdk.jshell.Snippet;
  * are reported with the frames translated as JShell translates them ({@link SnippetFrames}), and
  * an interrupt stops it as any snippet (it runs through {@link EngineControl}).
  *
- * <p>Measured (toolkit/bench/kernel-latency.py, this machine): a repeated trivial cell is answered
- * without javac; a cell whose source differs from the previous one compiles as before.
+ * <p>Measured with toolkit/bench/kernel-latency.py through the real kernel (2-core machine, load
+ * average 12-13, medians of 50 cells): the engine's time for a repeated {@code 1 + 1} was 3.7 ms
+ * (round trip 13.6 ms), for a new cell each time 76 ms (round trip 97 ms, almost all of it javac
+ * inside JShell); a cell whose source differs from the previous one compiles exactly as before.
  */
 final class RepeatedSnippet {
     private long generation;
