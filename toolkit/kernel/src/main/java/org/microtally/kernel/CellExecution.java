@@ -96,6 +96,7 @@ final class CellExecution {
         phases.putAll(result.phases().millis());
         phases.put("kernel_out", (done - t1) / 1e6);        // execute_result built and published
         metadata.put("microtally_phases_ms", phases);
+        metadata.put("microtally_reran_snippets", result.phases().reran());   // snippets run again without compiling
         if (result.ok()) {
             wire.reply(socket, m, executeReplyType(), new ExecuteOk(n), metadata);
             return;

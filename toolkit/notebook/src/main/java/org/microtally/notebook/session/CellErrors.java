@@ -123,6 +123,30 @@ final class CellErrors {
     }
 
     /**
+     * A runtime error of a snippet the engine re-ran itself ({@link RepeatedSnippet}): the same
+     * report {@link #runtimeError} gives for JShell's, with the real throwable's frames (and those
+     * of its causes) translated by {@code frames} as JShell translates them.
+     */
+    CellResult rerunError(Throwable real, int cell, SnippetFrames frames) {
+        if (real == null) {
+            return runtimeError(null, null, cell);
+        }
+        List<String> tb = new ArrayList<>();
+        int[] where = {0};
+        String type = real.getClass().getName();
+        String message = safeMessage(real);
+        tb.add(type + (message.isEmpty() ? "" : ": " + message));
+        appendFrames(tb, frames.translate(real.getStackTrace()), cell, where);
+        Throwable cause = real.getCause();
+        for (int depth = 0; cause != null && depth < 8; depth++, cause = cause.getCause()) {
+            String cmsg = safeMessage(cause);
+            tb.add("Caused by: " + cause.getClass().getName() + (cmsg.isEmpty() ? "" : ": " + cmsg));
+            appendFrames(tb, frames.translate(cause.getStackTrace()), cell, new int[] {0});
+        }
+        return finish(real, type, message, tb, where[0]);
+    }
+
+    /**
      * A runtime error of cell {@code cell}. JShell's report carries stack frames already translated
      * to snippet lines ("#id", line); the real throwable is used where the report has nothing.
      */
@@ -160,6 +184,11 @@ final class CellErrors {
                 appendFrames(tb, t.getStackTrace(), cell, where);
             }
         }
+        return finish(real, type, message, tb, where[0]);
+    }
+
+    /** The end common to both runtime-error reports: memory released after an OutOfMemoryError, the outcome. */
+    private CellResult finish(Throwable real, String type, String message, List<String> tb, int line) {
         boolean oom = isOutOfMemory(real);
         if (oom) {
             List<String> reset = loader.releaseSinceMark();
@@ -170,7 +199,6 @@ final class CellErrors {
         if (real instanceof ExitBlockedException) {
             tb.add("(The session is still alive.)");
         }
-        int line = where[0];
         return failure(oom ? CellResult.Outcome.OUT_OF_MEMORY : CellResult.Outcome.RUNTIME_ERROR,
                 new CellError(type, message, tb, line, line > 0 ? 1 : 0));
     }

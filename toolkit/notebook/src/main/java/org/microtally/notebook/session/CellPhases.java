@@ -16,11 +16,13 @@ import java.util.Map;
  * @param displayNanos turning the final value into a MIME bundle
  * @param totalNanos   the whole {@code Session.run} call, including what the phases above do not cover
  * @param snippets     how many snippets the cell had
+ * @param reran        how many of them re-ran the class JShell had compiled for the same source, without
+ *                     compiling (see {@code RepeatedSnippet}); their compile time is then only the lookup
  */
 public record CellPhases(long splitNanos, long compileNanos, long defineNanos, long runNanos, long displayNanos,
-                         long totalNanos, int snippets) {
+                         long totalNanos, int snippets, int reran) {
     /** For results that were not measured (made outside the engine). */
-    public static final CellPhases NONE = new CellPhases(0, 0, 0, 0, 0, 0, 0);
+    public static final CellPhases NONE = new CellPhases(0, 0, 0, 0, 0, 0, 0, 0);
 
     /** The phases in milliseconds, keyed by name, in the order they happen (for reports and metadata). */
     public Map<String, Double> millis() {
@@ -43,10 +45,12 @@ public record CellPhases(long splitNanos, long compileNanos, long defineNanos, l
         private long display;
         private long start;
         private int snippets;
+        private int reran;
 
         synchronized void begin() {
             split = eval = define = run = display = 0;
             snippets = 0;
+            reran = 0;
             start = System.nanoTime();
         }
 
@@ -58,6 +62,10 @@ public record CellPhases(long splitNanos, long compileNanos, long defineNanos, l
         /** Time of a whole {@code JShell.eval} call (it contains define and run). */
         synchronized void eval(long nanos) {
             eval += nanos;
+        }
+
+        synchronized void reran() {
+            reran++;
         }
 
         synchronized void define(long nanos) {
@@ -74,7 +82,7 @@ public record CellPhases(long splitNanos, long compileNanos, long defineNanos, l
 
         synchronized CellPhases end() {
             long compile = Math.max(0, eval - define - run);
-            return new CellPhases(split, compile, define, run, display, System.nanoTime() - start, snippets);
+            return new CellPhases(split, compile, define, run, display, System.nanoTime() - start, snippets, reran);
         }
     }
 }

@@ -30,6 +30,8 @@ final class EngineControl extends DirectExecutionControl {
     private volatile boolean stopRequested;
     private volatile Object lastValue = NO_VALUE;
     private volatile Throwable lastThrown;
+    private volatile Method lastBody;
+    private volatile int invocations;
     private final CellPhases.Clock clock;
 
     EngineControl(SnippetLoader loader, ThreadGroup group, CellPhases.Clock clock) {
@@ -67,6 +69,34 @@ final class EngineControl extends DirectExecutionControl {
         return lastThrown;
     }
 
+    /** The snippet body method invoked last (for {@link RepeatedSnippet}). */
+    Method lastBody() {
+        return lastBody;
+    }
+
+    /** How many snippet bodies were invoked since the engine was made (JShell invokes one per snippet it runs). */
+    int invocations() {
+        return invocations;
+    }
+
+    /**
+     * Runs a snippet body JShell compiled and ran before ({@link RepeatedSnippet}), exactly as JShell
+     * runs it: on a fresh thread of the session's group, value or throwable captured, stoppable.
+     * Returns normally when the body returned; a throwable of the body is in {@link #lastThrown()}.
+     *
+     * @return true when the body returned, false when it threw or was stopped
+     */
+    boolean rerun(Method body) throws InterruptedException {
+        try {
+            invoke(body);
+            return true;
+        } catch (InterruptedException e) {
+            throw e;
+        } catch (Exception e) {
+            return false;
+        }
+    }
+
     boolean stopRequested() {
         return stopRequested;
     }
@@ -80,6 +110,8 @@ final class EngineControl extends DirectExecutionControl {
     @Override
     protected String invoke(Method doitMethod) throws Exception {
         Object value;
+        lastBody = doitMethod;
+        invocations++;
         long t0 = System.nanoTime();
         try {
             value = callAsUser(() -> {

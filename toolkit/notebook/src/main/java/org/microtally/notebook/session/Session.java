@@ -24,7 +24,9 @@ import org.microtally.notebook.render.Renderers;
  * <h2>How a cell runs</h2>
  * The cell is split into snippets with JShell's source analysis ({@code analyzeCompletion} loop)
  * and the snippets are evaluated in order (an expression that cannot be void as the initializer of
- * {@code $value}, see {@link ValueExpression}, instead of a new {@code $N}). Each snippet runs on a fresh thread of this session's
+ * {@code $value}, see {@link ValueExpression}, instead of a new {@code $N}; the same expression
+ * evaluated again with nothing evaluated in between re-runs the class already compiled for it, see
+ * {@link RepeatedSnippet}). Each snippet runs on a fresh thread of this session's
  * thread group, so {@link #interrupt()} can stop it. {@code System.out}/{@code System.err} are
  * routed to the cell's {@link CellOutput} while it runs, through one ordered queue with the cell's
  * displays (so every output keeps the order the cell wrote it), delivered in chunks at least every
@@ -97,6 +99,7 @@ public final class Session implements Engine {
     private final CellSplitter splitter;
     private final CodeAssist assist;
     private final CellErrors errors;
+    private final SnippetEvaluator evaluator;
     private final Renderers renderers = Renderers.withBuiltIns();   // this engine's display registry
     private final Object runLock = new Object();
     private final CellPhases.Clock clock = new CellPhases.Clock();
@@ -121,6 +124,7 @@ public final class Session implements Engine {
         splitter = new CellSplitter(jshell.sourceCodeAnalysis());
         assist = new CodeAssist(jshell.sourceCodeAnalysis(), splitter);
         errors = new CellErrors(jshell, loader);
+        evaluator = new SnippetEvaluator(jshell, control);
         for (String entry : classPath) {
             jshell.addToClasspath(entry);
         }
@@ -144,7 +148,7 @@ public final class Session implements Engine {
         wanted.add("import static " + Display.class.getName() + ".*;");
         List<String> done = new ArrayList<>();
         for (String imp : wanted) {
-            List<SnippetEvent> ev = jshell.eval(imp);
+            List<SnippetEvent> ev = evaluator.eval(imp);
             if (!ev.isEmpty() && ev.get(0).status() == Snippet.Status.VALID) {
                 done.add(imp);
             }
@@ -232,9 +236,6 @@ public final class Session implements Engine {
         }
     }
 
-    /** The last snippet evaluated on the route of {@link ValueExpression} (its value is the cell's value). */
-    private Snippet valueRoute;
-
     private CellResult runCell(String code, int cell) {
         long t0 = System.nanoTime();
         List<CellSplitter.Piece> pieces = splitter.split(code);
@@ -246,19 +247,25 @@ public final class Session implements Engine {
             }
             CellSplitter.Piece piece = pieces.get(k);
             control.resetCapture();
-            SnippetEvent main;
+            SnippetEvaluator.Evaluated main;
             long e0 = System.nanoTime();
             try {
-                main = evaluate(piece.source());
+                main = evaluator.evaluate(piece.source());
             } catch (OutOfMemoryError e) {
                 return errors.runtimeError(e, null, cell);
             } catch (RuntimeException e) {
                 return CellErrors.engineError(e);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                return CellErrors.interrupted();
             } finally {
                 clock.eval(System.nanoTime() - e0);
             }
             if (main == null) {
                 continue;
+            }
+            if (main.rerun()) {
+                clock.reran();
             }
             Snippet s = main.snippet();
             errors.remember(s, cell, CellSplitter.lineOf(code, piece.start()));
@@ -273,6 +280,10 @@ public final class Session implements Engine {
                     return errors.unresolved(code, piece, s);
                 default:
                     break;
+            }
+            if (main.rerunFailed()) {
+                return control.stopRequested() ? CellErrors.interrupted()
+                        : errors.rerunError(control.lastThrown(), cell, new SnippetFrames(jshell));
             }
             if (main.exception() != null) {
                 return control.stopRequested() ? CellErrors.interrupted()
@@ -304,35 +315,9 @@ public final class Session implements Engine {
         }
     }
 
-    /**
-     * Evaluates one snippet and returns its own event (not those of snippets it updated), or null
-     * when it produced none. An expression goes the shorter route of {@link ValueExpression} when
-     * it can; when that declaration is not valid it ran nothing, is removed, and the snippet is
-     * evaluated as written (so its errors are reported as JShell reports them).
-     */
-    private SnippetEvent evaluate(String source) {
-        Optional<String> declaration = ValueExpression.declaration(source);
-        if (declaration.isPresent()) {
-            SnippetEvent main = mainEvent(jshell.eval(declaration.get()));
-            if (main != null && (main.status() == Snippet.Status.VALID || control.stopRequested())) {
-                valueRoute = main.snippet();
-                return main;
-            }
-            if (main != null && main.status().isActive()) {
-                jshell.drop(main.snippet());
-            }
-            control.resetCapture();
-        }
-        return mainEvent(jshell.eval(source));
-    }
-
-    private static SnippetEvent mainEvent(List<SnippetEvent> events) {
-        return events.stream().filter(e -> e.causeSnippet() == null).findFirst().orElse(null);
-    }
-
-    private Object valueOf(SnippetEvent main) {
+    private Object valueOf(SnippetEvaluator.Evaluated main) {
         Snippet s = main.snippet();
-        if (s == valueRoute) {
+        if (evaluator.onValueRoute(s)) {
             return control.lastValue();
         }
         boolean expression = s.kind() == Snippet.Kind.EXPRESSION
