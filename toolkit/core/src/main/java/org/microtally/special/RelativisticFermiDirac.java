@@ -236,7 +236,11 @@ public final class RelativisticFermiDirac {
         double eta = sum.eta;
         double beta = sum.beta;
         double head = eta >= 32.0 + HEAD_MIN ? eta - 32.0 : (eta > -10.0 ? HEAD_MIN : HEAD_MIN_NONDEGENERATE);
-        addHead(sum, head, beta, eta, false);
+        if (head == HEAD_MIN || head == HEAD_MIN_NONDEGENERATE) {
+            sum.addHead(HeadNodes.of(head, beta), eta);
+        } else {
+            addHead(sum, head, beta, eta, false);
+        }
         double tLow = head - eta; // offset of the end of the head piece
         for (int c = 1; c < CUTS.length; c++) {
             double a = Math.max(CUTS[c - 1], tLow);
@@ -400,6 +404,64 @@ public final class RelativisticFermiDirac {
     }
 
     /**
+     * The head piece [0, x0] for x0 = 2 or 10 at one beta: the nodes, weights and square roots of {@link #addHead} depend on
+     * (x0, beta) alone, and the Fermi factor at a node is e^-|x - eta| = e^(+-x) e^(-+eta), so an evaluation at another eta
+     * needs one exponential for the whole piece. The last beta of each x0 is kept (immutable, published through a
+     * volatile field: safe across threads; threads alternating between betas only lose the reuse).
+     */
+    private static final class HeadNodes {
+        private static volatile HeadNodes lastDegenerate;
+        private static volatile HeadNodes lastClassical;
+
+        final double x0;
+        final double beta;
+        final double[] x;
+        final double[] a;      // weight x^-1/2 sqrt(1 + beta x/2)
+        final double[] b;      // weight x^-1/2 / sqrt(1 + beta x/2)
+        final double[] number; // weight x^1/2 (1 + beta x) sqrt(1 + beta x/2)
+        final double[] up;     // e^x
+        final double[] down;   // e^-x
+
+        static HeadNodes of(double x0, double beta) {
+            HeadNodes h = x0 == HEAD_MIN ? lastDegenerate : lastClassical;
+            if (h != null && h.beta == beta) {
+                return h;
+            }
+            h = new HeadNodes(x0, beta);
+            if (x0 == HEAD_MIN) {
+                lastDegenerate = h;
+            } else {
+                lastClassical = h;
+            }
+            return h;
+        }
+
+        private HeadNodes(double x0, double beta) {
+            this.x0 = x0;
+            this.beta = beta;
+            Sum nodes = new Sum(0.0, beta, false, false);
+            nodes.collect = true;
+            RelativisticFermiDirac.addHead(nodes, x0, beta, 0.0, false);
+            int n = nodes.collected;
+            x = java.util.Arrays.copyOf(nodes.collectedX, n);
+            a = new double[n];
+            b = new double[n];
+            number = new double[n];
+            up = new double[n];
+            down = new double[n];
+            for (int i = 0; i < n; i++) {
+                double root = Math.sqrt(1.0 + 0.5 * beta * x[i]);
+                double wr = nodes.collectedWeight[i];
+                a[i] = wr * root;
+                b[i] = wr / root;
+                number[i] = wr * root * x[i] * (1.0 + beta * x[i]);
+                up[i] = Math.exp(x[i]);
+                down[i] = Math.exp(-x[i]);
+            }
+        }
+    }
+
+    /**
      * Nodes at fixed offsets t = x - eta (a piece between two cuts, or the tail from t = 32): the Fermi factor and the
      * entropy weights depend on t alone, so they are computed once here, with the very expressions of {@link Sum#add}.
      */
@@ -483,6 +545,10 @@ public final class RelativisticFermiDirac {
         private double number;
         private double numberEta;
         private double numberEta2;
+        private boolean collect; // only record the nodes (for HeadNodes)
+        private int collected;
+        private double[] collectedX = new double[0];
+        private double[] collectedWeight = new double[0];
 
         Sum(double eta, double beta, boolean entropy, boolean numberOnly) {
             this.numberOnly = numberOnly;
@@ -521,8 +587,41 @@ public final class RelativisticFermiDirac {
             }
         }
 
+        /** The head piece from its cached nodes: e^-|t| from e^(+-x) and one exponential of eta. */
+        void addHead(HeadNodes head, double eta) {
+            double up = Math.exp(eta);
+            double down = 1.0 / up;
+            double[] x = head.x;
+            for (int i = 0; i < x.length; i++) {
+                double t = x[i] - eta;
+                double e = t > 0 ? head.down[i] * up : head.up[i] * down; // e^-|t|
+                double onePlus = 1.0 + e;
+                double fermi = t > 0 ? e / onePlus : 1.0 / onePlus;
+                double fermiHole = e / (onePlus * onePlus);
+                double hole2 = fermiHole * (t > 0 ? 1.0 - e : e - 1.0) / onePlus;
+                if (numberOnly) {
+                    double w = head.number[i];
+                    number += w * fermi;
+                    numberEta += w * fermiHole;
+                    numberEta2 += w * hole2;
+                } else {
+                    accumulate(x[i], head.a[i], head.b[i], t, fermi, fermiHole, hole2,
+                            entropy ? log1p(e) + Math.abs(t) * e / onePlus : 0.0);
+                }
+            }
+        }
+
         /** A node x of weight {@code weightOverRoot} (the weight times x^-1/2), t = x - eta. */
         void add(double x, double weightOverRoot, double t) {
+            if (collect) {
+                if (collected == collectedX.length) {
+                    collectedX = java.util.Arrays.copyOf(collectedX, 2 * collected + 20);
+                    collectedWeight = java.util.Arrays.copyOf(collectedWeight, 2 * collected + 20);
+                }
+                collectedX[collected] = x;
+                collectedWeight[collected++] = weightOverRoot;
+                return;
+            }
             double e = Math.exp(-Math.abs(t));        // e^-|t|, no overflow
             double onePlus = 1.0 + e;
             double fermi = t > 0 ? e / onePlus : 1.0 / onePlus;
