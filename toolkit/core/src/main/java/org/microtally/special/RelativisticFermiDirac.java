@@ -35,7 +35,11 @@ import org.microtally.InvalidInputException;
  *       24 nodes, or 12 when the tail starts beyond x = 400.</li>
  * </ul>
  * Every integrand is positive, so no digits are lost to cancellation; all four orders and all four
- * integral families are accumulated in one pass over 120 to 230 nodes.
+ * integral families are accumulated in one pass over 120 to 230 nodes. The nodes between two cuts and in the tail
+ * from eta + 32 sit at fixed offsets t = x - eta, so their Fermi factors are computed once for all calls; the head
+ * nodes for x0 = 2 and 10 depend on beta alone and are kept for the last beta used, so that a solver calling at one
+ * beta pays one exponential per call for the head's Fermi factors. With the entropy integrals come the second
+ * eta-derivatives d^2F_k/deta^2 and d^2S_k/deta^2 (integrands with f (1 - f) (1 - 2f)), from the same pass.
  *
  * <p>For eta &gt;= {@value #SOMMERFELD_FROM} the pieces about the Fermi level are replaced by the
  * Sommerfeld series (A. Sommerfeld, Z. Phys. 47, 1 (1928)): the step-function integral int_0^eta g
@@ -215,9 +219,10 @@ public final class RelativisticFermiDirac {
     }
 
     /**
-     * The combination of the number density, N = F_1/2 + beta F_3/2, and dN/deta, as {N, dN/deta}: the same
-     * rule as {@link #evaluate} (so the same {@value #RELATIVE_ACCURACY} relative accuracy) with only these two
-     * orders and families summed, for equation-of-state solvers that need nothing else per iteration.
+     * The combination of the number density, N = F_1/2 + beta F_3/2, and its eta-derivatives, as {N, dN/deta,
+     * d^2N/deta^2}: the same rule as {@link #evaluate} (so the same {@value #RELATIVE_ACCURACY} relative accuracy for N
+     * and dN/deta; d^2N/deta^2 changes sign at the Fermi level and carries that accuracy relative to dN/deta) with only
+     * these sums, for equation-of-state solvers (Newton or Halley) that need nothing else per iteration.
      *
      * @throws InvalidInputException for eta or beta outside the stated domain
      */
