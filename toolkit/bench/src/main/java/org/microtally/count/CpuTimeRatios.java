@@ -129,8 +129,9 @@ public final class CpuTimeRatios {
                 row, bare, shoup, fma, shoup / fma, bare / fma);
     }
 
-    /** The three states of DegenerateMatterBenchmark: P + U + S with the solve, per call. */
+    /** The three states of DegenerateMatterBenchmark: P + U + S with the solve, per call, with the load average around them. */
     private static void equationOfState() {
+        System.out.println("load average before the EOS cases: " + loadAverage());
         double[] wiggle = {1e-12};
         double base = cpuNanos(() -> {
             wiggle[0] = -wiggle[0];
@@ -147,6 +148,17 @@ public final class CpuTimeRatios {
             }, 4000);
             System.out.printf("EOS 1e%.0f g/cm^3, 1e%.1f K: %.2f us CPU per call (%.0fx the exp + pow baseline %.1f ns)%n",
                     state[0], state[1], ns / 1e3, ns / base, base);
+        }
+        System.out.println("load average after: " + loadAverage());
+    }
+
+    /** The first three fields of /proc/loadavg, or "unavailable" where there is no such file. */
+    private static String loadAverage() {
+        try {
+            String[] f = java.nio.file.Files.readString(java.nio.file.Path.of("/proc/loadavg")).trim().split("\\s+");
+            return f[0] + " " + f[1] + " " + f[2];
+        } catch (java.io.IOException | RuntimeException e) {
+            return "unavailable";
         }
     }
 
