@@ -461,7 +461,7 @@ public final class RelativisticFermiDirac {
                 b[i] = wr / root;
                 number[i] = wr * root * x[i] * (1.0 + beta * x[i]);
                 up[i] = Math.exp(x[i]);
-                down[i] = Math.exp(-x[i]);
+                down[i] = 1.0 / up[i]; // x <= 10: no overflow, one rounding
             }
         }
     }
