@@ -552,8 +552,8 @@ public final class RelativisticFermiDirac {
         private double numberEta2;
         private boolean collect; // only record the nodes (for HeadNodes)
         private int collected;
-        private double[] collectedX = new double[0];
-        private double[] collectedWeight = new double[0];
+        private double[] collectedX;      // allocated in collect mode only
+        private double[] collectedWeight;
 
         Sum(double eta, double beta, boolean entropy, boolean numberOnly) {
             this.numberOnly = numberOnly;
@@ -619,9 +619,12 @@ public final class RelativisticFermiDirac {
         /** A node x of weight {@code weightOverRoot} (the weight times x^-1/2), t = x - eta. */
         void add(double x, double weightOverRoot, double t) {
             if (collect) {
-                if (collected == collectedX.length) {
-                    collectedX = java.util.Arrays.copyOf(collectedX, 2 * collected + 20);
-                    collectedWeight = java.util.Arrays.copyOf(collectedWeight, 2 * collected + 20);
+                if (collectedX == null) {
+                    collectedX = new double[20];
+                    collectedWeight = new double[20];
+                } else if (collected == collectedX.length) {
+                    collectedX = java.util.Arrays.copyOf(collectedX, 2 * collected);
+                    collectedWeight = java.util.Arrays.copyOf(collectedWeight, 2 * collected);
                 }
                 collectedX[collected] = x;
                 collectedWeight[collected++] = weightOverRoot;
