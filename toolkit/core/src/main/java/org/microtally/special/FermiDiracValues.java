@@ -21,17 +21,21 @@ public final class FermiDiracValues implements Tabular {
     private final double[] etaSecond; // d^2F_k/deta^2, null when the entropy was not computed
     private final double[] entropyEtaSecond; // d^2S_k/deta^2, null when the entropy was not computed
 
+    /**
+     * Takes ownership of the arrays (no copies): the only caller, {@link RelativisticFermiDirac}, hands over arrays it
+     * allocated for this result and never touches again, so the values stay immutable.
+     */
     FermiDiracValues(double eta, double beta, double[] f, double[] dEta, double[] dBeta, double[] entropy,
                      double[] entropyEta, double[] etaSecond, double[] entropyEtaSecond) {
         this.eta = eta;
         this.beta = beta;
-        this.f = f.clone();
-        this.dEta = dEta.clone();
-        this.dBeta = dBeta.clone();
-        this.entropy = entropy == null ? null : entropy.clone();
-        this.entropyEta = entropy == null ? null : entropyEta.clone();
-        this.etaSecond = entropy == null ? null : etaSecond.clone();
-        this.entropyEtaSecond = entropy == null ? null : entropyEtaSecond.clone();
+        this.f = f;
+        this.dEta = dEta;
+        this.dBeta = dBeta;
+        this.entropy = entropy;
+        this.entropyEta = entropy == null ? null : entropyEta;
+        this.etaSecond = entropy == null ? null : etaSecond;
+        this.entropyEtaSecond = entropy == null ? null : entropyEtaSecond;
     }
 
     /** The eta these values belong to. */
