@@ -129,14 +129,25 @@ public final class CpuTimeRatios {
                 row, bare, shoup, fma, shoup / fma, bare / fma);
     }
 
-    /** The three states of DegenerateMatterBenchmark: P + U + S with the solve, per call. */
+    /** The three states of DegenerateMatterBenchmark: P + U + S with the solve, per call, with the load average around them. */
     private static void equationOfState() {
+        System.out.println("load average before the EOS cases: " + loadAverage());
         double[] wiggle = {1e-12};
         double base = cpuNanos(() -> {
             wiggle[0] = -wiggle[0];
             return Math.exp(1.5 + wiggle[0]) + Math.pow(2.5 + wiggle[0], 1.5);
         }, 200_000);
-        for (double[] state : new double[][] {{6, 7}, {3, 7}, {6, 9.5}}) {
+        double[][] states = {{6, 7}, {3, 7}, {6, 9.5}};
+        // warm-up over all three regimes first (30,000 calls each), so that the compiled code is the one every state
+        // uses and, on a loaded machine, the JIT has finished before the first state's rounds are timed
+        for (double[] state : states) {
+            for (int i = 0; i < 30_000; i++) {
+                wiggle[0] = -wiggle[0];
+                sink += org.microtally.limit.RelativisticFermiGas.electrons(Math.pow(10, state[0]) * 1e3 * (1 + wiggle[0]), 2.0,
+                        Math.pow(10, state[1])).pressure();
+            }
+        }
+        for (double[] state : states) {
             double rho = Math.pow(10, state[0]) * 1e3;
             double kelvin = Math.pow(10, state[1]);
             double ns = cpuNanos(() -> {
@@ -147,6 +158,17 @@ public final class CpuTimeRatios {
             }, 4000);
             System.out.printf("EOS 1e%.0f g/cm^3, 1e%.1f K: %.2f us CPU per call (%.0fx the exp + pow baseline %.1f ns)%n",
                     state[0], state[1], ns / 1e3, ns / base, base);
+        }
+        System.out.println("load average after: " + loadAverage());
+    }
+
+    /** The first three fields of /proc/loadavg, or "unavailable" where there is no such file. */
+    private static String loadAverage() {
+        try {
+            String[] f = java.nio.file.Files.readString(java.nio.file.Path.of("/proc/loadavg")).trim().split("\\s+");
+            return f[0] + " " + f[1] + " " + f[2];
+        } catch (java.io.IOException | RuntimeException e) {
+            return "unavailable";
         }
     }
 

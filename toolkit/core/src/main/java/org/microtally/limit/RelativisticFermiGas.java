@@ -28,19 +28,21 @@ import org.microtally.units.Codata2018;
  * D. Arnett, ApJS 125, 277 (1999) (their eqs. for n, P, E with the generalised Fermi-Dirac
  * integrals), evaluated directly rather than from a table.
  *
- * <p><b>Method and accuracy.</b> eta solves the charge (or number) equation by Newton's method on
- * asinh((n_- - n_+)/s) with s = 2 sqrt(n_- n_+) at the starting point (so that the function is linear in eta
- * where both species are non-degenerate, n_- - n_+ = s sinh(eta + 1/beta), and ln(n_- - n_+) + const where
- * the positrons are negligible), or on ln n without antiparticles, from a Sommerfeld (degenerate) or Maxwell-Boltzmann (non-degenerate) start, with a
- * bisection safeguard on a proven bracket; a Newton step below 1e-8 max(1, |eta|) is accepted as the
- * last (its own error is of second order, below 1e-16 relative), and n, P, U, S are taken from that
- * last iterate's integrals by a first-order step in eta (with dS_k/deta; neglected term below ~2e-16
- * relative) rather than a fresh evaluation; iterates not predicted to be the last sum only
- * F_1/2 + beta F_3/2 and its derivative ({@link RelativisticFermiDirac#numberIntegral}); every
- * integral carries {@value RelativisticFermiDirac#RELATIVE_ACCURACY} relative, and so do n, P, U and S
- * (a sum of positive integrals, plus the first-order step above; measured against the T = 0 closed
- * forms in the degenerate limit by LimitStatedAccuracyTest). Where pairs outnumber the net
- * electrons a thousandfold the net charge is a small difference and eta loses digits ({@link #notes()} says so); P, U and S do not.
+ * <p><b>Method and accuracy.</b> eta solves the charge (or number) equation by Halley's method (Newton's where
+ * Halley's correction is large) on asinh((n_- - n_+)/s) with s = 2 sqrt(n_- n_+) at the starting point (so that the
+ * function is linear in eta where both species are non-degenerate, n_- - n_+ = s sinh(eta + 1/beta), and
+ * ln(n_- - n_+) + const where the positrons are negligible), or on ln n without antiparticles, from a Sommerfeld
+ * (degenerate) or Maxwell-Boltzmann (non-degenerate) start, with a bisection safeguard on a proven bracket; the
+ * second eta-derivative it needs comes from the same quadrature pass as n and dn/deta. A Halley step below 1e-6
+ * max(1, eta) is accepted as the last (its own error is of third order, below ~1e-18 max(1, eta)), and n, P, U, S
+ * are taken from that last iterate's integrals by a second-order step in eta (with dF_k/deta, d^2F_k/deta^2 and
+ * the entropy's; neglected term below ~2e-19 relative) rather than a fresh evaluation; iterates not predicted to
+ * be the last sum only F_1/2 + beta F_3/2 and its derivatives ({@link RelativisticFermiDirac#numberIntegral});
+ * every integral carries {@value RelativisticFermiDirac#RELATIVE_ACCURACY} relative, and so do n, P, U and S
+ * (a sum of positive integrals, plus the second-order step above; measured against the T = 0 closed
+ * forms in the degenerate limit by LimitStatedAccuracyTest, and against an independent mpmath equation of
+ * state by RelativisticFermiGasTest). Where pairs outnumber the net electrons a thousandfold the net charge is a
+ * small difference and eta loses digits ({@link #notes()} says so); P, U and S do not.
  *
  * <p><b>Model limits.</b> Ideal gas of one species and its antiparticles only: no ions, no photons
  * (radiation pressure), no Coulomb corrections, no neutrinos, no nuclear forces (neutrons),
@@ -48,6 +50,8 @@ import org.microtally.units.Codata2018;
  */
 public final class RelativisticFermiGas implements Tabular {
     private static final double NEGLIGIBLE_EXPONENT = 40.0; // skip antiparticles below e^-40 of the particles
+    /** Longest accepted last Halley step, and longest Taylor step from an iterate's integrals, times max(1, eta). */
+    private static final double TAYLOR_STEP = 1e-6;
 
     private final String particle;
     private final double mass;
@@ -149,10 +153,10 @@ public final class RelativisticFermiGas implements Tabular {
     }
 
     /**
-     * The integrals that P, U, S and n need at the solved eta: from the last Newton iterate's values
-     * (evaluated with entropy) by a first-order Taylor step d = eta - eta_last (|d| &lt;= 1e-8
-     * max(1, |eta|) by the convergence test, so the neglected d^2 F''/2 is below ~2e-16 relative: F''/F
-     * &lt;= 1 for eta &lt;= 0 and ~k(k+1)/eta^2 for eta &gt;&gt; 1), or from a fresh evaluation when there are none.
+     * The integrals that P, U, S and n need at the solved eta: from the last iterate's values (evaluated with
+     * entropy) by a second-order Taylor step d = eta - eta_last, |d| &lt;= {@value #TAYLOR_STEP} max(1, eta_last) (the
+     * neglected d^3 F'''/6 is below ~2e-19 relative: |f'''| &lt;= f for the Fermi factor, so |F'''| &lt;= F, and
+     * F'''/F ~ k^3/eta^3 for eta &gt;&gt; 1), or from a fresh evaluation when there are none or the step is longer.
      */
     private static final class Moments {
         final double f05;
@@ -162,15 +166,16 @@ public final class RelativisticFermiGas implements Tabular {
         final double s15;
 
         private Moments(FermiDiracValues v, double d) {
-            f05 = v.integral(0.5) + d * v.etaDerivative(0.5);
-            f15 = v.integral(1.5) + d * v.etaDerivative(1.5);
-            f25 = v.integral(2.5) + d * v.etaDerivative(2.5);
-            s05 = v.entropyIntegral(0.5) + d * v.entropyEtaDerivative(0.5);
-            s15 = v.entropyIntegral(1.5) + d * v.entropyEtaDerivative(1.5);
+            double h = 0.5 * d * d;
+            f05 = v.integral(0.5) + d * v.etaDerivative(0.5) + h * v.etaSecondDerivative(0.5);
+            f15 = v.integral(1.5) + d * v.etaDerivative(1.5) + h * v.etaSecondDerivative(1.5);
+            f25 = v.integral(2.5) + d * v.etaDerivative(2.5) + h * v.etaSecondDerivative(2.5);
+            s05 = v.entropyIntegral(0.5) + d * v.entropyEtaDerivative(0.5) + h * v.entropyEtaSecondDerivative(0.5);
+            s15 = v.entropyIntegral(1.5) + d * v.entropyEtaDerivative(1.5) + h * v.entropyEtaSecondDerivative(1.5);
         }
 
         static Moments at(FermiDiracValues last, double eta, double beta) {
-            if (last == null) {
+            if (last == null || !(Math.abs(eta - last.eta()) <= TAYLOR_STEP * Math.max(1.0, last.eta()))) {
                 return new Moments(RelativisticFermiDirac.evaluate(eta, beta, true), 0.0);
             }
             return new Moments(last, eta - last.eta());
@@ -222,18 +227,20 @@ public final class RelativisticFermiGas implements Tabular {
         double stepBefore = Double.POSITIVE_INFINITY;
         for (int iteration = 0; iteration < 200; iteration++) {
             // the entropy integrals where this iterate is likely the last: always in the Sommerfeld range (there they cost a
-            // few series terms), else when quadratic convergence, d_next ~ d^2 (d / d_before^2), predicts a step within
-            // 100 times the tolerance. A wrong guess costs one evaluation (or the entropy part of one), never accuracy
-            double predicted = lastStep * lastStep
-                    * (Double.isInfinite(stepBefore) ? 1.0 : lastStep / (stepBefore * stepBefore)); // C = 1 before two steps
+            // few series terms), else when cubic convergence, d_next ~ C d^3 with C = d / d_before^3 (1 before two steps),
+            // predicts a step within the acceptance. A wrong guess costs one evaluation (or the entropy part of one), never
+            // accuracy
+            double predicted = lastStep * lastStep * lastStep
+                    * (Double.isInfinite(stepBefore) ? 1.0 : lastStep / (stepBefore * stepBefore * stepBefore));
             boolean likelyLast = e >= RelativisticFermiDirac.SOMMERFELD_FROM
-                    || predicted <= 1e-6 * Math.max(1.0, Math.abs(e));
-            // other iterates need only N = F_1/2 + beta F_3/2 and dN/deta (the lighter sum)
+                    || predicted <= 0.1 * TAYLOR_STEP * Math.max(1.0, e);
+            // other iterates need only N = F_1/2 + beta F_3/2 and its first two eta-derivatives (the lighter sum)
             FermiDiracValues m = likelyLast ? RelativisticFermiDirac.evaluate(e, beta, true) : null;
             FermiDiracValues pv = null;
             double[] nm = m == null ? RelativisticFermiDirac.numberIntegral(e, beta) : number(m);
             double n = nm[0];
             double dn = nm[1];
+            double d2n = nm[2];
             double ep = -e - 2.0 / beta;
             if (pairs && ep >= Math.min(e, 0.0) - NEGLIGIBLE_EXPONENT && ep >= RelativisticFermiDirac.MIN_ETA) {
                 pv = likelyLast ? RelativisticFermiDirac.evaluate(ep, beta, true) : null;
@@ -242,19 +249,24 @@ public final class RelativisticFermiGas implements Tabular {
                     scale = 2.0 * Math.sqrt(n * np[0]);
                 }
                 n -= np[0];
-                dn += np[1];
+                dn += np[1]; // d eta_+ / d eta = -1
+                d2n -= np[2];
             }
             // g = asinh(N / scale) - asinh(N_target / scale): linear in eta for non-degenerate pairs (N = scale sinh(eta +
             // 1/beta)), ln N + const for degenerate particles, defined for N <= 0; plain ln N - ln N_target without pairs
             double g;
             double slope;
+            double curvature;
             if (scale > 0.0) {
                 double z = n / scale;
+                double inverseRoot = 1.0 / Math.sqrt(1.0 + z * z);
                 g = FastMath.asinh(z) - FastMath.asinh(target / scale);
-                slope = dn / scale / Math.sqrt(1.0 + z * z);
+                slope = dn / scale * inverseRoot;
+                curvature = (d2n / scale - z * slope * slope) * inverseRoot;
             } else {
                 g = n > 0 ? Math.log(n / target) : Double.NEGATIVE_INFINITY;
                 slope = dn / n;
+                curvature = d2n / n - slope * slope;
             }
             if (g == 0.0) {
                 return solution(e, m, pv, likelyLast);
@@ -264,11 +276,18 @@ public final class RelativisticFermiGas implements Tabular {
             } else {
                 hi = e;
             }
-            double next = Double.isInfinite(g) ? Double.NaN : e - g / slope;
-            // quadratic convergence: after a Newton step of size d the error is ~ d^2 g''/g' (g'' / g' <~ 1/max(1, |eta|)),
-            // so a step below 1e-8 max(1, |eta|) leaves an error below ~1e-16 relative. Checked before the bracket test:
-            // at the root a step of rounding size may land on the bracket end itself
-            if (Math.abs(next - e) <= 1e-8 * Math.max(1.0, Math.abs(e))) {
+            // Halley's step (E. Halley, Phil. Trans. 18, 136 (1694); cubic convergence, error ~ C d^3 with C built from
+            // the second and third derivatives of g over its first, of size 1/max(1, eta)^2); Newton's where the Halley
+            // correction is large (far from the root)
+            double newton = -g / slope;
+            double denominator = 1.0 + 0.5 * newton * curvature / slope;
+            boolean halley = denominator >= 0.5 && denominator <= 2.0;
+            double next = Double.isInfinite(g) ? Double.NaN : e + (halley ? newton / denominator : newton);
+            // a Halley step below 1e-6 max(1, eta) leaves an error below ~1e-18 max(1, eta); a Newton step would leave
+            // ~d^2 g''/g', so it is accepted only below 1e-8 max(1, eta) (error ~1e-16 relative). Checked before the
+            // bracket test: at the root a step of rounding size may land on the bracket end itself
+            double accept = (halley ? TAYLOR_STEP : 1e-8) * Math.max(1.0, e);
+            if (Math.abs(next - e) <= accept) {
                 return solution(next, m, pv, likelyLast);
             }
             double upper = Double.isNaN(hi) ? Double.POSITIVE_INFINITY : hi;
@@ -283,22 +302,19 @@ public final class RelativisticFermiGas implements Tabular {
                 + kelvin + " K (bracket " + lo + ", " + hi + ")");
     }
 
-    /** {N, dN/deta} with N = F_1/2 + beta F_3/2, from full values. */
+    /** {N, dN/deta, d^2N/deta^2} with N = F_1/2 + beta F_3/2, from full values. */
     private double[] number(FermiDiracValues v) {
-        return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5)};
+        return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5),
+            v.etaSecondDerivative(0.5) + beta * v.etaSecondDerivative(1.5)};
     }
 
-    /** A solution at eta; the iterate's values are kept only when they carry the entropy integrals. */
-    private Solution solution(double eta, FermiDiracValues minus, FermiDiracValues plus, boolean withEntropy) {
-        if (!withEntropy) {
-            return new Solution(eta, null, null);
-        }
-        // positrons skipped in the loop (below e^-40 of the electrons) are evaluated afresh if they are not negligible; so
-        // are positrons whose step exceeds 1e-8 in absolute terms (they are non-degenerate, F''/F ~ 1, so the Taylor step
-        // keeps 1e-16 only for |d| <= 1e-8, while the electrons' convergence test allows 1e-8 |eta|)
-        double etaPlus = -eta - 2.0 / beta;
-        boolean plusUsable = plus != null && Math.abs(etaPlus - plus.eta()) <= 1e-8;
-        return new Solution(eta, minus, plusUsable ? plus : null);
+    /**
+     * A solution at eta; the iterate's values are kept only when they carry the entropy integrals ({@link Moments#at}
+     * evaluates afresh where the Taylor step from them would be too long, e.g. for the non-degenerate positrons, whose
+     * step is the electrons' one while their |eta_+| may be large, and for positrons skipped in the loop).
+     */
+    private static Solution solution(double eta, FermiDiracValues minus, FermiDiracValues plus, boolean withEntropy) {
+        return withEntropy ? new Solution(eta, minus, plus) : new Solution(eta, null, null);
     }
 
     /** The degeneracy parameter eta = (mu - m c^2)/kT (kinetic chemical potential over kT) of the particles. */

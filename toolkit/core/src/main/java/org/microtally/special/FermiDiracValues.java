@@ -18,16 +18,24 @@ public final class FermiDiracValues implements Tabular {
     private final double[] dBeta;
     private final double[] entropy; // null when not computed
     private final double[] entropyEta; // dS_k/deta, null when the entropy was not computed
+    private final double[] etaSecond; // d^2F_k/deta^2, null when the entropy was not computed
+    private final double[] entropyEtaSecond; // d^2S_k/deta^2, null when the entropy was not computed
 
+    /**
+     * Takes ownership of the arrays (no copies): the only caller, {@link RelativisticFermiDirac}, hands over arrays it
+     * allocated for this result and never touches again, so the values stay immutable.
+     */
     FermiDiracValues(double eta, double beta, double[] f, double[] dEta, double[] dBeta, double[] entropy,
-                     double[] entropyEta) {
+                     double[] entropyEta, double[] etaSecond, double[] entropyEtaSecond) {
         this.eta = eta;
         this.beta = beta;
-        this.f = f.clone();
-        this.dEta = dEta.clone();
-        this.dBeta = dBeta.clone();
-        this.entropy = entropy == null ? null : entropy.clone();
-        this.entropyEta = entropy == null ? null : entropyEta.clone();
+        this.f = f;
+        this.dEta = dEta;
+        this.dBeta = dBeta;
+        this.entropy = entropy;
+        this.entropyEta = entropy == null ? null : entropyEta;
+        this.etaSecond = entropy == null ? null : etaSecond;
+        this.entropyEtaSecond = entropy == null ? null : entropyEtaSecond;
     }
 
     /** The eta these values belong to. */
@@ -79,6 +87,33 @@ public final class FermiDiracValues implements Tabular {
             throw new IllegalStateException("entropy integrals were not computed: call RelativisticFermiDirac.evaluate(eta, beta, true)");
         }
         return entropyEta[index(k)];
+    }
+
+    /**
+     * d^2F_k/deta^2 = int x^k sqrt(1 + beta x/2) f (1 - f) (1 - 2 f) dx, for the Taylor steps of equation-of-state
+     * solvers. Its integrand changes sign at the Fermi level, so it carries an absolute error of about
+     * {@value RelativisticFermiDirac#RELATIVE_ACCURACY} times dF_k/deta rather than a relative one.
+     *
+     * @throws IllegalStateException if the values were evaluated without entropy
+     */
+    public double etaSecondDerivative(double k) {
+        if (etaSecond == null) {
+            throw new IllegalStateException("second derivatives come with the entropy: call RelativisticFermiDirac.evaluate(eta, beta, true)");
+        }
+        return etaSecond[index(k)];
+    }
+
+    /**
+     * d^2S_k/deta^2 = int x^k sqrt(1 + beta x/2) [(x - eta) (1 - 2 f) - 1] f (1 - f) dx; absolute error of about
+     * {@value RelativisticFermiDirac#RELATIVE_ACCURACY} times max(S_k, |dS_k/deta|).
+     *
+     * @throws IllegalStateException if the values were evaluated without entropy
+     */
+    public double entropyEtaSecondDerivative(double k) {
+        if (entropyEtaSecond == null) {
+            throw new IllegalStateException("second derivatives come with the entropy: call RelativisticFermiDirac.evaluate(eta, beta, true)");
+        }
+        return entropyEtaSecond[index(k)];
     }
 
     private static int index(double k) {

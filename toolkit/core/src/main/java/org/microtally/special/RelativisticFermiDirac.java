@@ -35,7 +35,11 @@ import org.microtally.InvalidInputException;
  *       24 nodes, or 12 when the tail starts beyond x = 400.</li>
  * </ul>
  * Every integrand is positive, so no digits are lost to cancellation; all four orders and all four
- * integral families are accumulated in one pass over 120 to 230 nodes.
+ * integral families are accumulated in one pass over 120 to 230 nodes. The nodes between two cuts and in the tail
+ * from eta + 32 sit at fixed offsets t = x - eta, so their Fermi factors are computed once for all calls; the head
+ * nodes for x0 = 2 and 10 depend on beta alone and are kept for the last beta used, so that a solver calling at one
+ * beta pays one exponential per call for the head's Fermi factors. With the entropy integrals come the second
+ * eta-derivatives d^2F_k/deta^2 and d^2S_k/deta^2 (integrands with f (1 - f) (1 - 2f)), from the same pass.
  *
  * <p>For eta &gt;= {@value #SOMMERFELD_FROM} the pieces about the Fermi level are replaced by the
  * Sommerfeld series (A. Sommerfeld, Z. Phys. 47, 1 (1928)): the step-function integral int_0^eta g
@@ -78,8 +82,8 @@ public final class RelativisticFermiDirac {
     private static final int SOMMERFELD_TERMS = 12;
     /** Dirichlet eta(2n), n = 0 .. SOMMERFELD_TERMS + 1. */
     private static final double[] ETA_EVEN = new double[SOMMERFELD_TERMS + 2];
-    /** 1/(j+1), j = 0 .. 2 SOMMERFELD_TERMS. */
-    private static final double[] RECIPROCAL = new double[2 * SOMMERFELD_TERMS + 1];
+    /** 1/(j+1), j = 0 .. 2 SOMMERFELD_TERMS + 2. */
+    private static final double[] RECIPROCAL = new double[2 * SOMMERFELD_TERMS + 3];
     private static final double FAR_TAIL = 400.0; // tail start (in x) beyond which 12 Laguerre nodes suffice
 
     private static final double[] GL_NODE;
@@ -93,6 +97,10 @@ public final class RelativisticFermiDirac {
     private static final double[] GL_HEAD_WEIGHT;
     private static final double[] LAGUERRE_NODE;
     private static final double[] LAGUERRE_WEIGHT; // times e^node, so the integrand is used as is
+    /** The pieces about the Fermi level between two cuts, unclipped: [piece][0 = 16 points, 1 = the short rule]. */
+    private static final FixedNodes[][] PIECES = new FixedNodes[CUTS.length][2];
+    /** The tail from t = 32 on: [0 = 24 Laguerre nodes, 1 = 12]. */
+    private static final FixedNodes[] TAILS = new FixedNodes[2];
 
     static {
         for (int j = 0; j < RECIPROCAL.length; j++) {
@@ -120,6 +128,17 @@ public final class RelativisticFermiDirac {
         double[][] tailShort = laguerre(12);
         TAIL_NODE_SHORT = tailShort[0];
         TAIL_WEIGHT_SHORT = tailShort[1];
+        for (int c = 1; c < CUTS.length; c++) {
+            double a = CUTS[c - 1];
+            double b = CUTS[c];
+            double mid = 0.5 * (a + b);
+            double half = 0.5 * (b - a);
+            int r = shortRule(a, b);
+            PIECES[c][0] = FixedNodes.legendre(mid, half, GL_NODE, GL_WEIGHT);
+            PIECES[c][1] = FixedNodes.legendre(mid, half, GL_SHORT_NODE[r], GL_SHORT_WEIGHT[r]);
+        }
+        TAILS[0] = FixedNodes.tail(CUTS[CUTS.length - 1], LAGUERRE_NODE, LAGUERRE_WEIGHT);
+        TAILS[1] = FixedNodes.tail(CUTS[CUTS.length - 1], TAIL_NODE_SHORT, TAIL_WEIGHT_SHORT);
     }
 
     /** Gauss-Legendre nodes and weights on [-1, 1] (Commons Math, computed in high precision). */
@@ -201,19 +220,21 @@ public final class RelativisticFermiDirac {
     }
 
     /**
-     * The combination of the number density, N = F_1/2 + beta F_3/2, and dN/deta, as {N, dN/deta}: the same
-     * rule as {@link #evaluate} (so the same {@value #RELATIVE_ACCURACY} relative accuracy) with only these two
-     * orders and families summed, for equation-of-state solvers that need nothing else per iteration.
+     * The combination of the number density, N = F_1/2 + beta F_3/2, and its eta-derivatives, as {N, dN/deta,
+     * d^2N/deta^2}: the same rule as {@link #evaluate} (so the same {@value #RELATIVE_ACCURACY} relative accuracy for N
+     * and dN/deta; d^2N/deta^2 changes sign at the Fermi level and carries that accuracy relative to dN/deta) with only
+     * these sums, for equation-of-state solvers (Newton or Halley) that need nothing else per iteration.
      *
      * @throws InvalidInputException for eta or beta outside the stated domain
      */
     public static double[] numberIntegral(double eta, double beta) {
         if (eta >= SOMMERFELD_FROM || !(eta >= MIN_ETA) || !(beta >= 0.0 && beta <= MAX_BETA)) {
-            FermiDiracValues v = evaluate(eta, beta, false); // validates; the series is cheap
-            return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5)};
+            FermiDiracValues v = evaluate(eta, beta, true); // validates; the series is cheap
+            return new double[] {v.integral(0.5) + beta * v.integral(1.5), v.etaDerivative(0.5) + beta * v.etaDerivative(1.5),
+                v.etaSecondDerivative(0.5) + beta * v.etaSecondDerivative(1.5)};
         }
         Sum sum = quadrature(new Sum(eta, beta, false, true));
-        return new double[] {sum.f[1] + beta * sum.f[2], sum.dEta[1] + beta * sum.dEta[2]};
+        return new double[] {sum.number, sum.numberEta, sum.numberEta2};
     }
 
     /** The quadrature rule of the class description, eta &lt; {@value #SOMMERFELD_FROM}, into {@code sum}. */
@@ -221,17 +242,27 @@ public final class RelativisticFermiDirac {
         double eta = sum.eta;
         double beta = sum.beta;
         double head = eta >= 32.0 + HEAD_MIN ? eta - 32.0 : (eta > -10.0 ? HEAD_MIN : HEAD_MIN_NONDEGENERATE);
-        addHead(sum, head, beta, eta, false);
+        if (head == HEAD_MIN || head == HEAD_MIN_NONDEGENERATE) {
+            sum.addHead(HeadNodes.of(head, beta), eta);
+        } else {
+            addHead(sum, head, beta, eta, false);
+        }
         double tLow = head - eta; // offset of the end of the head piece
         for (int c = 1; c < CUTS.length; c++) {
             double a = Math.max(CUTS[c - 1], tLow);
             double b = CUTS[c];
-            if (b > a) {
+            if (a == CUTS[c - 1]) {
+                sum.addFixed(PIECES[c][eta + a >= 8.0 * 0.5 * (b - a) ? 1 : 0], eta);
+            } else if (b > a) {
                 addPiece(sum, eta, a, b);
             }
         }
         double tailStart = Math.max(tLow, CUTS[CUTS.length - 1]);
         boolean farTail = eta + tailStart >= FAR_TAIL; // g(x) nearly polynomial over the e-folding range
+        if (tailStart == CUTS[CUTS.length - 1]) {
+            sum.addFixed(TAILS[farTail ? 1 : 0], eta);
+            return sum;
+        }
         double[] tailNode = farTail ? TAIL_NODE_SHORT : LAGUERRE_NODE;
         double[] tailWeight = farTail ? TAIL_WEIGHT_SHORT : LAGUERRE_WEIGHT;
         for (int i = 0; i < tailNode.length; i++) {
@@ -284,6 +315,8 @@ public final class RelativisticFermiDirac {
         double[] dBeta = sum.dBeta.clone();
         double[] entropy = new double[4];
         double[] entropyEta = new double[4];
+        double[] etaSecond = new double[4];
+        double[] entropyEtaSecond = new double[4];
         double s = Math.sqrt(1.0 + 0.5 * beta * eta);
         double b = 0.5 * beta / (1.0 + 0.5 * beta * eta); // (1 + beta x/2) = (1 + beta eta/2)(1 + b t)
         // terms: the neglected one is ~ (2N+1)! / eta^(2N+1) of g, against F ~ g eta: stop below 1e-19
@@ -291,7 +324,7 @@ public final class RelativisticFermiDirac {
         for (double bound = 120.0 / Math.pow(eta, 5); bound > 1e-19 && terms < SOMMERFELD_TERMS; terms++) {
             bound *= (2.0 * terms + 2) * (2.0 * terms + 3) / (eta * eta);
         }
-        int order = 2 * terms;
+        int order = 2 * terms + 2; // the second eta-derivatives need g^(2N+1) and g^(2N+2)
         double[] rootSeries = binomialSeries(0.5, b, order);
         double[] inverseRootSeries = binomialSeries(-0.5, b, order);
         double power = 1.0 / Math.sqrt(eta); // eta^k
@@ -300,19 +333,24 @@ public final class RelativisticFermiDirac {
             double[] g = derivatives(power * s, binomialSeries(k, 1.0 / eta, order), rootSeries);
             double[] h = derivatives(0.25 * power * eta / s, binomialSeries(k + 1, 1.0 / eta, order), inverseRootSeries);
             dEta[index] = g[0];
+            etaSecond[index] = g[1];
             for (int n = 1; n <= terms; n++) {
                 double c = 2.0 * ETA_EVEN[n];
                 f[index] += c * g[2 * n - 1];
                 dEta[index] += c * g[2 * n];
+                etaSecond[index] += c * g[2 * n + 1];
                 dBeta[index] += c * h[2 * n - 1];
             }
             for (int m = 0; m < terms; m++) {
-                entropy[index] += 4.0 * (m + 1) * ETA_EVEN[m + 1] * g[2 * m];
-                entropyEta[index] += 4.0 * (m + 1) * ETA_EVEN[m + 1] * g[2 * m + 1];
+                double c = 4.0 * (m + 1) * ETA_EVEN[m + 1];
+                entropy[index] += c * g[2 * m];
+                entropyEta[index] += c * g[2 * m + 1];
+                entropyEtaSecond[index] += c * g[2 * m + 2];
             }
             power *= eta;
         }
-        return new FermiDiracValues(eta, beta, f, dEta, dBeta, withEntropy ? entropy : null, entropyEta);
+        return new FermiDiracValues(eta, beta, f, dEta, dBeta, withEntropy ? entropy : null, entropyEta, etaSecond,
+                entropyEtaSecond);
     }
 
     /** Taylor coefficients of (1 + r t)^p in t, orders 0 .. order. */
@@ -361,6 +399,123 @@ public final class RelativisticFermiDirac {
         return e * (1.0 - e * (0.5 - e * (1.0 / 3 - e * (0.25 - e * (0.2 - e * (1.0 / 6 - e / 7))))));
     }
 
+    /**
+     * The shorter rule (index into GL_SHORT_*) for a piece [a, b] in t far from the singularities of x^k sqrt(1 + beta x/2)
+     * at x &lt;= 0: only the Fermi poles at t = i pi (2m+1) limit the rule, and they are farther (relative to the piece) the
+     * farther the piece is from t = 0.
+     */
+    private static int shortRule(double a, double b) {
+        double distance = Math.min(Math.abs(a), Math.abs(b));
+        return distance >= 13 ? 0 : (distance >= 7 ? 1 : 2);
+    }
+
+    /**
+     * The head piece [0, x0] for x0 = 2 or 10 at one beta: the nodes, weights and square roots of {@link #addHead} depend on
+     * (x0, beta) alone, and the Fermi factor at a node is e^-|x - eta| = e^(+-x) e^(-+eta), so an evaluation at another eta
+     * needs one exponential for the whole piece. The last beta of each x0 is kept (immutable, published through a
+     * volatile field: safe across threads; threads alternating between betas only lose the reuse).
+     */
+    private static final class HeadNodes {
+        private static volatile HeadNodes lastDegenerate;
+        private static volatile HeadNodes lastClassical;
+
+        final double x0;
+        final double beta;
+        final double[] x;
+        final double[] a;      // weight x^-1/2 sqrt(1 + beta x/2)
+        final double[] b;      // weight x^-1/2 / sqrt(1 + beta x/2)
+        final double[] number; // weight x^1/2 (1 + beta x) sqrt(1 + beta x/2)
+        final double[] up;     // e^x
+        final double[] down;   // e^-x
+
+        static HeadNodes of(double x0, double beta) {
+            HeadNodes h = x0 == HEAD_MIN ? lastDegenerate : lastClassical;
+            if (h != null && h.beta == beta) {
+                return h;
+            }
+            h = new HeadNodes(x0, beta);
+            if (x0 == HEAD_MIN) {
+                lastDegenerate = h;
+            } else {
+                lastClassical = h;
+            }
+            return h;
+        }
+
+        private HeadNodes(double x0, double beta) {
+            this.x0 = x0;
+            this.beta = beta;
+            Sum nodes = new Sum(0.0, beta, false, false);
+            nodes.collect = true;
+            RelativisticFermiDirac.addHead(nodes, x0, beta, 0.0, false);
+            int n = nodes.collected;
+            x = java.util.Arrays.copyOf(nodes.collectedX, n);
+            a = new double[n];
+            b = new double[n];
+            number = new double[n];
+            up = new double[n];
+            down = new double[n];
+            for (int i = 0; i < n; i++) {
+                double root = Math.sqrt(1.0 + 0.5 * beta * x[i]);
+                double wr = nodes.collectedWeight[i];
+                a[i] = wr * root;
+                b[i] = wr / root;
+                number[i] = wr * root * x[i] * (1.0 + beta * x[i]);
+                up[i] = Math.exp(x[i]);
+                down[i] = 1.0 / up[i]; // x <= 10: no overflow, one rounding
+            }
+        }
+    }
+
+    /**
+     * Nodes at fixed offsets t = x - eta (a piece between two cuts, or the tail from t = 32): the Fermi factor and the
+     * entropy weights depend on t alone, so they are computed once here, with the very expressions of {@link Sum#add}.
+     */
+    private static final class FixedNodes {
+        final double[] t;
+        final double[] weight;
+        final double[] fermi;
+        final double[] hole;
+        final double[] hole2;
+        final double[] entropy;
+
+        private FixedNodes(int n) {
+            t = new double[n];
+            weight = new double[n];
+            fermi = new double[n];
+            hole = new double[n];
+            hole2 = new double[n];
+            entropy = new double[n];
+        }
+
+        private void set(int i, double ti, double wi) {
+            t[i] = ti;
+            weight[i] = wi;
+            double e = Math.exp(-Math.abs(ti));
+            double onePlus = 1.0 + e;
+            fermi[i] = ti > 0 ? e / onePlus : 1.0 / onePlus;
+            hole[i] = e / (onePlus * onePlus);
+            hole2[i] = hole[i] * (ti > 0 ? 1.0 - e : e - 1.0) / onePlus;
+            entropy[i] = log1p(e) + Math.abs(ti) * e / onePlus;
+        }
+
+        static FixedNodes legendre(double mid, double half, double[] node, double[] w) {
+            FixedNodes f = new FixedNodes(node.length);
+            for (int i = 0; i < node.length; i++) {
+                f.set(i, mid + half * node[i], half * w[i]);
+            }
+            return f;
+        }
+
+        static FixedNodes tail(double start, double[] node, double[] w) {
+            FixedNodes f = new FixedNodes(node.length);
+            for (int i = 0; i < node.length; i++) {
+                f.set(i, start + node[i], w[i]);
+            }
+            return f;
+        }
+    }
+
     /** A piece t in [a, b] of t = x - eta, nodes placed in t so that t carries no rounding from eta. */
     private static void addPiece(Sum sum, double eta, double a, double b) {
         double mid = 0.5 * (a + b);
@@ -368,10 +523,7 @@ public final class RelativisticFermiDirac {
         double[] node = GL_NODE;
         double[] weight = GL_WEIGHT;
         if (eta + a >= 8.0 * half) {
-            // far from the singularities of x^k sqrt(1 + beta x/2) at x <= 0: only the Fermi poles at t = i pi (2m+1)
-            // limit the rule, and they are farther (relative to the piece) the farther the piece is from t = 0
-            double distance = Math.min(Math.abs(a), Math.abs(b));
-            int r = distance >= 13 ? 0 : (distance >= 7 ? 1 : 2);
+            int r = shortRule(a, b);
             node = GL_SHORT_NODE[r];
             weight = GL_SHORT_WEIGHT[r];
         }
@@ -387,13 +539,22 @@ public final class RelativisticFermiDirac {
         private final double eta;
         private final double beta;
         private final double halfBeta;
-        private final boolean entropy;
-        private final boolean numberOnly; // only F and dF/deta of orders 1/2 and 3/2
+        private final boolean entropy;    // also the second eta-derivatives
+        private final boolean numberOnly; // only N = F_1/2 + beta F_3/2 and its first two eta-derivatives
         private final double[] f = new double[4];
         private final double[] dEta = new double[4];
         private final double[] dBeta = new double[4];
         private final double[] s = new double[4];
         private final double[] sEta = new double[4];
+        private final double[] d2Eta = new double[4];
+        private final double[] s2Eta = new double[4];
+        private double number;
+        private double numberEta;
+        private double numberEta2;
+        private boolean collect; // only record the nodes (for HeadNodes)
+        private int collected;
+        private double[] collectedX;      // allocated in collect mode only
+        private double[] collectedWeight;
 
         Sum(double eta, double beta, boolean entropy, boolean numberOnly) {
             this.numberOnly = numberOnly;
@@ -403,38 +564,127 @@ public final class RelativisticFermiDirac {
             this.entropy = entropy;
         }
 
+        /**
+         * Nodes at fixed t = x - eta, their Fermi factors precomputed; one square root per node, q = sqrt(x (1 + beta x/2)) =
+         * x^1/2 sqrt(1 + beta x/2), gives both weight factors.
+         */
+        void addFixed(FixedNodes nodes, double eta) {
+            double[] t = nodes.t;
+            double[] weight = nodes.weight;
+            if (numberOnly) {
+                double[] fermi = nodes.fermi;
+                double[] hole = nodes.hole;
+                double[] hole2 = nodes.hole2;
+                for (int i = 0; i < t.length; i++) {
+                    double x = eta + t[i];
+                    double onePlus = 1.0 + halfBeta * x;
+                    double w = weight[i] * Math.sqrt(x * onePlus) * (onePlus + halfBeta * x); // x^1/2 (1 + beta x) sqrt(1 + beta x/2)
+                    number += w * fermi[i];
+                    numberEta += w * hole[i];
+                    numberEta2 += w * hole2[i];
+                }
+                return;
+            }
+            for (int i = 0; i < t.length; i++) {
+                double x = eta + t[i];
+                double onePlus = 1.0 + halfBeta * x;
+                double inverse = weight[i] / Math.sqrt(x * onePlus);
+                accumulate(x, inverse * onePlus, inverse, t[i], nodes.fermi[i], nodes.hole[i], nodes.hole2[i], nodes.entropy[i]);
+            }
+        }
+
+        /** The head piece from its cached nodes: e^-|t| from e^(+-x) and one exponential of eta. */
+        void addHead(HeadNodes head, double eta) {
+            double up = Math.exp(eta);
+            double down = 1.0 / up;
+            double[] x = head.x;
+            for (int i = 0; i < x.length; i++) {
+                double t = x[i] - eta;
+                double e = t > 0 ? head.down[i] * up : head.up[i] * down; // e^-|t|
+                double onePlus = 1.0 + e;
+                double fermi = t > 0 ? e / onePlus : 1.0 / onePlus;
+                double fermiHole = e / (onePlus * onePlus);
+                double hole2 = fermiHole * (t > 0 ? 1.0 - e : e - 1.0) / onePlus;
+                if (numberOnly) {
+                    double w = head.number[i];
+                    number += w * fermi;
+                    numberEta += w * fermiHole;
+                    numberEta2 += w * hole2;
+                } else {
+                    accumulate(x[i], head.a[i], head.b[i], t, fermi, fermiHole, hole2,
+                            entropy ? log1p(e) + Math.abs(t) * e / onePlus : 0.0);
+                }
+            }
+        }
+
+        /** A node x of weight {@code weightOverRoot} (the weight times x^-1/2), t = x - eta. */
         void add(double x, double weightOverRoot, double t) {
+            if (collect) {
+                if (collectedX == null) {
+                    collectedX = new double[20];
+                    collectedWeight = new double[20];
+                } else if (collected == collectedX.length) {
+                    collectedX = java.util.Arrays.copyOf(collectedX, 2 * collected);
+                    collectedWeight = java.util.Arrays.copyOf(collectedWeight, 2 * collected);
+                }
+                collectedX[collected] = x;
+                collectedWeight[collected++] = weightOverRoot;
+                return;
+            }
             double e = Math.exp(-Math.abs(t));        // e^-|t|, no overflow
             double onePlus = 1.0 + e;
             double fermi = t > 0 ? e / onePlus : 1.0 / onePlus;
             double fermiHole = e / (onePlus * onePlus); // f (1 - f)
+            double hole2 = fermiHole * (t > 0 ? 1.0 - e : e - 1.0) / onePlus; // f (1 - f) (1 - 2 f)
             double root = Math.sqrt(1.0 + halfBeta * x);
             if (numberOnly) {
-                double w = weightOverRoot * root * x;
-                f[1] += w * fermi;
-                dEta[1] += w * fermiHole;
-                f[2] += w * x * fermi;
-                dEta[2] += w * x * fermiHole;
+                double w = weightOverRoot * root * x * (1.0 + beta * x);
+                number += w * fermi;
+                numberEta += w * fermiHole;
+                numberEta2 += w * hole2;
                 return;
             }
-            double wF = weightOverRoot * root * fermi;
-            double wE = weightOverRoot * root * fermiHole;
-            double wB = weightOverRoot * x * fermi / (4.0 * root);
-            double wS = entropy ? weightOverRoot * root * (log1p(e) + Math.abs(t) * e / onePlus) : 0.0;
-            double wSE = entropy ? t * wE : 0.0; // t finite whenever the entropy is summed
+            accumulate(x, weightOverRoot * root, weightOverRoot / root, t, fermi, fermiHole, hole2,
+                    entropy ? log1p(e) + Math.abs(t) * e / onePlus : 0.0);
+        }
+
+        /**
+         * One node: x, a = weight x^-1/2 sqrt(1 + beta x/2), b = weight x^-1/2 / sqrt(1 + beta x/2), t, f, f (1 - f),
+         * f (1 - f) (1 - 2f) and the entropy of the state, -f ln f - (1 - f) ln(1 - f).
+         */
+        private void accumulate(double x, double a, double b, double t, double fermi, double fermiHole, double hole2,
+                                double stateEntropy) {
+            double wF = a * fermi;
+            double wE = a * fermiHole;
+            double wB = 0.25 * b * x * fermi;
             double power = 1.0; // x^(k + 1/2)
+            if (!entropy) {
+                for (int k = 0; k < 4; k++) {
+                    f[k] += wF * power;
+                    dEta[k] += wE * power;
+                    dBeta[k] += wB * power;
+                    power *= x;
+                }
+                return;
+            }
+            double wS = a * stateEntropy;
+            double wSE = t * wE; // t finite whenever the entropy is summed
+            double wE2 = a * hole2;
+            double wS2 = t * wE2 - wE;
             for (int k = 0; k < 4; k++) {
                 f[k] += wF * power;
                 dEta[k] += wE * power;
                 dBeta[k] += wB * power;
                 s[k] += wS * power;
                 sEta[k] += wSE * power;
+                d2Eta[k] += wE2 * power;
+                s2Eta[k] += wS2 * power;
                 power *= x;
             }
         }
 
         FermiDiracValues values() {
-            return new FermiDiracValues(eta, beta, f, dEta, dBeta, entropy ? s : null, sEta);
+            return new FermiDiracValues(eta, beta, f, dEta, dBeta, entropy ? s : null, sEta, d2Eta, s2Eta);
         }
     }
 }

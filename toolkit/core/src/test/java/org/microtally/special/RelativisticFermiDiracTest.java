@@ -187,14 +187,54 @@ class RelativisticFermiDiracTest {
     }
 
     @Test
+    void secondEtaDerivativesMatchClosedFormsAndDifferencesOfTheTestedDerivatives() {
+        // Source: DLMF 25.12.16 (dF_j/deta = F_{j-1}) twice, with the Gamma normalisation: at beta = 0
+        // d^2F_k/deta^2 = k (k - 1) F_{k-2}, F_{k-2} from the mpmath-tested integrals of lower order
+        for (double eta : new double[] {-30.0, -3.0, 0.0, 1.7, 12.0, 40.0, 49.99, 50.01, 300.0}) {
+            FermiDiracValues v = RelativisticFermiDirac.evaluate(eta, 0.0, true);
+            for (double k : new double[] {1.5, 2.5}) {
+                double expected = k * (k - 1) * v.integral(k - 2);
+                double got = v.etaSecondDerivative(k);
+                assertTrue(Math.abs(got / expected - 1) <= 1e-12, "k=" + k + " eta=" + eta + ": " + got + " vs " + expected);
+            }
+        }
+        // Source: central differences of dF_k/deta and dS_k/deta, themselves checked against the mpmath table and
+        // closed forms above (h = 1e-3: truncation ~h^2 f^(3)/6 and rounding ~1e-12 f/h, both far below the 1e-5 asked)
+        for (double b : new double[] {0.0, 0.3, 20.0, 2000.0}) {
+            for (double e : new double[] {-40.0, -5.0, -0.7, 0.0, 2.5, 9.0, 30.0, 49.9995, 80.0, 1e4}) {
+                double h = 1e-3 * Math.max(1.0, e / 100);
+                FermiDiracValues up = RelativisticFermiDirac.evaluate(e + h, b, true);
+                FermiDiracValues down = RelativisticFermiDirac.evaluate(e - h, b, true);
+                FermiDiracValues at = RelativisticFermiDirac.evaluate(e, b, true);
+                for (double k : new double[] {-0.5, 0.5, 1.5, 2.5}) {
+                    double diff = (up.etaDerivative(k) - down.etaDerivative(k)) / (2 * h);
+                    double size = Math.max(Math.abs(diff), at.etaDerivative(k));
+                    assertTrue(Math.abs(at.etaSecondDerivative(k) - diff) < 1e-5 * size,
+                            "F'' eta = " + e + ", beta = " + b + ", k = " + k + ": " + at.etaSecondDerivative(k) + " vs " + diff);
+                    double sDiff = (up.entropyEtaDerivative(k) - down.entropyEtaDerivative(k)) / (2 * h);
+                    double sSize = Math.max(Math.abs(sDiff), Math.max(at.entropyIntegral(k), Math.abs(at.entropyEtaDerivative(k))));
+                    assertTrue(Math.abs(at.entropyEtaSecondDerivative(k) - sDiff) < 1e-5 * sSize,
+                            "S'' eta = " + e + ", beta = " + b + ", k = " + k + ": " + at.entropyEtaSecondDerivative(k) + " vs " + sDiff);
+                }
+            }
+        }
+        // common practice, no source: they come with the entropy only
+        assertThrows(IllegalStateException.class, () -> RelativisticFermiDirac.evaluate(1, 1, false).etaSecondDerivative(0.5));
+    }
+
+    @Test
     void numberIntegralIsTheTestedCombinationOfTheFullEvaluation() {
-        // Source: the mpmath-tested evaluate (same rule, fewer sums): N = F_1/2 + beta F_3/2 and dN/deta
+        // Source: the mpmath-tested evaluate (same rule, fewer sums): N = F_1/2 + beta F_3/2, dN/deta and d^2N/deta^2
         for (double b : new double[] {0.0, 1e-4, 0.3, 20.0, 2000.0}) {
             for (double e : new double[] {-300.0, -40.0, -5.0, -0.7, 0.0, 2.5, 9.0, 30.0, 49.9995, 80.0, 1e4}) {
                 FermiDiracValues v = RelativisticFermiDirac.evaluate(e, b, false);
                 double[] got = RelativisticFermiDirac.numberIntegral(e, b);
                 double n = v.integral(0.5) + b * v.integral(1.5);
                 double dn = v.etaDerivative(0.5) + b * v.etaDerivative(1.5);
+                FermiDiracValues w = RelativisticFermiDirac.evaluate(e, b, true);
+                double d2n = w.etaSecondDerivative(0.5) + b * w.etaSecondDerivative(1.5);
+                // N'' changes sign at the Fermi level: compared on the scale of N'
+                assertTrue(Math.abs(got[2] - d2n) < 1e-13 * dn, "N'' at eta = " + e + ", beta = " + b + ": " + got[2] + " vs " + d2n);
                 assertTrue(Math.abs(got[0] / n - 1) < 1e-14, "N at eta = " + e + ", beta = " + b + ": " + got[0] + " vs " + n);
                 assertTrue(Math.abs(got[1] / dn - 1) < 1e-14, "dN at eta = " + e + ", beta = " + b + ": " + got[1] + " vs " + dn);
             }
