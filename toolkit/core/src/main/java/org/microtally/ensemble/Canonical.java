@@ -55,7 +55,8 @@ import org.microtally.units.Energy;
  *
  * <p>Heat capacity and energy variance (computed on first request, or by {@link #warnings()}) propagate,
  * next to the series, the first and second moments of the energy through the same steps, measured from
- * mu* in particle-hole form so that every term is non-negative (see {@link EnergyFluctuations}); the
+ * mu* in particle-hole form so that every term is non-negative (bosons: by the recursion over cycle sums
+ * where it is cheaper, O(N^2 + N M); see {@link EnergyFluctuations}); the
  * result is checked against U from the occupations and against a forward difference dU/dT (one more
  * pass), and a disagreement is a warning.
  *
@@ -297,7 +298,7 @@ public final class Canonical implements Tabular {
         synchronized (momentLock) {
             if (fluctuations == null) {
                 fluctuations = mirror != null ? mirror.fluctuations()
-                        : EnergyFluctuations.of(spectrum, statistics, n, kT, muStar, energy);
+                        : EnergyFluctuations.of(spectrum, statistics, n, kT, muStar, energy, lnZ);
             }
             return fluctuations;
         }
