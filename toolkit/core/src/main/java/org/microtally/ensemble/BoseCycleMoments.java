@@ -72,15 +72,70 @@ final class BoseCycleMoments {
  *         the largest W_n)
      */
     static BoseCycleMoments of(Spectrum s, int n, double kT, double muStar, boolean withSecond) {
+        Sums z = sums(s, n, kT, muStar, -1, withSecond ? 2 : 1);
+        if (z == null || !z.usable() || !Double.isFinite(z.u[n]) || (z.v != null && !Double.isFinite(z.v[n]))) {
+            return null;
+        }
+        double beta = 1.0 / kT;
+        double lnZ = Math.log(z.w[n]) + z.logScale - beta * muStar * n;
+        double units = n * (n + 1) / 2.0 + n * (s.size() + 8.0);
+        return new BoseCycleMoments(lnZ, z.u[n] / z.w[n], z.v == null ? Double.NaN : z.v[n] / z.w[n], units);
+    }
+
+    /**
+     * The generating series of {@link CanonicalSeries}' Bose path from the cycle sums: {all levels, all levels but
+     * level 0} as series whose coefficient n is Z_n e^{n beta mu*} (times their scale), in O(N^2 + N M); null
+     * when the sums are not usable (then the state-by-state product is used). Rounding bound of each coefficient
+     * n: (n (n + 1)/2 + n (M + 5)) 2^-53 relative, worst case (see the class notes).
+     */
+    static ScaledSeries[] partitionSeries(Spectrum s, int n, double kT, double muStar) {
+        Sums all = sums(s, n, kT, muStar, -1, 0);
+        if (all == null || !all.usable()) {
+            return null;
+        }
+        Sums others = sums(s, n, kT, muStar, 0, 0);
+        if (others == null) {
+            return null;
+        }
+        return new ScaledSeries[] {all.series(n), others.series(n)};
+    }
+
+    /** The sums W (and U, V up to {@code moments}) of the class notes, without level {@code skip} (-1: none). */
+    private record Sums(double[] w, double[] u, double[] v, int low, double logScale, double max) {
+        /** W_N finite, positive and not far below the largest W_n (see the class notes). */
+        boolean usable() {
+            double last = w[w.length - 1];
+            return last >= FAR_BELOW_MAX * max;
+        }
+
+        ScaledSeries series(int n) {
+            ScaledSeries z = new ScaledSeries(n, false);
+            System.arraycopy(w, 0, z.c, 0, n + 1);
+            int top = n;
+            while (top > low && w[top] == 0) {
+                top--;
+            }
+            z.low = low;
+            z.degree = top;
+            z.logScale = logScale;
+            return z;
+        }
+    }
+
+    private static Sums sums(Spectrum s, int n, double kT, double muStar, int skip, int moments) {
         int m = s.size();
-        MemoryEstimate.requireHeap("particle number N", n, "the cycle sums, 6 series of N + 1 numbers", 6 * (n + 1.0), 8,
+        MemoryEstimate.requireHeap("particle number N", n, "the cycle sums, " + 2 * (moments + 1)
+                        + " series of N + 1 numbers", 2 * (moments + 1) * (n + 1.0), 8,
                 "Lower N, or give Java more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally).");
         double beta = 1.0 / kT;
         double e0 = s.groundEnergy();
         double[] c = new double[n + 1];
-        double[] d = new double[n + 1];
-        double[] q = withSecond ? new double[n + 1] : null;
+        double[] d = moments >= 1 ? new double[n + 1] : null;
+        double[] q = moments >= 2 ? new double[n + 1] : null;
         for (int i = 0; i < m; i++) {
+            if (i == skip) {
+                continue;
+            }
             double y = Math.exp(-beta * (s.energy(i) - muStar));
             double x = beta * (s.energy(i) - e0);
             double g = s.degeneracy(i);
@@ -88,17 +143,19 @@ final class BoseCycleMoments {
             for (int k = 1; k <= n && p != 0; k++) {
                 double gp = g * p;
                 c[k] += gp;
-                double kx = k * x;
-                d[k] += kx * gp;
-                if (q != null) {
-                    q[k] += kx * kx * gp;
+                if (d != null) {
+                    double kx = k * x;
+                    d[k] += kx * gp;
+                    if (q != null) {
+                        q[k] += kx * kx * gp;
+                    }
                 }
                 p *= y;
             }
         }
         double[] w = new double[n + 1];
-        double[] u = new double[n + 1];
-        double[] v = withSecond ? new double[n + 1] : null;
+        double[] u = d != null ? new double[n + 1] : null;
+        double[] v = q != null ? new double[n + 1] : null;
         w[0] = 1;
         int low = 0;
         double logScale = 0;
@@ -107,20 +164,26 @@ final class BoseCycleMoments {
             double sw = 0;
             double su = 0;
             double sv = 0;
-            for (int k = 1; k <= j - low; k++) {
-                double wk = w[j - k];
-                double uk = u[j - k];
-                sw += c[k] * wk;
-                su += d[k] * wk + c[k] * uk;
+            if (u == null) {
+                for (int k = 1; k <= j - low; k++) {
+                    sw += c[k] * w[j - k];
+                }
+            } else {
+                for (int k = 1; k <= j - low; k++) {
+                    double wk = w[j - k];
+                    double uk = u[j - k];
+                    sw += c[k] * wk;
+                    su += d[k] * wk + c[k] * uk;
+                    if (v != null) {
+                        sv += q[k] * wk + 2 * d[k] * uk + c[k] * v[j - k];
+                    }
+                }
+                u[j] = su / j;
                 if (v != null) {
-                    sv += q[k] * wk + 2 * d[k] * uk + c[k] * v[j - k];
+                    v[j] = sv / j;
                 }
             }
             w[j] = sw / j;
-            u[j] = su / j;
-            if (v != null) {
-                v[j] = sv / j;
-            }
             if (!Double.isFinite(w[j])) {
                 return null;
             }
@@ -132,26 +195,25 @@ final class BoseCycleMoments {
                 max = Math.scalb(max, -e);
             }
         }
-        if (!(w[n] >= FAR_BELOW_MAX * max) || !Double.isFinite(u[n]) || (v != null && !Double.isFinite(v[n]))) {
-            return null;
-        }
-        double lnZ = Math.log(w[n]) + logScale - beta * muStar * n;
-        double units = n * (n + 1) / 2.0 + n * (m + 8.0);
-        return new BoseCycleMoments(lnZ, u[n] / w[n], v == null ? Double.NaN : v[n] / w[n], units);
+        return new Sums(w, u, v, low, logScale, max);
     }
 
     /** Divides entries low..top by 2^e; returns the new first index whose W is not zero. */
     private static int rescale(double[] w, double[] u, double[] v, int low, int top, int e) {
         for (int j = low; j <= top; j++) {
             w[j] = Math.scalb(w[j], -e);
-            u[j] = Math.scalb(u[j], -e);
+            if (u != null) {
+                u[j] = Math.scalb(u[j], -e);
+            }
             if (v != null) {
                 v[j] = Math.scalb(v[j], -e);
             }
         }
         int first = low;
         while (first < top && w[first] == 0) {
-            u[first] = 0;
+            if (u != null) {
+                u[first] = 0;
+            }
             if (v != null) {
                 v[first] = 0;
             }

@@ -104,6 +104,52 @@ class BoseCycleMomentsTest {
         assertTrue(BoseCycleMoments.pays(Spectra.harmonicOscillator(3, 40), 1000));
     }
 
+    /**
+     * Canonical's Bose path on the cycle sums (levels grouped: 31 levels, 5,456 states) against the state-by-state
+     * product (the same states as 5,456 labelled one-state levels, where the cycle sums do not pay): ln Z, U, the
+     * occupation of every energy, the ground-state number distribution and C.
+     */
+    @ParameterizedTest
+    @MethodSource("isotropicTemperatures")
+    void canonicalOnTheCycleSumsMatchesTheStateByStateProduct(double kT) {
+        int n = 300;
+        Spectrum grouped = Spectra.harmonicOscillator(3, 30);
+        List<org.microtally.spectrum.Level> states = new java.util.ArrayList<>();
+        for (int i = 0; i < grouped.size(); i++) {
+            for (int g = 0; g < grouped.degeneracy(i); g++) {
+                states.add(new org.microtally.spectrum.Level(grouped.energy(i), 1, states.size()));
+            }
+        }
+        Spectrum split = Spectrum.of(states, grouped.scale(), true, Double.POSITIVE_INFINITY, "");
+        assertTrue(BoseCycleMoments.pays(grouped, n) && !BoseCycleMoments.pays(split, n));
+        Canonical a = Canonical.of(grouped, Statistics.BOSE, n, kT);
+        Canonical b = Canonical.of(split, Statistics.BOSE, n, kT);
+        // Source: independent route, the state-by-state positive product of ScaledSeries (Canonical's class notes)
+        assertEquals(b.lnZ(), a.lnZ(), 1e-12 * Math.abs(b.lnZ()), "ln Z");
+        assertEquals(b.energy(), a.energy(), 1e-12 * b.energy(), "U");
+        assertEquals(b.heatCapacity(), a.heatCapacity(), 1e-9 * b.heatCapacity(), "C");
+        int j = 0;
+        for (int i = 0; i < grouped.size(); i++) {
+            double total = 0;
+            for (int g = 0; g < grouped.degeneracy(i); g++, j++) {
+                total += b.occupations().levelTotal(j);
+            }
+            double got = a.occupations().levelTotal(i);
+            assertEquals(total, got, 1e-11 * total + 1e-300, "occupation of energy " + grouped.energy(i));
+        }
+        assertEquals(b.condensate().mean(), a.condensate().mean(), 1e-11 * b.condensate().mean(), "<N_0>");
+        assertEquals(b.condensate().variance(), a.condensate().variance(), 1e-9 * b.condensate().variance(), "Var N_0");
+        for (int k = 0; k <= n; k += 10) {
+            double p = b.condensate().probability(k);
+            assertEquals(p, a.condensate().probability(k), 1e-10 * p + 1e-300, "P(N_0 = " + k + ")");
+        }
+    }
+
+    static Stream<Double> isotropicTemperatures() {
+        // below, near and above T_c0 = (N / zeta(3))^(1/3) = 6.3 quanta for 300 atoms (closed form, Bagnato, Pritchard & Kleppner 1987)
+        return Stream.of(1.0, 4.0, 6.0, 9.0);
+    }
+
     /** ln(1 - q^m), q = e^{-beta}, without cancellation. */
     private static double lnOneMinusQ(double beta, int m) {
         return Math.log(-Math.expm1(-m * beta));
