@@ -7,7 +7,7 @@ import org.microtally.spectrum.Spectrum;
  * Canonical Z_N and the first two moments of the excitation energy of N ideal bosons from the
  * recursion over permutation-cycle sums, in O(N^2 + N M) operations for M levels (the state-by-state
  * moment pass of {@link ScaledSeries} costs O(S N) for S states). Package-private engine of
- * {@link EnergyFluctuations}.
+ * {@link EnergyFluctuations} and of the Bose path of {@link CanonicalSeries}.
  *
  * <p>Formula: with C_k = sum_i g_i y_i^k the single-particle sum at k beta (y_i = e^{-beta(e_i - mu*)},
  * fugacity-scaled, y_i &lt; 1 for bosons), the canonical sums W_n = Z_n e^{n beta mu*} obey
@@ -30,8 +30,9 @@ import org.microtally.spectrum.Spectrum;
  *
  * <p>Accuracy: worst-case relative rounding bound of W_N, U_N and V_N, to first order,
  * (N (N + 1)/2 + N (M + 8)) 2^-53 (the longest chain of dependent roundings: powers y^k, level sums, products,
- * the n-term sum and the division at each of at most N steps); typical errors are far smaller (a few
- * 1e-15, see the tests). The variance V/W - (U/W)^2 loses the factor 1 + mean^2/Var as in
+ * the n-term sum and the division at each of at most N steps); measured errors are far smaller: ln Z and U
+ * within 4e-14 relative, Var E within 5.3e-13 where mean^2/Var = 249 (1D oscillator, N &lt;= 2000, against
+ * the Gaussian-binomial closed form; BoseCycleMomentsTest). The variance V/W - (U/W)^2 loses the factor 1 + mean^2/Var as in
  * {@link EnergyFluctuations}. Fermions are not offered: their cycle signs alternate, (-1)^{k+1}, and
  * the same recursion loses digits to cancellation (the series path stays in use for them).
  */
