@@ -95,7 +95,7 @@ final class CanonicalSeries {
         double beta = 1.0 / kT;
         int m = s.size();
         // where cheaper, the same series from the cycle sums (BoseCycleMoments: O(N^2 + N M) instead of O(S N))
-        ScaledSeries[] fromCycles = BoseCycleMoments.pays(s, n) ? BoseCycleMoments.partitionSeries(s, n, kT, muStar) : null;
+        ScaledSeries[] fromCycles = BoseCycleMoments.pays(s, n, kT, muStar) ? BoseCycleMoments.partitionSeries(s, n, kT, muStar) : null;
         ScaledSeries z = fromCycles != null ? fromCycles[0] : new ScaledSeries(n, false);
         ScaledSeries others = fromCycles != null ? fromCycles[1] : null;
         long every = Math.max(1, m / 100);

@@ -11,7 +11,7 @@ import org.microtally.spectrum.Statistics;
  * generating product, with the two internal checks that decide whether it can be trusted.
  * Package-private engine of {@link Canonical#energyVariance()}.
  *
- * <p>Bosons, where it costs less ({@link BoseCycleMoments#pays}: (N + 1)/2 + M levels &lt;= S states): the
+ * <p>Bosons, where it costs less (the estimate {@link BoseCycleMoments#pays}): the
  * moments come from the recursion over cycle sums, O(N^2 + N M) instead of O(S N) (2,000 atoms on 1.7e6
  * trap states: milliseconds instead of seconds), all terms non-negative, energies measured from the lowest
  * level. It is used only when its ln Z_N and U agree with those of the series of {@link Canonical} (an
@@ -102,7 +102,7 @@ final class EnergyFluctuations {
      * {@link Canonical}, an independent route), otherwise by the moment pass of the series.
      */
     static EnergyFluctuations of(Spectrum s, Statistics st, int n, double kT, double muStar, double energy, double lnZ) {
-        if (!st.capped() && BoseCycleMoments.pays(s, n)) {
+        if (!st.capped() && BoseCycleMoments.pays(s, n, kT, muStar)) {
             EnergyFluctuations viaCycles = boseByCycles(s, n, kT, muStar, energy, lnZ);
             if (viaCycles != null) {
                 return viaCycles;
