@@ -171,6 +171,16 @@ final class Moduli {
 
         BigInteger reconstruct(long[][] residues, int index) {
             int k = p.length;
+            long r0 = residues[0][index];
+            int same = 1;
+            while (same < k && residues[same][index] == r0) {
+                same++;
+            }
+            if (same == k) {
+                // every residue equal: the value is r0 itself (0 <= r0 < p_0 < every product of the primes, and the
+                // representative in [0, P) is unique); small entries skip Garner's digits
+                return BigInteger.valueOf(r0);
+            }
             long[] a = digit;
             int top = -1;
             for (int i = 0; i < k; i++) {
@@ -191,6 +201,12 @@ final class Moduli {
             }
             if (top <= 0) {
                 return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(a[0]);
+            }
+            if (top == 1) { // a_1 p_0 + a_0 < 2^124: a long when it fits in 63 bits
+                long lo = a[1] * p[0];
+                if (Math.multiplyHigh(a[1], p[0]) == 0 && lo >= 0 && lo + a[0] >= 0) {
+                    return BigInteger.valueOf(lo + a[0]);
+                }
             }
             return horner(a, top);
         }

@@ -40,6 +40,11 @@ import org.microtally.units.Energy;
  * exact powers of two. The alternating recursion of Borrmann &amp; Franke (J. Chem. Phys. 98, 2484
  * (1993)) is available in {@link AlternatingRecursion} for comparison only.
  *
+ * <p>Bosons where (N + 1)/2 + M &lt;= S (M levels, S states): the same series, coefficient n = Z_n e^{n beta mu*},
+ * comes from the recursion over cycle sums n Z_n = sum_k Z_1(k beta) Z_{n-k} (positive terms for bosons; with
+ * and without the lowest level, for the ground-level distribution), O(N^2 + N M) instead of O(S N); method,
+ * bound and the guard that falls back to the product are stated on {@link BoseCycleMoments}.
+ *
  * <p>Occupations. Bosons: P(n_s &gt;= j) = y_s^j Z_{N-j} / Z_N, so &lt;n_s&gt; = sum_{j&gt;=1}
  * y_s^j Z_{N-j}/Z_N (positive terms, Horner). Fermi and Gentile: P(n_s = j) = y_s^j Z^{(-s)}_{N-j}/Z_N
  * with Z^{(-s)} the partition functions without state s, obtained as the product of the prefix
@@ -55,7 +60,8 @@ import org.microtally.units.Energy;
  *
  * <p>Heat capacity and energy variance (computed on first request, or by {@link #warnings()}) propagate,
  * next to the series, the first and second moments of the energy through the same steps, measured from
- * mu* in particle-hole form so that every term is non-negative (see {@link EnergyFluctuations}); the
+ * mu* in particle-hole form so that every term is non-negative (bosons: by the recursion over cycle sums
+ * where it is cheaper, O(N^2 + N M); see {@link EnergyFluctuations}); the
  * result is checked against U from the occupations and against a forward difference dU/dT (one more
  * pass), and a disagreement is a warning.
  *
@@ -66,7 +72,8 @@ import org.microtally.units.Energy;
  * error of at most S (N+1) 2^-1073 / P_GC(N), P_GC(N) being the grand canonical probability at mu*
  * of exactly N particles (each flushed mantissa is below 2^-1073 of its series' maximum, which is at
  * most the untruncated series value); a warning is added if that bound exceeds 1e-12. Occupations
- * share these bounds. Var E: each moment carries the same relative bound, and the final subtraction
+ * share these bounds (bosons on the cycle sums: (N (N + 1)/2 + N (M + 5)) 2^-53 instead of (S + N) 2^-53, a
+ * worst case; measured errors are near 1e-14, see BoseCycleMomentsTest). Var E: each moment carries the same relative bound, and the final subtraction
  * multiplies it by 1 + mean(X)^2/Var X, X the excitation energy above the mu*-reference (about the number
  * of thermally active particles and holes; 60 for 10^4 fermions in a 2D oscillator at kT = 0.5);
  * where Var E falls below 4 (S + N) 2^-53 &lt;X^2&gt; a warning says C_V is only an absolute statement.
@@ -309,7 +316,7 @@ public final class Canonical implements QuantityResult {
         synchronized (momentLock) {
             if (fluctuations == null) {
                 fluctuations = mirror != null ? mirror.fluctuations()
-                        : EnergyFluctuations.of(spectrum, statistics, n, kT, muStar, energy);
+                        : EnergyFluctuations.of(spectrum, statistics, n, kT, muStar, energy, lnZ);
             }
             return fluctuations;
         }

@@ -85,10 +85,12 @@ final class CanonicalSeries {
     private static Canonical bose(Spectrum s, int n, double kT, double muStar, ProgressListener progress) {
         double beta = 1.0 / kT;
         int m = s.size();
-        ScaledSeries z = new ScaledSeries(n, false);
-        ScaledSeries others = null;
+        // where cheaper, the same series from the cycle sums (BoseCycleMoments: O(N^2 + N M) instead of O(S N))
+        ScaledSeries[] fromCycles = BoseCycleMoments.pays(s, n, kT, muStar) ? BoseCycleMoments.partitionSeries(s, n, kT, muStar) : null;
+        ScaledSeries z = fromCycles != null ? fromCycles[0] : new ScaledSeries(n, false);
+        ScaledSeries others = fromCycles != null ? fromCycles[1] : null;
         long every = Math.max(1, m / 100);
-        for (int i = m - 1; i >= 0; i--) {
+        for (int i = m - 1; i >= 0 && fromCycles == null; i--) {
             if (i == 0) {
                 others = z.copy();
             }

@@ -49,6 +49,32 @@ class ModuliTest {
                 }
             }
         }
+        // the short cuts for small values (all residues equal; two Garner digits that fit in a long) and their edges
+        for (long[] all : new long[][] {Moduli.primes(4), Moduli.fmaPrimes(4)}) {
+            for (int k = 1; k <= all.length; k++) {
+                long[] p = java.util.Arrays.copyOf(all, k);
+                BigInteger product = BigInteger.ONE;
+                for (long q : p) {
+                    product = product.multiply(BigInteger.valueOf(q));
+                }
+                Moduli.Crt crt = new Moduli.Crt(p);
+                BigInteger[] values = {BigInteger.ZERO, BigInteger.valueOf(12345), BigInteger.valueOf(p[0] - 1),
+                    BigInteger.valueOf(p[0]), BigInteger.valueOf(Long.MAX_VALUE), BigInteger.ONE.shiftLeft(63),
+                    BigInteger.ONE.shiftLeft(63).add(BigInteger.valueOf(p[0] - 1)), BigInteger.ONE.shiftLeft(100).add(BigInteger.ONE),
+                    product.subtract(BigInteger.ONE)};
+                for (BigInteger v : values) {
+                    if (v.compareTo(product) >= 0) {
+                        continue;
+                    }
+                    long[][] res = new long[k][1];
+                    for (int i = 0; i < k; i++) {
+                        res[i][0] = v.mod(BigInteger.valueOf(p[i])).longValueExact();
+                    }
+                    // Source: definition (v is the unique value in [0, prod p_i) with these residues); common practice
+                    assertEquals(v, crt.reconstruct(res, 0), "k=" + k + " v=" + v);
+                }
+            }
+        }
         // precondition, not a result: both prime sets lie in their stated ranges
         assertTrue(Moduli.fmaPrimes(15)[14] > Moduli.FMA_FLOOR && Moduli.primes(12)[11] > (1L << 61));
     }

@@ -4,7 +4,9 @@ import com.google.gson.JsonNull;
 import com.google.gson.JsonObject;
 import java.nio.file.Path;
 import java.time.Duration;
+import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Executors;
@@ -48,6 +50,7 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
         int codeCells = (int) nb.cells().stream().filter(c -> Notebook.type(c).equals("code")).count();
         Failure failure = null;
         Map<String, JsonObject> displays = new HashMap<>();
+        List<ProgressLine.CellTime> times = new ArrayList<>();
         ScheduledExecutorService timer = Executors.newSingleThreadScheduledExecutor(r -> {
             Thread t = new Thread(r, "microtally-cell-timeout");
             t.setDaemon(true);
@@ -70,7 +73,7 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
                 }
                 count++;
                 cell.addProperty("execution_count", count);
-                Optional<Failure> f = runCell(engine, timer, cell, i, count, codeCells, displays);
+                Optional<Failure> f = runCell(engine, timer, cell, i, count, codeCells, displays, times);
                 if (failure == null && f.isPresent()) {
                     failure = f.get();
                 }
@@ -79,12 +82,13 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
             timer.shutdownNow();
             exits.cellEnded();
         }
-        progress.notebookDone(file, count, codeCells, (System.nanoTime() - started) / 1e9, failure == null);
+        progress.notebookDone(file, count, codeCells, (System.nanoTime() - started) / 1e9, failure == null, times);
         return new Executed(nb, Optional.ofNullable(failure));
     }
 
     private Optional<Failure> runCell(Engine engine, ScheduledExecutorService timer, JsonObject cell, int cellNumber,
-                                      int count, int codeCells, Map<String, JsonObject> displays) {
+                                      int count, int codeCells, Map<String, JsonObject> displays,
+                                      List<ProgressLine.CellTime> times) {
         progress.cellStarted(file, count, codeCells, cellNumber);
         OutputCollector collector = new OutputCollector(displays, text -> progress.computation(file, cellNumber, text),
                 settings.outputLimitBytes());
@@ -99,6 +103,7 @@ record NotebookExecution(Path file, Duration cellTimeout, RunSettings settings, 
         exits.cellEnded();
         alarm.cancel(false);
         double seconds = (System.nanoTime() - t0) / 1e9;
+        times.add(new ProgressLine.CellTime(cellNumber, seconds));
         Optional<Failure> failure = Optional.empty();
         String status = "ok";
         if (r.ok()) {

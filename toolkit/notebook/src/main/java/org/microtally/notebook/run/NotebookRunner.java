@@ -79,9 +79,12 @@ public final class NotebookRunner {
         }
         Optional<NotebookExecution.Failure> first = Optional.empty();
         boolean badInput = false;
+        long started = System.nanoTime();
+        int ran = 0;
         try (ExitWatch exits = new ExitWatch(log)) {
             for (Path p : notebooks) {
                 Outcome o = runOne(p, exits);
+                ran++;
                 if (o.failure().isPresent() && first.isEmpty()) {
                     first = o.failure();
                 }
@@ -90,6 +93,9 @@ public final class NotebookRunner {
                     break;
                 }
             }
+        }
+        if (ran > 1) {
+            progress.runDone(ran, (System.nanoTime() - started) / 1e9);
         }
         if (first.isPresent()) {
             log.println("microtally: FAILED " + first.get().describe());

@@ -301,6 +301,20 @@ class NotebookRunnerTest {
     }
 
     @Test
+    void eachNotebookLineNamesItsSlowestCellsAndTheRunEndsWithItsTotal() throws IOException {
+        Path a = notebook("slow.ipynb", "{}", "int x = 1;", "Thread.sleep(600);", "Thread.sleep(200);");
+        Path b = notebook("quick.ipynb", "{}", "int y = 2;");
+        assertEquals(0, run(a.toString(), b.toString(), "--out", tmp.resolve("timed").toString()), log());
+        java.util.regex.Matcher line = java.util.regex.Pattern.compile(java.util.regex.Pattern.quote(a.toString())
+                + ": 3 of 3 code cells run in [0-9.]+ s; slowest: (.*)").matcher(log());
+        assertTrue(line.find(), log());
+        String slowest = line.group(1);
+        // common practice, no source: Thread.sleep waits at least as long as asked, so the 600 ms cell comes first
+        assertTrue(slowest.indexOf("cell 2 ") >= 0 && slowest.indexOf("cell 2 ") < slowest.indexOf("cell 3 "), slowest);
+        assertTrue(log().contains("microtally: 2 notebooks run in "), log());
+    }
+
+    @Test
     void anUnwritableOutputIsFoundBeforeAnyCellRunsAndKeepGoingTriesTheRest() throws IOException {
         Path a = notebook("first.ipynb", "{}", "System.out.println(\"first ran\");");
         Path b = notebook("second.ipynb", "{}", "System.out.println(\"second ran\");");
