@@ -13,7 +13,7 @@ import random
 import sys
 import mpmath as mp
 
-from generate_reference import fd_row, DIGITS
+from generate_reference import fd_row, write_header, DIGITS
 
 mp.mp.dps = 45
 
@@ -21,11 +21,8 @@ mp.mp.dps = 45
 def main():
     rnd = random.Random(41)
     out = sys.stdout
-    out.write("# Reference values of F_j(eta) for microtally's stated-accuracy test.\n")
-    out.write("# Generator: generate_fd_grid.py with mpmath %s (Python %s), 45 working digits,\n"
-              % (mp.__version__, sys.version.split()[0]))
-    out.write("# each value confirmed by a second independent mpmath route (quadrature) to 20 digits.\n")
-    out.write("# function,a,b,value   a = j, b = eta\n")
+    write_header(out, "generate_fd_grid.py", "of F_j(eta) for microtally's stated-accuracy test",
+                 "a second independent mpmath route (quadrature) to 20 digits", "function,a,b,value   a = j, b = eta")
     for j in ["-0.5", "0.5", "1.5", "5", "12"]:
         etas = [repr(1 + 0.5 * i) for i in range(1, 80)] + [repr(1 + 40 * rnd.random()) for _ in range(20)]
         for eta in etas:

@@ -16,6 +16,19 @@ mp.mp.dps = 45
 DIGITS = 30
 
 
+def write_header(out, generator, subject, confirmation, columns, arguments=None, digits_end=","):
+    """The comment lines every reference table in this folder starts with: what the values are for, the
+    generator with the mpmath and Python versions and the working digits (mp.mp.dps at the call), how
+    each value was confirmed, optionally how the arguments are read, and the column legend."""
+    out.write("# Reference values %s.\n" % subject)
+    out.write("# Generator: %s with mpmath %s (Python %s), %d working digits%s\n"
+              % (generator, mp.__version__, sys.version.split()[0], mp.mp.dps, digits_end))
+    out.write("# each value confirmed by %s.\n" % confirmation)
+    if arguments is not None:
+        out.write("# Arguments are the IEEE doubles nearest the printed decimals%s, used exactly.\n" % arguments)
+    out.write("# %s\n" % columns)
+
+
 def agree(a, b, what):
     a = mp.re(a)
     b = mp.re(b)
@@ -98,12 +111,10 @@ def fd_row(j, eta):
 
 def main():
     out = sys.stdout
-    out.write("# Reference values for microtally special-function tests.\n")
-    out.write("# Generator: generate_reference.py with mpmath %s (Python %s), %d working digits,\n"
-              % (mp.__version__, sys.version.split()[0], mp.mp.dps))
-    out.write("# each value confirmed by a second independent mpmath route to 20 digits.\n")
-    out.write("# Arguments are the IEEE doubles nearest the printed decimals (as Java parses them), used exactly.\n")
-    out.write("# function,a,b,value   zeta: a = s; polylog: a = s, b = z; fermidirac: a = j, b = eta\n")
+    write_header(out, "generate_reference.py", "for microtally special-function tests",
+                 "a second independent mpmath route to 20 digits",
+                 "function,a,b,value   zeta: a = s; polylog: a = s, b = z; fermidirac: a = j, b = eta",
+                 arguments=" (as Java parses them)")
     for s in ["1.0001", "1.01", "1.1", "1.5", "2", "2.5", "3", "3.5", "4", "5", "7.5", "10", "20", "50", "100"]:
         out.write("zeta,%s,,%s\n" % (s, mp.nstr(zeta_row(s), DIGITS)))
     orders = ["-2", "-1", "-0.5", "0", "0.3", "0.5", "0.97", "1", "1.03", "1.5", "1.999", "2", "2.04", "2.5",

@@ -17,6 +17,8 @@ import random
 import sys
 import mpmath as mp
 
+from generate_reference import write_header
+
 mp.mp.dps = 30
 DIGITS = 20
 
@@ -81,12 +83,10 @@ def value(what, k, eta, beta):
 
 def main():
     out = sys.stdout
-    out.write("# Reference values for microtally's relativistic Fermi-Dirac integral tests.\n")
-    out.write("# Generator: generate_relativistic_fd.py with mpmath %s (Python %s), %d working digits;\n"
-              % (mp.__version__, sys.version.split()[0], mp.mp.dps))
-    out.write("# each value confirmed by mpmath tanh-sinh and Gauss-Legendre quadrature to 16 digits.\n")
-    out.write("# Arguments are the IEEE doubles nearest the printed decimals, used exactly.\n")
-    out.write("# quantity,k,eta,beta,value   quantity: F, dEta, dBeta, S (see the generator's docstring)\n")
+    write_header(out, "generate_relativistic_fd.py", "for microtally's relativistic Fermi-Dirac integral tests",
+                 "mpmath tanh-sinh and Gauss-Legendre quadrature to 16 digits",
+                 "quantity,k,eta,beta,value   quantity: F, dEta, dBeta, S (see the generator's docstring)",
+                 arguments="", digits_end=";")
     etas = ["-300", "-40", "-10", "-2", "-0.5", "0", "0.7", "1.9", "2.3", "5", "15", "31", "34", "80", "400",
             "5000", "1e6"]
     betas = ["0", "1e-9", "1e-4", "0.01", "0.3", "1", "6", "80", "2000"]

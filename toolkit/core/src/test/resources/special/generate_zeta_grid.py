@@ -12,6 +12,8 @@ import random
 import sys
 import mpmath as mp
 
+from generate_reference import write_header
+
 mp.mp.dps = 45
 DIGITS = 30
 
@@ -34,11 +36,8 @@ def main():
     args += [repr(16 + 2 * i) for i in range(23)]                         # 16 .. 60 (direct sum)
     args += [repr(1 + rnd.random() * 19) for _ in range(80)]              # random in (1, 20)
     out = sys.stdout
-    out.write("# Reference values of zeta(s) for microtally's stated-accuracy test.\n")
-    out.write("# Generator: generate_zeta_grid.py with mpmath %s (Python %s), 45 working digits,\n"
-              % (mp.__version__, sys.version.split()[0]))
-    out.write("# each value confirmed by a second independent mpmath route (eta series) to 20 digits.\n")
-    out.write("# function,a,b,value   a = s\n")
+    write_header(out, "generate_zeta_grid.py", "of zeta(s) for microtally's stated-accuracy test",
+                 "a second independent mpmath route (eta series) to 20 digits", "function,a,b,value   a = s")
     for a in args:
         out.write(row(a) + "\n")
 

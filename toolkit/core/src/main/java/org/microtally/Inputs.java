@@ -93,4 +93,12 @@ public final class Inputs {
         }
         return value;
     }
+
+    /** {@code value} if it is an integer &gt;= {@code min}, else an exception naming {@code what} and the bound. */
+    public static long atLeast(String what, long value, long min) {
+        if (value < min) {
+            throw InvalidInputException.of(what, value, "an integer >= " + min, "");
+        }
+        return value;
+    }
 }

@@ -4,6 +4,7 @@ import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.spectrum.Level;
@@ -72,9 +73,7 @@ public final class BinnedCounts implements Tabular {
         if (!(binWidth > 0) || !Double.isFinite(binWidth)) {
             throw InvalidInputException.of("bin width", binWidth, "a finite number > 0", "");
         }
-        if (bins < 0) {
-            throw InvalidInputException.of("number of bins", bins, "an integer >= 0", "");
-        }
+        Inputs.atLeast("number of bins", bins, 0);
         List<Species> rounded = new ArrayList<>();
         List<Integer> grounds = new ArrayList<>();
         double ground = 0;

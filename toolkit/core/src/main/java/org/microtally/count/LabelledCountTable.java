@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.MemoryEstimate;
 import org.microtally.ProgressListener;
@@ -168,9 +169,7 @@ public final class LabelledCountTable implements Tabular {
             if (ignore) {
                 Objects.requireNonNull(spectrum, "spectrum");
                 Objects.requireNonNull(stats, "statistics");
-                if (maxN < 0) {
-                    throw InvalidInputException.of("maximum particle number N", maxN, "an integer >= 0", "");
-                }
+                Inputs.atLeast("maximum particle number N", maxN, 0);
                 if (spectrum.isTruncated() && maxN > 0) {
                     throw InvalidInputException.of("spectrum cutoff for counting with energy ignored",
                             spectrum.cutoffEnergy(),

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.TreeMap;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 
@@ -61,9 +62,7 @@ public final class MacrostateHistogram implements Tabular {
 
     /** k identical units with outcome {@code outcomes[i]} of multiplicity {@code multiplicities[i]} (&gt;= 1). */
     public static MacrostateHistogram ofIdenticalUnits(int units, int[] outcomes, long[] multiplicities) {
-        if (units < 0) {
-            throw InvalidInputException.of("number of units", units, "an integer >= 0", "");
-        }
+        Inputs.atLeast("number of units", units, 0);
         Map<Integer, BigInteger> one = unit(outcomes, multiplicities);
         List<Map<Integer, BigInteger>> all = new ArrayList<>(Collections.nCopies(units, one));
         return ofUnits(all);
@@ -126,10 +125,7 @@ public final class MacrostateHistogram implements Tabular {
         }
         Map<Integer, BigInteger> m = new TreeMap<>();
         for (int i = 0; i < outcomes.length; i++) {
-            if (multiplicities[i] < 1) {
-                throw InvalidInputException.of("multiplicity of outcome " + outcomes[i], multiplicities[i],
-                        "an integer >= 1", "");
-            }
+            Inputs.atLeast("multiplicity of outcome " + outcomes[i], multiplicities[i], 1);
             m.merge(outcomes[i], BigInteger.valueOf(multiplicities[i]), BigInteger::add);
         }
         return m;

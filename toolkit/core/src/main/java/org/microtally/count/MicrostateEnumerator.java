@@ -8,6 +8,7 @@ import java.util.Spliterator;
 import java.util.Spliterators;
 import java.util.stream.Stream;
 import java.util.stream.StreamSupport;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.spectrum.Spectrum;
@@ -63,9 +64,7 @@ public final class MicrostateEnumerator {
 
     /** The same enumerator with another cap (&gt;= 1). */
     public MicrostateEnumerator withCap(long newCap) {
-        if (newCap < 1) {
-            throw InvalidInputException.of("microstate cap", newCap, "an integer >= 1", "");
-        }
+        Inputs.atLeast("microstate cap", newCap, 1);
         return new MicrostateEnumerator(spectrum, statistics, newCap);
     }
 
@@ -102,12 +101,8 @@ public final class MicrostateEnumerator {
      * @throws InvalidInputException if n or e is negative, or there are more microstates than the cap
      */
     public Stream<int[]> microstates(int n, int e) {
-        if (n < 0) {
-            throw InvalidInputException.of("particle number n", n, "an integer >= 0", "");
-        }
-        if (e < 0) {
-            throw InvalidInputException.of("total energy e", e, "an integer >= 0", "");
-        }
+        Inputs.atLeast("particle number n", n, 0);
+        Inputs.atLeast("total energy e", e, 0);
         BigInteger total = microstateCount(n, e);
         if (total.compareTo(BigInteger.valueOf(cap)) > 0) {
             throw InvalidInputException.of("number of microstates with n = " + n + ", e = " + e, total,

@@ -5,6 +5,7 @@ import java.math.BigInteger;
 import java.math.MathContext;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.special.Gamma;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.exact.Combinatorics;
 
@@ -64,12 +65,8 @@ public final class Multinomial {
 
     /** The most probable occupancy of {@code boxes} boxes by {@code objects} objects (see class notes). */
     public static int[] mostProbableOccupancy(int boxes, int objects) {
-        if (boxes < 1) {
-            throw InvalidInputException.of("number of boxes M", boxes, "an integer >= 1", "");
-        }
-        if (objects < 0) {
-            throw InvalidInputException.of("number of objects N", objects, "an integer >= 0", "");
-        }
+        Inputs.atLeast("number of boxes M", boxes, 1);
+        Inputs.atLeast("number of objects N", objects, 0);
         int[] out = new int[boxes];
         int q = objects / boxes;
         int r = objects % boxes;
@@ -175,9 +172,7 @@ public final class Multinomial {
         }
         long n = 0;
         for (int i = 0; i < occupancy.length; i++) {
-            if (occupancy[i] < 0) {
-                throw InvalidInputException.of("occupancy of box " + i, occupancy[i], "an integer >= 0", "");
-            }
+            Inputs.atLeast("occupancy of box " + i, occupancy[i], 0);
             n += occupancy[i];
         }
         if (n > 100_000) {

@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import org.apache.commons.math3.fraction.BigFraction;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 import org.microtally.exact.ExactLog;
@@ -63,9 +64,7 @@ public final class SharedTotal implements Tabular {
     public static SharedTotal of(List<BigInteger> omegaA, List<BigInteger> omegaB, int total) {
         Objects.requireNonNull(omegaA, "omegaA");
         Objects.requireNonNull(omegaB, "omegaB");
-        if (total < 0) {
-            throw InvalidInputException.of("shared total q", total, "an integer >= 0", "");
-        }
+        Inputs.atLeast("shared total q", total, 0);
         return new SharedTotal(total, prefix("A", omegaA, total), prefix("B", omegaB, total));
     }
 

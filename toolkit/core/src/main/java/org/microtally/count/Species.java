@@ -1,6 +1,7 @@
 package org.microtally.count;
 
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -40,8 +41,6 @@ public record Species(String name, Spectrum spectrum, Statistics statistics, int
         Objects.requireNonNull(name, "name");
         Objects.requireNonNull(spectrum, "spectrum");
         Objects.requireNonNull(statistics, "statistics");
-        if (particles < 0) {
-            throw InvalidInputException.of("particle number of species " + name, particles, "an integer >= 0", "");
-        }
+        Inputs.atLeast("particle number of species " + name, particles, 0);
     }
 }

@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
 
@@ -59,9 +60,7 @@ public final class SpeciesMix implements Tabular {
 
     /** Counts by (e, L) for total energies e = 0..E (integer energies &gt;= 0 in every spectrum). */
     public static SpeciesMix of(List<Species> species, int maxEnergy) {
-        if (maxEnergy < 0) {
-            throw InvalidInputException.of("maximum total energy E", maxEnergy, "an integer >= 0", "");
-        }
+        Inputs.atLeast("maximum total energy E", maxEnergy, 0);
         return combine(species, maxEnergy, false);
     }
 

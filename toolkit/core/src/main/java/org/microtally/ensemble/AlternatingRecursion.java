@@ -30,9 +30,7 @@ public final class AlternatingRecursion {
             throw InvalidInputException.of("statistics for the alternating recursion", statistics, "BOSE or FERMI", "");
         }
         Inputs.temperature(kT);
-        if (maxN < 1) {
-            throw InvalidInputException.of("maxN", maxN, "an integer >= 1", "");
-        }
+        Inputs.atLeast("maxN", maxN, 1);
         double beta = 1.0 / kT;
         double[] z1 = new double[maxN + 1];
         for (int k = 1; k <= maxN; k++) {

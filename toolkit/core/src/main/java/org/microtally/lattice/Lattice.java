@@ -4,6 +4,7 @@ import java.util.ArrayDeque;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.Set;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 
 /**
@@ -61,9 +62,7 @@ public final class Lattice {
      * transfer matrix adds sites in index order, so number a long thin cluster along its length.
      */
     public static Lattice graph(int sites, int[][] bonds) {
-        if (sites < 1) {
-            throw InvalidInputException.of("number of sites", sites, "an integer >= 1", "");
-        }
+        Inputs.atLeast("number of sites", sites, 1);
         int[] a = new int[bonds.length];
         int[] b = new int[bonds.length];
         Set<Long> seen = new HashSet<>();
@@ -149,9 +148,7 @@ public final class Lattice {
     }
 
     private static void checkSide(String what, int side, boolean wraps, boolean brick) {
-        if (side < 1) {
-            throw InvalidInputException.of(what, side, "an integer >= 1", "");
-        }
+        Inputs.atLeast(what, side, 1);
         if (wraps && side < 3) {
             throw InvalidInputException.of(what, side, "at least 3 in a periodic direction",
                     "With 2 sites the wrap-around bond repeats the forward bond (it would count twice), with 1 it is a "

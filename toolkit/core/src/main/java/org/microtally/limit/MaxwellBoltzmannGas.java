@@ -2,6 +2,7 @@ package org.microtally.limit;
 
 import java.util.Random;
 import org.apache.commons.math3.special.Erf;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.units.Codata2018;
 import org.microtally.units.Energy;
@@ -127,9 +128,7 @@ public final class MaxwellBoltzmannGas {
      * (three normal velocity components of variance kT/m each).
      */
     public double[] sampleSpeeds(int n, long seed) {
-        if (n < 0) {
-            throw InvalidInputException.of("sample size n", n, "an integer >= 0", "");
-        }
+        Inputs.atLeast("sample size n", n, 0);
         Random rnd = new Random(seed);
         double sigma = Math.sqrt(kt / massKg);
         double[] v = new double[n];

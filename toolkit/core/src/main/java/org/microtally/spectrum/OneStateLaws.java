@@ -1,6 +1,7 @@
 package org.microtally.spectrum;
 
 import java.math.BigInteger;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.exact.Combinatorics;
 
@@ -105,9 +106,7 @@ final class OneStateLaws {
     /** Mean and variance of the Gentile occupation, {mean, variance}. */
     static double[] gentileMoments(int k, double x) {
         requireFinite(x);
-        if (k < 1) {
-            throw InvalidInputException.of("maximum occupancy k", k, "an integer >= 1", "");
-        }
+        Inputs.atLeast("maximum occupancy k", k, 1);
         boolean flip = x < 0;
         double y = Math.exp(-Math.abs(x));
         double p = 1;

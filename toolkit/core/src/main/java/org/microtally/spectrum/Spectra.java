@@ -3,6 +3,7 @@ package org.microtally.spectrum;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.MemoryEstimate;
 import org.microtally.units.EnergyScale;
@@ -54,9 +55,7 @@ public final class Spectra {
     public static Spectrum harmonicOscillator(int[] ratios, int maxQuanta) {
         requireDimensions(ratios.length);
         for (int i = 0; i < ratios.length; i++) {
-            if (ratios[i] < 1) {
-                throw InvalidInputException.of("frequency ratio " + i, ratios[i], "an integer >= 1", "");
-            }
+            Inputs.atLeast("frequency ratio " + i, ratios[i], 1);
         }
         requireCutoff(maxQuanta);
         requireLevels("oscillator cutoff (max quanta)", maxQuanta, "maxQuanta + 1 energies", maxQuanta + 1.0);
@@ -156,9 +155,7 @@ public final class Spectra {
 
     /** {@code count} non-degenerate levels at 0, spacing, 2*spacing, ... (an n-level system). */
     public static Spectrum equallySpaced(int count, double spacing) {
-        if (count < 1) {
-            throw InvalidInputException.of("number of levels", count, "an integer >= 1", "");
-        }
+        Inputs.atLeast("number of levels", count, 1);
         if (!(spacing > 0) || !Double.isFinite(spacing)) {
             throw InvalidInputException.of("level spacing", spacing, "a finite number > 0", "");
         }
@@ -223,9 +220,7 @@ public final class Spectra {
     }
 
     private static void requireCutoff(int maxQuanta) {
-        if (maxQuanta < 0) {
-            throw InvalidInputException.of("cutoff (max quanta)", maxQuanta, "an integer >= 0", "");
-        }
+        Inputs.atLeast("cutoff (max quanta)", maxQuanta, 0);
     }
 
     private static int toDegeneracy(long ways, int energy) {

@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Objects;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 import org.microtally.units.EnergyScale;
 
@@ -127,9 +128,7 @@ public final class Spectrum {
             if (!Double.isFinite(energies[i])) {
                 throw InvalidInputException.of("energy of level " + i, energies[i], "a finite number", "");
             }
-            if (degeneracies[i] < 1) {
-                throw InvalidInputException.of("degeneracy of level " + i, degeneracies[i], "an integer >= 1", "");
-            }
+            Inputs.atLeast("degeneracy of level " + i, degeneracies[i], 1);
             list.add(new Level(energies[i], degeneracies[i]));
         }
         return of(list);

@@ -1,6 +1,7 @@
 package org.microtally.spectrum;
 
 import java.math.BigInteger;
+import org.microtally.Inputs;
 import org.microtally.InvalidInputException;
 
 /**
@@ -73,9 +74,7 @@ public record Statistics(Kind kind, int maxOccupancy) {
 
     /** Gentile statistics with at most {@code k} indistinguishable particles per state, k &gt;= 1. */
     public static Statistics maxOccupancy(int k) {
-        if (k < 1) {
-            throw InvalidInputException.of("maximum occupancy k", k, "an integer >= 1", "");
-        }
+        Inputs.atLeast("maximum occupancy k", k, 1);
         return new Statistics(Kind.GENTILE, k);
     }
 

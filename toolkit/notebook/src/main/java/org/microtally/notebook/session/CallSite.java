@@ -14,24 +14,15 @@ final class CallSite {
      */
     static int openParen(String text, int cursor) {
         java.util.ArrayDeque<Integer> opens = new java.util.ArrayDeque<>();
-        boolean str = false;
-        boolean chr = false;
-        for (int i = 0; i < cursor && i < text.length(); i++) {
+        JavaText code = JavaText.scan(text, 0, cursor);
+        for (int i = code.next(); i >= 0; i = code.next()) {
             char ch = text.charAt(i);
-            if ((str || chr) && ch == '\\') {
-                i++;
-            } else if (ch == '"' && !chr) {
-                str = !str;
-            } else if (ch == '\'' && !str) {
-                chr = !chr;
-            } else if (!str && !chr) {
-                if (ch == '(' || ch == '[' || ch == '{') {
-                    opens.push(ch == '(' ? i : -1 - i);
-                } else if ((ch == ')' || ch == ']' || ch == '}') && !opens.isEmpty()) {
-                    opens.pop();
-                } else if (ch == ';') {
-                    opens.clear();
-                }
+            if (ch == '(' || ch == '[' || ch == '{') {
+                opens.push(ch == '(' ? i : -1 - i);
+            } else if ((ch == ')' || ch == ']' || ch == '}') && !opens.isEmpty()) {
+                opens.pop();
+            } else if (ch == ';') {
+                opens.clear();
             }
         }
         if (opens.isEmpty() || opens.peek() < 0) {
@@ -45,25 +36,20 @@ final class CallSite {
         return j >= 0 && Character.isJavaIdentifierPart(text.charAt(j)) ? open : -1;
     }
 
-    /** The 0-based argument index at {@code cursor} in the call opened at {@code open} (top-level commas before it). */
+    /** The 0-based argument index at {@code cursor} in the call opened at {@code open} (top-level commas before it; string and
+     * character literals are skipped). */
     static int argumentIndex(String text, int open, int cursor) {
         int depth = 0;
         int commas = 0;
-        boolean str = false;
-        for (int i = open + 1; i < cursor; i++) {
+        JavaText code = JavaText.scan(text, open + 1, cursor);
+        for (int i = code.next(); i >= 0; i = code.next()) {
             char ch = text.charAt(i);
-            if (str && ch == '\\') {
-                i++;
-            } else if (ch == '"') {
-                str = !str;
-            } else if (!str) {
-                if (ch == '(' || ch == '[' || ch == '{' || ch == '<') {
-                    depth++;
-                } else if (ch == ')' || ch == ']' || ch == '}' || ch == '>') {
-                    depth--;
-                } else if (ch == ',' && depth == 0) {
-                    commas++;
-                }
+            if (ch == '(' || ch == '[' || ch == '{' || ch == '<') {
+                depth++;
+            } else if (ch == ')' || ch == ']' || ch == '}' || ch == '>') {
+                depth--;
+            } else if (ch == ',' && depth == 0) {
+                commas++;
             }
         }
         return commas;

@@ -202,22 +202,13 @@ final class CodeAssist {
 
     private static int openBraces(String code) {
         int depth = 0;
-        boolean str = false;
-        boolean chr = false;
-        for (int i = 0; i < code.length(); i++) {
+        JavaText scan = JavaText.scan(code, 0, code.length());
+        for (int i = scan.next(); i >= 0; i = scan.next()) {
             char ch = code.charAt(i);
-            if ((str || chr) && ch == '\\') {
-                i++;
-            } else if (ch == '"' && !chr) {
-                str = !str;
-            } else if (ch == '\'' && !str) {
-                chr = !chr;
-            } else if (!str && !chr) {
-                if (ch == '{' || ch == '(') {
-                    depth++;
-                } else if (ch == '}' || ch == ')') {
-                    depth--;
-                }
+            if (ch == '{' || ch == '(') {
+                depth++;
+            } else if (ch == '}' || ch == ')') {
+                depth--;
             }
         }
         return depth;

@@ -169,17 +169,7 @@ class TableDisplayTest {
         List<List<Object>> rows = new ArrayList<>();
         rows.add(List.of(1, 2));
         rows.add(List.of(3));
-        Tabular t = new Tabular() {
-            @Override
-            public List<String> columnNames() {
-                return List.of("a", "b");
-            }
-
-            @Override
-            public List<List<Object>> rows() {
-                return rows;
-            }
-        };
+        Tabular t = Tabular.of(List.of("a", "b"), rows);
         InvalidInputException e = assertThrows(InvalidInputException.class,
                 () -> TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT));
         assertTrue(e.getMessage().contains("row 1"), e.getMessage());
