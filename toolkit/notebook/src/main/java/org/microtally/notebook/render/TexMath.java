@@ -57,6 +57,9 @@ public final class TexMath {
             Map.entry("mid", "|"), Map.entry("{", "{"), Map.entry("}", "}"), Map.entry("%", "%"),
             Map.entry("_", "_"), Map.entry("lbrace", "{"), Map.entry("rbrace", "}"), Map.entry("vert", "|"),
             Map.entry("lvert", "|"), Map.entry("rvert", "|"), Map.entry("ast", "\u2217"));
+    /** Delimiter commands: fixed size unless after {@code \left} or {@code \right}. */
+    private static final java.util.Set<String> FENCES = java.util.Set.of("langle", "rangle", "{", "}", "lbrace",
+            "rbrace", "vert", "lvert", "rvert", "mid");
     private static final java.util.Set<String> FUNCTIONS = java.util.Set.of("ln", "log", "exp", "sin", "cos",
             "tan", "sinh", "cosh", "tanh", "min", "max", "lim", "det", "arg", "deg", "dim", "Var");
     private static final Map<String, String> SPACES = Map.of(",", "0.1667em", ":", "0.2222em", ";", "0.2778em",
@@ -180,7 +183,10 @@ public final class TexMath {
         if (Character.isLetter(c)) {
             return "<mi>" + Markup.escape(String.valueOf(c)) + "</mi>";
         }
-        if ("+-=<>()[]|/,;:!*".indexOf(c) >= 0) {
+        if ("()[]|/".indexOf(c) >= 0) {
+            return fixedSize(String.valueOf(c));
+        }
+        if ("+-=<>,;:!*".indexOf(c) >= 0) {
             String op = c == '-' ? "\u2212" : c == '*' ? "\u2217" : String.valueOf(c);
             return "<mo>" + Markup.escape(op) + "</mo>";
         }
@@ -204,6 +210,9 @@ public final class TexMath {
         if (IDENTIFIERS.containsKey(name)) {
             String v = IDENTIFIERS.get(name);
             return Character.isUpperCase(name.charAt(0)) ? "<mi mathvariant=\"normal\">" + v + "</mi>" : "<mi>" + v + "</mi>";
+        }
+        if (FENCES.contains(name)) {
+            return fixedSize(OPERATORS.get(name));
         }
         if (OPERATORS.containsKey(name)) {
             return "<mo>" + Markup.escape(OPERATORS.get(name)) + "</mo>";
@@ -277,7 +286,20 @@ public final class TexMath {
             return "";
         }
         String atom = atom();
-        return atom.replace("<mo>", "<mo stretchy=\"true\">");
+        return atom.replace("<mo stretchy=\"false\">", "<mo stretchy=\"true\">").replace("<mo>", "<mo stretchy=\"true\">");
+    }
+
+    /**
+     * A delimiter written without {@code \left}/{@code \right}: TeX sets it at its normal size
+     * whatever stands between (The TeXbook, ch. 17: only {@code \left ... \right} grows a
+     * delimiter to fit the enclosed subformula). MathML's operator dictionary makes fences and the
+     * solidus stretchy by default, so that {@code g(E)} next to a fraction in the same row would get
+     * parentheses as tall as the fraction; {@code stretchy="false"} keeps TeX's rule.
+     */
+    private static String fixedSize(String delimiter) {
+        // TeX sets '/' as an ordinary symbol, without the operator spacing MathML gives it (The TeXbook, ch. 17)
+        String spacing = delimiter.equals("/") ? " lspace=\"0\" rspace=\"0\"" : "";
+        return "<mo stretchy=\"false\"" + spacing + ">" + Markup.escape(delimiter) + "</mo>";
     }
 
     /** The literal text of a {...} group (for \text and \mathrm), braces balanced. */

@@ -31,6 +31,35 @@ class TexMathTest {
     }
 
     @Test
+    void delimitersGrowOnlyBetweenLeftAndRight() {
+        // Source: The TeXbook, ch. 17: a delimiter typed on its own keeps its normal size; only
+        // \left ... \right (and \binom, built from them) sizes it to the enclosed subformula.
+        // MathML's operator dictionary makes ( ) [ ] | / stretchy by default, so each plain one says stretchy="false".
+        String plain = body("g(E) = \\frac{1}{2} \\zeta(2)");
+        assertEquals(4, plain.split("<mo stretchy=\"false\">[()]</mo>", -1).length - 1, plain);
+        assertTrue(!plain.contains("stretchy=\"true\""), plain);
+        String angle = body("\\langle M^2 \\rangle");
+        assertTrue(angle.startsWith("<mo stretchy=\"false\">\u27e8</mo>"), angle);
+        String sized = body("\\left[1 - \\frac{\\pi^2}{12} (T/T_F)^2\\right]");
+        assertTrue(sized.startsWith("<mrow><mo stretchy=\"true\">[</mo>"), sized);
+        assertTrue(sized.endsWith("<mo stretchy=\"true\">]</mo></mrow>"), sized);
+        assertTrue(sized.contains("<mo stretchy=\"false\">(</mo>"), sized);
+        // the solidus is an ordinary symbol in TeX: no operator space around T/T_F
+        assertTrue(sized.contains("<mo stretchy=\"false\" lspace=\"0\" rspace=\"0\">/</mo>"), sized);
+        String binom = body("\\binom{q + N - 1}{q}");
+        assertTrue(binom.startsWith("<mrow><mo>(</mo><mfrac linethickness=\"0\">"), binom);
+    }
+
+    @Test
+    void subscriptAndSuperscriptOnOneBaseShareIt() {
+        // Source: The TeXbook, ch. 17 (N_0^2 and N^2_0 both set the 0 below and the 2 above one N)
+        String expected = "<msubsup><mi>N</mi><mrow><mn>0</mn></mrow><mrow><mn>2</mn></mrow></msubsup>";
+        assertEquals(expected, body("N_0^2"));
+        assertEquals(expected, body("N^2_0"));
+        assertEquals(expected, body("N_{0}^{2}"));
+    }
+
+    @Test
     void outputIsWellFormedXmlWithTheSourceAsAnnotation() throws Exception {
         String tex = "\\langle n \\rangle = \\frac{1}{e^{(\\varepsilon - \\mu)/kT} - 1} < \\binom{E + n - 1}{E}";
         String m = TexMath.toMathMl(tex, true);
