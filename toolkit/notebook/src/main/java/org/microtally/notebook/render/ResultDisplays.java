@@ -101,8 +101,9 @@ final class ResultDisplays {
     /** Characters of a non-negative exact count as the grid shows it. */
     static int shownChars(java.math.BigInteger count) {
         int digits = count.toString().length();
+        // a column with a count longer than maxDigits is scientific throughout (ColumnNumbers): d.ddddde+XX
         return digits <= GRID_FORMAT.maxDigits() ? digits
-                : GRID_FORMAT.leadingDigits() + 1 + ("(" + digits + " digits)").length();
+                : GRID_FORMAT.significantDigits() + 3 + Math.max(2, String.valueOf(digits - 1).length());
     }
 
     /** The particle numbers of 0..N not in {@code shown} (sorted), as ranges: {@code 1-3, 5-7, 9}. */

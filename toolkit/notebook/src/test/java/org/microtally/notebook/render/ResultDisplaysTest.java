@@ -66,10 +66,19 @@ class ResultDisplaysTest {
         assertTrue(b.plain().contains("Not shown, to fit a 1280 px page: columns n = 1-"), b.plain());
         List<String> row = rowStartingWith(d, "30");
         for (int k = 0; k < ns.length; k++) {
-            String expected = ns[k] == 0 ? "0"
-                    // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
-                    : CellText.shown(binomial(30 + ns[k] - 1, 30), ResultDisplays.GRID_FORMAT);
+            // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q); one format per column:
+            // digit for digit when the column's largest count fits GRID_FORMAT, else scientific
+            List<Object> column = new ArrayList<>();
+            for (int q = 0; q <= 30; q++) {
+                column.add(ns[k] == 0 ? (q == 0 ? BigInteger.ONE : BigInteger.ZERO) : binomial(q + ns[k] - 1, q));
+            }
+            ColumnNumbers f = ColumnNumbers.of(column, ResultDisplays.GRID_FORMAT);
+            BigInteger omega = (BigInteger) column.get(30);
+            String expected = f == null ? CellText.shown(omega, ResultDisplays.GRID_FORMAT) : f.shown(omega);
             assertEquals(expected, row.get(k + 1), "n = " + ns[k]);
+            if (f != null) {
+                assertTrue(expected.matches("[0-9]\\.[0-9]{5}e\\+[0-9]{2}"), expected);
+            }
         }
         assertEquals(1, d.getElementsByTagName("svg").getLength());
         assertTrue(b.plain().contains("Closed form: Omega(n, E) = C(E + n - 1, E)"), b.plain());
@@ -218,7 +227,9 @@ class ResultDisplaysTest {
         assertEquals(2, d.getElementsByTagName("svg").getLength());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains(">fugacity against T/Tc</text>"));
         // Source: closed form for a harmonic trap, condensate fraction 1 - (T/Tc)^3 below Tc: 1 - 0.125 = 0.875
-        assertEquals("0.875", rowStartingWith(d, CellText.shown(0.5 * tc, TableFormat.DEFAULT)).get(3));
+        List<Object> temperatures = List.of(0.5 * tc, 0.8 * tc, 1.2 * tc, 1.5 * tc);
+        String first = ColumnNumbers.of(temperatures, TableFormat.DEFAULT).shown(0.5 * tc);
+        assertEquals("0.875", rowStartingWith(d, first).get(3));
     }
 
     @Test
