@@ -280,9 +280,10 @@ final class ResultDisplays {
     // ---- thermodynamic-limit references
 
     /**
-     * A reference sweep: its table and one chart per dimensionless quantity (at most two; a column
-     * named "q Sommerfeld" or "q exact" shares the chart of "q"), against the
-     * reduced temperature, on a log axis where the temperatures span more than two decades.
+     * A reference sweep: its table and one chart per dimensionless quantity (at most two), against the
+     * reduced temperature, on a log axis where the temperatures span more than two decades. Where a
+     * quantity "q" comes with a variant "q Sommerfeld", the first chart is the relative difference of
+     * the variants ({@link #variantAgreement}, log-log) and the second the first such quantity alone.
      */
     static MimeBundle referenceTable(ReferenceTable t) {
         MimeBundle table = TableDisplay.bundle(t, "Thermodynamic-limit reference values", List.of());
@@ -313,9 +314,23 @@ final class ResultDisplays {
             groups.computeIfAbsent(base, k -> new ArrayList<>()).add(y);
         }
         List<org.knowm.xchart.XYChart> charts = new ArrayList<>();
+        var agreement = variantAgreement(t, x, groups);
+        if (agreement != null) {
+            agreement.getStyler().setXAxisLogarithmic(lo > 0);
+            charts.add(agreement);
+        }
         for (var g : groups.entrySet()) {
             if (charts.size() == 2) {
                 break;
+            }
+            if (agreement != null && g.getValue().size() > 1 && charts.size() == 1) {
+                // the agreement chart shows how the variants differ; here the quantity itself, once
+                var c = Charts.line(t, x, g.getKey());
+                c.setTitle(g.getKey() + " against " + x);
+                c.setYAxisTitle(g.getKey());
+                c.getStyler().setXAxisLogarithmic(logX);
+                charts.add(c);
+                continue;
             }
             var c = Charts.line(t, x, g.getValue().toArray(new String[0]));
             c.setTitle(g.getKey() + " against " + x);
@@ -324,6 +339,51 @@ final class ResultDisplays {
             charts.add(c);
         }
         return Charts.combine(table, charts.toArray(new org.knowm.xchart.XYChart[0]));
+    }
+
+    /**
+     * How far the variant columns ("q Sommerfeld") are from their quantity ("q"): |variant / q - 1|
+     * for every quantity that has a variant, on log-log axes, so that lines that would lie on top of
+     * each other on a linear scale become a readable comparison (the error of a low-temperature series
+     * grows as a power of T). Null when no quantity has a variant.
+     */
+    static org.knowm.xchart.XYChart variantAgreement(ReferenceTable t, String x,
+                                                     java.util.Map<String, List<String>> groups) {
+        List<String> names = new ArrayList<>(List.of(x));
+        List<int[]> pairs = new ArrayList<>();
+        String variant = null;
+        for (var g : groups.entrySet()) {
+            for (String v : g.getValue()) {
+                if (!v.equals(g.getKey())) {
+                    names.add(g.getKey());
+                    pairs.add(new int[] {t.columnNames().indexOf(g.getKey()), t.columnNames().indexOf(v)});
+                    variant = v.substring(g.getKey().length() + 1);
+                    break;
+                }
+            }
+        }
+        if (pairs.isEmpty()) {
+            return null;
+        }
+        int xc = t.columnNames().indexOf(x);
+        List<List<Object>> rows = new ArrayList<>();
+        for (List<Object> r : t.rows()) {
+            List<Object> row = new ArrayList<>();
+            row.add(r.get(xc));
+            for (int[] p : pairs) {
+                Object base = r.get(p[0]);
+                Object other = r.get(p[1]);
+                row.add(base instanceof Number b && other instanceof Number o && b.doubleValue() != 0
+                        ? Math.abs(o.doubleValue() / b.doubleValue() - 1) : null);
+            }
+            rows.add(row);
+        }
+        String yTitle = "|" + variant + " / exact - 1|";
+        var c = Charts.line(Tables.tabular(names, rows), x, names.subList(1, names.size()).toArray(new String[0]));
+        c.setTitle(variant + " relative to the exact value, against " + x);
+        c.setYAxisTitle(yTitle);
+        c.getStyler().setYAxisLogarithmic(true);
+        return c;
     }
 
     /**

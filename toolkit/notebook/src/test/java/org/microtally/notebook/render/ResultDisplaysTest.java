@@ -213,6 +213,27 @@ class ResultDisplaysTest {
     }
 
     @Test
+    void sommerfeldColumnsAreChartedAsTheirRelativeDifferenceOnLogAxes() throws Exception {
+        // Halyard Bay metal foil: 5.0e28 conduction electrons per m^3
+        org.microtally.limit.FermiGas foil = org.microtally.limit.FermiGas.freeElectrons(5.0e28);
+        ReferenceTable sweep = foil.sweep(300, 1000, 3000);
+        String html = Renderers.render(sweep).get(MimeBundle.TEXT_HTML);
+        Document d = TableDisplayTest.parse(html);
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
+        assertTrue(html.contains(">Sommerfeld relative to the exact value, against T/TF</text>"), html);
+        assertTrue(html.contains(">mu/EF against T/TF</text>"), html);
+        java.util.Map<String, List<String>> groups = new java.util.LinkedHashMap<>();
+        groups.put("mu/EF", List.of("mu/EF", "mu/EF Sommerfeld"));
+        XYChart c = ResultDisplays.variantAgreement(sweep, "T/TF", groups);
+        assertTrue(c.getStyler().isYAxisLogarithmic());
+        double t = 3000 / foil.fermiTemperature();
+        double rel = c.getSeries("mu/EF").getYData()[2];
+        // from memory (Sommerfeld expansion, next term): mu/EF = 1 - (pi^2/12) t^2 - (pi^4/80) t^4 + O(t^6),
+        // so the two-term series is off by (pi^4/80) t^4 relative, to leading order
+        assertEquals(Math.pow(Math.PI, 4) / 80 * Math.pow(t, 4), rel, 0.05 * rel);
+    }
+
+    @Test
     void referenceSweepIsChartedAgainstReducedTemperature() throws Exception {
         // Halyard Bay trap: 2000 atoms, 4:4:1 with the slow axis at 24 Hz
         BoseGas gas = BoseGas.inHarmonicTrap(HarmonicTrap.ofHertz(96, 96, 24), 2000);
