@@ -44,6 +44,7 @@ final class ResultDisplays {
         r.put(MacrostateHistogram.class, ResultDisplays::histogram);
         r.put(SharedTotal.class, ResultDisplays::sharedTotal);
         r.put(ReferenceTable.class, ResultDisplays::referenceTable);
+        r.put(org.microtally.structure.MassRadiusCurve.class, ResultDisplays::massRadiusCurve);
     }
 
     // ---- count tables
@@ -339,6 +340,50 @@ final class ResultDisplays {
             charts.add(c);
         }
         return Charts.combine(table, charts.toArray(new org.knowm.xchart.XYChart[0]));
+    }
+
+    /**
+     * A white-dwarf mass-radius curve: its table, captioned with mu_e, the central-density range and
+     * the mass and radius ranges in their units, and the model's limits as a note (the numbers are a
+     * baseline, not a prediction for a real star).
+     */
+    static MimeBundle massRadiusCurve(org.microtally.structure.MassRadiusCurve c) {
+        var models = c.models();
+        if (models.isEmpty()) {
+            return TableDisplay.bundle(c, "White-dwarf mass-radius curve: no models", List.of());
+        }
+        var first = models.get(0);
+        var last = models.get(models.size() - 1);
+        double mMin = Double.POSITIVE_INFINITY;
+        double mMax = 0;
+        double rMin = Double.POSITIVE_INFINITY;
+        double rMax = 0;
+        for (var m : models) {
+            mMin = Math.min(mMin, m.solarMasses());
+            mMax = Math.max(mMax, m.solarMasses());
+            rMin = Math.min(rMin, m.radiusKm());
+            rMax = Math.max(rMax, m.radiusKm());
+        }
+        // kg/m^3 to g/cm^3: 1 g/cm^3 = 1000 kg/m^3 (SI definition of the units)
+        String caption = String.format("White-dwarf mass-radius curve, mu_e = %s: %d models, rho_c = %s to %s g/cm^3,"
+                        + " M = %s to %s M_sun, R = %s to %s km", CellText.floating(first.muE(), 4), models.size(),
+                powerOfTen(first.centralDensity() / 1e3), powerOfTen(last.centralDensity() / 1e3),
+                CellText.floating(mMin, 4), CellText.floating(mMax, 4), CellText.floating(rMin, 4),
+                CellText.floating(rMax, 4));
+        return TableDisplay.bundle(c, caption, List.of("Model limits: ideal cold electrons, Newtonian, non-rotating;"
+                + " no Coulomb corrections, neutronisation or general-relativistic instability. Real white dwarfs"
+                + " are smaller and their maximum mass lies below M_Ch: a baseline, not a prediction for a real star."));
+    }
+
+    /** A positive value as mantissa and decimal exponent, {@code 1e6}, {@code 3.16e10} (densities that span decades). */
+    private static String powerOfTen(double v) {
+        int e = (int) Math.floor(Math.log10(v));
+        String m = CellText.floating(v / Math.pow(10, e), 3);
+        if (m.equals("10")) {
+            m = "1";
+            e++;
+        }
+        return m + "e" + e;
     }
 
     /**

@@ -213,6 +213,22 @@ class ResultDisplaysTest {
     }
 
     @Test
+    void massRadiusCurveHasACaptionWithUnitsAndItsModelLimits() {
+        // the group's visiting astrophysicist: carbon-oxygen white dwarfs, mu_e = 2, rho_c 1e6 to 1e9 g/cm^3
+        var curve = org.microtally.structure.WhiteDwarf.massRadiusCurve(2.0, 1e9, 1e12, 4);
+        String plain = Renderers.render(curve).plain();
+        assertFalse(plain.contains("MassRadiusCurve"), plain);
+        assertTrue(plain.startsWith("White-dwarf mass-radius curve, mu_e = 2: 4 models, rho_c = 1e6 to 1e9 g/cm^3, M = "),
+                plain);
+        assertTrue(plain.contains(" M_sun, R = ") && plain.contains(" km\n"), plain);
+        assertTrue(plain.contains("Model limits: ideal cold electrons"), plain);
+        // Source: closed form, M_Ch = 5.83/mu_e^2 M_sun (Chandrasekhar 1939, ch. XI): masses stay below 1.46
+        for (var m : curve.models()) {
+            assertTrue(m.solarMasses() < 5.84 / 4, "M = " + m.solarMasses());
+        }
+    }
+
+    @Test
     void sommerfeldColumnsAreChartedAsTheirRelativeDifferenceOnLogAxes() throws Exception {
         // Halyard Bay metal foil: 5.0e28 conduction electrons per m^3
         org.microtally.limit.FermiGas foil = org.microtally.limit.FermiGas.freeElectrons(5.0e28);
