@@ -240,7 +240,7 @@ class ResultDisplaysTest {
         assertTrue(html.contains(">mu/EF against T/TF</text>"), html);
         java.util.Map<String, List<String>> groups = new java.util.LinkedHashMap<>();
         groups.put("mu/EF", List.of("mu/EF", "mu/EF Sommerfeld"));
-        XYChart c = ResultDisplays.variantAgreement(sweep, "T/TF", groups);
+        XYChart c = LimitDisplays.variantAgreement(sweep, "T/TF", groups);
         assertTrue(c.getStyler().isYAxisLogarithmic());
         double t = 3000 / foil.fermiTemperature();
         double rel = c.getSeries("mu/EF").getYData()[2];
@@ -256,7 +256,7 @@ class ResultDisplaysTest {
         double tc = gas.criticalTemperature();
         ReferenceTable sweep = gas.sweep(0.5 * tc, 0.8 * tc, 1.2 * tc, 1.5 * tc);
         List<String> ys = new ArrayList<>();
-        assertEquals("T/Tc", ResultDisplays.referenceAxes(sweep, ys));
+        assertEquals("T/Tc", LimitDisplays.referenceAxes(sweep, ys));
         assertEquals(List.of("fugacity", "condensate fraction", "C/(N k)"), ys);
         MimeBundle b = Renderers.render(sweep);
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
