@@ -271,7 +271,7 @@ public final class TableDisplay {
             for (int c = 0; c < n; c++) {
                 boolean differs = !r.shown()[c].equals(r.exact()[c]);
                 boolean cut = differs && (r.shown()[c].indexOf('\u2026') >= 0 || r.shown()[c].startsWith("\u2248")
-                        || r.exact()[c].matches("-?[0-9]+"));
+                        || r.exact()[c].matches("-?[0-9]+") && roundsAway(r.shown()[c], r.exact()[c]));
                 sb.append("<td class=\"").append(s.numeric()[c] ? "mt-num" : "mt-text").append(cut ? " mt-cut\"" : "\"");
                 if (differs) {
                     sb.append(" title=\"").append(Html.escape(r.exact()[c])).append('"');
@@ -295,5 +295,14 @@ public final class TableDisplay {
             }
         }
         return sb.append("</div>").toString();
+    }
+
+    /** Whether a scientific cell of an exact integer column shows a rounded value (120 as 1.20000e+02 does not). */
+    private static boolean roundsAway(String shown, String exact) {
+        try {
+            return new java.math.BigDecimal(shown).compareTo(new java.math.BigDecimal(exact)) != 0;
+        } catch (NumberFormatException e) {
+            return true;
+        }
     }
 }

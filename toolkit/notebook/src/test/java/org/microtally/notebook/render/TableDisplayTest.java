@@ -78,6 +78,7 @@ class TableDisplayTest {
         Element small = (Element) d.getElementsByTagName("td").item(3);
         assertEquals("1.20000e+002", small.getTextContent());
         assertEquals("120", small.getAttribute("title"));
+        assertEquals("mt-num", small.getAttribute("class"));   // not rounded, so not marked as shortened
         Element n = (Element) d.getElementsByTagName("td").item(2);
         assertEquals("5", n.getTextContent());
         assertFalse(n.hasAttribute("title"));
