@@ -17,7 +17,11 @@ import java.util.regex.Pattern;
  *   <li>a column of exact integers is shown digit for digit while every one of them fits
  *       {@link TableFormat#maxDigits()}; when any does not, the whole column is scientific, so that
  *       whole numbers and shortened big numbers are never mixed in one column;</li>
- *   <li>anything else (fractions, text, a mix of exact and floating values) keeps the cell formats of
+ *   <li>a column of exact fractions is shown as p/q while every p and q fits
+ *       {@link TableFormat#maxDigits()}; when any does not, the whole column is shown as values
+ *       marked approximate ({@code ≈0.0741361}, {@code ≈2.99313e-35}), by the floating-point rule
+ *       above applied to the quotients (computed to 34 digits, so beyond the range of a double too);</li>
+ *   <li>anything else (text, a mix of exact and floating values) keeps the cell formats of
  *       {@link CellText}.</li>
  * </ul>
  * Scientific cells have one mantissa width and one exponent style per column: a signed exponent of
@@ -29,20 +33,28 @@ import java.util.regex.Pattern;
 final class ColumnNumbers {
     private static final Pattern INTEGER = Pattern.compile("-?[0-9]+");
 
+    private static final Pattern FRACTION = Pattern.compile("-?[0-9]+/[0-9]+");
+    /** Digits of p/q kept before the column's rounding (far more than any shown column needs). */
+    private static final MathContext QUOTIENT = MathContext.DECIMAL128;
+
     private final boolean scientific;
     private final int decimals;
     private final int exponentDigits;
+    private final boolean approximate;
 
-    private ColumnNumbers(boolean scientific, int decimals, int exponentDigits) {
+    private ColumnNumbers(boolean scientific, int decimals, int exponentDigits, boolean approximate) {
         this.scientific = scientific;
         this.decimals = decimals;
         this.exponentDigits = exponentDigits;
+        this.approximate = approximate;
     }
 
     /** The format of a column from its shown cells, or null when its cells keep {@link CellText}'s formats. */
     static ColumnNumbers of(List<Object> cells, TableFormat format) {
         boolean allFloating = true;
         boolean allInteger = true;
+        boolean allRational = true;
+        boolean anyTooLongFraction = false;
         int present = 0;
         for (Object v : cells) {
             if (CellText.isMissing(v)) {
@@ -51,53 +63,88 @@ final class ColumnNumbers {
             present++;
             allFloating &= v instanceof Double || v instanceof Float;
             allInteger &= integer(v) != null;
+            String[] pq = fraction(v);
+            allRational &= integer(v) != null || pq != null;
+            anyTooLongFraction |= pq != null && (CellText.digitCount(pq[0]) > format.maxDigits()
+                    || CellText.digitCount(pq[1]) > format.maxDigits());
         }
         if (present == 0) {
             return null;
         }
         if (allFloating) {
-            return floating(cells, format.significantDigits());
+            return decimal(cells, format.significantDigits(), false);
         }
         if (allInteger) {
             return integers(cells, format);
         }
+        if (allRational && anyTooLongFraction) {
+            // some p/q cannot be shown as p/q: the whole column as values marked approximate, one format
+            return decimal(cells, format.significantDigits(), true);
+        }
         return null;
     }
 
-    private static ColumnNumbers floating(List<Object> cells, int significantDigits) {
-        double maxAbs = 0;
-        double minAbs = Double.POSITIVE_INFINITY;
+    private static ColumnNumbers decimal(List<Object> cells, int significantDigits, boolean approximate) {
+        BigDecimal maxAbs = BigDecimal.ZERO;
+        BigDecimal minAbs = null;
         for (Object v : cells) {
-            if (v instanceof Double || v instanceof Float) {
-                double d = Math.abs(((Number) v).doubleValue());
-                if (Double.isFinite(d)) {
-                    maxAbs = Math.max(maxAbs, d);
-                    if (d > 0) {
-                        minAbs = Math.min(minAbs, d);
-                    }
-                }
+            BigDecimal d = value(v);
+            if (d != null && d.signum() != 0) {
+                maxAbs = maxAbs.max(d.abs());
+                minAbs = minAbs == null ? d.abs() : minAbs.min(d.abs());
             }
         }
-        if (maxAbs == 0) {
+        if (minAbs == null) {
             return null;
         }
-        int eMax = exponent(new BigDecimal(maxAbs));
-        int eMin = exponent(new BigDecimal(minAbs));
+        int eMax = exponent(maxAbs);
+        int eMin = exponent(minAbs);
         boolean sci = eMax >= 9 || eMax < -4 || eMax - eMin > significantDigits - 3;
         int needed = 0;
         int widestExponent = 0;
         for (Object v : cells) {
-            if (v instanceof Double || v instanceof Float) {
-                double d = ((Number) v).doubleValue();
-                if (Double.isFinite(d) && d != 0) {
-                    BigDecimal r = round(new BigDecimal(d), significantDigits);
-                    needed = Math.max(needed, sci ? r.precision() - 1 : Math.max(0, r.scale()));
-                    widestExponent = Math.max(widestExponent, Math.abs(exponent(r)));
-                }
+            BigDecimal d = value(v);
+            if (d != null && d.signum() != 0) {
+                BigDecimal r = round(d, significantDigits);
+                needed = Math.max(needed, sci ? r.precision() - 1 : Math.max(0, r.scale()));
+                widestExponent = Math.max(widestExponent, Math.abs(exponent(r)));
             }
         }
         int decimals = sci ? needed : Math.min(needed, Math.max(0, significantDigits - 1 - eMax));
-        return new ColumnNumbers(sci, decimals, Math.max(2, String.valueOf(widestExponent).length()));
+        return new ColumnNumbers(sci, decimals, Math.max(2, String.valueOf(widestExponent).length()), approximate);
+    }
+
+    /** The value of a finite number cell (exact for integers and doubles, p/q to 34 digits), else null. */
+    private static BigDecimal value(Object v) {
+        BigInteger i = integer(v);
+        if (i != null) {
+            return new BigDecimal(i);
+        }
+        String[] pq = fraction(v);
+        if (pq != null) {
+            return new BigDecimal(new BigInteger(pq[0])).divide(new BigDecimal(new BigInteger(pq[1])), QUOTIENT);
+        }
+        if (v instanceof Double || v instanceof Float) {
+            double d = ((Number) v).doubleValue();
+            return Double.isFinite(d) ? new BigDecimal(d) : null;
+        }
+        return null;
+    }
+
+    /** Numerator and denominator of a fraction cell (BigFraction, Fraction, "p/q"), or null. */
+    private static String[] fraction(Object v) {
+        if (v instanceof org.apache.commons.math3.fraction.BigFraction f) {
+            return new String[] {f.getNumerator().toString(), f.getDenominator().toString()};
+        }
+        if (v instanceof org.apache.commons.math3.fraction.Fraction f) {
+            return new String[] {Integer.toString(f.getNumerator()), Integer.toString(f.getDenominator())};
+        }
+        if (v instanceof CharSequence cs && FRACTION.matcher(cs).matches()) {
+            String s = cs.toString();
+            int slash = s.indexOf('/');
+            return new String[] {s.substring(0, slash), s.substring(slash + 1)};
+        }
+        return null;
     }
 
     private static ColumnNumbers integers(List<Object> cells, TableFormat format) {
@@ -121,25 +168,19 @@ final class ColumnNumbers {
                 widestExponent = Math.max(widestExponent, Math.abs(exponent(r)));
             }
         }
-        return new ColumnNumbers(true, needed, Math.max(2, String.valueOf(widestExponent).length()));
+        return new ColumnNumbers(true, needed, Math.max(2, String.valueOf(widestExponent).length()), false);
     }
 
     /** The cell as shown in this column (non-finite values by name). */
     String shown(Object v) {
-        BigDecimal exact;
-        BigInteger i = integer(v);
-        if (i != null) {
-            exact = new BigDecimal(i);
-        } else {
-            double d = ((Number) v).doubleValue();
-            if (!Double.isFinite(d)) {
-                return Double.toString(d);
-            }
-            exact = new BigDecimal(d);
+        BigDecimal exact = value(v);
+        if (exact == null) {
+            return Double.toString(((Number) v).doubleValue());   // NaN and the infinities by name
         }
+        String mark = approximate ? "\u2248" : "";
         if (!scientific) {
             String s = exact.setScale(decimals, RoundingMode.HALF_EVEN).toPlainString();
-            return s.matches("-0(\\.0*)?") ? s.substring(1) : s;
+            return mark + (s.matches("-0(\\.0*)?") ? s.substring(1) : s);
         }
         int e = 0;
         BigDecimal mantissa = BigDecimal.ZERO.setScale(decimals);
@@ -149,7 +190,7 @@ final class ColumnNumbers {
             mantissa = r.movePointLeft(e).setScale(decimals, RoundingMode.HALF_EVEN);
         }
         String digits = String.valueOf(Math.abs(e));
-        return mantissa.toPlainString() + "e" + (e < 0 ? "-" : "+")
+        return mark + mantissa.toPlainString() + "e" + (e < 0 ? "-" : "+")
                 + "0".repeat(Math.max(0, exponentDigits - digits.length())) + digits;
     }
 

@@ -10,6 +10,7 @@ import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
 import javax.xml.parsers.DocumentBuilderFactory;
+import org.apache.commons.math3.fraction.BigFraction;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
@@ -107,6 +108,17 @@ class TableDisplayTest {
         for (String l : lines) {
             assertFalse(l.contains("\u2026"), l);
         }
+    }
+
+    @Test
+    void fractionsTooLongToShowMakeTheirWholeColumnOneApproximateFormat() {
+        // Source: closed form, 1/3 = 0.333..., 1/(3 * 10^50) = 3.333...e-51, 2/7 = 0.285714...
+        BigFraction tiny = new BigFraction(BigInteger.ONE, BigInteger.valueOf(3).multiply(BigInteger.TEN.pow(50)));
+        Tabular t = TestTables.of(List.of("case", "p", "small"), new Object[] {"a", new BigFraction(1, 3), new BigFraction(1, 3)},
+                new Object[] {"b", tiny, new BigFraction(2, 7)});
+        List<String> lines = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT).lines().toList();
+        assertEquals("a     \u22483.33333e-01    1/3", lines.get(2));
+        assertEquals("b     \u22483.33333e-51    2/7", lines.get(3));
     }
 
     @Test
