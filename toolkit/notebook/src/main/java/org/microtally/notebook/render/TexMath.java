@@ -218,7 +218,27 @@ public final class TexMath {
             return "<mo>" + Markup.escape(OPERATORS.get(name)) + "</mo>";
         }
         if (FUNCTIONS.contains(name)) {
-            return "<mi>" + name + "</mi><mo>\u2061</mo>";
+            // TeX puts a thin space between an operator name and an ordinary symbol on either side,
+            // none before an opening delimiter (The TeXbook, ch. 18, the inter-atom spacing table):
+            // \ln L, k \ln 2 get it, \ln(2) does not. MathML's function application has no width.
+            int before = start - 2;
+            while (before >= 0 && Character.isWhitespace(src.charAt(before))) {
+                before--;
+            }
+            int after = pos;
+            while (after < src.length() && Character.isWhitespace(src.charAt(after))) {
+                after++;
+            }
+            char next = after < src.length() ? src.charAt(after) : '\0';
+            if (next == '^' || next == '_') {
+                return "<mi>" + name + "</mi><mo>\u2061</mo>";   // scripts attach to the name as before
+            }
+            boolean spaceBefore = before >= 0 && "({[,=+-<>|".indexOf(src.charAt(before)) < 0;
+            boolean spaceAfter = next != '\0' && next != '(' && next != '['
+                    && !(next == '\\' && after + 1 < src.length() && !Character.isLetter(src.charAt(after + 1)))
+                    && !src.startsWith("\\left", after);
+            return (spaceBefore ? "<mspace width=\"0.1667em\"/>" : "") + "<mi>" + name + "</mi><mo"
+                    + (spaceAfter ? " rspace=\"0.1667em\"" : "") + ">\u2061</mo>";
         }
         if (SPACES.containsKey(name)) {
             return "<mspace width=\"" + SPACES.get(name) + "\"/>";

@@ -25,7 +25,7 @@ class TexMathTest {
         assertEquals("<msubsup><mi>Z</mi><mrow><mi>N</mi></mrow><mrow><mn>2</mn></mrow></msubsup>", body("Z_N^2"));
         assertEquals("<mroot><mrow><mi>N</mi></mrow><mrow><mn>3</mn></mrow></mroot>", body("\\sqrt[3]{N}"));
         assertEquals("<mi>\u03b2</mi><mi mathvariant=\"normal\">\u0394</mi><mi>\u210f</mi>", body("\\beta\\Delta\\hbar"));
-        assertEquals("<mi>ln</mi><mo>\u2061</mo><mi>Z</mi>", body("\\ln Z"));
+        assertEquals("<mi>ln</mi><mo rspace=\"0.1667em\">\u2061</mo><mi>Z</mi>", body("\\ln Z"));
         assertEquals("<mi mathvariant=\"normal\">nK</mi>", body("\\mathrm{nK}"));
         assertEquals("<mrow><mo stretchy=\"true\">(</mo><mi>a</mi><mo stretchy=\"true\">)</mo></mrow>", body("\\left( a \\right)"));
     }
@@ -48,6 +48,19 @@ class TexMathTest {
         assertTrue(sized.contains("<mo stretchy=\"false\" lspace=\"0\" rspace=\"0\">/</mo>"), sized);
         String binom = body("\\binom{q + N - 1}{q}");
         assertTrue(binom.startsWith("<mrow><mo>(</mo><mfrac linethickness=\"0\">"), binom);
+    }
+
+    @Test
+    void operatorNamesGetTheThinSpacesTexGivesThem() {
+        // Source: The TeXbook, ch. 18 (spacing table): Ord-Op and Op-Ord get a thin space (3mu = 1/6 em),
+        // Op-Open none; so k \ln L is spaced on both sides and \ln(1 + x) only before
+        String thin = "<mspace width=\"0.1667em\"/>";
+        assertEquals("<mi>k</mi>" + thin + "<mi>ln</mi><mo rspace=\"0.1667em\">\u2061</mo><mi>L</mi>", body("k \\ln L"));
+        String call = body("k\\ln(x)");
+        assertEquals("<mi>k</mi>" + thin + "<mi>ln</mi><mo>\u2061</mo><mo stretchy=\"false\">(</mo>",
+                call.substring(0, call.indexOf("<mi>x")));
+        assertEquals("<mo>=</mo><mi>ln</mi><mo rspace=\"0.1667em\">\u2061</mo><mi mathvariant=\"normal\">\u03a9</mi>",
+                body("= \\ln\\Omega"));
     }
 
     @Test
