@@ -211,6 +211,9 @@ public final class TexMath {
             String v = IDENTIFIERS.get(name);
             return Character.isUpperCase(name.charAt(0)) ? "<mi mathvariant=\"normal\">" + v + "</mi>" : "<mi>" + v + "</mi>";
         }
+        if (name.equals("mid")) {
+            return "<mo stretchy=\"false\">|</mo>";   // a relation in TeX: spaced, unlike a plain |
+        }
         if (FENCES.contains(name)) {
             return fixedSize(OPERATORS.get(name));
         }
@@ -317,8 +320,9 @@ public final class TexMath {
      * parentheses as tall as the fraction; {@code stretchy="false"} keeps TeX's rule.
      */
     private static String fixedSize(String delimiter) {
-        // TeX sets '/' as an ordinary symbol, without the operator spacing MathML gives it (The TeXbook, ch. 17)
-        String spacing = delimiter.equals("/") ? " lspace=\"0\" rspace=\"0\"" : "";
+        // TeX sets '/' and '|' as ordinary symbols, without the operator spacing MathML gives them
+        // (The TeXbook, ch. 17 and appendix B: both have math class 0); |x \pm 1| has no space inside the bars
+        String spacing = delimiter.equals("/") || delimiter.equals("|") ? " lspace=\"0\" rspace=\"0\"" : "";
         return "<mo stretchy=\"false\"" + spacing + ">" + Markup.escape(delimiter) + "</mo>";
     }
 

@@ -46,6 +46,9 @@ class TexMathTest {
         assertTrue(sized.contains("<mo stretchy=\"false\">(</mo>"), sized);
         // the solidus is an ordinary symbol in TeX: no operator space around T/T_F
         assertTrue(sized.contains("<mo stretchy=\"false\" lspace=\"0\" rspace=\"0\">/</mo>"), sized);
+        // Source: The TeXbook, appendix B: | is class 0 (ordinary), \mid a relation
+        assertEquals("<mo stretchy=\"false\" lspace=\"0\" rspace=\"0\">|</mo><mi>x</mi>", body("|x"));
+        assertEquals("<mi>a</mi><mo stretchy=\"false\">|</mo><mi>b</mi>", body("a \\mid b"));
         String binom = body("\\binom{q + N - 1}{q}");
         assertTrue(binom.startsWith("<mrow><mo>(</mo><mfrac linethickness=\"0\">"), binom);
     }
