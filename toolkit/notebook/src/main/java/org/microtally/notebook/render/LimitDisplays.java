@@ -17,7 +17,29 @@ final class LimitDisplays {
     static void registerAll(Renderers r) {
         r.put(ReferenceTable.class, LimitDisplays::referenceTable);
         r.put(MassRadiusCurve.class, LimitDisplays::massRadiusCurve);
+        r.put(org.microtally.structure.CompactStar.class, LimitDisplays::compactStar);
     }
+
+    /**
+     * One white dwarf or neutron-star model: its one-row table, captioned with what it is and its
+     * mass, radius and central density in their units, and the model's limits as a note.
+     */
+    static MimeBundle compactStar(org.microtally.structure.CompactStar s) {
+        boolean dwarf = s instanceof org.microtally.structure.WhiteDwarf;
+        String kind = dwarf ? "White dwarf, mu_e = " + CellText.floating(((org.microtally.structure.WhiteDwarf) s).muE(), 4)
+                : "Neutron star (toy model)";
+        // kg/m^3 to g/cm^3: 1 g/cm^3 = 1000 kg/m^3
+        String caption = String.format("%s: M = %s M_sun, R = %s km, rho_c = %s g/cm^3", kind,
+                CellText.floating(s.solarMasses(), 5), CellText.floating(s.radiusKm(), 5), powerOfTen(s.centralDensity() / 1e3));
+        String limits = dwarf ? WHITE_DWARF_LIMITS
+                : "Model limits: ideal cold neutron gas in general relativity (TOV); no nuclear forces, no protons or"
+                + " electrons: real neutron stars are heavier (about 2 M_sun observed). A toy, not a prediction.";
+        return TableDisplay.bundle(s, caption, List.of(limits));
+    }
+
+    private static final String WHITE_DWARF_LIMITS = "Model limits: ideal cold electrons, Newtonian, non-rotating;"
+            + " no Coulomb corrections, neutronisation or general-relativistic instability. Real white dwarfs"
+            + " are smaller and their maximum mass lies below M_Ch: a baseline, not a prediction for a real star.";
 
 
     /**
@@ -110,9 +132,7 @@ final class LimitDisplays {
                 powerOfTen(first.centralDensity() / 1e3), powerOfTen(last.centralDensity() / 1e3),
                 CellText.floating(mMin, 4), CellText.floating(mMax, 4), CellText.floating(rMin, 4),
                 CellText.floating(rMax, 4));
-        return TableDisplay.bundle(c, caption, List.of("Model limits: ideal cold electrons, Newtonian, non-rotating;"
-                + " no Coulomb corrections, neutronisation or general-relativistic instability. Real white dwarfs"
-                + " are smaller and their maximum mass lies below M_Ch: a baseline, not a prediction for a real star."));
+        return TableDisplay.bundle(c, caption, List.of(WHITE_DWARF_LIMITS));
     }
 
     /** A positive value as mantissa and decimal exponent, {@code 1e6}, {@code 3.16e10} (densities that span decades). */

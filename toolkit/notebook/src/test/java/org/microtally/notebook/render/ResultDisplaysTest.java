@@ -229,6 +229,20 @@ class ResultDisplaysTest {
     }
 
     @Test
+    void oneCompactStarIsCaptionedWithWhatItIsAndItsUnits() {
+        String ns = Renderers.render(org.microtally.structure.NeutronStar.ofCentralDensity(1e18)).plain();
+        assertFalse(ns.startsWith("NeutronStar"), ns);
+        assertTrue(ns.startsWith("Neutron star (toy model): M = ") && ns.contains(" M_sun, R = ")
+                && ns.contains(" km, rho_c = 1e15 g/cm^3"), ns);
+        assertTrue(ns.contains("Model limits: ideal cold neutron gas"), ns);
+        var wd = org.microtally.structure.WhiteDwarf.ofCentralDensity(1e10, 2.0);
+        String w = Renderers.render(wd).plain();
+        assertTrue(w.startsWith("White dwarf, mu_e = 2: M = ") && w.contains("rho_c = 1e7 g/cm^3"), w);
+        // Source: closed form, M_Ch = 5.83/mu_e^2 M_sun (Chandrasekhar 1939, ch. XI): a model stays below it
+        assertTrue(wd.solarMasses() < 5.84 / 4, w);
+    }
+
+    @Test
     void sommerfeldColumnsAreChartedAsTheirRelativeDifferenceOnLogAxes() throws Exception {
         // Halyard Bay metal foil: 5.0e28 conduction electrons per m^3
         org.microtally.limit.FermiGas foil = org.microtally.limit.FermiGas.freeElectrons(5.0e28);
