@@ -99,8 +99,11 @@ final class EnsembleDisplays {
         var points = s.points();
         var first = points.get(0);
         var last = points.get(points.size() - 1);
-        String caption = String.format("Canonical vs grand canonical as N grows: N = %d..%d, kT = %s..%s",
-                first.n(), last.n(), CellText.floating(first.kT(), 4), CellText.floating(last.kT(), 4));
+        String kT0 = CellText.floating(first.kT(), 4);
+        String kT1 = CellText.floating(last.kT(), 4);
+        String temperatures = "kT = " + (kT0.equals(kT1) ? kT0 : kT0 + ".." + kT1);
+        String caption = String.format("Canonical vs grand canonical as N grows: N = %d..%d, %s",
+                first.n(), last.n(), temperatures);
         MimeBundle table = TableDisplay.bundle(s, caption, List.of());
         List<List<Object>> rows = new ArrayList<>();
         for (var p : points) {
@@ -110,9 +113,10 @@ final class EnsembleDisplays {
         }
         var abs = Tables.tabular(List.of("N", "|rel. diff U|", "|rel. diff C|", "Var N_0 canonical",
                 "Var N_0 grand canonical"), rows);
-        var diff = logLog(abs, "Grand canonical minus canonical, relative", "|relative difference|",
+        // two sweeps in one cell differ in their temperatures: the titles say which one a chart shows
+        var diff = logLog(abs, "Grand canonical minus canonical, relative, " + temperatures, "|relative difference|",
                 "|rel. diff U|", "|rel. diff C|");
-        var var0 = logLog(abs, "Fluctuation of the ground-level number", "Var N_0",
+        var var0 = logLog(abs, "Fluctuation of the ground-level number, " + temperatures, "Var N_0",
                 "Var N_0 canonical", "Var N_0 grand canonical");
         return Charts.combine(table, diff, var0);
     }

@@ -88,6 +88,7 @@ public final class Renderers {
         r.put(Collection.class, c -> MimeBundle.text(collection(c)));
         r.put(Map.class, m -> MimeBundle.text(map(m)));
         ResultDisplays.registerAll(r);
+        LimitDisplays.registerAll(r);
         EnsembleDisplays.registerAll(r);
         return r;
     }

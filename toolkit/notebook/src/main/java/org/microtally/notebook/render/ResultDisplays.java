@@ -7,7 +7,6 @@ import org.microtally.count.CountTable;
 import org.microtally.count.LabelledCountTable;
 import org.microtally.count.MacrostateHistogram;
 import org.microtally.count.SharedTotal;
-import org.microtally.limit.ReferenceTable;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
@@ -43,7 +42,6 @@ final class ResultDisplays {
         r.put(LabelledCountTable.class, ResultDisplays::labelledCountTable);
         r.put(MacrostateHistogram.class, ResultDisplays::histogram);
         r.put(SharedTotal.class, ResultDisplays::sharedTotal);
-        r.put(ReferenceTable.class, ResultDisplays::referenceTable);
     }
 
     // ---- count tables
@@ -101,8 +99,9 @@ final class ResultDisplays {
     /** Characters of a non-negative exact count as the grid shows it. */
     static int shownChars(java.math.BigInteger count) {
         int digits = count.toString().length();
+        // a column with a count longer than maxDigits is scientific throughout (ColumnNumbers): d.ddddde+XX
         return digits <= GRID_FORMAT.maxDigits() ? digits
-                : GRID_FORMAT.leadingDigits() + 1 + ("(" + digits + " digits)").length();
+                : GRID_FORMAT.significantDigits() + 3 + Math.max(2, String.valueOf(digits - 1).length());
     }
 
     /** The particle numbers of 0..N not in {@code shown} (sorted), as ranges: {@code 1-3, 5-7, 9}. */
@@ -274,79 +273,6 @@ final class ResultDisplays {
         String caption = String.format("Shared total q = %d: most probable q_A = %d, mean %s, width %s",
                 s.total(), s.mostProbableSplit(), CellText.floating(s.mean(), 8), CellText.floating(s.width(), 8));
         return Charts.combine(TableDisplay.bundle(s, caption, List.of()), CountCharts.split(s));
-    }
-
-    // ---- thermodynamic-limit references
-
-    /**
-     * A reference sweep: its table and one chart per dimensionless quantity (at most two; a column
-     * named "q Sommerfeld" or "q exact" shares the chart of "q"), against the
-     * reduced temperature, on a log axis where the temperatures span more than two decades.
-     */
-    static MimeBundle referenceTable(ReferenceTable t) {
-        MimeBundle table = TableDisplay.bundle(t, "Thermodynamic-limit reference values", List.of());
-        List<String> ys = new ArrayList<>();
-        String x = referenceAxes(t, ys);
-        if (x == null || ys.isEmpty() || t.rows().size() < 2) {
-            return table;
-        }
-        int xc = t.columnNames().indexOf(x);
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = 0;
-        for (List<Object> r : t.rows()) {
-            if (r.get(xc) instanceof Number n && n.doubleValue() > 0) {
-                lo = Math.min(lo, n.doubleValue());
-                hi = Math.max(hi, n.doubleValue());
-            }
-        }
-        boolean logX = lo > 0 && hi / lo > 100;
-        // one chart per quantity: a column "q Sommerfeld" (any "q <variant>") is drawn with "q"
-        java.util.Map<String, List<String>> groups = new java.util.LinkedHashMap<>();
-        for (String y : ys) {
-            String base = y;
-            for (String other : ys) {
-                if (y.startsWith(other + " ")) {
-                    base = other;
-                }
-            }
-            groups.computeIfAbsent(base, k -> new ArrayList<>()).add(y);
-        }
-        List<org.knowm.xchart.XYChart> charts = new ArrayList<>();
-        for (var g : groups.entrySet()) {
-            if (charts.size() == 2) {
-                break;
-            }
-            var c = Charts.line(t, x, g.getValue().toArray(new String[0]));
-            c.setTitle(g.getKey() + " against " + x);
-            c.setYAxisTitle(g.getKey());
-            c.getStyler().setXAxisLogarithmic(logX);
-            charts.add(c);
-        }
-        return Charts.combine(table, charts.toArray(new org.knowm.xchart.XYChart[0]));
-    }
-
-    /**
-     * The chart axes of a reference sweep: x is the first reduced-temperature column (named
-     * {@code T/...}), y every other column not ending in a unit in parentheses such as
-     * {@code " (K)"} (the dimensionless ones, which share a scale). Returns x, or null when there is no reduced temperature; fills {@code ys}.
-     */
-    static String referenceAxes(Tabular t, List<String> ys) {
-        String x = null;
-        for (String c : t.columnNames()) {
-            if (c.startsWith("T/")) {
-                x = c;
-                break;
-            }
-        }
-        if (x == null) {
-            return null;
-        }
-        for (String c : t.columnNames()) {
-            if (!c.equals(x) && !c.matches(".* \\([^()]*\\)")) {
-                ys.add(c);
-            }
-        }
-        return x;
     }
 
     // ---- helpers

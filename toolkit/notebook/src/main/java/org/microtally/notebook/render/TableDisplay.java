@@ -49,7 +49,7 @@ public final class TableDisplay {
 
     /**
      * The aligned plain-text table: optional caption line, header, a light rule, rows (numbers
-     * right-aligned, one format per floating-point column, {@link ColumnNumbers}), a
+     * right-aligned, one format per number column, {@link ColumnNumbers}), a
      * {@code ⋮ n rows not shown} line at each gap of a shortened table ({@link TableFormat}), a note
      * saying which rows are shown and how to see all,
      * then the notes.
@@ -114,7 +114,7 @@ public final class TableDisplay {
                 for (int i : shownIdx) {
                     cells.add(all.get(i).get(c));
                 }
-                formats[c] = ColumnNumbers.of(cells, format.significantDigits());
+                formats[c] = ColumnNumbers.of(cells, format);
             }
             boolean[] numeric = new boolean[n];
             boolean[] seen = new boolean[n];
@@ -270,7 +270,8 @@ public final class TableDisplay {
             sb.append("<tr>");
             for (int c = 0; c < n; c++) {
                 boolean differs = !r.shown()[c].equals(r.exact()[c]);
-                boolean cut = differs && (r.shown()[c].indexOf('\u2026') >= 0 || r.shown()[c].startsWith("\u2248"));
+                boolean cut = differs && (r.shown()[c].indexOf('\u2026') >= 0 || r.shown()[c].startsWith("\u2248")
+                        || r.exact()[c].matches("-?[0-9]+") && roundsAway(r.shown()[c], r.exact()[c]));
                 sb.append("<td class=\"").append(s.numeric()[c] ? "mt-num" : "mt-text").append(cut ? " mt-cut\"" : "\"");
                 if (differs) {
                     sb.append(" title=\"").append(Html.escape(r.exact()[c])).append('"');
@@ -294,5 +295,14 @@ public final class TableDisplay {
             }
         }
         return sb.append("</div>").toString();
+    }
+
+    /** Whether a scientific cell of an exact integer column shows a rounded value (120 as 1.20000e+02 does not). */
+    private static boolean roundsAway(String shown, String exact) {
+        try {
+            return new java.math.BigDecimal(shown).compareTo(new java.math.BigDecimal(exact)) != 0;
+        } catch (NumberFormatException e) {
+            return true;
+        }
     }
 }

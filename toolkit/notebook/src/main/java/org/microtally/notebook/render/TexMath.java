@@ -57,6 +57,9 @@ public final class TexMath {
             Map.entry("mid", "|"), Map.entry("{", "{"), Map.entry("}", "}"), Map.entry("%", "%"),
             Map.entry("_", "_"), Map.entry("lbrace", "{"), Map.entry("rbrace", "}"), Map.entry("vert", "|"),
             Map.entry("lvert", "|"), Map.entry("rvert", "|"), Map.entry("ast", "\u2217"));
+    /** Delimiter commands: fixed size unless after {@code \left} or {@code \right}. */
+    private static final java.util.Set<String> FENCES = java.util.Set.of("langle", "rangle", "{", "}", "lbrace",
+            "rbrace", "vert", "lvert", "rvert", "mid");
     private static final java.util.Set<String> FUNCTIONS = java.util.Set.of("ln", "log", "exp", "sin", "cos",
             "tan", "sinh", "cosh", "tanh", "min", "max", "lim", "det", "arg", "deg", "dim", "Var");
     private static final Map<String, String> SPACES = Map.of(",", "0.1667em", ":", "0.2222em", ";", "0.2778em",
@@ -180,7 +183,10 @@ public final class TexMath {
         if (Character.isLetter(c)) {
             return "<mi>" + Markup.escape(String.valueOf(c)) + "</mi>";
         }
-        if ("+-=<>()[]|/,;:!*".indexOf(c) >= 0) {
+        if ("()[]|/".indexOf(c) >= 0) {
+            return fixedSize(String.valueOf(c));
+        }
+        if ("+-=<>,;:!*".indexOf(c) >= 0) {
             String op = c == '-' ? "\u2212" : c == '*' ? "\u2217" : String.valueOf(c);
             return "<mo>" + Markup.escape(op) + "</mo>";
         }
@@ -205,11 +211,37 @@ public final class TexMath {
             String v = IDENTIFIERS.get(name);
             return Character.isUpperCase(name.charAt(0)) ? "<mi mathvariant=\"normal\">" + v + "</mi>" : "<mi>" + v + "</mi>";
         }
+        if (name.equals("mid")) {
+            return "<mo stretchy=\"false\">|</mo>";   // a relation in TeX: spaced, unlike a plain |
+        }
+        if (FENCES.contains(name)) {
+            return fixedSize(OPERATORS.get(name));
+        }
         if (OPERATORS.containsKey(name)) {
             return "<mo>" + Markup.escape(OPERATORS.get(name)) + "</mo>";
         }
         if (FUNCTIONS.contains(name)) {
-            return "<mi>" + name + "</mi><mo>\u2061</mo>";
+            // TeX puts a thin space between an operator name and an ordinary symbol on either side,
+            // none before an opening delimiter (The TeXbook, ch. 18, the inter-atom spacing table):
+            // \ln L, k \ln 2 get it, \ln(2) does not. MathML's function application has no width.
+            int before = start - 2;
+            while (before >= 0 && Character.isWhitespace(src.charAt(before))) {
+                before--;
+            }
+            int after = pos;
+            while (after < src.length() && Character.isWhitespace(src.charAt(after))) {
+                after++;
+            }
+            char next = after < src.length() ? src.charAt(after) : '\0';
+            if (next == '^' || next == '_') {
+                return "<mi>" + name + "</mi><mo>\u2061</mo>";   // scripts attach to the name as before
+            }
+            boolean spaceBefore = before >= 0 && "({[,=+-<>|".indexOf(src.charAt(before)) < 0;
+            boolean spaceAfter = next != '\0' && next != '(' && next != '['
+                    && !(next == '\\' && after + 1 < src.length() && !Character.isLetter(src.charAt(after + 1)))
+                    && !src.startsWith("\\left", after);
+            return (spaceBefore ? "<mspace width=\"0.1667em\"/>" : "") + "<mi>" + name + "</mi><mo"
+                    + (spaceAfter ? " rspace=\"0.1667em\"" : "") + ">\u2061</mo>";
         }
         if (SPACES.containsKey(name)) {
             return "<mspace width=\"" + SPACES.get(name) + "\"/>";
@@ -277,7 +309,21 @@ public final class TexMath {
             return "";
         }
         String atom = atom();
-        return atom.replace("<mo>", "<mo stretchy=\"true\">");
+        return atom.replace("<mo stretchy=\"false\">", "<mo stretchy=\"true\">").replace("<mo>", "<mo stretchy=\"true\">");
+    }
+
+    /**
+     * A delimiter written without {@code \left}/{@code \right}: TeX sets it at its normal size
+     * whatever stands between (The TeXbook, ch. 17: only {@code \left ... \right} grows a
+     * delimiter to fit the enclosed subformula). MathML's operator dictionary makes fences and the
+     * solidus stretchy by default, so that {@code g(E)} next to a fraction in the same row would get
+     * parentheses as tall as the fraction; {@code stretchy="false"} keeps TeX's rule.
+     */
+    private static String fixedSize(String delimiter) {
+        // TeX sets '/' and '|' as ordinary symbols, without the operator spacing MathML gives them
+        // (The TeXbook, ch. 17 and appendix B: both have math class 0); |x \pm 1| has no space inside the bars
+        String spacing = delimiter.equals("/") || delimiter.equals("|") ? " lspace=\"0\" rspace=\"0\"" : "";
+        return "<mo stretchy=\"false\"" + spacing + ">" + Markup.escape(delimiter) + "</mo>";
     }
 
     /** The literal text of a {...} group (for \text and \mathrm), braces balanced. */

@@ -7,8 +7,9 @@ import java.util.List;
 
 /**
  * Round-numbered axis ticks: at most {@value #MAX_TICKS} on a linear axis, stepped by 1, 2, 2.5 or 5
- * times a power of ten, and whole decades (or 1-2-5 within few decades) on a logarithmic axis. The
- * axis is widened to the outer ticks. All labels of one axis share one format: the same number of
+ * times a power of ten, and whole decades (or 1-2-5 within few decades) on a logarithmic axis. A
+ * linear axis is widened to an outer tick when that tick lies within a tenth of the data's span,
+ * else it ends 2 % past the data (ticks only inside). All labels of one axis share one format: the same number of
  * decimals, and, where the values are very large or very small, one power of ten stated once (as
  * {@link #exponent()}).
  *
@@ -90,7 +91,24 @@ record Ticks(double[] values, String[] labels, double lo, double hi, boolean log
                 labels[i] = labels[i].substring(1);
             }
         }
-        return new Ticks(values, labels, values[0], values[count - 1], false, exponent);
+        // the axis ends at an outer tick only when that tick is close to the data (within a tenth of
+        // their span); otherwise just past the data, so that -0.2..33 is not drawn from -5
+        double span = max - min;
+        double lo = min - values[0] > 0.1 * span ? min - 0.02 * span : values[0];
+        double hi = values[count - 1] - max > 0.1 * span ? max + 0.02 * span : values[count - 1];
+        int from = 0;
+        int to = count;
+        while (from < to && values[from] < lo - 1e-9 * span) {
+            from++;
+        }
+        while (to > from && values[to - 1] > hi + 1e-9 * span) {
+            to--;
+        }
+        if (to - from < 2) {
+            return new Ticks(values, labels, values[0], values[count - 1], false, exponent);
+        }
+        return new Ticks(java.util.Arrays.copyOfRange(values, from, to), java.util.Arrays.copyOfRange(labels, from, to),
+                lo, hi, false, exponent);
     }
 
     /**

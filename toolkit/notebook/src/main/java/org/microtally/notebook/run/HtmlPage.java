@@ -9,7 +9,9 @@ import org.microtally.notebook.render.MimeBundle;
  * A standalone HTML page of an executed notebook: no scripts, no external files, a small own
  * stylesheet (every class the page and the displays use starts with {@code mt-}); images are embedded as {@code data:} URIs, HTML outputs (tables, inline SVG charts)
  * are placed inline, all other text is escaped; Markdown and math go through {@link PageMarkdown}
- * (math as MathML, laid out by the browser). The page carries a Content-Security-Policy
+ * (math as MathML, laid out by the browser with the first installed font that has an OpenType MATH
+ * table, which places sub- and superscripts as TeX does). Code cells wrap long lines at the page
+ * width (readable at 1280 px and in print); outputs that must keep their lines scroll. The page carries a Content-Security-Policy
  * ({@link #POLICY}) that allows exactly that: inline styles and {@code data:} images, nothing to load
  * and no script, so HTML outputs (trusted as written, as in any notebook) cannot fetch or run anything.
  */
@@ -24,7 +26,7 @@ final class HtmlPage {
             .mt-code .mt-input { display: flex; gap: 0.6rem; }
             .mt-count { flex: 0 0 3.2rem; text-align: right; font: 0.8rem/1.9 monospace; color: #8a5a44; }
             pre { margin: 0; padding: 0.5rem 0.7rem; overflow-x: auto; font: 0.85rem/1.45 'DejaVu Sans Mono', monospace; }
-            .mt-input pre { flex: 1; background: #eef1ee; border-left: 3px solid #2f5d62; }
+            .mt-input pre { flex: 1; min-width: 0; white-space: pre-wrap; overflow-wrap: anywhere; background: #eef1ee; border-left: 3px solid #2f5d62; }
             .mt-outputs { margin-left: 3.8rem; }
             .mt-output { margin: 0.35rem 0; overflow-x: auto; }
             .mt-stream.mt-stderr pre { background: #fbeeee; }
@@ -33,6 +35,7 @@ final class HtmlPage {
             .mt-output table:not(.mt-table) { border-collapse: collapse; font: 0.85rem monospace; }
             .mt-output table:not(.mt-table) th, .mt-output table:not(.mt-table) td { border: 1px solid #c9cfc9; padding: 0.15rem 0.5rem; text-align: right; }
             .mt-output math[display="block"] { margin: 0.4rem 0; }
+            math { font-family: 'Latin Modern Math', 'STIX Two Math', 'DejaVu Math TeX Gyre', 'Cambria Math', math; }
             .mt-markdown code { background: #eef1ee; padding: 0 0.2rem; font-size: 0.9em; }
             .mt-markdown pre code { padding: 0; background: none; }
             .mt-markdown pre { background: #eef1ee; }

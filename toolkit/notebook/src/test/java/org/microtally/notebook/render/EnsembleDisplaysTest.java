@@ -169,11 +169,15 @@ class EnsembleDisplaysTest {
         Spectrum s = Spectra.harmonicOscillator(3, 40);
         var sweep = EnsembleComparison.convergence(s, Statistics.BOSE, new int[] {5, 10, 20}, n -> 2.0);
         MimeBundle b = Renderers.render(sweep);
-        assertTrue(b.plain().startsWith("Canonical vs grand canonical as N grows: N = 5..20, kT = 2..2"), b.plain());
+        assertTrue(b.plain().startsWith("Canonical vs grand canonical as N grows: N = 5..20, kT = 2\n"), b.plain());
         String html = b.get(MimeBundle.TEXT_HTML);
         Document d = TableDisplayTest.parse(html);
         assertEquals(2, d.getElementsByTagName("svg").getLength());
-        assertTrue(html.contains(">Fluctuation of the ground-level number</text>"), html);
+        assertTrue(html.contains(">Fluctuation of the ground-level number, kT = 2</text>"), html);
+        // a second sweep at other temperatures gets charts titled apart (common practice, no source)
+        var warmer = EnsembleComparison.convergence(s, Statistics.BOSE, new int[] {5, 10, 20}, n -> 0.5 * n);
+        String other = Renderers.render(warmer).get(MimeBundle.TEXT_HTML);
+        assertTrue(other.contains(">Fluctuation of the ground-level number, kT = 2.5..10</text>"), other);
         assertTrue(html.contains(">N (particles)</text>"), html);
         // absolute differences on a log axis: every point is drawn
         assertTrue(!html.contains("not drawn"), html);

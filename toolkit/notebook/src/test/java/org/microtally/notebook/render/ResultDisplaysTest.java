@@ -66,10 +66,19 @@ class ResultDisplaysTest {
         assertTrue(b.plain().contains("Not shown, to fit a 1280 px page: columns n = 1-"), b.plain());
         List<String> row = rowStartingWith(d, "30");
         for (int k = 0; k < ns.length; k++) {
-            String expected = ns[k] == 0 ? "0"
-                    // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q)
-                    : CellText.shown(binomial(30 + ns[k] - 1, 30), ResultDisplays.GRID_FORMAT);
+            // Source: closed form, Einstein solid Omega(n, q) = C(q + n - 1, q); one format per column:
+            // digit for digit when the column's largest count fits GRID_FORMAT, else scientific
+            List<Object> column = new ArrayList<>();
+            for (int q = 0; q <= 30; q++) {
+                column.add(ns[k] == 0 ? (q == 0 ? BigInteger.ONE : BigInteger.ZERO) : binomial(q + ns[k] - 1, q));
+            }
+            ColumnNumbers f = ColumnNumbers.of(column, ResultDisplays.GRID_FORMAT);
+            BigInteger omega = (BigInteger) column.get(30);
+            String expected = f == null ? CellText.shown(omega, ResultDisplays.GRID_FORMAT) : f.shown(omega);
             assertEquals(expected, row.get(k + 1), "n = " + ns[k]);
+            if (f != null) {
+                assertTrue(expected.matches("[0-9]\\.[0-9]{5}e\\+[0-9]{2}"), expected);
+            }
         }
         assertEquals(1, d.getElementsByTagName("svg").getLength());
         assertTrue(b.plain().contains("Closed form: Omega(n, E) = C(E + n - 1, E)"), b.plain());
@@ -204,13 +213,64 @@ class ResultDisplaysTest {
     }
 
     @Test
+    void massRadiusCurveHasACaptionWithUnitsAndItsModelLimits() {
+        // the group's visiting astrophysicist: carbon-oxygen white dwarfs, mu_e = 2, rho_c 1e6 to 1e9 g/cm^3
+        var curve = org.microtally.structure.WhiteDwarf.massRadiusCurve(2.0, 1e9, 1e12, 4);
+        String plain = Renderers.render(curve).plain();
+        assertFalse(plain.contains("MassRadiusCurve"), plain);
+        assertTrue(plain.startsWith("White-dwarf mass-radius curve, mu_e = 2: 4 models, rho_c = 1e6 to 1e9 g/cm^3, M = "),
+                plain);
+        assertTrue(plain.contains(" M_sun, R = ") && plain.contains(" km\n"), plain);
+        assertTrue(plain.contains("Model limits: ideal cold electrons"), plain);
+        // Source: closed form, M_Ch = 5.83/mu_e^2 M_sun (Chandrasekhar 1939, ch. XI): masses stay below 1.46
+        for (var m : curve.models()) {
+            assertTrue(m.solarMasses() < 5.84 / 4, "M = " + m.solarMasses());
+        }
+    }
+
+    @Test
+    void oneCompactStarIsCaptionedWithWhatItIsAndItsUnits() {
+        String ns = Renderers.render(org.microtally.structure.NeutronStar.ofCentralDensity(1e18)).plain();
+        assertFalse(ns.startsWith("NeutronStar"), ns);
+        assertTrue(ns.startsWith("Neutron star (toy model): M = ") && ns.contains(" M_sun, R = ")
+                && ns.contains(" km, rho_c = 1e15 g/cm^3"), ns);
+        assertTrue(ns.contains("Model limits: ideal cold neutron gas"), ns);
+        var wd = org.microtally.structure.WhiteDwarf.ofCentralDensity(1e10, 2.0);
+        String w = Renderers.render(wd).plain();
+        assertTrue(w.startsWith("White dwarf, mu_e = 2: M = ") && w.contains("rho_c = 1e7 g/cm^3"), w);
+        // Source: closed form, M_Ch = 5.83/mu_e^2 M_sun (Chandrasekhar 1939, ch. XI): a model stays below it
+        assertTrue(wd.solarMasses() < 5.84 / 4, w);
+    }
+
+    @Test
+    void sommerfeldColumnsAreChartedAsTheirRelativeDifferenceOnLogAxes() throws Exception {
+        // Halyard Bay metal foil: 5.0e28 conduction electrons per m^3
+        org.microtally.limit.FermiGas foil = org.microtally.limit.FermiGas.freeElectrons(5.0e28);
+        ReferenceTable sweep = foil.sweep(300, 1000, 3000);
+        String html = Renderers.render(sweep).get(MimeBundle.TEXT_HTML);
+        Document d = TableDisplayTest.parse(html);
+        assertEquals(2, d.getElementsByTagName("svg").getLength());
+        assertTrue(html.contains(">Sommerfeld relative to the exact value, against T/TF</text>"), html);
+        assertTrue(html.contains(">mu/EF against T/TF</text>"), html);
+        java.util.Map<String, List<String>> groups = new java.util.LinkedHashMap<>();
+        groups.put("mu/EF", List.of("mu/EF", "mu/EF Sommerfeld"));
+        XYChart c = LimitDisplays.variantAgreement(sweep, "T/TF", groups);
+        assertTrue(c.getStyler().isYAxisLogarithmic());
+        double t = 3000 / foil.fermiTemperature();
+        double rel = c.getSeries("mu/EF").getYData()[2];
+        // from memory (Sommerfeld expansion, next term): mu/EF = 1 - (pi^2/12) t^2 - (pi^4/80) t^4 + O(t^6),
+        // so the two-term series is off by (pi^4/80) t^4 relative, to leading order
+        assertEquals(Math.pow(Math.PI, 4) / 80 * Math.pow(t, 4), rel, 0.05 * rel);
+    }
+
+    @Test
     void referenceSweepIsChartedAgainstReducedTemperature() throws Exception {
         // Halyard Bay trap: 2000 atoms, 4:4:1 with the slow axis at 24 Hz
         BoseGas gas = BoseGas.inHarmonicTrap(HarmonicTrap.ofHertz(96, 96, 24), 2000);
         double tc = gas.criticalTemperature();
         ReferenceTable sweep = gas.sweep(0.5 * tc, 0.8 * tc, 1.2 * tc, 1.5 * tc);
         List<String> ys = new ArrayList<>();
-        assertEquals("T/Tc", ResultDisplays.referenceAxes(sweep, ys));
+        assertEquals("T/Tc", LimitDisplays.referenceAxes(sweep, ys));
         assertEquals(List.of("fugacity", "condensate fraction", "C/(N k)"), ys);
         MimeBundle b = Renderers.render(sweep);
         Document d = TableDisplayTest.parse(b.get(MimeBundle.TEXT_HTML));
@@ -218,7 +278,9 @@ class ResultDisplaysTest {
         assertEquals(2, d.getElementsByTagName("svg").getLength());
         assertTrue(b.get(MimeBundle.TEXT_HTML).contains(">fugacity against T/Tc</text>"));
         // Source: closed form for a harmonic trap, condensate fraction 1 - (T/Tc)^3 below Tc: 1 - 0.125 = 0.875
-        assertEquals("0.875", rowStartingWith(d, CellText.shown(0.5 * tc, TableFormat.DEFAULT)).get(3));
+        List<Object> temperatures = List.of(0.5 * tc, 0.8 * tc, 1.2 * tc, 1.5 * tc);
+        String first = ColumnNumbers.of(temperatures, TableFormat.DEFAULT).shown(0.5 * tc);
+        assertEquals("0.875", rowStartingWith(d, first).get(3));
     }
 
     @Test

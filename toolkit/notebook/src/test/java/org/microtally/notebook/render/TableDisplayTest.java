@@ -10,6 +10,7 @@ import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
 import javax.xml.parsers.DocumentBuilderFactory;
+import org.apache.commons.math3.fraction.BigFraction;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
 import org.microtally.Tabular;
@@ -70,14 +71,64 @@ class TableDisplayTest {
         Tabular t = TestTables.of(List.of("N", "N!"), new Object[] {100, f}, new Object[] {5, BigInteger.valueOf(120)});
         Document d = parse(TableDisplay.html(t, null, List.of(), TableFormat.DEFAULT));
         Element cell = (Element) d.getElementsByTagName("td").item(1);
-        // Source: OEIS A000142 (100! has 158 digits, leading digits 933262154439)
-        assertEquals("933262154439\u2026(158 digits)", cell.getTextContent());
+        // Source: OEIS A000142 (100! = 9.33262154439...e157, 158 digits); the column holds a number longer
+        // than maxDigits, so all of it is scientific (one format per column), 5! = 120 as 1.20000e+002
+        assertEquals("9.33262e+157", cell.getTextContent());
         assertEquals(f.toString(), cell.getAttribute("title"));
         assertTrue(cell.getAttribute("class").contains("mt-cut"));
         Element small = (Element) d.getElementsByTagName("td").item(3);
-        assertEquals("120", small.getTextContent()); // Source: 5! = 120, OEIS A000142
-        assertFalse(small.hasAttribute("title"));
-        assertEquals("mt-num", small.getAttribute("class"));
+        assertEquals("1.20000e+002", small.getTextContent());
+        assertEquals("120", small.getAttribute("title"));
+        assertEquals("mt-num", small.getAttribute("class"));   // not rounded, so not marked as shortened
+        Element n = (Element) d.getElementsByTagName("td").item(2);
+        assertEquals("5", n.getTextContent());
+        assertFalse(n.hasAttribute("title"));
+        assertEquals("mt-num", n.getAttribute("class"));
+    }
+
+    @Test
+    void aColumnOfWholeNumbersThatAllFitIsShownDigitForDigit() {
+        // Source: C(40, 20) = 137846528820, OEIS A000984; 12 digits fit maxDigits = 40
+        Tabular t = TestTables.of(List.of("n", "C(2n, n)"), new Object[] {1, BigInteger.TWO},
+                new Object[] {20, new BigInteger("137846528820")});
+        List<String> lines = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT).lines().toList();
+        assertEquals(" 1             2", lines.get(2));
+        assertEquals("20  137846528820", lines.get(3));
+    }
+
+    @Test
+    void wholeNumbersNextToTooLongOnesBecomeOneScientificColumn() {
+        // Source: OEIS A000984, C(2n, n): C(10,5) = 252, C(200,100) = 9.05485146561...e58 (59 digits);
+        // maxDigits 20 (the count grid's format) makes the second too long, so the column is scientific
+        Tabular t = TestTables.of(List.of("n", "C(2n, n)"), new Object[] {5, BigInteger.valueOf(252)},
+                new Object[] {100, CellTextTest.factorial(200).divide(CellTextTest.factorial(100).pow(2))},
+                new Object[] {0, BigInteger.ONE});
+        List<String> lines = TableDisplay.plain(t, null, List.of(), ResultDisplays.GRID_FORMAT).lines().toList();
+        assertEquals(List.of("  5  2.52000e+02", "100  9.05485e+58", "  0  1.00000e+00"), lines.subList(2, 5));
+        for (String l : lines) {
+            assertFalse(l.contains("\u2026"), l);
+        }
+    }
+
+    @Test
+    void fractionsTooLongToShowMakeTheirWholeColumnOneApproximateFormat() {
+        // Source: closed form, 1/3 = 0.333..., 1/(3 * 10^50) = 3.333...e-51, 2/7 = 0.285714...
+        BigFraction tiny = new BigFraction(BigInteger.ONE, BigInteger.valueOf(3).multiply(BigInteger.TEN.pow(50)));
+        Tabular t = TestTables.of(List.of("case", "p", "small"), new Object[] {"a", new BigFraction(1, 3), new BigFraction(1, 3)},
+                new Object[] {"b", tiny, new BigFraction(2, 7)});
+        List<String> lines = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT).lines().toList();
+        assertEquals("a     \u22483.33333e-01    1/3", lines.get(2));
+        assertEquals("b     \u22483.33333e-51    2/7", lines.get(3));
+    }
+
+    @Test
+    void floatingColumnWithExponentZeroKeepsTheSignedTwoDigitExponent() {
+        // Source: ISO/IEC 9899:2018 7.21.6.1 (%e: a sign and at least two exponent digits); the column
+        // spans 1e-3 to 1e3 (more than significantDigits - 3 decades), so it is scientific
+        Tabular t = TestTables.of(List.of("rho_c", "R"), new Object[] {1e6, 1666.74}, new Object[] {1e11, 2.5},
+                new Object[] {1e8, 0.00125});
+        List<String> lines = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT).lines().toList();
+        assertEquals(List.of("1e+06  1.66674e+03", "1e+11  2.50000e+00", "1e+08  1.25000e-03"), lines.subList(2, 5));
     }
 
     @Test
@@ -140,7 +191,7 @@ class TableDisplayTest {
         List<String> lines = TableDisplay.plain(t, null, List.of(), TableFormat.DEFAULT).lines().toList();
         // common practice, no source: one exponent style and one mantissa width per column, points aligned
         assertEquals(List.of("T/T_c0  atoms omitted", "\u2500\u2500\u2500\u2500\u2500\u2500  \u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500\u2500",
-                "  0.10     6.81724e-7", "  0.15     1.91613e-4", "  1.20     1.11903e-1"), lines);
+                "  0.10    6.81724e-07", "  0.15    1.91613e-04", "  1.20    1.11903e-01"), lines);
     }
 
     @Test

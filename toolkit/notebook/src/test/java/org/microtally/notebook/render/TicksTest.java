@@ -40,6 +40,21 @@ class TicksTest {
     }
 
     @Test
+    void axisFitsTheDataInsteadOfAFarOuterTick() {
+        // common practice, no source: a chemical potential from -0.2 to 33 meV is not drawn from -5
+        Ticks t = Ticks.linear(-0.2, 33, 8);
+        assertTrue(t.lo() > -1 && t.lo() <= -0.2, "lo " + t.lo());
+        assertEquals("0", t.labels()[0]);
+        for (double v : t.values()) {
+            assertTrue(v >= t.lo() && v <= t.hi(), v + " outside " + t.lo() + ".." + t.hi());
+        }
+        // an outer tick close to the data still ends the axis
+        Ticks close = Ticks.linear(0.3, 9.7, 10);
+        assertEquals(0.0, close.lo());
+        assertEquals(10.0, close.hi());
+    }
+
+    @Test
     void labelsShareOneFormatAndOneExponent() {
         Ticks t = Ticks.linear(6.8e-7, 1.9e-4, 10);
         assertEquals(-4, t.exponent());

@@ -36,6 +36,18 @@ class HtmlPageTest {
         JsonObject data = JsonParser.parseString("{\"text/plain\": \"x\", \"text/latex\": \"$$\\\\langle n \\\\rangle$$\"}")
                 .getAsJsonObject();
         String best = HtmlPage.bestOf(data);
-        assertTrue(best.contains("display=\"block\"><semantics><mrow><mo>\u27e8</mo><mi>n</mi><mo>\u27e9</mo>"), best);
+        assertTrue(best.contains("display=\"block\"><semantics><mrow><mo stretchy=\"false\">\u27e8</mo><mi>n</mi><mo stretchy=\"false\">\u27e9</mo>"), best);
+    }
+
+    @Test
+    void longCodeLinesWrapAtThePageWidthAndMathUsesAMathFont() throws Exception {
+        String page = HtmlPage.of(Notebook.parse(new StringReader(NB), "t.ipynb"), "t");
+        // common practice, no source: a flex item needs min-width: 0 to shrink below its content's width,
+        // and pre-wrap keeps indentation while breaking lines that do not fit (CSS Text Level 3, white-space)
+        String rule = page.lines().filter(l -> l.strip().startsWith(".mt-input pre {")).findFirst().orElse("");
+        assertTrue(rule.contains("min-width: 0") && rule.contains("white-space: pre-wrap")
+                && rule.contains("overflow-wrap: anywhere"), rule);
+        // MathML Core, section 3.1: script placement reads the font's OpenType MATH table; list such fonts first
+        assertTrue(page.contains("math { font-family: 'Latin Modern Math'"), page);
     }
 }
