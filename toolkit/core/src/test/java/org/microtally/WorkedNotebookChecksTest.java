@@ -169,13 +169,13 @@ class WorkedNotebookChecksTest {
         // Source: mu = 0 requires F_1/2(0) = (T_F/T)^(3/2) / Gamma(5/2), F_1/2(0) = (1 - 2^-1/2) zeta(3/2) (DLMF 25.12.15);
         // zeta(3/2) = 2.612375348685488 (OEIS A078434)
         double t0 = Math.pow(0.75 * Math.sqrt(Math.PI) * (1 - Math.pow(2, -0.5)) * 2.612375348685488, -2.0 / 3.0);
-        assertEquals(0.0, foil.chemicalPotential(t0 * foil.fermiTemperature()).ratio(foil.fermiEnergy()), 1e-12);
+        assertEquals(0.0, foil.chemicalPotential(t0 * foil.fermiEnergy().in(EnergyUnit.KELVIN)).ratio(foil.fermiEnergy()), 1e-12);
     }
 
     @Test
     void foilAtRoomTemperatureFollowsSommerfeldToNextOrder() {
         FermiGas foil = FermiGas.freeElectrons(5.0e28);
-        double t = 300 / foil.fermiTemperature();
+        double t = 300 / foil.fermiEnergy().in(EnergyUnit.KELVIN);
         // Source: Sommerfeld expansion of the 3D free-electron gas (from memory; e.g. R. K. Pathria, Statistical
         // Mechanics, sec. 8.1): mu/E_F = 1 - (pi^2/12) t^2 - (pi^4/80) t^4, C/(Nk) = (pi^2/2) t (1 - (3 pi^2/10) t^2);
         // the next heat-capacity term is of relative order 20 t^4 = 1.5e-8
@@ -185,7 +185,7 @@ class WorkedNotebookChecksTest {
         assertEquals(c, foil.heatCapacityPerParticle(300), 5e-8 * c);
         // Source: Ashcroft & Mermin, Solid State Physics (1976), Table 2.1 (values from memory): Cu n = 8.47e28 m^-3,
         // T_F = 8.16e4 K; Na n = 2.65e28 m^-3, E_F = 3.24 eV (three printed digits)
-        assertEquals(8.16e4, FermiGas.freeElectrons(8.47e28).fermiTemperature(), 3e-3 * 8.16e4);
+        assertEquals(8.16e4, FermiGas.freeElectrons(8.47e28).fermiEnergy().in(EnergyUnit.KELVIN), 3e-3 * 8.16e4);
         assertEquals(3.24, FermiGas.freeElectrons(2.65e28).fermiEnergy().in(EnergyUnit.ELECTRONVOLT), 3e-3 * 3.24);
     }
 }

@@ -116,18 +116,6 @@ public final class BoseGas {
         return Energy.of(criticalKelvin(), EnergyUnit.KELVIN);
     }
 
-    /**
-     * T_c in kelvin.
-     *
-     * @deprecated temperatures leave this package as an {@link Energy}: use
-     *     {@link #criticalThermalEnergy()}{@code .in(EnergyUnit.KELVIN)}. Kept because worked notebook 01
-     *     calls it.
-     */
-    @Deprecated
-    public double criticalTemperature() {
-        return criticalKelvin();
-    }
-
     private double criticalKelvin() {
         return criticalEnergy / Codata2018.BOLTZMANN;
     }

@@ -120,17 +120,6 @@ public final class FermiGas {
         return Energy.of(fermiEnergy, EnergyUnit.JOULE);
     }
 
-    /**
-     * The Fermi temperature T_F = E_F / k in kelvin.
-     *
-     * @deprecated temperatures leave this package as an {@link Energy}: use
-     *     {@link #fermiEnergy()}{@code .in(EnergyUnit.KELVIN)}. Kept because worked notebook 06 calls it.
-     */
-    @Deprecated
-    public double fermiTemperature() {
-        return fermiKelvin();
-    }
-
     private double fermiKelvin() {
         return fermiEnergy / Codata2018.BOLTZMANN;
     }

@@ -256,7 +256,7 @@ class ResultDisplaysTest {
         groups.put("mu/EF", List.of("mu/EF", "mu/EF Sommerfeld"));
         XYChart c = LimitDisplays.variantAgreement(sweep, "T/TF", groups);
         assertTrue(c.getStyler().isYAxisLogarithmic());
-        double t = 3000 / foil.fermiTemperature();
+        double t = 3000 / foil.fermiEnergy().in(org.microtally.units.EnergyUnit.KELVIN);
         double rel = c.getSeries("mu/EF").getYData()[2];
         // from memory (Sommerfeld expansion, next term): mu/EF = 1 - (pi^2/12) t^2 - (pi^4/80) t^4 + O(t^6),
         // so the two-term series is off by (pi^4/80) t^4 relative, to leading order
@@ -267,7 +267,7 @@ class ResultDisplaysTest {
     void referenceSweepIsChartedAgainstReducedTemperature() throws Exception {
         // Halyard Bay trap: 2000 atoms, 4:4:1 with the slow axis at 24 Hz
         BoseGas gas = BoseGas.inHarmonicTrap(HarmonicTrap.ofHertz(96, 96, 24), 2000);
-        double tc = gas.criticalTemperature();
+        double tc = gas.criticalThermalEnergy().in(org.microtally.units.EnergyUnit.KELVIN);
         ReferenceTable sweep = gas.sweep(0.5 * tc, 0.8 * tc, 1.2 * tc, 1.5 * tc);
         List<String> ys = new ArrayList<>();
         assertEquals("T/Tc", LimitDisplays.referenceAxes(sweep, ys));
