@@ -124,29 +124,22 @@ class CountTableTest {
 
     @Test
     void closedShellsOfSpinHalfFermionsIn3dOscillator() {
-        Spectrum s = Spectra.harmonicOscillator(3, 6).withInternalMultiplicity(2);
-        int maxN = 112;
-        CountTable t = CountTable.of(s, Statistics.FERMI, maxN, 430);
-        List<Integer> closed = new ArrayList<>();
-        for (int n = 1; n <= maxN; n++) {
-            int e = 0;
-            while (t.isZero(n, e)) {
-                e++;
-            }
-            if (t.count(n, e).equals(BigInteger.ONE)) {
-                closed.add(n);
-            }
-        }
         // Source: closed form: shell N holds (N+1)(N+2) spin-1/2 fermions; cumulative 2, 8, 20, 40, 70, 112
         // (harmonic-oscillator magic numbers of nuclear-structure textbooks; reference from memory)
-        assertEquals(List.of(2, 8, 20, 40, 70, 112), closed);
+        assertEquals(List.of(2, 8, 20, 40, 70, 112), closedShells(3, 6, 112, 430));
     }
 
     @Test
     void closedShellsOfSpinHalfFermionsIn2dOscillator() {
-        Spectrum s = Spectra.harmonicOscillator(2, 7).withInternalMultiplicity(2);
-        int maxN = 42;
-        CountTable t = CountTable.of(s, Statistics.FERMI, maxN, 140);
+        // Source: closed form: 2D shell N holds 2(N+1) spin-1/2 fermions; cumulative 2, 6, 12, 20, 30, 42
+        // (Fock-Darwin shell filling of circular quantum dots, e.g. Kouwenhoven et al., Rep. Prog. Phys. 64, 701 (2001))
+        assertEquals(List.of(2, 6, 12, 20, 30, 42), closedShells(2, 7, 42, 140));
+    }
+
+    /** The particle numbers n <= maxN whose lowest energy is reached by exactly one microstate (a closed shell). */
+    private static List<Integer> closedShells(int dimension, int cutoff, int maxN, int maxE) {
+        Spectrum s = Spectra.harmonicOscillator(dimension, cutoff).withInternalMultiplicity(2);
+        CountTable t = CountTable.of(s, Statistics.FERMI, maxN, maxE);
         List<Integer> closed = new ArrayList<>();
         for (int n = 1; n <= maxN; n++) {
             int e = 0;
@@ -157,9 +150,7 @@ class CountTableTest {
                 closed.add(n);
             }
         }
-        // Source: closed form: 2D shell N holds 2(N+1) spin-1/2 fermions; cumulative 2, 6, 12, 20, 30, 42
-        // (Fock-Darwin shell filling of circular quantum dots, e.g. Kouwenhoven et al., Rep. Prog. Phys. 64, 701 (2001))
-        assertEquals(List.of(2, 6, 12, 20, 30, 42), closed);
+        return closed;
     }
 
     @Test
