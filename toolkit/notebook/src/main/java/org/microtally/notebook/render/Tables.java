@@ -181,23 +181,11 @@ public final class Tables {
     }
 
     /**
-     * A {@link Tabular} over the given column names and rows (not copied): the quickest way to show
-     * or export numbers computed in a notebook cell.
+     * A {@link Tabular} of the given column names and rows, copied ({@link Tabular#of}): the quickest
+     * way to show or export numbers computed in a notebook cell.
      */
     public static Tabular tabular(List<String> names, List<List<Object>> rows) {
-        Objects.requireNonNull(names, "names");
-        Objects.requireNonNull(rows, "rows");
-        return new Tabular() {
-            @Override
-            public List<String> columnNames() {
-                return names;
-            }
-
-            @Override
-            public List<List<Object>> rows() {
-                return rows;
-            }
-        };
+        return Tabular.of(names, rows);
     }
 
     private enum Kind { INT, LONG, DOUBLE, BOOLEAN, STRING }
