@@ -170,6 +170,24 @@ final class Moduli {
         }
 
         BigInteger reconstruct(long[][] residues, int index) {
+            int top = digits(residues, index);
+            if (top <= 0) {
+                return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(digit[0]);
+            }
+            return horner(digit, top);
+        }
+
+        /**
+         * Index of the highest non-zero mixed-radix (Garner) digit of entry {@code index}, -1 for zero. The
+         * digits are unique, so the entry is below p_0 ... p_(m-1) exactly when this index is below m: with
+         * the redundant primes placed last, that is the consistency check without forming the BigInteger.
+         */
+        int topDigit(long[][] residues, int index) {
+            return digits(residues, index);
+        }
+
+        /** Fills {@link #digit} with the mixed-radix digits of entry {@code index}; returns the top non-zero one. */
+        private int digits(long[][] residues, int index) {
             int k = p.length;
             long[] a = digit;
             int top = -1;
@@ -189,10 +207,7 @@ final class Moduli {
                     top = i;
                 }
             }
-            if (top <= 0) {
-                return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(a[0]);
-            }
-            return horner(a, top);
+            return top;
         }
 
         /**
