@@ -76,12 +76,55 @@ public class SparkScaling {
             perPrime.add(seconds(() -> res[k] = plan.residues(k, ProgressListener.NONE)));
         }
         List<Double> crt = new ArrayList<>();
+        List<Double> check = new ArrayList<>();
+        List<Double> checkRead = new ArrayList<>();
         for (int r = 0; r < repeats; r++) {
             crt.add(seconds(() -> plan.recombine(res)));
+            check.add(seconds(() -> plan.table(s, res)));
+            checkRead.add(seconds(() -> readAll(plan.table(s, res))));
         }
         System.out.printf(Locale.ROOT, "primes: %d required + %d redundant; one prime's residues %.3f s (median of %d); "
-                + "driver CRT + check of %d entries %.3f s%n", plan.requiredPrimes(), plan.redundantPrimes(),
-                median(perPrime), perPrime.size(), plan.entries(), median(crt));
+                + "driver eager CRT + check of %d entries (PrimePlan.recombine) %.3f s; redundant-prime check alone "
+                + "(PrimePlan.table, rows rebuilt when read) %.4f s; check + reading every row %.3f s%n",
+                plan.requiredPrimes(), plan.redundantPrimes(), median(perPrime), perPrime.size(), plan.entries(),
+                median(crt), median(check), median(checkRead));
+        // the ceiling on these 2 cores: the same prime tasks in 1 and in 2 plain Java threads (no Spark)
+        double[] primeThreads = new double[3];
+        double[] primeCores = new double[3];
+        List<Double> cores = new ArrayList<>();
+        for (int t : new int[] {1, 2}) {
+            List<Double> xs = new ArrayList<>();
+            for (int r = 0; r < repeats; r++) {
+                xs.add(seconds(() -> inThreads(t, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE))));
+                cores.add(lastCpuSeconds / xs.get(xs.size() - 1));
+            }
+            primeThreads[t] = median(xs);
+            primeCores[t] = median(cores);
+            cores.clear();
+        }
+        System.out.printf(Locale.ROOT, "CEILING prime tasks in plain threads: 1 thread %.3f s, 2 threads %.3f s, "
+                + "speed-up %.2f; cores obtained (worker CPU time / wall time) %.2f and %.2f%n", primeThreads[1],
+                primeThreads[2], primeThreads[1] / primeThreads[2], primeCores[1], primeCores[2]);
+        // and the same for the 2,000-point sweep, cut into the 16 ranges Sweep.run gives local[2]
+        double[] sweepThreads = new double[3];
+        double[] sweepCores = new double[3];
+        SweepGrid g = trapGrid();
+        int chunks = 16;
+        for (int t : new int[] {1, 2}) {
+            List<Double> xs = new ArrayList<>();
+            inThreads(t, chunks, c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)));
+            for (int r = 0; r < repeats; r++) {
+                xs.add(seconds(() -> inThreads(t, chunks,
+                        c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)))));
+                cores.add(lastCpuSeconds / xs.get(xs.size() - 1));
+            }
+            sweepThreads[t] = median(xs);
+            sweepCores[t] = median(cores);
+            cores.clear();
+        }
+        System.out.printf(Locale.ROOT, "CEILING 2,000-point sweep in plain threads (16 ranges from one queue): 1 thread "
+                + "%.3f s, 2 threads %.3f s, speed-up %.2f; cores obtained %.2f and %.2f%n", sweepThreads[1],
+                sweepThreads[2], sweepThreads[1] / sweepThreads[2], sweepCores[1], sweepCores[2]);
 
         // labelled table: the spin-resolved dot orbitals (2D oscillator by angular momentum), fermions
         Spectrum dot = Spectra.oscillator2dByAngularMomentum(30);
@@ -124,6 +167,7 @@ public class SparkScaling {
 
         List<Double> local = new ArrayList<>();
         double[] dist = new double[3];
+        double[] emptyJob = new double[3];
         double[] sweep = new double[3];
         double[] labelled = new double[3];
         double[] lattice = new double[3];
@@ -134,6 +178,10 @@ public class SparkScaling {
             Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
             DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
             DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
+            org.apache.spark.api.java.JavaSparkContext jsc =
+                    org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
+            List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
+            List<Double> empty = new ArrayList<>();
             List<Double> d = new ArrayList<>();
             List<Double> w = new ArrayList<>();
             List<Double> lab = new ArrayList<>();
@@ -145,6 +193,7 @@ public class SparkScaling {
                     local.add(seconds(() -> CountTable.of(s, st, n, e)));
                 }
                 d.add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
+                empty.add(seconds(() -> jsc.parallelize(primeIndices, primeIndices.size()).collect()));
                 w.add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
                 lab.add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
                         ProgressListener.NONE)));
@@ -152,6 +201,7 @@ public class SparkScaling {
                 en.add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE)));
             }
             dist[threads] = median(d);
+            emptyJob[threads] = median(empty);
             sweep[threads] = median(w);
             labelled[threads] = median(lab);
             lattice[threads] = median(lat);
@@ -162,6 +212,8 @@ public class SparkScaling {
         System.out.printf(Locale.ROOT, "local CountTable (multi-modular, fork-join on all cores): %.3f s%n", loc);
         System.out.printf(Locale.ROOT, "distributed CountTable local[2]: %.3f s = %.2f x local; local[1]: %.3f s; "
                 + "speed-up local[1]/local[2] %.2f%n", dist[2], dist[2] / loc, dist[1], dist[1] / dist[2]);
+        System.out.printf(Locale.ROOT, "Spark job of %d no-op tasks (the fixed cost of one distributed table) "
+                + "local[2]: %.3f s, local[1]: %.3f s%n", plan.primeCount(), emptyJob[2], emptyJob[1]);
         System.out.printf(Locale.ROOT, "2,000-point trap sweep local[2]: %.3f s (%.2f ms per point per core); local[1]: "
                 + "%.3f s; speed-up %.2f%n", sweep[2], 2 * sweep[2] / 2000 * 1e3, sweep[1], sweep[1] / sweep[2]);
         System.out.printf(Locale.ROOT, "distributed labelled table local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
@@ -184,11 +236,69 @@ public class SparkScaling {
                 + "executor; driver CRT of %d entries about %.3g s; wall time on 64 executors about %.3g h%n",
                 bigTasks, Math.min(64, bigTasks), bigCost.updates(), bigTask, bigTask / 3600, bigCost.peakBytes() / 1e9,
                 bigEntries, bigCrt, (Math.ceil(bigTasks / 64.0) * bigTask + bigCrt) / 3600);
+        // on paper, the split that would make it practical (not implemented): evaluate the magnetic fugacity z at
+        // sites + 1 distinct points modulo each prime, so each task sweeps polynomials in the energy only, and
+        // interpolate in z (Vandermonde, sites + 1 points) on the driver. A z-task is a g(E) sweep without
+        // the spin-flip symmetry the g(E) estimate uses (which stores half the states): twice its memory and updates.
+        TransferMatrix.Cost eOnly = TransferMatrix.estimate(big, ising, false);
+        int zPoints = big.sites() + 1;
+        long zTasks = (long) bigTasks * zPoints;
+        double zTask = 2 * eOnly.updates() / rate;
+        double interpolation = (double) bigTasks * (big.bonds() + 1) * zPoints * zPoints * 3e-9;
+        System.out.printf(Locale.ROOT, "PROJECTION 16x16 g(E, M) split by magnetic fugacity (not implemented): %d tasks "
+                + "(%d primes x %d z points), one task about %.3g updates = %.3g s, state vectors about %.3g GB per "
+                + "task; interpolation about %.3g s (3 ns per multiply-add, assumed); on 64 executors about %.3g h%n",
+                zTasks, bigTasks, zPoints, 2 * eOnly.updates(), zTask, 2 * eOnly.peakBytes() / 1e9, interpolation,
+                (Math.ceil(zTasks / 64.0) * zTask + interpolation) / 3600);
         double perPoint = sweep[1] / 2000;
         System.out.printf(Locale.ROOT, "PROJECTION 10^6-point sweep: %.3g s per point on one core (local[1]), so %.3g s of "
                 + "work; on 64 executors about %.3g s (%.3g min) plus the output write%n", perPoint, perPoint * 1e6,
                 perPoint * 1e6 / 64, perPoint * 1e6 / 64 / 60);
         System.out.println("load average during the run: " + Arrays.toString(loadAverage()));
+    }
+
+    /** CPU seconds used by the worker threads of the last {@link #inThreads} call. */
+    static double lastCpuSeconds;
+
+    /** Runs job(0 .. tasks-1) on {@code threads} plain threads taking the next index from one counter. */
+    static void inThreads(int threads, int tasks, java.util.function.IntFunction<?> job) {
+        java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
+        java.util.concurrent.atomic.AtomicLong cpuNanos = new java.util.concurrent.atomic.AtomicLong();
+        Thread[] ts = new Thread[threads];
+        for (int t = 0; t < threads; t++) {
+            ts[t] = new Thread(() -> {
+                for (int i = next.getAndIncrement(); i < tasks; i = next.getAndIncrement()) {
+                    job.apply(i);
+                }
+                cpuNanos.addAndGet(java.lang.management.ManagementFactory.getThreadMXBean().getCurrentThreadCpuTime());
+            });
+            ts[t].start();
+        }
+        for (Thread t : ts) {
+            try {
+                t.join();
+            } catch (InterruptedException ex) {
+                throw new IllegalStateException(ex);
+            }
+        }
+        lastCpuSeconds = cpuNanos.get() / 1e9;
+    }
+
+    static long drain(java.util.Iterator<?> it) {
+        long k = 0;
+        while (it.hasNext()) {
+            it.next();
+            k++;
+        }
+        return k;
+    }
+
+    static int readAll(CountTable t) {
+        int rows = 0;
+        for (int m = 0; m <= t.maxParticles(); m++) {
+            rows += t.row(m).isEmpty() ? 0 : 1;
+        }
+        return rows;
     }
 
     static String[] loadAverage() {
