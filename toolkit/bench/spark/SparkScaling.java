@@ -89,42 +89,18 @@ public class SparkScaling {
                 plan.requiredPrimes(), plan.redundantPrimes(), median(perPrime), perPrime.size(), plan.entries(),
                 median(crt), median(check), median(checkRead));
         // the ceiling on these 2 cores: the same prime tasks in 1 and in 2 plain Java threads (no Spark)
-        double[] primeThreads = new double[3];
-        double[] primeCores = new double[3];
-        List<Double> cores = new ArrayList<>();
-        for (int t : new int[] {1, 2}) {
-            List<Double> xs = new ArrayList<>();
-            for (int r = 0; r < repeats; r++) {
-                xs.add(seconds(() -> inThreads(t, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE))));
-                cores.add(lastCpuSeconds / xs.get(xs.size() - 1));
-            }
-            primeThreads[t] = median(xs);
-            primeCores[t] = median(cores);
-            cores.clear();
-        }
+        double[] primeCeiling = ceiling(repeats, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE));
         System.out.printf(Locale.ROOT, "CEILING prime tasks in plain threads: 1 thread %.3f s, 2 threads %.3f s, "
-                + "speed-up %.2f; cores obtained (worker CPU time / wall time) %.2f and %.2f%n", primeThreads[1],
-                primeThreads[2], primeThreads[1] / primeThreads[2], primeCores[1], primeCores[2]);
+                + "speed-up %.2f; cores obtained (worker CPU time / wall time) %.2f and %.2f%n", primeCeiling[0],
+                primeCeiling[1], primeCeiling[0] / primeCeiling[1], primeCeiling[2], primeCeiling[3]);
         // and the same for the 2,000-point sweep, cut into the 16 ranges Sweep.run gives local[2]
-        double[] sweepThreads = new double[3];
-        double[] sweepCores = new double[3];
         SweepGrid g = trapGrid();
         int chunks = 16;
-        for (int t : new int[] {1, 2}) {
-            List<Double> xs = new ArrayList<>();
-            inThreads(t, chunks, c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)));
-            for (int r = 0; r < repeats; r++) {
-                xs.add(seconds(() -> inThreads(t, chunks,
-                        c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)))));
-                cores.add(lastCpuSeconds / xs.get(xs.size() - 1));
-            }
-            sweepThreads[t] = median(xs);
-            sweepCores[t] = median(cores);
-            cores.clear();
-        }
+        double[] sweepCeiling = ceiling(repeats, chunks,
+                c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)));
         System.out.printf(Locale.ROOT, "CEILING 2,000-point sweep in plain threads (16 ranges from one queue): 1 thread "
-                + "%.3f s, 2 threads %.3f s, speed-up %.2f; cores obtained %.2f and %.2f%n", sweepThreads[1],
-                sweepThreads[2], sweepThreads[1] / sweepThreads[2], sweepCores[1], sweepCores[2]);
+                + "%.3f s, 2 threads %.3f s, speed-up %.2f; cores obtained %.2f and %.2f%n", sweepCeiling[0],
+                sweepCeiling[1], sweepCeiling[0] / sweepCeiling[1], sweepCeiling[2], sweepCeiling[3]);
 
         // labelled table: the spin-resolved dot orbitals (2D oscillator by angular momentum), fermions
         Spectrum dot = Spectra.oscillator2dByAngularMomentum(30);
@@ -255,6 +231,28 @@ public class SparkScaling {
                 + "work; on 64 executors about %.3g s (%.3g min) plus the output write%n", perPoint, perPoint * 1e6,
                 perPoint * 1e6 / 64, perPoint * 1e6 / 64 / 60);
         System.out.println("load average during the run: " + Arrays.toString(loadAverage()));
+    }
+
+    /**
+     * job(0 .. tasks-1) in 1 and then in 2 plain threads, one warm-up each, median of {@code repeats}:
+     * {wall 1 thread, wall 2 threads, cores obtained with 1, cores obtained with 2} (cores obtained =
+     * worker CPU time / wall time, which says how much of the machine the run got).
+     */
+    static double[] ceiling(int repeats, int tasks, java.util.function.IntFunction<?> job) {
+        double[] out = new double[4];
+        for (int t = 1; t <= 2; t++) {
+            int threads = t;
+            inThreads(threads, tasks, job);
+            List<Double> wall = new ArrayList<>();
+            List<Double> cores = new ArrayList<>();
+            for (int r = 0; r < repeats; r++) {
+                wall.add(seconds(() -> inThreads(threads, tasks, job)));
+                cores.add(lastCpuSeconds / wall.get(r));
+            }
+            out[t - 1] = median(wall);
+            out[t + 1] = median(cores);
+        }
+        return out;
     }
 
     /** CPU seconds used by the worker threads of the last {@link #inThreads} call. */

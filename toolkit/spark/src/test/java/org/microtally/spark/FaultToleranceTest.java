@@ -76,13 +76,18 @@ class FaultToleranceTest {
         // (common practice, no source: a wrong redundant residue disagrees with the correct reconstruction)
     }
 
-    @Test
-    void recombineRefusesResiduesOutOfRangeOrOfTheWrongShape() {
-        PrimePlan plan = PrimePlan.of(Spectra.harmonicOscillator(1, 10), Statistics.BOSE, 5, 10, 1);
+    private static long[][] residues(PrimePlan plan) {
         long[][] r = new long[plan.primeCount()][];
         for (int i = 0; i < r.length; i++) {
             r[i] = plan.residues(i, ProgressListener.NONE);
         }
+        return r;
+    }
+
+    @Test
+    void recombineRefusesResiduesOutOfRangeOrOfTheWrongShape() {
+        PrimePlan plan = PrimePlan.of(Spectra.harmonicOscillator(1, 10), Statistics.BOSE, 5, 10, 1);
+        long[][] r = residues(plan);
         // common practice, no source: (N + 1)(E + 1) entries; malformed residue arrays are refused, not recombined
         assertEquals(plan.entries(), plan.recombine(r).length);
         long[][] tooFew = {r[0]};
@@ -95,10 +100,7 @@ class FaultToleranceTest {
     @Test
     void residuesAreRefusedForASpectrumOtherThanThePlans() {
         PrimePlan plan = PrimePlan.of(Spectra.harmonicOscillator(1, 10), Statistics.BOSE, 5, 10, 1);
-        long[][] r = new long[plan.primeCount()][];
-        for (int i = 0; i < r.length; i++) {
-            r[i] = plan.residues(i, ProgressListener.NONE);
-        }
+        long[][] r = residues(plan);
         // Source: OEIS A026820 T(10, 5) = 30, partitions of 10 into at most 5 parts (5 bosons on the 1D ladder;
         // from memory, recomputed by the partition recursion p(n, k) = p(n, k - 1) + p(n - k, k) when writing this)
         assertEquals(java.math.BigInteger.valueOf(30), plan.table(Spectra.harmonicOscillator(1, 10), r).count(5, 10));
