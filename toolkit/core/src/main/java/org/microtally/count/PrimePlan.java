@@ -19,10 +19,12 @@ import org.microtally.spectrum.Statistics;
  * same set as the local table: above 2^49 and below 2^50 where the JVM has a hardware fused
  * multiply-add, so every task runs the vectorised FMA row loop, else above 2^61) comes from the
  * proven saddle-point bound on every entry ({@code CountBound}); residues
- * modulo one prime come from the same level-by-level recursion; {@link #recombine(long[][])} is
- * Garner's mixed-radix Chinese remaindering (Knuth, TAOCP Vol. 2, Sec. 4.3.2). On top of that the
- * plan carries {@code r} redundant primes: the value reconstructed from the k required residues is
- * reduced modulo each redundant prime and compared with that prime's own residue. A wrong residue
+ * modulo one prime come from the same level-by-level recursion; {@link #table} (lazy, rows rebuilt
+ * when read) and {@link #recombine(long[][])} (eager) are Garner's mixed-radix Chinese remaindering
+ * (Knuth, TAOCP Vol. 2, Sec. 4.3.2). On top of that the plan carries {@code r} redundant primes: the
+ * value reconstructed from the k required residues must agree with each redundant prime's own residue,
+ * checked in long arithmetic as "every Garner digit over all k + r primes from the k-th on is zero"
+ * (the digits are unique, so this is the same condition). A wrong residue
  * (a corrupted or mis-assigned task result) changes the reconstruction to some other value below the
  * product of the k primes, which agrees with an independent residue modulo a prime p &gt; 2^49 with
  * probability about 1/p per entry; so with {@code r >= 1} a corrupted table is refused, not returned.
@@ -33,8 +35,8 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>This facade only calls the package's existing machinery: {@code CountTable.Input.validate},
  * {@code CountTable.requireMemory}, {@code CountBound.log2Bound}, {@code Moduli.tablePrimeCount},
- * {@code Moduli.tablePrimes}, {@code CountEngine.residuesModulo} (one prime's table) and
- * {@code Moduli.Crt}.
+ * {@code Moduli.tablePrimes}, {@code CountEngine.residuesModulo} (one prime's table),
+ * {@code Moduli.Crt} and {@code CountTable.fromResidues}.
  */
 public final class PrimePlan implements Serializable {
     private static final long serialVersionUID = 1L;
