@@ -28,12 +28,15 @@ import org.microtally.spectrum.Statistics;
 
 /**
  * Measured script (run by spark-scaling.sh, not part of any test run): the distributed count table
- * against the local multi-modular path in the same JVM, local[1] against local[2], the 2,000-point trap
- * sweep of notebook 08 on local[1] and local[2], and the per-task and driver (CRT) costs that a
+ * against the local multi-modular path in the same JVM, local[1] against local[2], a 2,000-point trap
+ * sweep on local[1] and local[2] (notebook 08's axes, but a fixed cutoff of 80 quanta and N up to 160:
+ * notebook 08's cutoff follows kT, up to 121 quanta, so its points cost more), and the per-task and driver (CRT) costs that a
  * projection to a cluster needs; the same for a labelled table (LabelledPrimePlan) and a lattice
  * g(E, M) (LatticeTasks), and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
  * g(E, M) and a 10^6-point sweep from the measured per-task times. Every time is the median of
- * REPEATS runs after one warm-up run. Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
+ * REPEATS runs after one warm-up run; the local[1] and local[2] sessions alternate, one run of each workload
+ * per session, and plain Java threads (no Spark) on 1 and 2 threads give the ceiling of the same run.
+ * Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
  */
 public class SparkScaling {
     static double median(List<Double> xs) {
@@ -148,41 +151,48 @@ public class SparkScaling {
         double[] labelled = new double[3];
         double[] lattice = new double[3];
         double[] enumerated = new double[3];
-        for (int threads : new int[] {2, 1}) {
-            SparkSession spark = Clusters.local(threads);
-            DistributedCountTable.of(spark, s, st, n, e);         // warm-up
-            Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
-            DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
-            DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
-            org.apache.spark.api.java.JavaSparkContext jsc =
-                    org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
-            List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
-            List<Double> empty = new ArrayList<>();
-            List<Double> d = new ArrayList<>();
-            List<Double> w = new ArrayList<>();
-            List<Double> lab = new ArrayList<>();
-            List<Double> lat = new ArrayList<>();
-            List<Double> en = new ArrayList<>();
-            Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
-            for (int r = 0; r < repeats; r++) {
+        // local[2] and local[1] sessions alternate (2, 1, 1, 2, 2, 1, ...), one measurement of each workload per
+        // session after a warm-up of each, so a load that drifts during the run biases neither side
+        Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
+        List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
+        List<List<Double>> d = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> empty = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> w = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> lab = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> lat = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> en = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        for (int r = 0; r < repeats; r++) {
+            for (int threads : r % 2 == 0 ? new int[] {2, 1} : new int[] {1, 2}) {
+                SparkSession spark = Clusters.local(threads);
+                DistributedCountTable.of(spark, s, st, n, e);         // warm-up
+                Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
+                DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
+                DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
+                DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE);
+                org.apache.spark.api.java.JavaSparkContext jsc =
+                        org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
                 if (threads == 2) {
                     local.add(seconds(() -> CountTable.of(s, st, n, e)));
                 }
-                d.add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
-                empty.add(seconds(() -> jsc.parallelize(primeIndices, primeIndices.size()).collect()));
-                w.add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
-                lab.add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
+                d.get(threads).add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
+                empty.get(threads).add(seconds(() -> jsc.parallelize(primeIndices, primeIndices.size()).collect()));
+                w.get(threads).add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
+                lab.get(threads).add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
                         ProgressListener.NONE)));
-                lat.add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE)));
-                en.add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE)));
+                lat.get(threads).add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true,
+                        ProgressListener.NONE)));
+                en.get(threads).add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true,
+                        ProgressListener.NONE)));
+                spark.stop();
             }
-            dist[threads] = median(d);
-            emptyJob[threads] = median(empty);
-            sweep[threads] = median(w);
-            labelled[threads] = median(lab);
-            lattice[threads] = median(lat);
-            enumerated[threads] = median(en);
-            spark.stop();
+        }
+        for (int threads = 1; threads <= 2; threads++) {
+            dist[threads] = median(d.get(threads));
+            emptyJob[threads] = median(empty.get(threads));
+            sweep[threads] = median(w.get(threads));
+            labelled[threads] = median(lab.get(threads));
+            lattice[threads] = median(lat.get(threads));
+            enumerated[threads] = median(en.get(threads));
         }
         double loc = median(local);
         System.out.printf(Locale.ROOT, "local CountTable (multi-modular, fork-join on all cores): %.3f s%n", loc);
