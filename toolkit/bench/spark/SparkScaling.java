@@ -30,7 +30,8 @@ import org.microtally.spectrum.Statistics;
  * Measured script (run by spark-scaling.sh, not part of any test run): the distributed count table
  * against the local multi-modular path in the same JVM, local[1] against local[2], a 2,000-point trap
  * sweep on local[1] and local[2] (notebook 08's axes, but a fixed cutoff of 80 quanta and N up to 160:
- * notebook 08's cutoff follows kT, up to 121 quanta, so its points cost more), and the per-task and driver (CRT) costs that a
+ * notebook 08's cutoff follows kT, up to 121 quanta; warm, on one thread, both grids cost about 0.6 s),
+ * and the per-task and driver (CRT) costs that a
  * projection to a cluster needs; the same for a labelled table (LabelledPrimePlan) and a lattice
  * g(E, M) (LatticeTasks), and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
  * g(E, M) and a 10^6-point sweep from the measured per-task times. Every time is the median of
