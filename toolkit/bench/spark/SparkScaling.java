@@ -162,9 +162,13 @@ public class SparkScaling {
         List<List<Double>> lab = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
         List<List<Double>> lat = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
         List<List<Double>> en = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> sweepCpu = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> sweepBusy = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
         for (int r = 0; r < repeats; r++) {
             for (int threads : r % 2 == 0 ? new int[] {2, 1} : new int[] {1, 2}) {
                 SparkSession spark = Clusters.local(threads);
+                TaskTimes taskTimes = new TaskTimes();
+                spark.sparkContext().addSparkListener(taskTimes);
                 DistributedCountTable.of(spark, s, st, n, e);         // warm-up
                 Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
                 DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
@@ -177,7 +181,10 @@ public class SparkScaling {
                 }
                 d.get(threads).add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
                 empty.get(threads).add(seconds(() -> jsc.parallelize(primeIndices, primeIndices.size()).collect()));
+                taskTimes.reset();
                 w.get(threads).add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
+                sweepCpu.get(threads).add(taskTimes.cpuSeconds() / w.get(threads).get(w.get(threads).size() - 1));
+                sweepBusy.get(threads).add(taskTimes.runSeconds() / w.get(threads).get(w.get(threads).size() - 1));
                 lab.get(threads).add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
                         ProgressListener.NONE)));
                 lat.get(threads).add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true,
@@ -203,6 +210,10 @@ public class SparkScaling {
                 + "local[2]: %.3f s, local[1]: %.3f s%n", plan.primeCount(), emptyJob[2], emptyJob[1]);
         System.out.printf(Locale.ROOT, "2,000-point trap sweep local[2]: %.3f s (%.2f ms per point per core); local[1]: "
                 + "%.3f s; speed-up %.2f%n", sweep[2], 2 * sweep[2] / 2000 * 1e3, sweep[1], sweep[1] / sweep[2]);
+        System.out.printf(Locale.ROOT, "sweep tasks per wall second (Spark task metrics, listener bus lag aside): local[2] "
+                + "run time %.2f, CPU %.2f; local[1] run time %.2f, CPU %.2f (run time near the thread count means the "
+                + "slots ran concurrently; CPU is the cores the machine gave them)%n", median(sweepBusy.get(2)),
+                median(sweepCpu.get(2)), median(sweepBusy.get(1)), median(sweepCpu.get(1)));
         System.out.printf(Locale.ROOT, "distributed labelled table local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
                 labelled[2], labelled[1], labelled[1] / labelled[2]);
         System.out.printf(Locale.ROOT, "distributed lattice %dx%d g(E, M) local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
@@ -264,6 +275,44 @@ public class SparkScaling {
             out[t + 1] = median(cores);
         }
         return out;
+    }
+
+    /** Sums Spark's task metrics (run time and CPU time of every finished task) since the last reset. */
+    static final class TaskTimes extends org.apache.spark.scheduler.SparkListener {
+        private final java.util.concurrent.atomic.AtomicLong cpuNanos = new java.util.concurrent.atomic.AtomicLong();
+        private final java.util.concurrent.atomic.AtomicLong runMillis = new java.util.concurrent.atomic.AtomicLong();
+
+        @Override
+        public void onTaskEnd(org.apache.spark.scheduler.SparkListenerTaskEnd end) {
+            if (end.taskMetrics() != null) {
+                cpuNanos.addAndGet(end.taskMetrics().executorCpuTime());
+                runMillis.addAndGet(end.taskMetrics().executorRunTime());
+            }
+        }
+
+        void reset() {
+            cpuNanos.set(0);
+            runMillis.set(0);
+        }
+
+        /** After the job: waits briefly for the listener bus to deliver the last task ends. */
+        double cpuSeconds() {
+            settle();
+            return cpuNanos.get() / 1e9;
+        }
+
+        double runSeconds() {
+            settle();
+            return runMillis.get() / 1e3;
+        }
+
+        private static void settle() {
+            try {
+                Thread.sleep(200);
+            } catch (InterruptedException ex) {
+                Thread.currentThread().interrupt();
+            }
+        }
     }
 
     /** CPU seconds used by the worker threads of the last {@link #inThreads} call. */
