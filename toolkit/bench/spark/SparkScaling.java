@@ -28,12 +28,16 @@ import org.microtally.spectrum.Statistics;
 
 /**
  * Measured script (run by spark-scaling.sh, not part of any test run): the distributed count table
- * against the local multi-modular path in the same JVM, local[1] against local[2], the 2,000-point trap
- * sweep of notebook 08 on local[1] and local[2], and the per-task and driver (CRT) costs that a
+ * against the local multi-modular path in the same JVM, local[1] against local[2], a 2,000-point trap
+ * sweep on local[1] and local[2] (notebook 08's axes, but a fixed cutoff of 80 quanta and N up to 160:
+ * notebook 08's cutoff follows kT, up to 121 quanta; warm, on one thread, both grids cost about 0.6 s),
+ * and the per-task and driver (CRT) costs that a
  * projection to a cluster needs; the same for a labelled table (LabelledPrimePlan) and a lattice
  * g(E, M) (LatticeTasks), and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
  * g(E, M) and a 10^6-point sweep from the measured per-task times. Every time is the median of
- * REPEATS runs after one warm-up run. Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
+ * REPEATS runs after one warm-up run; the local[1] and local[2] sessions alternate, one run of each workload
+ * per session, and plain Java threads (no Spark) on 1 and 2 threads give the ceiling of the same run.
+ * Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
  */
 public class SparkScaling {
     static double median(List<Double> xs) {
@@ -76,12 +80,31 @@ public class SparkScaling {
             perPrime.add(seconds(() -> res[k] = plan.residues(k, ProgressListener.NONE)));
         }
         List<Double> crt = new ArrayList<>();
+        List<Double> check = new ArrayList<>();
+        List<Double> checkRead = new ArrayList<>();
         for (int r = 0; r < repeats; r++) {
             crt.add(seconds(() -> plan.recombine(res)));
+            check.add(seconds(() -> plan.table(s, res)));
+            checkRead.add(seconds(() -> readAll(plan.table(s, res))));
         }
         System.out.printf(Locale.ROOT, "primes: %d required + %d redundant; one prime's residues %.3f s (median of %d); "
-                + "driver CRT + check of %d entries %.3f s%n", plan.requiredPrimes(), plan.redundantPrimes(),
-                median(perPrime), perPrime.size(), plan.entries(), median(crt));
+                + "driver eager CRT + check of %d entries (PrimePlan.recombine) %.3f s; redundant-prime check alone "
+                + "(PrimePlan.table, rows rebuilt when read) %.4f s; check + reading every row %.3f s%n",
+                plan.requiredPrimes(), plan.redundantPrimes(), median(perPrime), perPrime.size(), plan.entries(),
+                median(crt), median(check), median(checkRead));
+        // the ceiling on these 2 cores: the same prime tasks in 1 and in 2 plain Java threads (no Spark)
+        double[] primeCeiling = ceiling(repeats, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE));
+        System.out.printf(Locale.ROOT, "CEILING prime tasks in plain threads: 1 thread %.3f s, 2 threads %.3f s, "
+                + "speed-up %.2f; cores obtained (worker CPU time / wall time) %.2f and %.2f%n", primeCeiling[0],
+                primeCeiling[1], primeCeiling[0] / primeCeiling[1], primeCeiling[2], primeCeiling[3]);
+        // and the same for the 2,000-point sweep, cut into the 16 ranges Sweep.run gives local[2]
+        SweepGrid g = trapGrid();
+        int chunks = 16;
+        double[] sweepCeiling = ceiling(repeats, chunks,
+                c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)));
+        System.out.printf(Locale.ROOT, "CEILING 2,000-point sweep in plain threads (16 ranges from one queue): 1 thread "
+                + "%.3f s, 2 threads %.3f s, speed-up %.2f; cores obtained %.2f and %.2f%n", sweepCeiling[0],
+                sweepCeiling[1], sweepCeiling[0] / sweepCeiling[1], sweepCeiling[2], sweepCeiling[3]);
 
         // labelled table: the spin-resolved dot orbitals (2D oscillator by angular momentum), fermions
         Spectrum dot = Spectra.oscillator2dByAngularMomentum(30);
@@ -124,46 +147,73 @@ public class SparkScaling {
 
         List<Double> local = new ArrayList<>();
         double[] dist = new double[3];
+        double[] emptyJob = new double[3];
         double[] sweep = new double[3];
         double[] labelled = new double[3];
         double[] lattice = new double[3];
         double[] enumerated = new double[3];
-        for (int threads : new int[] {2, 1}) {
-            SparkSession spark = Clusters.local(threads);
-            DistributedCountTable.of(spark, s, st, n, e);         // warm-up
-            Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
-            DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
-            DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
-            List<Double> d = new ArrayList<>();
-            List<Double> w = new ArrayList<>();
-            List<Double> lab = new ArrayList<>();
-            List<Double> lat = new ArrayList<>();
-            List<Double> en = new ArrayList<>();
-            Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
-            for (int r = 0; r < repeats; r++) {
+        // local[2] and local[1] sessions alternate (2, 1, 1, 2, 2, 1, ...), one measurement of each workload per
+        // session after a warm-up of each, so a load that drifts during the run biases neither side
+        Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
+        List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
+        List<List<Double>> d = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> empty = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> w = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> lab = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> lat = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> en = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> sweepCpu = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        List<List<Double>> sweepBusy = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        for (int r = 0; r < repeats; r++) {
+            for (int threads : r % 2 == 0 ? new int[] {2, 1} : new int[] {1, 2}) {
+                SparkSession spark = Clusters.local(threads);
+                TaskTimes taskTimes = new TaskTimes();
+                spark.sparkContext().addSparkListener(taskTimes);
+                DistributedCountTable.of(spark, s, st, n, e);         // warm-up
+                Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
+                DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
+                DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
+                DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE);
+                org.apache.spark.api.java.JavaSparkContext jsc =
+                        org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
                 if (threads == 2) {
                     local.add(seconds(() -> CountTable.of(s, st, n, e)));
                 }
-                d.add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
-                w.add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
-                lab.add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
+                d.get(threads).add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
+                empty.get(threads).add(seconds(() -> jsc.parallelize(primeIndices, primeIndices.size()).collect()));
+                taskTimes.reset();
+                w.get(threads).add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
+                sweepCpu.get(threads).add(taskTimes.cpuSeconds() / w.get(threads).get(w.get(threads).size() - 1));
+                sweepBusy.get(threads).add(taskTimes.runSeconds() / w.get(threads).get(w.get(threads).size() - 1));
+                lab.get(threads).add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
                         ProgressListener.NONE)));
-                lat.add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE)));
-                en.add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE)));
+                lat.get(threads).add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true,
+                        ProgressListener.NONE)));
+                en.get(threads).add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true,
+                        ProgressListener.NONE)));
+                spark.stop();
             }
-            dist[threads] = median(d);
-            sweep[threads] = median(w);
-            labelled[threads] = median(lab);
-            lattice[threads] = median(lat);
-            enumerated[threads] = median(en);
-            spark.stop();
+        }
+        for (int threads = 1; threads <= 2; threads++) {
+            dist[threads] = median(d.get(threads));
+            emptyJob[threads] = median(empty.get(threads));
+            sweep[threads] = median(w.get(threads));
+            labelled[threads] = median(lab.get(threads));
+            lattice[threads] = median(lat.get(threads));
+            enumerated[threads] = median(en.get(threads));
         }
         double loc = median(local);
         System.out.printf(Locale.ROOT, "local CountTable (multi-modular, fork-join on all cores): %.3f s%n", loc);
         System.out.printf(Locale.ROOT, "distributed CountTable local[2]: %.3f s = %.2f x local; local[1]: %.3f s; "
                 + "speed-up local[1]/local[2] %.2f%n", dist[2], dist[2] / loc, dist[1], dist[1] / dist[2]);
+        System.out.printf(Locale.ROOT, "Spark job of %d no-op tasks (the fixed cost of one distributed table) "
+                + "local[2]: %.3f s, local[1]: %.3f s%n", plan.primeCount(), emptyJob[2], emptyJob[1]);
         System.out.printf(Locale.ROOT, "2,000-point trap sweep local[2]: %.3f s (%.2f ms per point per core); local[1]: "
                 + "%.3f s; speed-up %.2f%n", sweep[2], 2 * sweep[2] / 2000 * 1e3, sweep[1], sweep[1] / sweep[2]);
+        System.out.printf(Locale.ROOT, "sweep tasks per wall second (Spark task metrics, listener bus lag aside): local[2] "
+                + "run time %.2f, CPU %.2f; local[1] run time %.2f, CPU %.2f (run time near the thread count means the "
+                + "slots ran concurrently; CPU is the cores the machine gave them)%n", median(sweepBusy.get(2)),
+                median(sweepCpu.get(2)), median(sweepBusy.get(1)), median(sweepCpu.get(1)));
         System.out.printf(Locale.ROOT, "distributed labelled table local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
                 labelled[2], labelled[1], labelled[1] / labelled[2]);
         System.out.printf(Locale.ROOT, "distributed lattice %dx%d g(E, M) local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
@@ -184,11 +234,129 @@ public class SparkScaling {
                 + "executor; driver CRT of %d entries about %.3g s; wall time on 64 executors about %.3g h%n",
                 bigTasks, Math.min(64, bigTasks), bigCost.updates(), bigTask, bigTask / 3600, bigCost.peakBytes() / 1e9,
                 bigEntries, bigCrt, (Math.ceil(bigTasks / 64.0) * bigTask + bigCrt) / 3600);
+        // on paper, the split that would make it practical (not implemented): evaluate the magnetic fugacity z at
+        // sites + 1 distinct points modulo each prime, so each task sweeps polynomials in the energy only, and
+        // interpolate in z (Vandermonde, sites + 1 points) on the driver. A z-task is a g(E) sweep without
+        // the spin-flip symmetry the g(E) estimate uses (which stores half the states): twice its memory and updates.
+        TransferMatrix.Cost eOnly = TransferMatrix.estimate(big, ising, false);
+        int zPoints = big.sites() + 1;
+        long zTasks = (long) bigTasks * zPoints;
+        double zTask = 2 * eOnly.updates() / rate;
+        double interpolation = (double) bigTasks * (big.bonds() + 1) * zPoints * zPoints * 3e-9;
+        System.out.printf(Locale.ROOT, "PROJECTION 16x16 g(E, M) split by magnetic fugacity (not implemented): %d tasks "
+                + "(%d primes x %d z points), one task about %.3g updates = %.3g s, state vectors about %.3g GB per "
+                + "task; interpolation about %.3g s (3 ns per multiply-add, assumed); on 64 executors about %.3g h%n",
+                zTasks, bigTasks, zPoints, 2 * eOnly.updates(), zTask, 2 * eOnly.peakBytes() / 1e9, interpolation,
+                (Math.ceil(zTasks / 64.0) * zTask + interpolation) / 3600);
         double perPoint = sweep[1] / 2000;
         System.out.printf(Locale.ROOT, "PROJECTION 10^6-point sweep: %.3g s per point on one core (local[1]), so %.3g s of "
                 + "work; on 64 executors about %.3g s (%.3g min) plus the output write%n", perPoint, perPoint * 1e6,
                 perPoint * 1e6 / 64, perPoint * 1e6 / 64 / 60);
         System.out.println("load average during the run: " + Arrays.toString(loadAverage()));
+    }
+
+    /**
+     * job(0 .. tasks-1) in 1 and then in 2 plain threads, one warm-up each, median of {@code repeats}:
+     * {wall 1 thread, wall 2 threads, cores obtained with 1, cores obtained with 2} (cores obtained =
+     * worker CPU time / wall time, which says how much of the machine the run got).
+     */
+    static double[] ceiling(int repeats, int tasks, java.util.function.IntFunction<?> job) {
+        double[] out = new double[4];
+        for (int t = 1; t <= 2; t++) {
+            int threads = t;
+            inThreads(threads, tasks, job);
+            List<Double> wall = new ArrayList<>();
+            List<Double> cores = new ArrayList<>();
+            for (int r = 0; r < repeats; r++) {
+                wall.add(seconds(() -> inThreads(threads, tasks, job)));
+                cores.add(lastCpuSeconds / wall.get(r));
+            }
+            out[t - 1] = median(wall);
+            out[t + 1] = median(cores);
+        }
+        return out;
+    }
+
+    /** Sums Spark's task metrics (run time and CPU time of every finished task) since the last reset. */
+    static final class TaskTimes extends org.apache.spark.scheduler.SparkListener {
+        private final java.util.concurrent.atomic.AtomicLong cpuNanos = new java.util.concurrent.atomic.AtomicLong();
+        private final java.util.concurrent.atomic.AtomicLong runMillis = new java.util.concurrent.atomic.AtomicLong();
+
+        @Override
+        public void onTaskEnd(org.apache.spark.scheduler.SparkListenerTaskEnd end) {
+            if (end.taskMetrics() != null) {
+                cpuNanos.addAndGet(end.taskMetrics().executorCpuTime());
+                runMillis.addAndGet(end.taskMetrics().executorRunTime());
+            }
+        }
+
+        void reset() {
+            cpuNanos.set(0);
+            runMillis.set(0);
+        }
+
+        /** After the job: waits briefly for the listener bus to deliver the last task ends. */
+        double cpuSeconds() {
+            settle();
+            return cpuNanos.get() / 1e9;
+        }
+
+        double runSeconds() {
+            settle();
+            return runMillis.get() / 1e3;
+        }
+
+        private static void settle() {
+            try {
+                Thread.sleep(200);
+            } catch (InterruptedException ex) {
+                Thread.currentThread().interrupt();
+            }
+        }
+    }
+
+    /** CPU seconds used by the worker threads of the last {@link #inThreads} call. */
+    static double lastCpuSeconds;
+
+    /** Runs job(0 .. tasks-1) on {@code threads} plain threads taking the next index from one counter. */
+    static void inThreads(int threads, int tasks, java.util.function.IntFunction<?> job) {
+        java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
+        java.util.concurrent.atomic.AtomicLong cpuNanos = new java.util.concurrent.atomic.AtomicLong();
+        Thread[] ts = new Thread[threads];
+        for (int t = 0; t < threads; t++) {
+            ts[t] = new Thread(() -> {
+                for (int i = next.getAndIncrement(); i < tasks; i = next.getAndIncrement()) {
+                    job.apply(i);
+                }
+                cpuNanos.addAndGet(java.lang.management.ManagementFactory.getThreadMXBean().getCurrentThreadCpuTime());
+            });
+            ts[t].start();
+        }
+        for (Thread t : ts) {
+            try {
+                t.join();
+            } catch (InterruptedException ex) {
+                throw new IllegalStateException(ex);
+            }
+        }
+        lastCpuSeconds = cpuNanos.get() / 1e9;
+    }
+
+    static long drain(java.util.Iterator<?> it) {
+        long k = 0;
+        while (it.hasNext()) {
+            it.next();
+            k++;
+        }
+        return k;
+    }
+
+    static int readAll(CountTable t) {
+        int rows = 0;
+        for (int m = 0; m <= t.maxParticles(); m++) {
+            rows += t.row(m).isEmpty() ? 0 : 1;
+        }
+        return rows;
     }
 
     static String[] loadAverage() {

@@ -146,6 +146,16 @@ public final class CountTable implements Tabular {
         return new CountTable(spectrum, statistics, maxParticles, maxEnergy, null, res, p);
     }
 
+    /**
+     * The multi-modular table from residues computed elsewhere ({@link PrimePlan#table}): rows are rebuilt
+     * lazily by Chinese remaindering exactly as for {@link #of}. {@code residues[i]} belongs to
+     * {@code primes[i]}; the caller has checked them.
+     */
+    static CountTable fromResidues(Spectrum spectrum, Statistics statistics, int maxN, int maxE, long[][] residues,
+                                   long[] primes) {
+        return new CountTable(spectrum, statistics, maxN, maxE, null, residues, primes);
+    }
+
     /** Validated arrays of a spectrum for exact counting. */
     static final class Input {
         final int[] energy;

@@ -170,6 +170,31 @@ final class Moduli {
         }
 
         BigInteger reconstruct(long[][] residues, int index) {
+            int top = digits(residues, index);
+            long[] a = digit;
+            if (top <= 0) {
+                return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(a[0]);
+            }
+            if (top == 1) { // a_1 p_0 + a_0 < 2^124: a long when it fits in 63 bits
+                long lo = a[1] * p[0];
+                if (Math.multiplyHigh(a[1], p[0]) == 0 && lo >= 0 && lo + a[0] >= 0) {
+                    return BigInteger.valueOf(lo + a[0]);
+                }
+            }
+            return horner(a, top);
+        }
+
+        /**
+         * Index of the highest non-zero mixed-radix (Garner) digit of entry {@code index}, -1 for zero. The
+         * digits are unique, so the entry is below p_0 ... p_(m-1) exactly when this index is below m: with
+         * the redundant primes placed last, that is the consistency check without forming the BigInteger.
+         */
+        int topDigit(long[][] residues, int index) {
+            return digits(residues, index);
+        }
+
+        /** Fills {@link #digit} with the mixed-radix digits of entry {@code index}; returns the top non-zero one. */
+        private int digits(long[][] residues, int index) {
             int k = p.length;
             long r0 = residues[0][index];
             int same = 1;
@@ -178,8 +203,9 @@ final class Moduli {
             }
             if (same == k) {
                 // every residue equal: the value is r0 itself (0 <= r0 < p_0 < every product of the primes, and the
-                // representative in [0, P) is unique); small entries skip Garner's digits
-                return BigInteger.valueOf(r0);
+                // representative in [0, P) is unique), its only digit; small entries skip Garner's digits
+                digit[0] = r0;
+                return r0 == 0 ? -1 : 0;
             }
             long[] a = digit;
             int top = -1;
@@ -199,16 +225,7 @@ final class Moduli {
                     top = i;
                 }
             }
-            if (top <= 0) {
-                return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(a[0]);
-            }
-            if (top == 1) { // a_1 p_0 + a_0 < 2^124: a long when it fits in 63 bits
-                long lo = a[1] * p[0];
-                if (Math.multiplyHigh(a[1], p[0]) == 0 && lo >= 0 && lo + a[0] >= 0) {
-                    return BigInteger.valueOf(lo + a[0]);
-                }
-            }
-            return horner(a, top);
+            return top;
         }
 
         /**

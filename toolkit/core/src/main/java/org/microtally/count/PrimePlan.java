@@ -2,6 +2,7 @@ package org.microtally.count;
 
 import java.io.Serializable;
 import java.math.BigInteger;
+import java.util.Arrays;
 import java.util.Objects;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
@@ -18,10 +19,12 @@ import org.microtally.spectrum.Statistics;
  * same set as the local table: above 2^49 and below 2^50 where the JVM has a hardware fused
  * multiply-add, so every task runs the vectorised FMA row loop, else above 2^61) comes from the
  * proven saddle-point bound on every entry ({@code CountBound}); residues
- * modulo one prime come from the same level-by-level recursion; {@link #recombine(long[][])} is
- * Garner's mixed-radix Chinese remaindering (Knuth, TAOCP Vol. 2, Sec. 4.3.2). On top of that the
- * plan carries {@code r} redundant primes: the value reconstructed from the k required residues is
- * reduced modulo each redundant prime and compared with that prime's own residue. A wrong residue
+ * modulo one prime come from the same level-by-level recursion; {@link #table} (lazy, rows rebuilt
+ * when read) and {@link #recombine(long[][])} (eager) are Garner's mixed-radix Chinese remaindering
+ * (Knuth, TAOCP Vol. 2, Sec. 4.3.2). On top of that the plan carries {@code r} redundant primes: the
+ * value reconstructed from the k required residues must agree with each redundant prime's own residue,
+ * checked in long arithmetic as "every Garner digit over all k + r primes from the k-th on is zero"
+ * (the digits are unique, so this is the same condition). A wrong residue
  * (a corrupted or mis-assigned task result) changes the reconstruction to some other value below the
  * product of the k primes, which agrees with an independent residue modulo a prime p &gt; 2^49 with
  * probability about 1/p per entry; so with {@code r >= 1} a corrupted table is refused, not returned.
@@ -32,8 +35,8 @@ import org.microtally.spectrum.Statistics;
  *
  * <p>This facade only calls the package's existing machinery: {@code CountTable.Input.validate},
  * {@code CountTable.requireMemory}, {@code CountBound.log2Bound}, {@code Moduli.tablePrimeCount},
- * {@code Moduli.tablePrimes}, {@code CountEngine.residuesModulo} (one prime's table) and
- * {@code Moduli.Crt}.
+ * {@code Moduli.tablePrimes}, {@code CountEngine.residuesModulo} (one prime's table),
+ * {@code Moduli.Crt} and {@code CountTable.fromResidues}.
  */
 public final class PrimePlan implements Serializable {
     private static final long serialVersionUID = 1L;
@@ -150,6 +153,41 @@ public final class PrimePlan implements Serializable {
      *         residue); the message names the entry and the prime
      */
     public BigInteger[] recombine(long[][] residues) {
+        checkConsistent(residues);
+        return new Moduli.Crt(Arrays.copyOf(primes, required)).reconstructAll(Arrays.copyOf(residues, required));
+    }
+
+    /**
+     * The exact table as a {@link CountTable} of {@code spectrum} (the spectrum this plan was made from)
+     * from every prime's residues, after the same checks as {@link #recombine}; its rows are rebuilt by
+     * Chinese remaindering when first read, as for {@link CountTable#of}, so the table equals the local
+     * one entry by entry and costs the driver only the check until it is read. The arrays are copied.
+     *
+     * @throws InvalidInputException as {@link #recombine}, or for a spectrum with other levels than the plan's
+     * @throws IllegalStateException as {@link #recombine}
+     */
+    public CountTable table(Spectrum spectrum, long[][] residues) {
+        CountTable.Input in = CountTable.Input.validate(spectrum, statistics(), maxN, maxE, ProgressListener.NONE);
+        if (!Arrays.equals(in.energy, energy) || !Arrays.equals(in.deg, deg)) {
+            throw InvalidInputException.of("spectrum of the residues' table", spectrum,
+                    "the spectrum this plan was made from (the same integer energies and degeneracies)",
+                    "Pass the spectrum given to PrimePlan.of.");
+        }
+        checkConsistent(residues);
+        long[][] kept = new long[required][];
+        for (int i = 0; i < required; i++) {
+            kept[i] = residues[i].clone();
+        }
+        return CountTable.fromResidues(spectrum, statistics(), maxN, maxE, kept, Arrays.copyOf(primes, required));
+    }
+
+    /**
+     * Checks the shape and range of every residue array, then every entry against the redundant primes:
+     * the Garner digits over all primes (redundant ones last) are unique, so the k required residues
+     * and the redundant ones agree exactly when every digit from the k-th on is zero (long arithmetic
+     * only; the BigInteger is formed only to word the message of a failure).
+     */
+    private void checkConsistent(long[][] residues) {
         Objects.requireNonNull(residues, "residues");
         if (residues.length != primes.length) {
             throw InvalidInputException.of("number of residue arrays", residues.length, "exactly " + primes.length,
@@ -169,29 +207,30 @@ public final class PrimePlan implements Serializable {
                 }
             }
         }
-        long[][] req = java.util.Arrays.copyOf(residues, required);
-        Moduli.Crt crt = new Moduli.Crt(java.util.Arrays.copyOf(primes, required));
-        BigInteger[] out = new BigInteger[size];
-        BigInteger[] redundant = new BigInteger[primes.length - required];
-        for (int r = 0; r < redundant.length; r++) {
-            redundant[r] = BigInteger.valueOf(primes[required + r]);
+        if (required == primes.length) {
+            return;
         }
+        Moduli.Crt all = new Moduli.Crt(primes);
         for (int j = 0; j < size; j++) {
-            BigInteger v = crt.reconstruct(req, j);
-            for (int r = 0; r < redundant.length; r++) {
-                long expected = residues[required + r][j];
-                if (v.mod(redundant[r]).longValue() != expected) {
-                    throw new IllegalStateException(String.format(
-                            "CRT consistency check failed at Omega(%d, %d): the value reconstructed from %d primes is "
-                                    + "%s modulo the redundant prime %d, but that prime's own residue is %d. A task "
-                                    + "returned a wrong residue; the table is refused. Recompute it.",
-                            j / (maxE + 1), j % (maxE + 1), required, v.mod(redundant[r]), primes[required + r],
-                            expected));
-                }
+            if (all.topDigit(residues, j) >= required) {
+                throw inconsistency(residues, j);
             }
-            out[j] = v;
         }
-        return out;
+    }
+
+    private IllegalStateException inconsistency(long[][] residues, int j) {
+        BigInteger v = new Moduli.Crt(Arrays.copyOf(primes, required)).reconstruct(residues, j);
+        for (int r = required; r < primes.length; r++) {
+            long got = v.mod(BigInteger.valueOf(primes[r])).longValue();
+            if (got != residues[r][j]) {
+                return new IllegalStateException(String.format(
+                        "CRT consistency check failed at Omega(%d, %d): the value reconstructed from %d primes is "
+                                + "%d modulo the redundant prime %d, but that prime's own residue is %d. A task "
+                                + "returned a wrong residue; the table is refused. Recompute it.",
+                        j / (maxE + 1), j % (maxE + 1), required, got, primes[r], residues[r][j]));
+            }
+        }
+        throw new AssertionError("Garner digits above the required primes but every redundant residue agrees");
     }
 
     private void checkPrimeIndex(int i) {

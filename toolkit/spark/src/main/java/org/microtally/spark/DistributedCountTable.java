@@ -1,8 +1,6 @@
 package org.microtally.spark;
 
 import java.math.BigInteger;
-import java.util.Arrays;
-import java.util.Collections;
 import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
@@ -21,31 +19,28 @@ import org.microtally.spectrum.Statistics;
  * <p><b>Method.</b> {@link PrimePlan} fixes the primes from the proven bound on every entry and adds
  * one redundant prime; each Spark task computes the whole table modulo its prime by the same
  * recursion {@link CountTable} uses (the class notes there give the formula and cost); the driver
- * collects the residues, reconstructs every entry by Garner's algorithm (Knuth, TAOCP Vol. 2,
- * Sec. 4.3.2) and checks it modulo the redundant prime. A task that fails is retried by Spark (up to
+ * collects the residues and checks every entry against the redundant prime (Garner's mixed-radix
+ * digits over all primes, Knuth, TAOCP Vol. 2, Sec. 4.3.2, in long arithmetic: the residues agree
+ * exactly when the digit of the redundant prime is zero); the entries themselves are rebuilt by Garner's
+ * algorithm row by row when first read, by the same code as {@link CountTable} ({@link PrimePlan#table}). A task that fails is retried by Spark (up to
  * {@code spark.task.maxFailures} attempts, or the {@code local[n,attempts]} form); a task that returns
  * a wrong residue makes the check fail and the table is refused with an {@link IllegalStateException}.
  *
  * <p><b>Accuracy.</b> Exact, entry by entry identical to {@link CountTable#of} (tested by comparing
  * every entry). Cost: the {@link CountTable} work per prime spread over the executors, plus shipping
- * 8 (N+1)(E+1) bytes per prime to the driver and the driver's reconstruction.
+ * 8 (N+1)(E+1) bytes per prime to the driver, the driver's check, and the reconstruction of the rows read.
  */
 public final class DistributedCountTable implements CountGrid {
     /** Redundant primes added to every plan for the consistency check. */
     public static final int REDUNDANT_PRIMES = 1;
 
-    private final Statistics statistics;
-    private final int maxN;
-    private final int maxE;
-    private final BigInteger[] counts;
+    /** The recombined table: rows rebuilt from the residues when first read, exactly as {@link CountTable#of}. */
+    private final CountTable table;
     private final int requiredPrimes;
     private final int redundantPrimes;
 
-    private DistributedCountTable(PrimePlan plan, BigInteger[] counts) {
-        this.statistics = plan.statistics();
-        this.maxN = plan.maxParticles();
-        this.maxE = plan.maxEnergy();
-        this.counts = counts;
+    private DistributedCountTable(PrimePlan plan, CountTable table) {
+        this.table = table;
         this.requiredPrimes = plan.requiredPrimes();
         this.redundantPrimes = plan.redundantPrimes();
     }
@@ -66,21 +61,21 @@ public final class DistributedCountTable implements CountGrid {
      */
     public static DistributedCountTable of(SparkSession spark, Spectrum spectrum, Statistics statistics,
                                            int maxParticles, int maxEnergy, ProgressListener progress) {
-        return compute(spark, PrimePlan.of(spectrum, statistics, maxParticles, maxEnergy, REDUNDANT_PRIMES),
+        return compute(spark, spectrum, PrimePlan.of(spectrum, statistics, maxParticles, maxEnergy, REDUNDANT_PRIMES),
                 progress, TaskFault.NONE);
     }
 
-    static DistributedCountTable compute(SparkSession spark, PrimePlan plan, ProgressListener progress,
-                                         TaskFault fault) {
+    static DistributedCountTable compute(SparkSession spark, Spectrum spectrum, PrimePlan plan,
+                                         ProgressListener progress, TaskFault fault) {
         long[][] residues = PrimeTasks.run(spark, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE),
                 "primes", progress, fault);
-        return new DistributedCountTable(plan, plan.recombine(residues));
+        return new DistributedCountTable(plan, plan.table(spectrum, residues));
     }
 
     /** Omega(n, e). */
     @Override
     public BigInteger count(int n, int e) {
-        return counts[CountGrid.cellIndex(n, e, maxN, maxE)];
+        return table.count(n, e);
     }
 
     /**
@@ -89,16 +84,15 @@ public final class DistributedCountTable implements CountGrid {
      */
     public Optional<String> firstDifference(CountTable local) {
         Objects.requireNonNull(local, "local");
-        if (!local.statistics().equals(statistics)) {
-            return Optional.of("statistics differ: distributed " + statistics + ", local " + local.statistics());
+        if (!local.statistics().equals(statistics())) {
+            return Optional.of("statistics differ: distributed " + statistics() + ", local " + local.statistics());
         }
         return firstDifference(CountGrid.of(local));
     }
 
     /** The row Omega(n, 0..E). */
     public List<BigInteger> row(int n) {
-        count(n, 0);
-        return Collections.unmodifiableList(Arrays.asList(Arrays.copyOfRange(counts, n * (maxE + 1), (n + 1) * (maxE + 1))));
+        return table.row(n);
     }
 
     /** Primes whose product the bound proves exceeds every entry (one Spark task each). */
@@ -114,23 +108,23 @@ public final class DistributedCountTable implements CountGrid {
     /** N. */
     @Override
     public int maxParticles() {
-        return maxN;
+        return table.maxParticles();
     }
 
     /** E. */
     @Override
     public int maxEnergy() {
-        return maxE;
+        return table.maxEnergy();
     }
 
     /** The statistics counted. */
     public Statistics statistics() {
-        return statistics;
+        return table.statistics();
     }
 
     @Override
     public String toString() {
-        return "DistributedCountTable[" + statistics + ", N = " + maxN + ", E = " + maxE + ", "
+        return "DistributedCountTable[" + statistics() + ", N = " + maxParticles() + ", E = " + maxEnergy() + ", "
                 + requiredPrimes + " + " + redundantPrimes + " primes]";
     }
 }

@@ -100,18 +100,43 @@ public final class Sweep {
         for (int i = 0; i < tasks; i++) {
             ranges.add(new long[] {size * i / tasks, size * (i + 1) / tasks});
         }
-        JavaRDD<Row> rows = jsc.parallelize(ranges, tasks).flatMap(r -> new Iterator<Row>() {
-            private long next = r[0];
+        JavaRDD<Row> rows = jsc.parallelize(ranges, tasks).flatMap(r -> rows(grid, r[0], r[1]));
+        Dataset<Row> ds = spark.createDataFrame(rows, SCHEMA).persist(StorageLevel.MEMORY_AND_DISK());
+        long count = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", ds::count);
+        if (count != size) {
+            throw new IllegalStateException("sweep produced " + count + " rows for " + size + " points");
+        }
+        return new SweepResult(spark, ds, size);
+    }
+
+    /**
+     * The rows of points {@code from} (inclusive) to {@code to} (exclusive) of {@code grid}, computed lazily on
+     * the calling thread exactly as one Spark task of {@link #run} computes them (one spectrum build serves
+     * consecutive points with the same spectrum and kT). For a single point's check or a local baseline.
+     *
+     * @throws InvalidInputException for a range outside [0, grid.size()]
+     */
+    public static Iterator<Row> rows(SweepGrid grid, long from, long to) {
+        Objects.requireNonNull(grid, "grid");
+        if (from < 0 || to < from || to > grid.size()) {
+            throw InvalidInputException.of("range of sweep points", "[" + from + ", " + to + ")",
+                    "within [0, " + grid.size() + "]", "");
+        }
+        return new Iterator<Row>() {
+            private long next = from;
             private SweepPoint last;
             private Spectrum lastSpectrum;
 
             @Override
             public boolean hasNext() {
-                return next < r[1];
+                return next < to;
             }
 
             @Override
             public Row next() {
+                if (next >= to) {
+                    throw new java.util.NoSuchElementException("sweep points end at " + to);
+                }
                 SweepPoint p = grid.point(next++);
                 // the ensemble varies fastest: consecutive points often share spectrum and kT, so one build serves
                 if (last == null || last.spectrum() != p.spectrum() || last.kT() != p.kT()) {
@@ -120,13 +145,7 @@ public final class Sweep {
                 }
                 return evaluate(p, lastSpectrum);
             }
-        });
-        Dataset<Row> ds = spark.createDataFrame(rows, SCHEMA).persist(StorageLevel.MEMORY_AND_DISK());
-        long count = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", ds::count);
-        if (count != size) {
-            throw new IllegalStateException("sweep produced " + count + " rows for " + size + " points");
-        }
-        return new SweepResult(spark, ds, size);
+        };
     }
 
     /**

@@ -39,7 +39,7 @@ class FaultToleranceTest {
             }
             return result;
         };
-        DistributedCountTable d = DistributedCountTable.compute(spark, plan, ProgressListener.NONE, firstAttemptFails);
+        DistributedCountTable d = DistributedCountTable.compute(spark, SPECTRUM, plan, ProgressListener.NONE, firstAttemptFails);
         // Source: independent computation, the local CountTable (every entry compared)
         Optional<String> diff = d.firstDifference(CountTable.of(SPECTRUM, Statistics.BOSE, 24, 40));
         assertTrue(diff.isEmpty(), () -> diff.get());
@@ -56,7 +56,7 @@ class FaultToleranceTest {
             return result;
         };
         IllegalStateException ex = assertThrows(IllegalStateException.class,
-                () -> DistributedCountTable.compute(spark, plan, ProgressListener.NONE, corruptFirstPrime));
+                () -> DistributedCountTable.compute(spark, SPECTRUM, plan, ProgressListener.NONE, corruptFirstPrime));
         // common practice, no source: the message names the entry that failed the check
         assertTrue(ex.getMessage().contains("Omega(20, 33)"), ex.getMessage());
     }
@@ -72,17 +72,22 @@ class FaultToleranceTest {
             return result;
         };
         assertThrows(IllegalStateException.class,
-                () -> DistributedCountTable.compute(spark, plan, ProgressListener.NONE, corruptRedundant));
+                () -> DistributedCountTable.compute(spark, SPECTRUM, plan, ProgressListener.NONE, corruptRedundant));
         // (common practice, no source: a wrong redundant residue disagrees with the correct reconstruction)
+    }
+
+    private static long[][] residues(PrimePlan plan) {
+        long[][] r = new long[plan.primeCount()][];
+        for (int i = 0; i < r.length; i++) {
+            r[i] = plan.residues(i, ProgressListener.NONE);
+        }
+        return r;
     }
 
     @Test
     void recombineRefusesResiduesOutOfRangeOrOfTheWrongShape() {
         PrimePlan plan = PrimePlan.of(Spectra.harmonicOscillator(1, 10), Statistics.BOSE, 5, 10, 1);
-        long[][] r = new long[plan.primeCount()][];
-        for (int i = 0; i < r.length; i++) {
-            r[i] = plan.residues(i, ProgressListener.NONE);
-        }
+        long[][] r = residues(plan);
         // common practice, no source: (N + 1)(E + 1) entries; malformed residue arrays are refused, not recombined
         assertEquals(plan.entries(), plan.recombine(r).length);
         long[][] tooFew = {r[0]};
@@ -90,5 +95,16 @@ class FaultToleranceTest {
         r[0] = r[0].clone();
         r[0][3] = -1;
         assertThrows(InvalidInputException.class, () -> plan.recombine(r));
+    }
+
+    @Test
+    void residuesAreRefusedForASpectrumOtherThanThePlans() {
+        PrimePlan plan = PrimePlan.of(Spectra.harmonicOscillator(1, 10), Statistics.BOSE, 5, 10, 1);
+        long[][] r = residues(plan);
+        // Source: OEIS A026820 T(10, 5) = 30, partitions of 10 into at most 5 parts (5 bosons on the 1D ladder;
+        // from memory, recomputed by the partition recursion p(n, k) = p(n, k - 1) + p(n - k, k) when writing this)
+        assertEquals(java.math.BigInteger.valueOf(30), plan.table(Spectra.harmonicOscillator(1, 10), r).count(5, 10));
+        // common practice, no source: residues of one spectrum's table are not a table of another spectrum
+        assertThrows(InvalidInputException.class, () -> plan.table(Spectra.harmonicOscillator(2, 10), r));
     }
 }
