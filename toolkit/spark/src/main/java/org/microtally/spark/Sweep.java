@@ -100,13 +100,15 @@ public final class Sweep {
         for (int i = 0; i < tasks; i++) {
             ranges.add(new long[] {size * i / tasks, size * (i + 1) / tasks});
         }
-        JavaRDD<Row> rows = jsc.parallelize(ranges, tasks).flatMap(r -> rows(grid, r[0], r[1]));
-        Dataset<Row> ds = spark.createDataFrame(rows, SCHEMA).persist(StorageLevel.MEMORY_AND_DISK());
-        long count = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", ds::count);
+        // the rows are computed and kept as an RDD (the parallel part), and the Dataset is a view over it:
+        // building a columnar cache of the Dataset instead adds a serial step of the order of a small sweep
+        JavaRDD<Row> rows = jsc.parallelize(ranges, tasks).flatMap(r -> rows(grid, r[0], r[1]))
+                .persist(StorageLevel.MEMORY_AND_DISK());
+        long count = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", rows::count);
         if (count != size) {
             throw new IllegalStateException("sweep produced " + count + " rows for " + size + " points");
         }
-        return new SweepResult(spark, ds, size);
+        return new SweepResult(spark, spark.createDataFrame(rows, SCHEMA), size);
     }
 
     /**
