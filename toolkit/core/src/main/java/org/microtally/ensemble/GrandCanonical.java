@@ -249,18 +249,6 @@ public final class GrandCanonical implements QuantityResult {
                 mu.in(spectrum.scale()));
     }
 
-    /** @deprecated the factories are named {@code of...}: use {@link #ofMeanNumber(Spectrum, Statistics, double, double)}. */
-    @Deprecated
-    public static GrandCanonical atMeanNumber(Spectrum spectrum, Statistics statistics, double kT, double n) {
-        return ofMeanNumber(spectrum, statistics, kT, n);
-    }
-
-    /** @deprecated use {@link #ofChemicalPotential(Spectrum, Statistics, double, double)}. */
-    @Deprecated
-    public static GrandCanonical atChemicalPotential(Spectrum spectrum, Statistics statistics, double kT, double mu) {
-        return ofChemicalPotential(spectrum, statistics, kT, mu);
-    }
-
     /** How microstates are counted ({@link Counting}); distinguishable particles default to CORRECTED_BOLTZMANN. */
     public Counting counting() {
         return counting;

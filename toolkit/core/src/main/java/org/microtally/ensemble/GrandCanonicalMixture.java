@@ -43,12 +43,6 @@ public final class GrandCanonicalMixture implements Tabular {
         this.warnings = CanonicalMixture.prefixedWarnings(species, parts, GrandCanonical::warnings);
     }
 
-    /** @deprecated the factories are named {@code of...}: use {@link #ofChemicalPotentials(List, double, double...)}. */
-    @Deprecated
-    public static GrandCanonicalMixture atChemicalPotentials(List<Species> species, double kT, double... mu) {
-        return ofChemicalPotentials(species, kT, mu);
-    }
-
     /**
      * The mixture at given chemical potentials, one per species in list order (the species' particle
      * numbers are not used).
@@ -72,12 +66,6 @@ public final class GrandCanonicalMixture implements Tabular {
                     s.statistics(), kT, m)));
         }
         return new GrandCanonicalMixture(list, Collections.unmodifiableList(parts), kT);
-    }
-
-    /** @deprecated the factories are named {@code of...}: use {@link #ofMeanNumbers(List, double)}. */
-    @Deprecated
-    public static GrandCanonicalMixture atMeanNumbers(List<Species> species, double kT) {
-        return ofMeanNumbers(species, kT);
     }
 
     /**

@@ -4,6 +4,6 @@ package org.microtally.spark;
 public enum Ensemble {
     /** {@link org.microtally.ensemble.Canonical}: exactly N particles. */
     CANONICAL,
-    /** {@link org.microtally.ensemble.GrandCanonical#atMeanNumber}: mean particle number N. */
+    /** {@link org.microtally.ensemble.GrandCanonical#ofMeanNumber}: mean particle number N. */
     GRAND_CANONICAL
 }

@@ -173,50 +173,32 @@ public final class Sweep {
 
     /** One grid point's row on {@code s}, the point's spectrum already built at its kT. */
     static Row evaluate(SweepPoint p, Spectrum s) {
-        Object[] head = {p.id(), p.spectrum().toString(), s.stateCount(), p.particles(), p.kT(),
-            p.statistics().toString(), p.ensemble().name()};
-        Double lnZ;
-        Double u;
-        Double entropy;
-        Double c;
-        Double mu;
-        Double n0;
-        Double n0var;
-        List<String> warnings;
+        // lnZ (ln Xi), U, S, C, mu, <n0>, Var n0: null where the ensemble has no such value or refused the point
+        Double[] v = new Double[7];
+        String warnings;
         try {
-            if (p.ensemble() == Ensemble.CANONICAL) {
-                Canonical can = Canonical.of(s, p.statistics(), p.particles(), p.kT());
-                CondensateDistribution d = can.groundLevelDistribution();
-                lnZ = can.lnZ();
-                u = can.energy();
-                entropy = can.entropy();
-                c = can.heatCapacity();
-                mu = null;
-                n0 = d.mean();
-                n0var = d.variance();
-                warnings = can.warnings();
-            } else {
-                GrandCanonical g = GrandCanonical.atMeanNumber(s, p.statistics(), p.kT(), p.particles());
-                lnZ = g.lnXi();
-                u = g.energy();
-                entropy = g.entropy();
-                c = g.heatCapacity();
-                mu = g.chemicalPotential();
-                n0 = g.groundLevelMean();
-                n0var = g.groundLevelVariance();
-                warnings = g.warnings();
-            }
+            warnings = String.join(" | ", p.ensemble() == Ensemble.CANONICAL ? canonical(p, s, v) : grandCanonical(p, s, v));
         } catch (InvalidInputException refused) {
-            lnZ = null;
-            u = null;
-            entropy = null;
-            c = null;
-            mu = null;
-            n0 = null;
-            n0var = null;
-            warnings = List.of("refused: " + refused.getMessage());
+            java.util.Arrays.fill(v, null);
+            warnings = "refused: " + refused.getMessage();
         }
-        return RowFactory.create(head[0], head[1], head[2], head[3], head[4], head[5], head[6],
-                lnZ, u, entropy, c, mu, n0, n0var, String.join(" | ", warnings));
+        return RowFactory.create(p.id(), p.spectrum().toString(), s.stateCount(), p.particles(), p.kT(),
+                p.statistics().toString(), p.ensemble().name(), v[0], v[1], v[2], v[3], v[4], v[5], v[6], warnings);
+    }
+
+    private static List<String> canonical(SweepPoint p, Spectrum s, Double[] v) {
+        Canonical can = Canonical.of(s, p.statistics(), p.particles(), p.kT());
+        CondensateDistribution d = can.groundLevelDistribution();
+        Double[] values = {can.lnZ(), can.energy(), can.entropy(), can.heatCapacity(), null, d.mean(), d.variance()};
+        System.arraycopy(values, 0, v, 0, v.length);
+        return can.warnings();
+    }
+
+    private static List<String> grandCanonical(SweepPoint p, Spectrum s, Double[] v) {
+        GrandCanonical g = GrandCanonical.ofMeanNumber(s, p.statistics(), p.kT(), p.particles());
+        Double[] values = {g.lnXi(), g.energy(), g.entropy(), g.heatCapacity(), g.chemicalPotential(),
+            g.groundLevelMean(), g.groundLevelVariance()};
+        System.arraycopy(values, 0, v, 0, v.length);
+        return g.warnings();
     }
 }
