@@ -26,7 +26,7 @@ public final class TableDisplay {
             + ".mt-table td{padding:0.12em 0.6em;font-family:'DejaVu Sans Mono',monospace;font-size:0.82em;white-space:nowrap}"
             + ".mt-table tbody tr:nth-child(5n) td{border-bottom:1px solid #dfe6e7}"
             + ".mt-table td.mt-num{text-align:right}"
-            + ".mt-table td.mt-text{text-align:left}"
+            + ".mt-table td.mt-text{text-align:left;white-space:normal}"   // long text wraps when the table is wider than the page
             + ".mt-table td.mt-cut{color:#8a4b12;cursor:help}"
             + ".mt-table tr.mt-gap td{text-align:center;color:#8a6d3b;background:#fbf7ef;font-family:inherit;font-style:normal}"
             + ".mt-note{color:#55666b;font-size:0.85em;margin:0.2em 0;max-width:46em}"
