@@ -4,16 +4,13 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.math.BigDecimal;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
+import org.microtally.MeasuredAccuracy;
 import org.microtally.special.RelativisticFermiDirac;
 
 class RelativisticFermiGasTest {
@@ -160,39 +157,31 @@ class RelativisticFermiGasTest {
         List<String> failures = new ArrayList<>();
         double worst = 0;
         int rows = 0;
-        try (InputStream in = getClass().getResourceAsStream("/limit/relativistic-gas-mpmath.csv");
-             BufferedReader r = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
-            String line;
-            while ((line = r.readLine()) != null) {
-                if (line.isBlank() || line.startsWith("#")) {
-                    continue;
-                }
-                String[] c = line.split(",");
-                double rho = Double.parseDouble(c[1]);
-                double kelvin = Double.parseDouble(c[3]);
-                RelativisticFermiGas g = c[0].equals("electron")
-                        ? RelativisticFermiGas.electrons(rho, Double.parseDouble(c[2]), kelvin)
-                        : RelativisticFermiGas.neutrons(rho, kelvin);
-                double[] expected = new double[7];
-                for (int i = 0; i < 6; i++) {
-                    expected[i] = new BigDecimal(c[4 + i]).doubleValue();
-                }
-                double[] got = {g.degeneracyParameter(), g.particleDensity(), g.antiparticleDensity(), g.pressure(),
-                    g.energyDensity(), g.entropyDensity()};
-                // eta and the densities lose digits where pairs outnumber the net particles (notes() says so); P, U, S do not
-                double pairFactor = Math.max(1.0, g.antiparticleDensity() / g.netDensity());
-                for (int i = 0; i < 6; i++) {
-                    double scale = i == 0 ? Math.max(1.0, Math.abs(expected[0])) : Math.abs(expected[i]);
-                    double allowed = (i <= 2 ? pairFactor : 1.0) * RelativisticFermiDirac.RELATIVE_ACCURACY;
-                    double error = expected[i] == 0.0 ? Math.abs(got[i]) : Math.abs(got[i] - expected[i]) / scale;
-                    worst = Math.max(worst, error / allowed);
-                    if (!(error <= allowed)) {
-                        failures.add(line.substring(0, line.indexOf(',', line.indexOf(',', line.indexOf(',') + 1) + 1) + 8)
-                                + " column " + i + ": got " + got[i] + ", expected " + expected[i] + " (" + error + ")");
-                    }
-                }
-                rows++;
+        for (String[] c : MeasuredAccuracy.rows(getClass(), "/limit/relativistic-gas-mpmath.csv")) {
+            double rho = Double.parseDouble(c[1]);
+            double kelvin = Double.parseDouble(c[3]);
+            RelativisticFermiGas g = c[0].equals("electron")
+                    ? RelativisticFermiGas.electrons(rho, Double.parseDouble(c[2]), kelvin)
+                    : RelativisticFermiGas.neutrons(rho, kelvin);
+            double[] expected = new double[6];
+            for (int i = 0; i < 6; i++) {
+                expected[i] = new BigDecimal(c[4 + i]).doubleValue();
             }
+            double[] got = {g.degeneracyParameter(), g.particleDensity(), g.antiparticleDensity(), g.pressure(),
+                g.energyDensity(), g.entropyDensity()};
+            // eta and the densities lose digits where pairs outnumber the net particles (notes() says so); P, U, S do not
+            double pairFactor = Math.max(1.0, g.antiparticleDensity() / g.netDensity());
+            for (int i = 0; i < 6; i++) {
+                double scale = i == 0 ? Math.max(1.0, Math.abs(expected[0])) : Math.abs(expected[i]);
+                double allowed = (i <= 2 ? pairFactor : 1.0) * RelativisticFermiDirac.RELATIVE_ACCURACY;
+                double error = expected[i] == 0.0 ? Math.abs(got[i]) : Math.abs(got[i] - expected[i]) / scale;
+                worst = Math.max(worst, error / allowed);
+                if (!(error <= allowed)) {
+                    failures.add(String.join(",", c[0], c[1], c[2], c[3]) + " column " + i + ": got " + got[i]
+                            + ", expected " + expected[i] + " (" + error + ")");
+                }
+            }
+            rows++;
         }
         assertEquals(21, rows);
         assertTrue(failures.isEmpty(), failures.toString());
