@@ -24,8 +24,13 @@ doubles nearest the printed decimals, used exactly.
 
 Run: python3 generate_ideal_gases.py > ideal-gas-mpmath.csv
 """
+import os
 import sys
 import mpmath as mp
+
+# F_j(eta) by quadrature of its defining integral: the special/ tables' own second route, shared
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "special"))
+from generate_reference import fd_integral  # noqa: E402
 
 mp.mp.dps = 45
 DIGITS = 30
@@ -48,15 +53,6 @@ def bose_integral(s, z):
 
 def li(s, z):
     return agree(mp.re(mp.polylog(s, z)), bose_integral(s, z), "Li_%s(%s)" % (s, z))
-
-
-def fd_integral(j, eta):
-    """F_j(eta) for j > -1 by quadrature of the defining integral, split at the Fermi level."""
-    g = lambda t: 1 / (mp.exp(t - eta) + 1)
-    head = mp.quad(lambda u: g(u ** (1 / (j + 1))), [0, 1], maxdegree=10) / (j + 1)
-    f = lambda t: t ** j * g(t)
-    pts = [1] + ([eta - 2, eta, eta + 2] if eta > 3 else [3]) + [max(eta, 1) + 40, max(eta, 1) + 200, mp.inf]
-    return (head + mp.quad(f, pts, maxdegree=10)) / mp.gamma(j + 1)
 
 
 def fd_polylog(j, eta):
