@@ -25,15 +25,8 @@ public final class ClosedFormBlocks {
     public static List<BigInteger> einsteinSolid(int oscillators, int maxQuanta) {
         Inputs.atLeast("number of oscillators", oscillators, 1);
         Inputs.atLeast("largest number of quanta", maxQuanta, 0);
-        List<BigInteger> out = new ArrayList<>(maxQuanta + 1);
-        BigInteger c = BigInteger.ONE;
-        out.add(c);
-        for (int q = 1; q <= maxQuanta; q++) {
-            // C(q + N - 1, q) = C(q - 1 + N - 1, q - 1) (q + N - 1) / q, exact
-            c = c.multiply(BigInteger.valueOf((long) q + oscillators - 1)).divide(BigInteger.valueOf(q));
-            out.add(c);
-        }
-        return Collections.unmodifiableList(out);
+        // C(q + N - 1, q) = C(q - 1 + N - 1, q - 1) (q + N - 1) / q
+        return binomialRun(maxQuanta, q -> (long) q + oscillators - 1);
     }
 
     /**
@@ -45,12 +38,21 @@ public final class ClosedFormBlocks {
     public static List<BigInteger> twoState(int elements, int maxExcited) {
         Inputs.atLeast("number of two-state elements", elements, 1);
         Inputs.atLeast("largest number excited", maxExcited, 0);
-        List<BigInteger> out = new ArrayList<>(maxExcited + 1);
+        // C(N, k) = C(N, k - 1) (N - k + 1) / k; the factor 0 at k = N + 1 makes every later entry 0
+        return binomialRun(maxExcited, k -> elements - k + 1L);
+    }
+
+    /**
+     * c_0 = 1, c_k = c_{k-1} factor(k) / k for k = 1..max: the multiplicative recurrence of a row of
+     * binomial coefficients. Each division is exact because every c_k is a binomial coefficient
+     * (or 0 once a factor 0 has occurred), so the entries are exact integers.
+     */
+    private static List<BigInteger> binomialRun(int max, java.util.function.IntToLongFunction factor) {
+        List<BigInteger> out = new ArrayList<>(max + 1);
         BigInteger c = BigInteger.ONE;
         out.add(c);
-        for (int k = 1; k <= maxExcited; k++) {
-            c = k > elements ? BigInteger.ZERO
-                    : c.multiply(BigInteger.valueOf(elements - k + 1L)).divide(BigInteger.valueOf(k));
+        for (int k = 1; k <= max; k++) {
+            c = c.signum() == 0 ? c : c.multiply(BigInteger.valueOf(factor.applyAsLong(k))).divide(BigInteger.valueOf(k));
             out.add(c);
         }
         return Collections.unmodifiableList(out);

@@ -134,6 +134,7 @@ class SingleNumberCountsTest {
             assertEquals(Combinatorics.binomial(10, k), b.get(k));
         }
         assertEquals(BigInteger.ZERO, b.get(11));
+        assertEquals(BigInteger.ZERO, b.get(12));
     }
 
     @Test
