@@ -44,12 +44,8 @@ class NeutronStarTest {
     @Test
     void stepRefinement() {
         // common practice, no source: default tolerance against 3e-15, stated accuracy 1e-9
-        for (double xc : new double[] {0.1, 0.83, 3}) {
-            NeutronStar ref = NeutronStar.solve(xc, 1, 3e-15);
-            NeutronStar std = NeutronStar.solve(xc, 1, NeutronStar.TOLERANCE);
-            assertEquals(ref.mass(), std.mass(), NeutronStar.RELATIVE_ACCURACY * ref.mass(), "M at x_c = " + xc);
-            assertEquals(ref.radiusKm(), std.radiusKm(), NeutronStar.RELATIVE_ACCURACY * ref.radiusKm(), "R at x_c = " + xc);
-        }
+        StepRefinement.assertRefined((xc, tol) -> NeutronStar.solve(xc, 1, tol), NeutronStar.TOLERANCE,
+                NeutronStar.RELATIVE_ACCURACY, 0.1, 0.83, 3);
     }
 
     @Test

@@ -78,12 +78,8 @@ class WhiteDwarfTest {
     @Test
     void stepRefinement() {
         // common practice, no source: tolerance 1e-12 (default) against 3e-15; stated accuracy 1e-9
-        for (double xc : new double[] {1e-3, 0.3, 3, 30}) {
-            WhiteDwarf ref = WhiteDwarf.ofCentralRelativityParameter(xc, 2.0, 3e-15);
-            WhiteDwarf std = WhiteDwarf.ofCentralRelativityParameter(xc, 2.0, WhiteDwarf.TOLERANCE);
-            assertEquals(ref.mass(), std.mass(), WhiteDwarf.RELATIVE_ACCURACY * ref.mass(), "M at x_c = " + xc);
-            assertEquals(ref.radius(), std.radius(), WhiteDwarf.RELATIVE_ACCURACY * ref.radius(), "R at x_c = " + xc);
-        }
+        StepRefinement.assertRefined((xc, tol) -> WhiteDwarf.ofCentralRelativityParameter(xc, 2.0, tol),
+                WhiteDwarf.TOLERANCE, WhiteDwarf.RELATIVE_ACCURACY, 1e-3, 0.3, 3, 30);
     }
 
     @Test
