@@ -32,69 +32,82 @@ class BruteForceCrossCheckTest {
                 Double.POSITIVE_INFINITY, "");
     }
 
-    @Test
-    void countTablesAgreeWithEnumerationOnRandomSpectra() {
-        Random rnd = new Random(424242L);
-        int checked = 0;
-        for (int trial = 0; trial < 260; trial++) {
-            Spectrum s = randomSpectrum(rnd, false);
-            Statistics st = ALL[trial % ALL.length];
-            int maxN = rnd.nextInt(5);
-            int maxE = rnd.nextInt(9);
-            CountTable t = CountTable.of(s, st, maxN, maxE);
-            MicrostateEnumerator en = MicrostateEnumerator.of(s, st);
+    /** One random case: a spectrum, a statistics and the table bounds. */
+    record Case(Spectrum spectrum, Statistics statistics, int maxN, int maxE) {
+        /** Runs {@code check} on every cell (n, e) within the bounds, with the enumerator and its state levels at e. */
+        void forEachCell(CellCheck check) {
+            MicrostateEnumerator en = MicrostateEnumerator.of(spectrum, statistics);
             for (int n = 0; n <= maxN; n++) {
                 for (int e = 0; e <= maxE; e++) {
-                    int[] lv = en.stateLevels(e);
-                    Set<List<Integer>> seen = new HashSet<>();
-                    final int nn = n;
-                    final int ee = e;
-                    long c = en.microstates(n, e).peek(v -> {
-                        // each microstate really has n particles and energy e, and is distinct
-                        List<Integer> key = new ArrayList<>();
-                        for (int x : v) {
-                            key.add(x);
-                        }
-                        assertTrue(seen.add(key), "duplicate microstate");
-                        assertEquals(nn, st.indistinguishable() ? sum(v) : v.length);
-                        assertEquals(ee, energy(s, lv, v, st));
-                        if (st.indistinguishable()) {
-                            for (int x : v) {
-                                assertTrue(x >= 0 && x <= st.maxOccupancy());
-                            }
-                        }
-                    }).count();
-                    // Source: independent brute force (depth-first enumeration of occupation vectors / label assignments)
-                    assertEquals(BigInteger.valueOf(c), t.count(n, e), s + " " + st + " n=" + n + " e=" + e);
+                    check.check(en, n, e, en.stateLevels(e));
                 }
             }
-            checked++;
         }
-        assertEquals(260, checked);
+    }
+
+    /** A check of one cell of a case. */
+    interface CellCheck {
+        void check(MicrostateEnumerator en, int n, int e, int[] levelOf);
+    }
+
+    /** {@code trials} random cases, the statistics in turn, maxN below {@code nBound} and maxE below {@code eBound}. */
+    static List<Case> randomCases(long seed, int trials, boolean labelled, int nBound, int eBound) {
+        Random rnd = new Random(seed);
+        List<Case> cases = new ArrayList<>();
+        for (int trial = 0; trial < trials; trial++) {
+            Spectrum s = randomSpectrum(rnd, labelled);
+            Statistics st = ALL[trial % ALL.length];
+            int maxN = rnd.nextInt(nBound);
+            int maxE = rnd.nextInt(eBound);
+            cases.add(new Case(s, st, maxN, maxE));
+        }
+        return cases;
+    }
+
+    @Test
+    void countTablesAgreeWithEnumerationOnRandomSpectra() {
+        for (Case c : randomCases(424242L, 260, false, 5, 9)) {
+            Spectrum s = c.spectrum();
+            Statistics st = c.statistics();
+            CountTable t = CountTable.of(s, st, c.maxN(), c.maxE());
+            c.forEachCell((en, n, e, lv) -> {
+                Set<List<Integer>> seen = new HashSet<>();
+                long count = en.microstates(n, e).peek(v -> {
+                    // each microstate really has n particles and energy e, and is distinct
+                    List<Integer> key = new ArrayList<>();
+                    for (int x : v) {
+                        key.add(x);
+                    }
+                    assertTrue(seen.add(key), "duplicate microstate");
+                    assertEquals(n, st.indistinguishable() ? sum(v) : v.length);
+                    assertEquals(e, total(l -> (int) s.energy(l), lv, v, st));
+                    if (st.indistinguishable()) {
+                        for (int x : v) {
+                            assertTrue(x >= 0 && x <= st.maxOccupancy());
+                        }
+                    }
+                }).count();
+                // Source: independent brute force (depth-first enumeration of occupation vectors / label assignments)
+                assertEquals(BigInteger.valueOf(count), t.count(n, e), s + " " + st + " n=" + n + " e=" + e);
+            });
+        }
     }
 
     @Test
     void labelledTablesAgreeWithEnumerationOnRandomSpectra() {
-        Random rnd = new Random(99L);
-        for (int trial = 0; trial < 120; trial++) {
-            Spectrum s = randomSpectrum(rnd, true);
-            Statistics st = ALL[trial % ALL.length];
-            int maxN = rnd.nextInt(4);
-            int maxE = rnd.nextInt(7);
-            LabelledCountTable t = LabelledCountTable.of(s, st, maxN, maxE);
-            MicrostateEnumerator en = MicrostateEnumerator.of(s, st);
-            for (int n = 0; n <= maxN; n++) {
-                for (int e = 0; e <= maxE; e++) {
-                    int[] lv = en.stateLevels(e);
-                    Map<Integer, Long> byLabel = new HashMap<>();
-                    en.microstates(n, e).forEach(v -> byLabel.merge(label(s, lv, v, st), 1L, Long::sum));
-                    for (int lab = t.minLabelTotal() - 1; lab <= t.maxLabelTotal() + 1; lab++) {
-                        // Source: independent brute force, label total of each enumerated microstate
-                        assertEquals(BigInteger.valueOf(byLabel.getOrDefault(lab, 0L)), t.count(n, e, lab),
-                                s + " " + st + " n=" + n + " e=" + e + " L=" + lab);
-                    }
+        for (Case c : randomCases(99L, 120, true, 4, 7)) {
+            Spectrum s = c.spectrum();
+            Statistics st = c.statistics();
+            LabelledCountTable t = LabelledCountTable.of(s, st, c.maxN(), c.maxE());
+            c.forEachCell((en, n, e, lv) -> {
+                Map<Integer, Long> byLabel = new HashMap<>();
+                en.microstates(n, e).forEach(v -> byLabel.merge(total(s::label, lv, v, st), 1L, Long::sum));
+                for (int lab = t.minLabelTotal() - 1; lab <= t.maxLabelTotal() + 1; lab++) {
+                    // Source: independent brute force, label total of each enumerated microstate
+                    assertEquals(BigInteger.valueOf(byLabel.getOrDefault(lab, 0L)), t.count(n, e, lab),
+                            s + " " + st + " n=" + n + " e=" + e + " L=" + lab);
                 }
-            }
+            });
         }
     }
 
@@ -106,29 +119,19 @@ class BruteForceCrossCheckTest {
         return s;
     }
 
-    static int energy(Spectrum s, int[] levelOf, int[] v, Statistics st) {
-        int e = 0;
-        if (st.indistinguishable()) {
-            for (int i = 0; i < v.length; i++) {
-                e += v[i] * (int) s.energy(levelOf[i]);
-            }
-        } else {
-            for (int state : v) {
-                e += (int) s.energy(levelOf[state]);
-            }
-        }
-        return e;
-    }
-
-    static int label(Spectrum s, int[] levelOf, int[] v, Statistics st) {
+    /**
+     * sum over the particles of a microstate of ofLevel(level): occupation vectors (indistinguishable)
+     * weight each state's level by its occupation, label assignments (distinguishable) add one per particle.
+     */
+    static int total(java.util.function.IntUnaryOperator ofLevel, int[] levelOf, int[] v, Statistics st) {
         int m = 0;
         if (st.indistinguishable()) {
             for (int i = 0; i < v.length; i++) {
-                m += v[i] * s.label(levelOf[i]);
+                m += v[i] * ofLevel.applyAsInt(levelOf[i]);
             }
         } else {
             for (int state : v) {
-                m += s.label(levelOf[state]);
+                m += ofLevel.applyAsInt(levelOf[state]);
             }
         }
         return m;
