@@ -84,17 +84,7 @@ public final class ColdFermiGas implements Tabular {
         if (x < 0.5) {
             // 8 sum_j C(-1/2, j) x^(5+2j) / (5+2j)
             double x2 = x * x;
-            double term = 1.0;
-            double sum = 0.0;
-            for (int j = 0; j < 60; j++) {
-                double add = term / (5 + 2 * j);
-                sum += add;
-                if (Math.abs(add) < 1e-18 * Math.abs(sum)) {
-                    break;
-                }
-                term *= -(j + 0.5) / (j + 1) * x2;
-            }
-            return 8.0 * sum * x2 * x2 * x;
+            return 8.0 * binomialSeries(-0.5, 5, 0, x2) * x2 * x2 * x;
         }
         return x * (2 * x * x - 3) * Math.sqrt(1 + x * x) + 3 * org.apache.commons.math3.util.FastMath.asinh(x);
     }
@@ -104,20 +94,30 @@ public final class ColdFermiGas implements Tabular {
         if (x < 0.5) {
             // 24 sum_{j>=1} C(1/2, j) x^(3+2j) / (3+2j)
             double x2 = x * x;
-            double term = 0.5 * x2; // C(1/2,1) x^2
-            double sum = 0.0;
-            for (int j = 1; j < 60; j++) {
-                double add = term / (3 + 2 * j);
-                sum += add;
-                if (Math.abs(add) < 1e-18 * Math.abs(sum)) {
-                    break;
-                }
-                term *= (0.5 - j) / (j + 1) * x2;
-            }
-            return 24.0 * sum * x2 * x;
+            return 24.0 * binomialSeries(0.5, 3, 1, x2) * x2 * x;
         }
         double x3 = x * x * x;
         return 8 * x3 * x * x / (Math.sqrt(1 + x * x) + 1) - reducedPressure(x);
+    }
+
+    /**
+     * S = sum_{j &gt;= first} C(a, j) y^j / (b + 2j), first = 0 or 1, y = x^2: x^b S is
+     * int_0^x s^(b-1) ((1 + s^2)^a - first) ds, the binomial series integrated term by term. For
+     * |a| = 1/2 and x &lt; 0.5 (y &lt; 1/4) each term is below a quarter of the one before; summed until
+     * a term is below 1e-18 of the sum (at most 60 terms), so S is good to rounding.
+     */
+    private static double binomialSeries(double a, int b, int first, double y) {
+        double term = first == 0 ? 1.0 : a * y; // C(a, first) y^first
+        double sum = 0.0;
+        for (int j = first; j < 60; j++) {
+            double add = term / (b + 2 * j);
+            sum += add;
+            if (Math.abs(add) < 1e-18 * Math.abs(sum)) {
+                break;
+            }
+            term *= (a - j) / (j + 1) * y;
+        }
+        return sum;
     }
 
     /** The relativity parameter x = p_F / (m c). */
