@@ -82,19 +82,8 @@ final class LabelSeries {
     }
 
     private void cappedState(double lnY, int m, int cap, double eps) {
-        double[] w = new double[cap + 1];
-        if (lnY <= 0) {
-            double y = Math.exp(lnY);
-            w[0] = 1;
-            for (int j = 1; j <= cap; j++) {
-                w[j] = w[j - 1] * y;
-            }
-        } else {
-            double r = Math.exp(-lnY);
-            w[cap] = 1;
-            for (int j = cap - 1; j >= 0; j--) {
-                w[j] = w[j + 1] * r;
-            }
+        double[] w = ScaledSeries.cappedWeights(lnY, cap);
+        if (lnY > 0) {
             logScale += cap * lnY;
         }
         for (int k = n; k >= 0; k--) {

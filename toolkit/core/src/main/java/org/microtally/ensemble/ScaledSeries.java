@@ -372,9 +372,13 @@ final class ScaledSeries {
         }
     }
 
-    /** Multiplies by 1 + y t + ... + (y t)^k; weights taken as y^(j-k) when y &gt; 1. */
-    private void gentileStep(double lnY, int k, double eps) {
-        int top = (int) Math.min(n, (long) degree + k);
+    /**
+     * The powers y^j, j = 0..k, of one state's scaled Boltzmann factor y = e^{lnY} with occupation at
+     * most k, scaled so that the largest is 1: w_j = y^j when lnY &lt;= 0, else w_j = y^(j - k), the
+     * factor y^k = e^{k lnY} left for the caller to add to its logScale. Built by repeated
+     * multiplication from the entry 1, so no entry overflows; w_j carries about |j - j_max| roundings.
+     */
+    static double[] cappedWeights(double lnY, int k) {
         double[] w = new double[k + 1];
         if (lnY <= 0) {
             double y = Math.exp(lnY);
@@ -388,6 +392,15 @@ final class ScaledSeries {
             for (int j = k - 1; j >= 0; j--) {
                 w[j] = w[j + 1] * r;
             }
+        }
+        return w;
+    }
+
+    /** Multiplies by 1 + y t + ... + (y t)^k; weights taken as y^(j-k) when y &gt; 1. */
+    private void gentileStep(double lnY, int k, double eps) {
+        int top = (int) Math.min(n, (long) degree + k);
+        double[] w = cappedWeights(lnY, k);
+        if (lnY > 0) {
             logScale += k * lnY;
         }
         double[] je = new double[k + 1];

@@ -107,7 +107,25 @@ final class OneStateLaws {
     static double[] gentileMoments(int k, double x) {
         requireFinite(x);
         Inputs.atLeast("maximum occupancy k", k, 1);
-        boolean flip = x < 0;
+        double[] s = gentileSums(k, x);
+        double mean = s[1] / s[0];
+        double var = s[2] / s[0] - mean * mean;
+        if (var < 0) {
+            var = 0;
+        }
+        return new double[] {x < 0 ? k - mean : mean, var};
+    }
+
+    private static double gentileLogFactor(int k, double x) {
+        return Math.log(gentileSums(k, x)[0]) + (x < 0 ? -k * x : 0.0);
+    }
+
+    /**
+     * {s0, s1, s2} = sum_{m=0..k} m^p y^m for p = 0, 1, 2 with y = e^{-|x|} &lt;= 1 (the occupation law
+     * folded onto x &gt;= 0, m counting particles, or holes when x &lt; 0); terms below 1e-300 of s0
+     * are dropped, an error far below rounding.
+     */
+    private static double[] gentileSums(int k, double x) {
         double y = Math.exp(-Math.abs(x));
         double p = 1;
         double s0 = 1;
@@ -122,26 +140,7 @@ final class OneStateLaws {
             s1 += m * p;
             s2 += (double) m * m * p;
         }
-        double mean = s1 / s0;
-        double var = s2 / s0 - mean * mean;
-        if (var < 0) {
-            var = 0;
-        }
-        return new double[] {flip ? k - mean : mean, var};
-    }
-
-    private static double gentileLogFactor(int k, double x) {
-        double y = Math.exp(-Math.abs(x));
-        double p = 1;
-        double s0 = 1;
-        for (int m = 1; m <= k; m++) {
-            p *= y;
-            if (p < 1e-300 * s0 || p == 0) {
-                break;
-            }
-            s0 += p;
-        }
-        return Math.log(s0) + (x < 0 ? -k * x : 0.0);
+        return new double[] {s0, s1, s2};
     }
 
     private static void requireFinite(double x) {
