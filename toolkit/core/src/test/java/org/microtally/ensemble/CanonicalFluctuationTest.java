@@ -3,17 +3,14 @@ package org.microtally.ensemble;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
-import java.nio.charset.StandardCharsets;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.microtally.MeasuredAccuracy;
 import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
@@ -52,16 +49,9 @@ class CanonicalFluctuationTest {
     }
 
     static Stream<Arguments> mpmathTable() throws IOException {
-        List<Arguments> rows = new ArrayList<>();
-        try (BufferedReader r = new BufferedReader(new InputStreamReader(
-                CanonicalFluctuationTest.class.getResourceAsStream("/ensemble/canonical_moments_mpmath.csv"),
-                StandardCharsets.UTF_8))) {
-            r.readLine();
-            for (String line = r.readLine(); line != null; line = r.readLine()) {
-                rows.add(Arguments.of((Object[]) line.split(",")));
-            }
-        }
-        return rows.stream();
+        // the first row holds the column names
+        return MeasuredAccuracy.rows(CanonicalFluctuationTest.class, "/ensemble/canonical_moments_mpmath.csv").stream()
+                .skip(1).map(f -> Arguments.of((Object[]) f));
     }
 
     @ParameterizedTest

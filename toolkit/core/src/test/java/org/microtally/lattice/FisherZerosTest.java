@@ -4,30 +4,19 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.BufferedReader;
-import java.io.InputStreamReader;
 import java.math.BigDecimal;
-import java.nio.charset.StandardCharsets;
-import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
+import org.microtally.MeasuredAccuracy;
 import org.microtally.ProgressListener;
 import org.microtally.ensemble.ExactDensityOfStates;
 
 class FisherZerosTest {
     @Test
     void zerosOfTheFourByFourTorusMatchMpmath() throws Exception {
-        List<BigDecimal[]> reference = new ArrayList<>();
-        try (BufferedReader r = new BufferedReader(new InputStreamReader(
-                FisherZerosTest.class.getResourceAsStream("fisher_zeros_4x4.csv"), StandardCharsets.US_ASCII))) {
-            for (String line = r.readLine(); line != null; line = r.readLine()) {
-                if (!line.startsWith("#")) {
-                    String[] p = line.split(",");
-                    reference.add(new BigDecimal[] {new BigDecimal(p[0]), new BigDecimal(p[1])});
-                }
-            }
-        }
+        List<BigDecimal[]> reference = MeasuredAccuracy.rows(FisherZerosTest.class, "fisher_zeros_4x4.csv").stream()
+                .map(p -> new BigDecimal[] {new BigDecimal(p[0]), new BigDecimal(p[1])}).toList();
         FisherZeros zeros = FisherZeros.of(Kaufman.densityOfStates(4, 4, ProgressListener.NONE), 2, 30);
         assertEquals(32, zeros.zeros().size());
         // Source: mpmath 1.2.1 polyroots at 60 digits (fisher_zeros_4x4.py beside the table); every reference

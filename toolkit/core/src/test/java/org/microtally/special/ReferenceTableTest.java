@@ -3,19 +3,15 @@ package org.microtally.special;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.math.BigDecimal;
-import java.nio.charset.StandardCharsets;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.microtally.MeasuredAccuracy;
 
 /**
  * Every row of the committed 30-digit reference table against our double routines.
@@ -30,19 +26,8 @@ class ReferenceTableTest {
     record Row(String function, String a, String b, BigDecimal value) { }
 
     static List<Row> rows() throws IOException {
-        List<Row> rows = new ArrayList<>();
-        try (InputStream in = ReferenceTableTest.class.getResourceAsStream("/special/reference-mpmath.csv");
-             BufferedReader r = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
-            String line;
-            while ((line = r.readLine()) != null) {
-                if (line.isBlank() || line.startsWith("#")) {
-                    continue;
-                }
-                String[] f = line.split(",", -1);
-                rows.add(new Row(f[0], f[1], f[2], new BigDecimal(f[3])));
-            }
-        }
-        return rows;
+        return MeasuredAccuracy.rows(ReferenceTableTest.class, "/special/reference-mpmath.csv").stream()
+                .map(f -> new Row(f[0], f[1], f[2], new BigDecimal(f[3]))).toList();
     }
 
     static Stream<Arguments> table() throws IOException {

@@ -3,17 +3,14 @@ package org.microtally.special;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.math.BigDecimal;
-import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import org.apache.commons.math3.special.Gamma;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
+import org.microtally.MeasuredAccuracy;
 
 /**
  * RelativisticFermiDirac against the committed 20-digit mpmath table and against closed forms.
@@ -26,20 +23,9 @@ class RelativisticFermiDiracTest {
     record Row(String quantity, double k, double eta, double beta, BigDecimal value) { }
 
     static List<Row> table() throws IOException {
-        List<Row> rows = new ArrayList<>();
-        try (InputStream in = RelativisticFermiDiracTest.class.getResourceAsStream("/special/relativistic-fd-mpmath.csv");
-             BufferedReader r = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
-            String line;
-            while ((line = r.readLine()) != null) {
-                if (line.isBlank() || line.startsWith("#")) {
-                    continue;
-                }
-                String[] c = line.split(",");
-                rows.add(new Row(c[0], Double.parseDouble(c[1]), Double.parseDouble(c[2]), Double.parseDouble(c[3]),
-                        new BigDecimal(c[4])));
-            }
-        }
-        return rows;
+        return MeasuredAccuracy.rows(RelativisticFermiDiracTest.class, "/special/relativistic-fd-mpmath.csv").stream()
+                .map(c -> new Row(c[0], Double.parseDouble(c[1]), Double.parseDouble(c[2]), Double.parseDouble(c[3]),
+                        new BigDecimal(c[4]))).toList();
     }
 
     @Test
