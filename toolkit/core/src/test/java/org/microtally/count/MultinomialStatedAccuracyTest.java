@@ -1,10 +1,8 @@
 package org.microtally.count;
 
-import java.math.BigInteger;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.microtally.MeasuredAccuracy;
-import org.microtally.exact.ExactLog;
 
 /** {@link Multinomial#MAX_ERROR} is a bound; this measures the worst error on exact and closed-form references. */
 class MultinomialStatedAccuracyTest {
@@ -19,22 +17,10 @@ class MultinomialStatedAccuracyTest {
         double worst = 0;
         int points = 0;
         for (int trial = 0; trial < 300; trial++) {
-            int m = 1 + rnd.nextInt(6);
-            int[] occ = new int[m];
-            double[] d = new double[m];
-            int n = 0;
-            for (int i = 0; i < m; i++) {
-                occ[i] = rnd.nextInt(trial < 150 ? 25 : 800);
-                d[i] = occ[i];
-                n += occ[i];
-            }
-            BigInteger c = Multinomial.count(occ);
-            // Source: the exact BigInteger multinomial coefficient, ln from the exact integer (ExactLog, 2 ulp)
-            worst = Math.max(worst, error(Multinomial.lnCount(d), ExactLog.ln(c)));
-            // ln P = ln(C 2^k / M^N) - k ln 2 with the ratio formed exactly, k making it ~100 bits
-            BigInteger den = BigInteger.valueOf(m).pow(n);
-            int k = Math.max(0, den.bitLength() - c.bitLength() + 100);
-            worst = Math.max(worst, error(Multinomial.lnProbability(d), ExactLog.ln(c.shiftLeft(k).divide(den)) - k * Math.log(2)));
+            MultinomialCase c = MultinomialCase.random(rnd, trial < 150 ? 25 : 800);
+            // Source: the exact references of MultinomialCase (exact BigInteger coefficient, ln by ExactLog, 2 ulp)
+            worst = Math.max(worst, error(Multinomial.lnCount(c.asDoubles()), c.exactLnCount()));
+            worst = Math.max(worst, error(Multinomial.lnProbability(c.asDoubles()), c.exactLnProbability()));
             points += 2;
         }
         for (double n : new double[] {6e12, 3 * Math.scalb(1.0, 60), 3 * Math.scalb(1.0, 89)}) {

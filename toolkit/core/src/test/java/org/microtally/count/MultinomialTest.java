@@ -11,7 +11,6 @@ import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.special.Gamma;
 import org.junit.jupiter.api.Test;
 import org.microtally.InvalidInputException;
-import org.microtally.exact.ExactLog;
 
 class MultinomialTest {
 
@@ -75,23 +74,14 @@ class MultinomialTest {
     void logarithmsMatchExactValuesToTwelveDigits() {
         Random rnd = new Random(31L);
         for (int trial = 0; trial < 200; trial++) {
-            int m = 1 + rnd.nextInt(6);
-            int[] occ = new int[m];
-            double[] d = new double[m];
-            int n = 0;
-            for (int i = 0; i < m; i++) {
-                occ[i] = rnd.nextInt(trial < 100 ? 25 : 800);
-                d[i] = occ[i];
-                n += occ[i];
-            }
-            BigInteger c = Multinomial.count(occ);
-            // Source: exact BigInteger multinomial coefficient, logarithm from the exact integer
-            double exactLnC = ExactLog.ln(c);
+            MultinomialCase c = MultinomialCase.random(rnd, trial < 100 ? 25 : 800);
+            int[] occ = c.occupations();
+            double[] d = c.asDoubles();
+            int n = c.particles();
+            // Source: the exact references of MultinomialCase (exact BigInteger coefficient, ln from the exact integer)
+            double exactLnC = c.exactLnCount();
             assertEquals(exactLnC, Multinomial.lnCount(d), 1e-12 * Math.max(1, Math.abs(exactLnC)));
-            // ln P = ln(C 2^k / M^N) - k ln 2 with the ratio formed exactly, k making it ~100 bits
-            BigInteger den = BigInteger.valueOf(m).pow(n);
-            int k = Math.max(0, den.bitLength() - c.bitLength() + 100);
-            double exactLnP = ExactLog.ln(c.shiftLeft(k).divide(den)) - k * Math.log(2);
+            double exactLnP = c.exactLnProbability();
             assertEquals(exactLnP, Multinomial.lnProbability(d), 1e-12 * Math.max(1, Math.abs(exactLnP)),
                     java.util.Arrays.toString(occ));
             if (n < 2000) {
