@@ -28,19 +28,13 @@ import os
 import sys
 import mpmath as mp
 
-# F_j(eta) by quadrature of its defining integral: the special/ tables' own second route, shared
+# shared with the special/ tables: F_j(eta) by quadrature of its defining integral (their own second
+# route), the check that two routes agree to 20 digits, and a printed argument read as its exact double
 sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "special"))
-from generate_reference import fd_integral  # noqa: E402
+from generate_reference import agree, exact, fd_integral  # noqa: E402
 
 mp.mp.dps = 45
 DIGITS = 30
-
-
-def agree(a, b, what):
-    scale = max(abs(a), abs(b))
-    if scale != 0 and abs(a - b) > mp.mpf(10) ** -20 * scale:
-        raise SystemExit("independent routes disagree for %s: %s vs %s" % (what, a, b))
-    return a
 
 
 def bose_integral(s, z):
@@ -68,7 +62,7 @@ def fd(j, eta):
 
 def bose_rows(alpha, t, out):
     a = mp.mpf(alpha)
-    t = mp.mpf(float(t))
+    t = exact(t)
     if t <= 1:
         z = mp.mpf(1)
         u = a * t ** a * mp.zeta(a + 1) / mp.zeta(a)
@@ -88,7 +82,7 @@ def bose_rows(alpha, t, out):
 
 def fermi_rows(alpha, t, out):
     a = mp.mpf(alpha)
-    t = mp.mpf(float(t))
+    t = exact(t)
     j = a - 1
     y = t ** -a / mp.gamma(a + 1)
     start = max(1 / t, mp.mpf(1)) if y > 1 else mp.log(y)
@@ -101,7 +95,7 @@ def fermi_rows(alpha, t, out):
 
 
 def maxwell_row(x, out):
-    x = mp.mpf(float(x))
+    x = exact(x)
     closed = mp.erf(x) - 2 / mp.sqrt(mp.pi) * x * mp.exp(-x * x)
     value = agree(closed, mp.gammainc(mp.mpf(1.5), 0, x * x, regularized=True), "Maxwell cdf at %s" % x)
     out.write("maxwell,,%r,cdf,%s\n" % (float(x), mp.nstr(value, DIGITS, strip_zeros=False)))

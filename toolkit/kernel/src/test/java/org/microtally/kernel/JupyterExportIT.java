@@ -18,7 +18,6 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -53,11 +52,8 @@ class JupyterExportIT {
     void everyChartOfEveryNotebookSurvivesJupytersHtmlExport() throws Exception {
         if (!nbconvertPresent()) {
             String msg = "\n*** JupyterExportIT SKIPPED: jupyter nbconvert not found (Debian: jupyter-nbconvert) ***";
-            System.err.println(msg);
-            if ("true".equalsIgnoreCase(System.getenv("CI"))) {
-                fail("CI=true but jupyter nbconvert is missing: the export test must run in CI." + msg);
-            }
-            Assumptions.abort("jupyter nbconvert is not installed");
+            ExternalTools.skipOrFailInCi(msg, "CI=true but jupyter nbconvert is missing: the export test must run in CI.",
+                    "jupyter nbconvert is not installed");
         }
         assertTrue(Files.isRegularFile(JAR), "shaded jar missing: " + JAR);
         List<Path> notebooks;
@@ -68,7 +64,7 @@ class JupyterExportIT {
         Path executedDir = WORK.resolve("export-executed");
         Path htmlDir = WORK.resolve("export-html");
         Files.createDirectories(htmlDir);
-        List<String> cmd = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
+        List<String> cmd = new ArrayList<>(List.of(ExternalTools.javaExe(),
                 "-Xmx1g", "-XX:+UseSerialGC", "-jar", JAR.toString(), "run"));
         notebooks.forEach(p -> cmd.add(p.toString()));
         cmd.addAll(List.of("--out", executedDir.toString()));

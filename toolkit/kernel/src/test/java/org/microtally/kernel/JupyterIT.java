@@ -18,7 +18,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
@@ -94,16 +93,13 @@ class JupyterIT {
                     + "* Install Debian's jupyter-nbconvert jupyter-client python3-ipykernel *\n"
                     + "* (.ci/run does) to run the real-Jupyter kernel tests.                *\n"
                     + "**********************************************************************";
-            System.err.println(msg);
-            if ("true".equalsIgnoreCase(System.getenv("CI"))) {
-                fail("CI=true but Jupyter is missing: the real-Jupyter kernel tests must run in CI." + msg);
-            }
-            Assumptions.abort("Jupyter is not installed");
+            ExternalTools.skipOrFailInCi(msg, "CI=true but Jupyter is missing: the real-Jupyter kernel tests must run in CI.",
+                    "Jupyter is not installed");
         }
         assertTrue(Files.isRegularFile(JAR), "shaded jar missing: " + JAR);
         Files.createDirectories(WORK);
         prefix = WORK.resolve("prefix");
-        Ran r = exec(List.of(javaExe(), "-jar", JAR.toString(), "install-kernel", "--prefix", prefix.toString()), Map.of(), 120);
+        Ran r = exec(List.of(ExternalTools.javaExe(), "-jar", JAR.toString(), "install-kernel", "--prefix", prefix.toString()), Map.of(), 120);
         assertEquals(0, r.exit(), r.output());
         Path spec = prefix.resolve("share/jupyter/kernels/microtally/kernel.json");
         assertTrue(Files.isRegularFile(spec), "install-kernel did not write " + spec + ":\n" + r.output());
@@ -113,10 +109,6 @@ class JupyterIT {
         assertTrue(json.getAsJsonArray("argv").toString().contains("{connection_file}"));
         Ran list = exec(List.of("jupyter", "kernelspec", "list"), jupyterEnv(), 60);
         assertTrue(list.output().contains("microtally"), "jupyter does not see the kernelspec:\n" + list.output());
-    }
-
-    private static String javaExe() {
-        return Path.of(System.getProperty("java.home"), "bin", "java").toString();
     }
 
     /** Runs nbconvert --execute on one notebook; returns the executed notebook. */

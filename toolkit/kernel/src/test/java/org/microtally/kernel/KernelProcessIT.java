@@ -36,7 +36,7 @@ class KernelProcessIT {
                 + "\"key\":\"orphan-test-key\",\"shell_port\":" + freePort() + ",\"iopub_port\":" + freePort()
                 + ",\"stdin_port\":" + freePort() + ",\"control_port\":" + freePort() + ",\"hb_port\":" + freePort() + "}");
         Path stderr = dir.resolve("kernel.stderr");
-        String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        String java = ExternalTools.javaExe();
         // The shell is the kernel's parent: it starts the kernel in the background, prints its pid,
         // waits 4 s and exits, orphaning the kernel.
         String script = "'" + java + "' -Xmx256m -XX:+UseSerialGC -jar '" + JAR + "' kernel '" + conn + "' 2>'" + stderr

@@ -25,7 +25,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -100,15 +99,7 @@ class LiveBrowserIT {
                 + "* LiveBrowserIT SKIPPED: " + why + "\n"
                 + "* Install them (.ci/run does) to run the live-browser notebook test.   *\n"
                 + "**********************************************************************";
-        System.err.println(msg);
-        if ("true".equalsIgnoreCase(System.getenv("CI"))) {
-            fail("CI=true but the live-browser test cannot run: " + why + msg);
-        }
-        Assumptions.abort(why);
-    }
-
-    private static String javaExe() {
-        return Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        ExternalTools.skipOrFailInCi(msg, "CI=true but the live-browser test cannot run: " + why, why);
     }
 
     private static int freePort() throws IOException {
@@ -142,7 +133,7 @@ class LiveBrowserIT {
 
         // our kernelspec in a temporary prefix, seen by Jupyter through JUPYTER_PATH only
         Path prefix = WORK.resolve("prefix");
-        JupyterIT.Ran install = JupyterIT.exec(List.of(javaExe(), "-jar", JAR.toString(), "install-kernel", "--prefix",
+        JupyterIT.Ran install = JupyterIT.exec(List.of(ExternalTools.javaExe(), "-jar", JAR.toString(), "install-kernel", "--prefix",
                 prefix.toString()), Map.of(), 120);
         assertEquals(0, install.exit(), install.output());
 

@@ -6,6 +6,7 @@ import java.util.AbstractList;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import java.util.function.Function;
 import org.apache.commons.math3.fraction.BigFraction;
 import org.apache.commons.math3.fraction.Fraction;
 import org.microtally.InvalidInputException;
@@ -220,54 +221,14 @@ public final class Tables {
             kind = Kind.STRING;
         }
         switch (kind) {
-            case INT: {
-                IntColumn col = IntColumn.create(name);
-                for (List<Object> row : rows) {
-                    Object v = row.get(c);
-                    if (CellText.isMissing(v)) {
-                        col.appendMissing();
-                    } else {
-                        col.append(((Number) v).intValue());
-                    }
-                }
-                return col;
-            }
-            case LONG: {
-                LongColumn col = LongColumn.create(name);
-                for (List<Object> row : rows) {
-                    Object v = row.get(c);
-                    if (CellText.isMissing(v)) {
-                        col.appendMissing();
-                    } else {
-                        col.append(((Number) v).longValue());
-                    }
-                }
-                return col;
-            }
-            case DOUBLE: {
-                DoubleColumn col = DoubleColumn.create(name);
-                for (List<Object> row : rows) {
-                    Object v = row.get(c);
-                    if (CellText.isMissing(v)) {
-                        col.appendMissing();
-                    } else {
-                        col.append(((Number) v).doubleValue());
-                    }
-                }
-                return col;
-            }
-            case BOOLEAN: {
-                BooleanColumn col = BooleanColumn.create(name);
-                for (List<Object> row : rows) {
-                    Object v = row.get(c);
-                    if (CellText.isMissing(v)) {
-                        col.appendMissing();
-                    } else {
-                        col.append((Boolean) v);
-                    }
-                }
-                return col;
-            }
+            case INT:
+                return filled(IntColumn.create(name), rows, c, v -> ((Number) v).intValue());
+            case LONG:
+                return filled(LongColumn.create(name), rows, c, v -> ((Number) v).longValue());
+            case DOUBLE:
+                return filled(DoubleColumn.create(name), rows, c, v -> ((Number) v).doubleValue());
+            case BOOLEAN:
+                return filled(BooleanColumn.create(name), rows, c, v -> (Boolean) v);
             default: {
                 String[] text = new String[rows.size()];
                 for (int r = 0; r < text.length; r++) {
@@ -277,6 +238,19 @@ public final class Tables {
                 return StringColumn.create(name, text);
             }
         }
+    }
+
+    /** Appends column {@code c} of every row to {@code col}: missing cells as missing, others through {@code value}. */
+    private static <T> Column<T> filled(Column<T> col, List<List<Object>> rows, int c, Function<Object, T> value) {
+        for (List<Object> row : rows) {
+            Object v = row.get(c);
+            if (CellText.isMissing(v)) {
+                col.appendMissing();
+            } else {
+                col.append(value.apply(v));
+            }
+        }
+        return col;
     }
 
     private static Kind join(Kind a, Kind b) {

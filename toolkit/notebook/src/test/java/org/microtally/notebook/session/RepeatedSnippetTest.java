@@ -6,8 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import java.util.concurrent.TimeUnit;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 
@@ -18,25 +16,9 @@ import org.junit.jupiter.api.Timeout;
  * between (which forces a fresh compile) must give the same values, errors and interrupts.
  */
 @Timeout(value = 90, unit = TimeUnit.SECONDS)
-class RepeatedSnippetTest {
-    static Session session;
-
-    @BeforeAll
-    static void open() {
-        session = Session.open();
-    }
-
-    @AfterAll
-    static void close() {
-        session.close();
-    }
-
-    static CellResult run(String code) {
-        return session.run(code, new Collector());
-    }
-
+class RepeatedSnippetTest extends SessionPerClass {
     /** Makes the next cell compile afresh: a change of JShell's state in between. */
-    static void change() {
+    void change() {
         assertTrue(run("int unrelatedChange = 0;").ok());
     }
 

@@ -8,30 +8,13 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.math.BigInteger;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.microtally.notebook.render.MimeBundle;
 
 /** The engine on one shared session (cells that break nothing only). */
 @Timeout(value = 60, unit = TimeUnit.SECONDS)
-class SessionTest {
-    static Session session;
-
-    @BeforeAll
-    static void open() {
-        session = Session.open();
-    }
-
-    @AfterAll
-    static void close() {
-        session.close();
-    }
-
-    static CellResult run(String code) {
-        return session.run(code, new Collector());
-    }
+class SessionTest extends SessionPerClass {
 
     @Test
     void lastExpressionValueIsTheRealObject() {
@@ -272,7 +255,7 @@ class SessionTest {
         assertEquals("alive", run("\"alive\"").raw().orElseThrow());
     }
 
-    private static void assertInterrupted(String code) throws Exception {
+    private void assertInterrupted(String code) throws Exception {
         Thread stopper = DelayedInterrupt.after(session, 400);
         long t0 = System.nanoTime();
         CellResult r = run(code);

@@ -6,9 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import java.util.concurrent.TimeUnit;
-import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.Test;
-import org.junit.jupiter.api.TestInstance;
 import org.junit.jupiter.api.Timeout;
 
 /**
@@ -16,18 +14,7 @@ import org.junit.jupiter.api.Timeout;
  * (value, errors with their lines, no code run twice, interrupt) as when JShell evaluates it as written.
  */
 @Timeout(value = 90, unit = TimeUnit.SECONDS)
-@TestInstance(TestInstance.Lifecycle.PER_CLASS)
-class ValueExpressionTest {
-    private final Session session = Session.open();
-
-    @AfterAll
-    void closeSession() {
-        session.close();
-    }
-
-    private CellResult run(String code) {
-        return session.run(code, new Collector());
-    }
+class ValueExpressionTest extends SessionPerClass {
 
     @Test
     void onlyCertainNonVoidExpressionsTakeTheRoute() {
