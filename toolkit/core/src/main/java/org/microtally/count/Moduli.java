@@ -141,6 +141,10 @@ final class Moduli {
      * the block size.
      */
     static final class Crt {
+        /** Stores a long into a byte array as eight big-endian bytes. */
+        private static final java.lang.invoke.VarHandle BIG_ENDIAN_LONGS =
+                java.lang.invoke.MethodHandles.byteArrayViewVarHandle(long[].class, java.nio.ByteOrder.BIG_ENDIAN);
+
         /** Entries rebuilt per block; the block's digits (8 k BLOCK bytes) stay in the first-level cache. */
         static final int BLOCK = 256;
 
@@ -358,11 +362,7 @@ final class Moduli {
             }
             byte[] b = bytes;
             for (int l = 0; l < len; l++) {
-                long limb = m[l];
-                int at = 8 * (len - 1 - l);
-                for (int s = 0; s < 8; s++) {
-                    b[at + s] = (byte) (limb >>> (56 - 8 * s));
-                }
+                BIG_ENDIAN_LONGS.set(b, 8 * (len - 1 - l), m[l]);
             }
             return new BigInteger(1, b, 0, 8 * len);
         }
