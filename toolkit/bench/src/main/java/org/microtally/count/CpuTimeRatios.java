@@ -17,7 +17,9 @@ import org.microtally.spectrum.Statistics;
  * The same cases as the JMH benchmarks, timed by the CPU time of the measuring thread
  * ({@link ThreadMXBean#getCurrentThreadCpuTime}) instead of wall time, for a shared machine where
  * other processes take most of the wall clock: median of seven rounds after warm-up, on one thread
- * (the common fork-join pool gets parallelism 0, so the per-prime tasks run on the caller). Prints
+ * (the common fork-join pool gets parallelism 0, so the per-prime tasks run on the caller); the count
+ * table stages are timed interleaved, round by round, and reported as median and range (see
+ * {@code countTables}). Prints
  * each figure with its ratio to a baseline measured in the same run. Run:
  * {@code java -cp toolkit/bench/target/benchmarks.jar org.microtally.count.CpuTimeRatios}.
  */
@@ -57,38 +59,107 @@ public final class CpuTimeRatios {
         System.out.println(sink == 42 ? "" : "done");
     }
 
+    /**
+     * The stages of one exact table (3D oscillator, bosons, one thread), timed in steady state on this
+     * thread: every round times each stage once, in turn, so load changes hit all stages alike, and the
+     * shares are taken round by round against the build plus full read of the same round. The first
+     * rounds (at least {@link #WARM_UP_CPU_NANOS} of CPU time) only warm the JIT and the heap. The CRT
+     * stage rebuilds every entry from the table's own residues with one {@code Moduli.Crt}, as the rows
+     * of a read table are rebuilt.
+     */
     private static void countTables() {
+        System.out.println("load average before the count tables: " + loadAverage());
         for (int[] size : new int[][] {{40, 200}, {100, 600}}) {
             int n = size[0];
             int e = size[1];
             Spectrum s = Spectra.harmonicOscillator(3, e);
             int[] en = s.integerEnergies();
             int[] g = s.degeneracies();
+            int entries = (n + 1) * (e + 1);
             int calls = n == 40 ? 5 : 1;
-            double whole = cpuNanos(() -> CountTable.of(s, Statistics.BOSE, n, e).primesUsed(), calls);
-            double bound = cpuNanos(() -> CountBound.log2Bound(en, g, Statistics.BOSE, n, e), calls);
-            CountTable t = CountTable.of(s, Statistics.BOSE, n, e);
-            long[] primes = Moduli.tablePrimes(t.primesUsed());
-            long[][] res = new long[primes.length][(n + 1) * (e + 1)];
-            for (int i = 0; i < primes.length; i++) {
-                BigInteger bp = BigInteger.valueOf(primes[i]);
-                for (int m = 0; m <= n; m++) {
-                    for (int q = 0; q <= e; q++) {
-                        res[i][m * (e + 1) + q] = t.count(m, q).mod(bp).longValue();
+            long[] primes = Moduli.tablePrimes(CountTable.of(s, Statistics.BOSE, n, e).primesUsed());
+            long[][] res = CountEngine.multiModularResidues(en, g, Statistics.BOSE, n, e, primes,
+                    org.microtally.ProgressListener.NONE);
+            Moduli.Crt crt = new Moduli.Crt(primes);
+            DoubleSupplier[] stages = {
+                () -> CountBound.log2Bound(en, g, Statistics.BOSE, n, e),
+                () -> CountTable.of(s, Statistics.BOSE, n, e).primesUsed(),
+                () -> {
+                    CountTable t = CountTable.of(s, Statistics.BOSE, n, e);
+                    double bits = 0;
+                    for (int m = 0; m <= n; m++) {
+                        for (int q = 0; q <= e; q++) {
+                            bits += t.count(m, q).bitLength();
+                        }
                     }
+                    return bits;
+                },
+                () -> {
+                    double bits = 0;
+                    for (BigInteger v : crt.reconstructAll(res)) {
+                        bits += v.bitLength();
+                    }
+                    return bits;
+                },
+            };
+            double[][] r = interleaved(stages, calls, 15);
+            double[] bound = r[0];
+            double[] build = r[1];
+            double[] buildRead = r[2];
+            double[] crtTime = r[3];
+            double[] crtShare = new double[crtTime.length];
+            double[] boundShare = new double[crtTime.length];
+            for (int i = 0; i < crtTime.length; i++) {
+                crtShare[i] = 100 * crtTime[i] / buildRead[i];
+                boundShare[i] = 100 * bound[i] / buildRead[i];
+            }
+            System.out.printf("count table %dx%d Bose, one thread, %d primes, %d entries, median [min-max] of %d "
+                    + "rounds: build %s ms, build + full read %s ms (%s ns per entry); CRT %s ns per entry; "
+                    + "share of build + full read: CRT %s%%, bound %s%% (bound %s ms)%n",
+                    n, e, primes.length, entries, crtTime.length, range(build, 1e-6), range(buildRead, 1e-6),
+                    range(buildRead, 1.0 / entries), range(crtTime, 1.0 / entries), range(crtShare, 1),
+                    range(boundShare, 1), range(bound, 1e-6));
+        }
+        System.out.println("load average after the count tables: " + loadAverage());
+    }
+
+    /** CPU time spent warming up {@link #interleaved} before any round is counted. */
+    private static final long WARM_UP_CPU_NANOS = 2_000_000_000L;
+
+    /**
+     * CPU nanoseconds per call of each stage in each of {@code rounds} counted rounds ({@code [stage][round]});
+     * a round runs {@code calls} calls of every stage in turn. Warm-up rounds run first until
+     * {@link #WARM_UP_CPU_NANOS} have passed and at least five rounds were made.
+     */
+    static double[][] interleaved(DoubleSupplier[] stages, int calls, int rounds) {
+        long warmStart = CPU.getCurrentThreadCpuTime();
+        for (int round = 0; round < 5 || CPU.getCurrentThreadCpuTime() - warmStart < WARM_UP_CPU_NANOS; round++) {
+            for (DoubleSupplier f : stages) {
+                for (int i = 0; i < calls; i++) {
+                    sink += f.getAsDouble();
                 }
             }
-            double crt = cpuNanos(() -> {
-                double bits = 0;
-                for (BigInteger v : new Moduli.Crt(primes).reconstructAll(res)) {
-                    bits += v.bitLength();
-                }
-                return bits;
-            }, calls);
-            System.out.printf("count table %dx%d Bose, one thread, %d primes: %.1f ms CPU; bound %.2f ms (%.1f%%), "
-                    + "CRT %.2f ms (%.1f%%)%n", n, e, primes.length, whole / 1e6, bound / 1e6, 100 * bound / whole,
-                    crt / 1e6, 100 * crt / whole);
         }
+        double[][] out = new double[stages.length][rounds];
+        for (int round = 0; round < rounds; round++) {
+            for (int st = 0; st < stages.length; st++) {
+                long t0 = CPU.getCurrentThreadCpuTime();
+                double acc = 0;
+                for (int i = 0; i < calls; i++) {
+                    acc += stages[st].getAsDouble();
+                }
+                out[st][round] = (CPU.getCurrentThreadCpuTime() - t0) / (double) calls;
+                sink += acc;
+            }
+        }
+        return out;
+    }
+
+    /** "median [min-max]" of the values times {@code scale}, to three significant digits. */
+    private static String range(double[] values, double scale) {
+        double[] v = values.clone();
+        Arrays.sort(v);
+        return String.format("%.3g [%.3g-%.3g]", v[v.length / 2] * scale, v[0] * scale, v[v.length - 1] * scale);
     }
 
     private static void modularLoop() {

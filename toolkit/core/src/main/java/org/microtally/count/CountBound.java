@@ -16,7 +16,8 @@ import org.microtally.exact.ExactLog;
  * e &lt;= E, and is a polynomial, so any x0, q0 is allowed), and bound every n &lt;= N, e &lt;= E at once
  * by ln G - N min(ln x0, 0) - E min(ln q0, 0). That function of (ln x0, ln q0) is convex, and we
  * minimise it by a projected Newton iteration with backtracking (J. Nocedal, S. J. Wright, Numerical
- * Optimization, 2nd ed., Springer 2006, Ch. 3 and 16.7), in about 25 evaluations (23 at N = 40, E = 200); every
+ * Optimization, 2nd ed., Springer 2006, Ch. 3 and 16.7), in about 25 evaluations (23 at N = 40, E = 200; each
+ * costs about two products per term, see {@code Saddle}); every
  * evaluated point is itself a valid bound and the smallest is kept, so the search quality affects
  * only tightness, never validity. For
  * distinguishable particles the bound is Z1(q0)^n / q0^e &lt;= max(1, Z1(q0)^N) / min(1, q0)^E.
@@ -40,10 +41,13 @@ final class CountBound {
         double best;
         if (stats.indistinguishable()) {
             double[][] lnc = new double[levels][];
+            double[][] rho = new double[levels][];
             for (int l = 0; l < levels; l++) {
-                lnc[l] = lnCoefficients(stats, deg[l], CountEngine.maxJ(energy[l], maxN, maxE));
+                int maxJ = CountEngine.maxJ(energy[l], maxN, maxE);
+                lnc[l] = lnCoefficients(stats, deg[l], maxJ);
+                rho[l] = ratios(stats, deg[l], lnc[l]);
             }
-            best = newton(new Saddle(lnc, energy, levels, maxN, maxE));
+            best = newton(new Saddle(lnc, rho, energy, levels, maxN, maxE));
         } else {
             Objective1 f = v -> {
                 double m = Double.NEGATIVE_INFINITY;
@@ -98,6 +102,27 @@ final class CountBound {
         return out;
     }
 
+    /**
+     * rho_j = c_j / c_(j-1) for 1 &lt;= j &lt; lnc.length (rho_0 unused): (g + j - 1)/j for Bose,
+     * (g - j + 1)/j for Fermi (within half an ulp), e^(ln c_j - ln c_(j-1)) from the exact series otherwise.
+     */
+    private static double[] ratios(Statistics stats, int g, double[] lnc) {
+        double[] r = new double[lnc.length];
+        for (int j = 1; j < r.length; j++) {
+            switch (stats.kind()) {
+                case BOSE:
+                    r[j] = ((double) g + j - 1) / j;
+                    break;
+                case FERMI:
+                    r[j] = ((double) g - j + 1) / j;
+                    break;
+                default:
+                    r[j] = Math.exp(lnc[j] - lnc[j - 1]);
+            }
+        }
+        return r;
+    }
+
     /** Number of primes of {@link Moduli#fmaPrimes} (each &gt; 2^49) whose product exceeds every entry. */
     static int fmaPrimesFor(double log2Bound) {
         return Math.max(1, (int) Math.ceil(log2Bound / Moduli.FMA_BITS_PER_PRIME));
@@ -112,10 +137,38 @@ final class CountBound {
      * f(u, v) = sum_l ln F_l(e^(u + e_l v)) - N u - E v on the quadrant u, v &lt;= 0 (where the
      * minimum of the bound lies: outside it the bound only grows), with its gradient
      * (sum_l &lt;j&gt;_l - N, sum_l e_l &lt;j&gt;_l - E) and Hessian (the covariance of (j, e_l j) under the
-     * tilted weights c_j e^(j t) / F_l), both from the same exponentials as the value.
+     * tilted weights c_j e^(j t) / F_l), both from the same weights as the value.
+     *
+     * <p>Each level's sum F_l(e^t) = e^m sum_j w_j, with m = ln c_j* + j* t at the largest term j*, is
+     * evaluated from w_j* = 1 outwards by the ratios w_(j+1) = w_j rho_(j+1) e^t, rho_j = c_j / c_(j-1)
+     * (computed once per bound), instead of one exponential per term. j* is found by climbing the
+     * ratios from the level's peak at the last evaluation, and by a pass over every j where the ratios
+     * show the weights could rise again past the climbed peak. e^t of a level whose energy is one
+     * above the previous level's is that level's e^t times e^v, with a fresh exponential every
+     * {@link #RESEED} levels or near underflow. Error: e^t carries at most RESEED + 1 ulp and each step
+     * from j* adds that plus 3 ulp to a weight, so ln F_l errs by under 70 J ulp (below 1e-9 for
+     * J &lt;= 10^5; summed over the levels, 70 ulp per term, under 1e-6 for 10^8 terms), and the level
+     * sums (each in [1, J + 2)) are multiplied together, their product's logarithm taken once it passes
+     * 2^500 (one ulp per level): far below the 2-bit margin. A side of a level's sum is cut off once
+     * its weight w drops below {@link #NEGLIGIBLE} (the sum is at least 1) and no ratio further out
+     * lets the weights grow again (rho_i e^t &lt;= 1 upwards, &gt;= 1 downwards): every weight left is then
+     * at most w, and (terms left) x w is added to the sum, so the value stays an upper bound. A weight
+     * near underflow on a side that may still grow is recomputed by its own exponential.
      */
     private static final class Saddle {
+        /** Weights below this (relative to the largest, 1) end a side of a level's sum; see the class text. */
+        private static final double NEGLIGIBLE = 0x1p-60;
+        /** Below this a weight is recomputed directly rather than carried by the ratios into underflow. */
+        private static final double NEAR_UNDERFLOW = 0x1p-900;
+        /** Levels of consecutive energies share e^v products for e^t, this many at most before a new exponential. */
+        private static final int RESEED = 64;
+
         final double[][] lnc;
+        final double[][] rho;       // rho[l][j] = c_j / c_(j-1), j >= 1
+        final double[][] inverse;   // 1 / rho[l][j]
+        final double[][] maxAbove;  // maxAbove[l][j] = max of rho[l][j..J] (0 past J)
+        final double[][] minBelow;  // minBelow[l][j] = min of rho[l][1..j]
+        final int[] peakAt;         // each level's peak j* at the last evaluation
         final int[] energy;
         final int levels;
         final int maxN;
@@ -127,12 +180,50 @@ final class CountBound {
         double huv;
         double hvv;
 
-        Saddle(double[][] lnc, int[] energy, int levels, int maxN, int maxE) {
+        Saddle(double[][] lnc, double[][] rho, int[] energy, int levels, int maxN, int maxE) {
             this.lnc = lnc;
+            this.rho = rho;
             this.energy = energy;
             this.levels = levels;
             this.maxN = maxN;
             this.maxE = maxE;
+            peakAt = new int[levels];
+            inverse = new double[levels][];
+            maxAbove = new double[levels][];
+            minBelow = new double[levels][];
+            for (int l = 0; l < levels; l++) {
+                double[] c = lnc[l];
+                int top = c.length - 1;
+                double[] r = rho[l];
+                double[] inv = new double[top + 1];
+                double[] above = new double[top + 2];
+                double[] below = new double[top + 1];
+                below[0] = Double.POSITIVE_INFINITY;
+                for (int j = 1; j <= top; j++) {
+                    inv[j] = 1 / r[j];
+                    below[j] = Math.min(below[j - 1], r[j]);
+                }
+                for (int j = top; j >= 1; j--) {
+                    above[j] = Math.max(r[j], above[j + 1]);
+                }
+                inverse[l] = inv;
+                maxAbove[l] = above;
+                minBelow[l] = below;
+            }
+        }
+
+        /** The j maximising ln c_j + j t (the first of equal ones). */
+        private static int globalPeak(double[] c, double t) {
+            int peak = 0;
+            double m = c[0];
+            for (int j = 1; j < c.length; j++) {
+                double y = c[j] + j * t;
+                if (y > m) {
+                    m = y;
+                    peak = j;
+                }
+            }
+            return peak;
         }
 
         /** Evaluates value, gradient and Hessian at (u, v). */
@@ -143,18 +234,68 @@ final class CountBound {
             double suu = 0;
             double suv = 0;
             double svv = 0;
+            double sums = 1; // product of the level sums not yet taken into f by their logarithm
+            double stepUp = Math.exp(v);
+            double stepDown = 1 / stepUp;
+            double x = 0;
+            double xInv = 0;
             for (int l = 0; l < levels; l++) {
                 double[] c = lnc[l];
+                int top = c.length - 1;
                 double t = u + energy[l] * v;
-                double m = Double.NEGATIVE_INFINITY;
-                for (int j = 0; j < c.length; j++) {
-                    m = Math.max(m, c[j] + j * t);
+                if (l % RESEED != 0 && energy[l] == energy[l - 1] + 1 && x > NEAR_UNDERFLOW) {
+                    x *= stepUp; // e^t of the next energy by one product, e^t itself every RESEED levels
+                    xInv *= stepDown;
+                } else {
+                    x = Math.exp(t);
+                    xInv = 1 / x;
                 }
-                double z = 0;
-                double z1 = 0;
-                double z2 = 0;
-                for (int j = 0; j < c.length; j++) {
-                    double w = Math.exp(c[j] + j * t - m);
+                double[] r = rho[l];
+                int peak = peakAt[l]; // climb from the last evaluation's peak to a local maximum of c_j x^j
+                while (peak < top && r[peak + 1] * x > 1) {
+                    peak++;
+                }
+                while (peak > 0 && r[peak] * x < 1) {
+                    peak--;
+                }
+                if (!(maxAbove[l][peak + 1] * x <= 1 && minBelow[l][peak] * x >= 1)) {
+                    peak = globalPeak(c, t); // the weights may rise again past a local maximum
+                }
+                peakAt[l] = peak;
+                double m = c[peak] + peak * t;
+                double z = 1;
+                double z1 = peak;
+                double z2 = (double) peak * peak;
+                double left = 0; // upper bound on the weights cut off
+                double w = 1;
+                for (int j = peak + 1; j <= top; j++) {
+                    w *= r[j] * x;
+                    if (w < NEGLIGIBLE) {
+                        if (maxAbove[l][j + 1] * x <= 1) {
+                            left += (top - j + 1) * Math.max(w, Double.MIN_NORMAL);
+                            break;
+                        }
+                        if (w < NEAR_UNDERFLOW) {
+                            w = Math.exp(c[j] + j * t - m);
+                        }
+                    }
+                    z += w;
+                    z1 += j * w;
+                    z2 += (double) j * j * w;
+                }
+                double[] inv = inverse[l];
+                w = 1;
+                for (int j = peak - 1; j >= 0; j--) {
+                    w *= inv[j + 1] * xInv;
+                    if (w < NEGLIGIBLE) {
+                        if (minBelow[l][j] * x >= 1) {
+                            left += (j + 1) * Math.max(w, Double.MIN_NORMAL);
+                            break;
+                        }
+                        if (w < NEAR_UNDERFLOW) {
+                            w = Math.exp(c[j] + j * t - m);
+                        }
+                    }
                     z += w;
                     z1 += j * w;
                     z2 += (double) j * j * w;
@@ -162,14 +303,19 @@ final class CountBound {
                 double mean = z1 / z;
                 double var = Math.max(0, z2 / z - mean * mean);
                 double el = energy[l];
-                f += m + Math.log(z);
+                f += m;
+                sums *= z + left; // each factor in [1, J + 2): one logarithm for many levels
+                if (sums > 0x1p500) {
+                    f += Math.log(sums);
+                    sums = 1;
+                }
                 su += mean;
                 sv += el * mean;
                 suu += var;
                 suv += el * var;
                 svv += el * el * var;
             }
-            value = f;
+            value = f + Math.log(sums);
             gu = su;
             gv = sv;
             huu = suu;

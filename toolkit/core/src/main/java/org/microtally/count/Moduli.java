@@ -126,19 +126,59 @@ final class Moduli {
 
     /**
      * Garner reconstruction: the unique v in [0, p_0 ... p_{k-1}) with v = r_i mod p_i, from residues
-     * laid out as {@code residues[i][index]}. Holds its own scratch buffers: one instance per thread.
+     * laid out as {@code residues[i][index]}, for the primes of one of this class's sets (any
+     * distinct primes below 2^62 whose largest is below twice the smallest). Holds its own scratch
+     * buffers: one instance per thread.
+     *
+     * <p><b>Method.</b> Garner's mixed-radix digits (Knuth, TAOCP Vol. 2, Sec. 4.3.2): a_0 = r_0 and
+     * a_i = (...((r_i - a_0) c_0i - a_1) c_1i - ... - a_(i-1)) c_(i-1)i mod p_i with c_ji = p_j^-1 mod p_i,
+     * so v = a_0 + a_1 p_0 + ... + a_{k-1} p_0 ... p_{k-2}, evaluated by
+     * Horner's rule in 64-bit limbs. Entries are rebuilt in blocks of up to {@link #BLOCK}: the digits
+     * are computed prime by prime in loops over the block's entries (independent multiplies the
+     * processor overlaps), for the entries whose residues are not all equal (an entry whose residues
+     * all equal r is r itself: 0 &lt;= r &lt; every p_i and the representative below the product is
+     * unique); a value of two digits that fits a long skips the limbs. Exact; results do not depend on
+     * the block size.
      */
     static final class Crt {
+        /** Stores a long into a byte array as eight big-endian bytes. */
+        private static final java.lang.invoke.VarHandle BIG_ENDIAN_LONGS =
+                java.lang.invoke.MethodHandles.byteArrayViewVarHandle(long[].class, java.nio.ByteOrder.BIG_ENDIAN);
+
+        /** Entries rebuilt per block; the block's digits (8 k BLOCK bytes) stay in the first-level cache. */
+        static final int BLOCK = 256;
+
         private final long[] p;
         private final long[][] inv;       // inv[i][j] = p_j^-1 mod p_i, j < i
         private final long[][] invShoup;
-        private final long[] digit;       // mixed-radix digits of the entry being rebuilt
+        private final long[][] digits;    // digits[i][m]: Garner digit i of the m-th gathered entry of the block
+        private final int[] at;           // the m-th gathered entry is entry (block start + at[m])
+        private final int[] mixed;        // 1 where an entry's residues are not all equal, else 0
+        private final long[] digit;       // the digits of one entry, for the limbs
         private final long[] mag;         // its magnitude in 64-bit limbs, least significant first
         private final byte[] bytes;       // and big-endian, for the BigInteger constructor
 
+        /**
+         * @throws IllegalArgumentException for no primes, a prime outside (1, 2^62), a repeated one, or
+         *         a largest prime not below twice the smallest (one conditional subtraction reduces a
+         *         digit modulo a later prime only then)
+         */
         Crt(long[] primes) {
             this.p = primes.clone();
             int k = p.length;
+            long min = Long.MAX_VALUE;
+            long max = 0;
+            for (long q : p) {
+                if (q < 2 || q >= 1L << 62) {
+                    throw new IllegalArgumentException("CRT modulus " + q + " outside (1, 2^62)");
+                }
+                min = Math.min(min, q);
+                max = Math.max(max, q);
+            }
+            if (k == 0 || max / 2 >= min || java.util.Arrays.stream(p).distinct().count() != k) {
+                throw new IllegalArgumentException("CRT moduli must be distinct, at least one, the largest below "
+                        + "twice the smallest: " + java.util.Arrays.toString(p));
+            }
             inv = new long[k][];
             invShoup = new long[k][];
             for (int i = 0; i < k; i++) {
@@ -150,6 +190,9 @@ final class Moduli {
                     invShoup[i][j] = shoup(inv[i][j], p[i]);
                 }
             }
+            digits = new long[k][BLOCK];
+            at = new int[BLOCK];
+            mixed = new int[BLOCK];
             digit = new long[k];
             mag = new long[k + 1];
             bytes = new byte[8 * (k + 1)];
@@ -163,25 +206,26 @@ final class Moduli {
         /** Entries {@code from .. from + count - 1}: {@code out[j] = reconstruct(residues, from + j)}. */
         BigInteger[] reconstructRange(long[][] residues, int from, int count) {
             BigInteger[] out = new BigInteger[count];
-            for (int j = 0; j < count; j++) {
-                out[j] = reconstruct(residues, from + j);
+            long[] r0 = residues[0];
+            for (int b = 0; b < count; b += BLOCK) {
+                int c = Math.min(BLOCK, count - b);
+                int start = from + b;
+                int g = blockDigits(residues, start, c);
+                for (int j = 0, m = 0; j < c; j++) {
+                    if (mixed[j] == 0) {
+                        long v = r0[start + j];
+                        out[b + j] = v == 0 ? BigInteger.ZERO : BigInteger.valueOf(v);
+                    } else {
+                        out[b + j] = fromDigits(m++);
+                    }
+                }
             }
             return out;
         }
 
+        /** The unique v in [0, p_0 ... p_{k-1}) with v = residues[i][index] mod p_i. */
         BigInteger reconstruct(long[][] residues, int index) {
-            int top = digits(residues, index);
-            long[] a = digit;
-            if (top <= 0) {
-                return top < 0 ? BigInteger.ZERO : BigInteger.valueOf(a[0]);
-            }
-            if (top == 1) { // a_1 p_0 + a_0 < 2^124: a long when it fits in 63 bits
-                long lo = a[1] * p[0];
-                if (Math.multiplyHigh(a[1], p[0]) == 0 && lo >= 0 && lo + a[0] >= 0) {
-                    return BigInteger.valueOf(lo + a[0]);
-                }
-            }
-            return horner(a, top);
+            return reconstructRange(residues, index, 1)[0];
         }
 
         /**
@@ -190,42 +234,104 @@ final class Moduli {
          * the redundant primes placed last, that is the consistency check without forming the BigInteger.
          */
         int topDigit(long[][] residues, int index) {
-            return digits(residues, index);
+            int[] top = new int[1];
+            topDigits(residues, index, 1, top);
+            return top[0];
         }
 
-        /** Fills {@link #digit} with the mixed-radix digits of entry {@code index}; returns the top non-zero one. */
-        private int digits(long[][] residues, int index) {
+        /** {@code top[j] = topDigit(residues, from + j)} for j &lt; count, block by block. */
+        void topDigits(long[][] residues, int from, int count, int[] top) {
+            long[] r0 = residues[0];
+            for (int b = 0; b < count; b += BLOCK) {
+                int c = Math.min(BLOCK, count - b);
+                int start = from + b;
+                blockDigits(residues, start, c);
+                for (int j = 0, m = 0; j < c; j++) {
+                    top[b + j] = mixed[j] == 0 ? (r0[start + j] == 0 ? -1 : 0) : topOf(m++);
+                }
+            }
+        }
+
+        /**
+         * Marks in {@link #mixed} the entries {@code start .. start + c - 1} (c &lt;= BLOCK) whose residues are
+         * not all equal, gathers their residues into {@link #digits} (positions in {@link #at}) and turns
+         * them into Garner's digits there; returns how many were gathered.
+         */
+        private int blockDigits(long[][] residues, int start, int c) {
             int k = p.length;
-            long r0 = residues[0][index];
-            int same = 1;
-            while (same < k && residues[same][index] == r0) {
-                same++;
+            int[] mix = mixed;
+            java.util.Arrays.fill(mix, 0, c, 0);
+            long[] r0 = residues[0];
+            for (int i = 1; i < k; i++) {
+                long[] ri = residues[i];
+                for (int j = 0; j < c; j++) {
+                    mix[j] |= ri[start + j] != r0[start + j] ? 1 : 0;
+                }
             }
-            if (same == k) {
-                // every residue equal: the value is r0 itself (0 <= r0 < p_0 < every product of the primes, and the
-                // representative in [0, P) is unique), its only digit; small entries skip Garner's digits
-                digit[0] = r0;
-                return r0 == 0 ? -1 : 0;
+            int g = 0;
+            int[] pos = at;
+            for (int j = 0; j < c; j++) {
+                pos[g] = j;
+                g += mix[j];
             }
-            long[] a = digit;
-            int top = -1;
+            if (g == 0) {
+                return 0;
+            }
             for (int i = 0; i < k; i++) {
-                long t = residues[i][index];
+                long[] ri = residues[i];
+                long[] d = digits[i];
+                for (int m = 0; m < g; m++) {
+                    d[m] = ri[start + pos[m]];
+                }
+            }
+            for (int i = 1; i < k; i++) {
                 long pi = p[i];
+                long[] t = digits[i];
                 for (int j = 0; j < i; j++) {
-                    long aj = a[j] >= pi ? a[j] - pi : a[j];
-                    long diff = t - aj;
-                    if (diff < 0) {
-                        diff += pi;
+                    long w = inv[i][j];
+                    long ws = invShoup[i][j];
+                    long[] a = digits[j];
+                    for (int m = 0; m < g; m++) {
+                        long aj = a[m] >= pi ? a[m] - pi : a[m]; // a_j < p_j < 2 p_i
+                        long diff = t[m] - aj;
+                        if (diff < 0) {
+                            diff += pi;
+                        }
+                        t[m] = mulShoup(w, ws, diff, pi);
                     }
-                    t = mulShoup(inv[i][j], invShoup[i][j], diff, pi);
                 }
-                a[i] = t;
-                if (t != 0) {
-                    top = i;
-                }
+            }
+            return g;
+        }
+
+        /** The highest non-zero digit of gathered entry m (at least 0: its residues are not all 0). */
+        private int topOf(int m) {
+            int top = p.length - 1;
+            while (top > 0 && digits[top][m] == 0) {
+                top--;
             }
             return top;
+        }
+
+        /** The value of gathered entry m from its digits. */
+        private BigInteger fromDigits(int m) {
+            int top = topOf(m);
+            long a0 = digits[0][m];
+            if (top == 0) {
+                return BigInteger.valueOf(a0);
+            }
+            if (top == 1) { // a_1 p_0 + a_0 < 2^124: a long when it fits in 63 bits
+                long a1 = digits[1][m];
+                long lo = a1 * p[0];
+                if (Math.multiplyHigh(a1, p[0]) == 0 && lo >= 0 && lo + a0 >= 0) {
+                    return BigInteger.valueOf(lo + a0);
+                }
+            }
+            long[] a = digit;
+            for (int i = 0; i <= top; i++) {
+                a[i] = digits[i][m];
+            }
+            return horner(a, top);
         }
 
         /**
@@ -256,11 +362,7 @@ final class Moduli {
             }
             byte[] b = bytes;
             for (int l = 0; l < len; l++) {
-                long limb = m[l];
-                int at = 8 * (len - 1 - l);
-                for (int s = 0; s < 8; s++) {
-                    b[at + s] = (byte) (limb >>> (56 - 8 * s));
-                }
+                BIG_ENDIAN_LONGS.set(b, 8 * (len - 1 - l), m[l]);
             }
             return new BigInteger(1, b, 0, 8 * len);
         }

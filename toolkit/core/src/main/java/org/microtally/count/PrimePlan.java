@@ -211,9 +211,14 @@ public final class PrimePlan implements Serializable {
             return;
         }
         Moduli.Crt all = new Moduli.Crt(primes);
-        for (int j = 0; j < size; j++) {
-            if (all.topDigit(residues, j) >= required) {
-                throw inconsistency(residues, j);
+        int[] top = new int[Moduli.Crt.BLOCK];
+        for (int from = 0; from < size; from += top.length) {
+            int count = Math.min(top.length, size - from);
+            all.topDigits(residues, from, count, top);
+            for (int j = 0; j < count; j++) {
+                if (top[j] >= required) {
+                    throw inconsistency(residues, from + j);
+                }
             }
         }
     }

@@ -10,6 +10,7 @@ import org.microtally.spectrum.Spectra;
 import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 import org.microtally.exact.Combinatorics;
+import org.microtally.exact.ExactLog;
 
 class CountBoundTest {
 
@@ -71,6 +72,48 @@ class CountBoundTest {
             double gridBits = Math.max(grid / Math.log(2), 0) + 2;
             // Source: independent brute force (grid search of the same saddle-point function)
             assertTrue(bits <= gridBits + 0.01, "trial " + trial + ": Newton " + bits + " vs grid " + gridBits);
+        }
+    }
+
+    /**
+     * The benchmark size 40 x 200 (3D oscillator, 201 levels, up to 40 terms each: the ratio recurrence,
+     * the cut-off tails and the climbed peaks all in use) and a 1D oscillator with long level series
+     * (300 levels, up to 30 terms): the bound is at least every exact count and no looser than a grid search.
+     */
+    @Test
+    void boundIsValidAndTightAtTheBenchmarkSize() {
+        Object[][] cases = {
+            {Spectra.harmonicOscillator(3, 200), Statistics.BOSE, 40, 200},
+            {Spectra.harmonicOscillator(3, 200), Statistics.FERMI, 40, 200},
+            {Spectra.harmonicOscillator(3, 200), Statistics.maxOccupancy(2), 40, 200},
+            {Spectra.harmonicOscillator(1, 300), Statistics.BOSE, 30, 300},
+        };
+        for (Object[] c : cases) {
+            Spectrum s = (Spectrum) c[0];
+            Statistics st = (Statistics) c[1];
+            int maxN = (Integer) c[2];
+            int maxE = (Integer) c[3];
+            int[] en = s.integerEnergies();
+            int[] g = s.degeneracies();
+            double bits = CountBound.log2Bound(en, g, st, maxN, maxE);
+            BigInteger largest = BigInteger.ZERO;
+            for (BigInteger x : CountEngine.bigInteger(en, g, st, maxN, maxE, ProgressListener.NONE)) {
+                largest = largest.max(x);
+            }
+            String what = st + " " + maxN + " x " + maxE + ": bound " + bits + " bits, largest count " + largest.bitLength() + " bits";
+            // Source: Flajolet & Sedgewick, Analytic Combinatorics, Ch. VIII (saddle-point bounds dominate every
+            // coefficient); exact counts from the independent BigInteger recursion
+            assertTrue(ExactLog.ln(largest) / Math.log(2) <= bits, what);
+            double[][] coeff = coefficients(en, g, st, maxN, maxE);
+            double grid = Double.POSITIVE_INFINITY;
+            for (double u = -8; u <= 0; u += 0.05) {
+                for (double v = -1.5; v <= 0; v += 0.01) {
+                    grid = Math.min(grid, saddle(coeff, en, maxN, maxE, u, v));
+                }
+            }
+            double gridBits = Math.max(grid / Math.log(2), 0) + 2;
+            // Source: independent brute force (grid search of the same saddle-point function)
+            assertTrue(bits <= gridBits + 0.01, what + " vs grid " + gridBits);
         }
     }
 }
