@@ -68,10 +68,11 @@ public final class Sweep {
 
     /**
      * Estimated bytes one held result row takes on the driver: the row as Java objects (boxed cells and
-     * strings) plus the copy inside the Dataset view over the held rows. Measured by spark-scaling.sh on
-     * notebook 08's grid (see the notes beside it); rows with long warnings take more.
+     * strings) plus its copy inside the Dataset view over the held rows. spark-scaling.sh measured 1,940
+     * bytes a row (heap in use after and before, 2,000 rows) on notebook 08's grid, whose rows carry the
+     * cutoff warnings; this leaves about 30% for longer warnings.
      */
-    static final long BYTES_PER_ROW = 640;
+    static final long BYTES_PER_ROW = 2560;
     /** Fraction of the driver's maximum heap that held results may take. */
     static final double DRIVER_MEMORY_FRACTION = 0.5;
     /** Most points one task computes (a retried task recomputes them all): large grids get more tasks. */

@@ -166,15 +166,15 @@ class SweepTest {
     void theDriverRefusesResultsBeyondItsMemoryAndSaysHowLarge() {
         InvalidInputException ex = assertThrows(InvalidInputException.class,
                 () -> Sweep.requireDriverMemory(1_000_000_000L, 1L << 30));
-        // common practice, no source: the refusal states the grid size, the estimate (10^9 rows x 640 bytes),
-        // the limit (half of 1 GiB at 640 bytes a row = 838860 rows) and the ways out
+        // common practice, no source: the refusal states the grid size, the estimate (10^9 rows x 2560 bytes =
+        // 2.44e6 MiB), the limit (half of 1 GiB at 2560 bytes a row = 209715 rows, by hand) and the ways out
         String m = ex.getMessage();
-        assertTrue(m.contains("1000000000 grid points") && m.contains("640 bytes") && m.contains("6.10e+05 MiB"), m);
-        assertTrue(m.contains("at most 838860 rows"), m);
+        assertTrue(m.contains("1000000000 grid points") && m.contains("2560 bytes") && m.contains("2.44e+06 MiB"), m);
+        assertTrue(m.contains("at most 209715 rows"), m);
         assertTrue(m.contains("Sweep.writeParquet") && m.contains("-Xmx") && m.contains("MICROTALLY_HEAP")
                 && m.contains("split the grid"), m);
-        Sweep.requireDriverMemory(838_860L, 1L << 30);   // exactly at the limit: accepted
-        assertThrows(InvalidInputException.class, () -> Sweep.requireDriverMemory(838_861L, 1L << 30));
+        Sweep.requireDriverMemory(209_715L, 1L << 30);   // exactly at the limit: accepted
+        assertThrows(InvalidInputException.class, () -> Sweep.requireDriverMemory(209_716L, 1L << 30));
         assertThrows(InvalidInputException.class, () -> SweepResult.collect(twoLevel.dataset(), 1000));
         assertEquals(twoLevel.size(), SweepResult.collect(twoLevel.dataset(), Runtime.getRuntime().maxMemory()).size());
     }
