@@ -34,8 +34,9 @@ import org.microtally.spectrum.Statistics;
  * the load average first and last. In one JVM: the distributed count table against the local
  * multi-modular path (five alternating pairs in one local[2] session, each checked bit-identical),
  * local[1] against local[2] for the count table, two 2,000-point trap sweeps, a labelled table, a
- * lattice g(E, M) and a prefix enumeration, each speed-up beside the ceiling of the same work in 1 and
- * 2 plain Java threads measured in the same run; the per-task and driver (CRT) costs that a projection
+ * lattice g(E, M) and a prefix enumeration; the count table's and the sweeps' speed-ups beside the
+ * ceiling of the same work in 1 and 2 plain Java threads, measured in the same alternating sessions
+ * (cores obtained = worker CPU time / wall time says how much of the machine a run got); the per-task and driver (CRT) costs that a projection
  * to a cluster needs, and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
  * g(E, M) and a 10^6-point sweep.
  *
@@ -146,16 +147,8 @@ public class SparkScaling {
         row("driver redundant-prime check alone (PrimePlan.table)", "%.4f s", median(check));
         row("driver check + reading every row", "%.3f s", median(checkRead));
 
-        // the ceilings on these 2 cores: the same work in 1 and in 2 plain Java threads (no Spark), split as
-        // the Spark tasks split it
-        double[] primeCeiling = ceiling(repeats, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE));
         SweepGrid light = trapGrid();
         SweepGrid work = workGrid();
-        double[] lightCeiling = ceiling(repeats, 2, t -> drain(Sweep.taskRows(light, t, 2)));
-        double[] workCeiling = ceiling(repeats, 2, t -> drain(Sweep.taskRows(work, t, 2)));
-        ceilingRows("prime tasks", primeCeiling);
-        ceilingRows("light 2,000-point sweep (2 interleaved task shares)", lightCeiling);
-        ceilingRows("work-dominated 2,000-point sweep (2 task shares)", workCeiling);
 
         // labelled table: the spin-resolved dot orbitals (2D oscillator by angular momentum), fermions
         Spectrum dot = Spectra.oscillator2dByAngularMomentum(30);
@@ -200,10 +193,9 @@ public class SparkScaling {
         Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
         List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
         String[] names = {"count table", "empty job", "light sweep", "work sweep", "labelled", "lattice", "enumeration"};
-        List<List<List<Double>>> times = new ArrayList<>();   // [workload][threads] -> runs
-        for (int w = 0; w < names.length; w++) {
-            times.add(List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>()));
-        }
+        List<List<List<Double>>> times = runs(names.length);       // [workload][threads] -> runs
+        List<List<List<Double>>> plainTimes = runs(3);              // prime tasks, light sweep, work sweep
+        List<List<List<Double>>> plainCores = runs(3);
         for (int r = 0; r < repeats; r++) {
             for (int threads : r % 2 == 0 ? new int[] {2, 1} : new int[] {1, 2}) {
                 SparkSession spark = Clusters.local(threads);
@@ -218,11 +210,26 @@ public class SparkScaling {
                     () -> DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE),
                     () -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE),
                 };
+                // the ceilings: the same work in plain Java threads (no Spark), as many as the session has, split
+                // as the Spark tasks split it, measured in the same session so a drifting load meets both alike
+                Runnable[] plain = {
+                    () -> inThreads(threads, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE)),
+                    () -> inThreads(threads, 2, t -> drain(Sweep.taskRows(light, t, 2))),
+                    () -> inThreads(threads, 2, t -> drain(Sweep.taskRows(work, t, 2))),
+                };
                 for (Runnable warm : workloads) {
+                    warm.run();
+                }
+                for (Runnable warm : plain) {
                     warm.run();
                 }
                 for (int w = 0; w < workloads.length; w++) {
                     times.get(w).get(threads).add(seconds(workloads[w]));
+                }
+                for (int w = 0; w < plain.length; w++) {
+                    double wall = seconds(plain[w]);
+                    plainTimes.get(w).get(threads).add(wall);
+                    plainCores.get(w).get(threads).add(lastCpuSeconds / wall);
                 }
                 spark.stop();
             }
@@ -233,10 +240,18 @@ public class SparkScaling {
                 med[w][t] = median(times.get(w).get(t));
             }
         }
-        speedUpRow("distributed CountTable", med[0], primeCeiling);
+        double[][] ceilings = new double[3][];
+        for (int w = 0; w < 3; w++) {
+            ceilings[w] = new double[] {median(plainTimes.get(w).get(1)), median(plainTimes.get(w).get(2)),
+                median(plainCores.get(w).get(1)), median(plainCores.get(w).get(2))};
+        }
+        ceilingRows("prime tasks", ceilings[0]);
+        ceilingRows("light 2,000-point sweep (2 interleaved task shares)", ceilings[1]);
+        ceilingRows("work-dominated 2,000-point sweep (2 task shares)", ceilings[2]);
+        speedUpRow("distributed CountTable", med[0], ceilings[0]);
         row("Spark job of " + plan.primeCount() + " no-op tasks", "local[2] %.3f s, local[1] %.3f s", med[1][2], med[1][1]);
-        speedUpRow("light 2,000-point sweep (Sweep.run)", med[2], lightCeiling);
-        speedUpRow("work-dominated 2,000-point sweep (Sweep.run)", med[3], workCeiling);
+        speedUpRow("light 2,000-point sweep (Sweep.run)", med[2], ceilings[1]);
+        speedUpRow("work-dominated 2,000-point sweep (Sweep.run)", med[3], ceilings[2]);
         row("sweep cost per point per core, local[2]", "light %.3f ms, work-dominated %.3f ms",
                 2 * med[2][2] / 2000 * 1e3, 2 * med[3][2] / 2000 * 1e3);
         speedUpRow("distributed labelled table", med[4], null);
@@ -294,8 +309,8 @@ public class SparkScaling {
         double before = usedHeap();
         SweepResult held = Sweep.run(heapSession, nb);
         double after = usedHeap();
-        row("held sweep result on the driver (notebook 08's grid)", "%.0f bytes per row (%d rows; estimate used by "
-                + "the refusal: 640)", (after - before) / held.size(), held.size());
+        row("held sweep result on the driver (notebook 08's grid)", "%.0f bytes per row (%d rows; compare the "
+                + "refusal's estimate, Sweep.BYTES_PER_ROW)", (after - before) / held.size(), held.size());
         if (held.size() != nb.size()) {
             throw new IllegalStateException("held rows " + held.size());
         }
@@ -347,24 +362,11 @@ public class SparkScaling {
         row(what, "local[1] %.3f s, local[2] %.3f s, speed-up %.2fx%s", t[1], t[2], t[1] / t[2], c);
     }
 
-    /**
-     * job(0 .. tasks-1) in 1 and then in 2 plain threads, one warm-up each, median of {@code repeats}:
-     * {wall 1 thread, wall 2 threads, cores obtained with 1, cores obtained with 2} (cores obtained =
-     * worker CPU time / wall time, which says how much of the machine the run got).
-     */
-    static double[] ceiling(int repeats, int tasks, java.util.function.IntFunction<?> job) {
-        double[] out = new double[4];
-        for (int t = 1; t <= 2; t++) {
-            int threads = t;
-            inThreads(threads, tasks, job);
-            List<Double> wall = new ArrayList<>();
-            List<Double> cores = new ArrayList<>();
-            for (int r = 0; r < repeats; r++) {
-                wall.add(seconds(() -> inThreads(threads, tasks, job)));
-                cores.add(lastCpuSeconds / wall.get(r));
-            }
-            out[t - 1] = median(wall);
-            out[t + 1] = median(cores);
+    /** Empty run lists indexed [workload][threads], threads 1 and 2 (index 0 unused). */
+    static List<List<List<Double>>> runs(int workloads) {
+        List<List<List<Double>>> out = new ArrayList<>();
+        for (int w = 0; w < workloads; w++) {
+            out.add(List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>()));
         }
         return out;
     }
