@@ -203,7 +203,8 @@ public class SparkScaling {
                         org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
                 Runnable[] workloads = {
                     () -> DistributedCountTable.of(spark, s, st, n, e),
-                    () -> jsc.parallelize(primeIndices, primeIndices.size()).collect(),
+                    // an empty job of as many tasks as the distributed table uses (its primes dealt to the threads)
+                    () -> jsc.parallelize(primeIndices, Math.min(primeIndices.size(), threads)).collect(),
                     () -> Sweep.run(spark, light),
                     () -> Sweep.run(spark, work),
                     () -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE),
@@ -249,7 +250,8 @@ public class SparkScaling {
         ceilingRows("light 2,000-point sweep (2 interleaved task shares)", ceilings[1]);
         ceilingRows("work-dominated 2,000-point sweep (2 task shares)", ceilings[2]);
         speedUpRow("distributed CountTable", med[0], ceilings[0]);
-        row("Spark job of " + plan.primeCount() + " no-op tasks", "local[2] %.3f s, local[1] %.3f s", med[1][2], med[1][1]);
+        row("empty Spark job of min(" + plan.primeCount() + " primes, threads) tasks", "local[2] %.3f s, local[1] %.3f s",
+                med[1][2], med[1][1]);
         speedUpRow("light 2,000-point sweep (Sweep.run)", med[2], ceilings[1]);
         speedUpRow("work-dominated 2,000-point sweep (Sweep.run)", med[3], ceilings[2]);
         row("sweep cost per point per core, local[2]", "light %.3f ms, work-dominated %.3f ms",
@@ -296,10 +298,10 @@ public class SparkScaling {
         row("OVERHEAD distributed / local, 5 alternating pairs", "median %.2fx (min %.2fx, max %.2fx); %d of 5 bit-identical",
                 median(ratios), Collections.min(ratios), Collections.max(ratios), identical);
         double oneRound = median(perPrime);
-        row("  of which: the redundant prime (one more round of tasks)", "about %.3f s (one prime; %d tasks on 2 threads "
-                + "= %d rounds against %d for the local path's %d primes)", oneRound, plan.primeCount(),
+        row("  of which: the redundant prime (one more round of tasks)", "about %.3f s (one prime; %d primes on 2 threads "
+                + "= %d on one of them against %d for the local path's %d primes)", oneRound, plan.primeCount(),
                 (plan.primeCount() + 1) / 2, (plan.requiredPrimes() + 1) / 2, plan.requiredPrimes());
-        row("  of which: an empty job of as many tasks", "%.3f s", med[1][2]);
+        row("  of which: an empty job of as many tasks (2)", "%.3f s", med[1][2]);
         row("  of which: the driver's check", "%.4f s", median(check));
 
         // bytes a held sweep row takes on the driver (Sweep.BYTES_PER_ROW is the estimate), on notebook 08's grid
