@@ -1,7 +1,9 @@
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Collections;
 import java.util.List;
 import java.util.Locale;
+import java.util.Optional;
 import java.util.stream.IntStream;
 import org.apache.spark.sql.SparkSession;
 import org.microtally.ProgressListener;
@@ -13,6 +15,7 @@ import org.microtally.spark.Ensemble;
 import org.microtally.spark.SpectrumSpec;
 import org.microtally.spark.Sweep;
 import org.microtally.spark.SweepGrid;
+import org.microtally.spark.SweepResult;
 import org.microtally.spark.DistributedLabelledCounts;
 import org.microtally.spark.DistributedLattice;
 import org.microtally.count.LabelledCountTable;
@@ -27,17 +30,23 @@ import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
 /**
- * Measured script (run by spark-scaling.sh, not part of any test run): the distributed count table
- * against the local multi-modular path in the same JVM, local[1] against local[2], a 2,000-point trap
- * sweep on local[1] and local[2] (notebook 08's axes, but a fixed cutoff of 80 quanta and N up to 160:
- * notebook 08's cutoff follows kT, up to 121 quanta; warm, on one thread, both grids cost about 0.6 s),
- * and the per-task and driver (CRT) costs that a
- * projection to a cluster needs; the same for a labelled table (LabelledPrimePlan) and a lattice
- * g(E, M) (LatticeTasks), and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
- * g(E, M) and a 10^6-point sweep from the measured per-task times. Every time is the median of
- * REPEATS runs after one warm-up run; the local[1] and local[2] sessions alternate, one run of each workload
- * per session, and plain Java threads (no Spark) on 1 and 2 threads give the ceiling of the same run.
- * Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
+ * Measured script (run by spark-scaling.sh, not part of any test run); prints a plain two-column table,
+ * the load average first and last. In one JVM: the distributed count table against the local
+ * multi-modular path (five alternating pairs in one local[2] session, each checked bit-identical),
+ * local[1] against local[2] for the count table, two 2,000-point trap sweeps, a labelled table, a
+ * lattice g(E, M) and a prefix enumeration; the count table's and the sweeps' speed-ups beside the
+ * ceiling of the same work in 1 and 2 plain Java threads, measured in the same alternating sessions
+ * (cores obtained = worker CPU time / wall time says how much of the machine a run got); the per-task and driver (CRT) costs that a projection
+ * to a cluster needs, and the on-paper 64-executor projections for a 16 x 16 free-boundary Ising
+ * g(E, M) and a 10^6-point sweep.
+ *
+ * <p>The two sweeps: the light one has notebook 08's axes (traps r:r:1, r = 3..6, N 10..160, kT 0.25..5.15,
+ * both ensembles) with a fixed cutoff of 80 quanta, a few tenths of a second of work on one thread, so
+ * Spark's fixed cost per job shows; the work-dominated one has the same traps with N 100..1600, kT
+ * 0.6..30 and the cutoff following kT (max(30, 3 kT) quanta: at high kT a coarse cutoff, said in each
+ * row's warnings, which does not matter for timing), about 3-4 s of work on one thread. Every time is the
+ * median of REPEATS runs after one warm-up run; the local[1] and local[2] sessions alternate, one run of
+ * each workload per session. Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
  */
 public class SparkScaling {
     static double median(List<Double> xs) {
@@ -51,6 +60,7 @@ public class SparkScaling {
         return (System.nanoTime() - t0) / 1e9;
     }
 
+    /** The light 2,000-point sweep (see the class notes). */
     static SweepGrid trapGrid() {
         List<SpectrumSpec> traps = new ArrayList<>();
         for (int r = 3; r <= 6; r++) {
@@ -61,15 +71,59 @@ public class SparkScaling {
                 List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
     }
 
+    /** The work-dominated 2,000-point sweep (see the class notes). */
+    static SweepGrid workGrid() {
+        List<SpectrumSpec> traps = new ArrayList<>();
+        for (int r = 3; r <= 6; r++) {
+            traps.add(SpectrumSpec.oscillatorFollowingKT(new int[] {r, r, 1}, WORK_MIN_CUTOFF, WORK_CUTOFF_PER_KT));
+        }
+        double[] kTs = IntStream.range(0, 50).mapToDouble(i -> 0.6 + (30 - 0.6) * i / 49).toArray();
+        return SweepGrid.of(traps, new int[] {100, 200, 400, 800, 1600}, kTs, List.of(Statistics.BOSE),
+                List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
+    }
+
+    /** The work-dominated sweep's cutoff, max(30, 3 kT) quanta. */
+    static final int WORK_MIN_CUTOFF = 30;
+    static final double WORK_CUTOFF_PER_KT = 3;
+
+    /** Notebook 08's grid: cutoff max(30, 15 kT), N 5..80, kT 0.2..8.04 (for the bytes held per row). */
+    static SweepGrid notebookGrid() {
+        List<SpectrumSpec> traps = new ArrayList<>();
+        for (int r = 3; r <= 6; r++) {
+            traps.add(SpectrumSpec.oscillatorFollowingKT(new int[] {r, r, 1}, 30, 15));
+        }
+        double[] kTs = IntStream.range(0, 50).mapToDouble(i -> 0.2 + 0.16 * i).toArray();
+        return SweepGrid.of(traps, new int[] {5, 10, 20, 40, 80}, kTs, List.of(Statistics.BOSE),
+                List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
+    }
+
+    /** One line of the output table. */
+    static void row(String what, String value) {
+        System.out.printf(Locale.ROOT, "%-60s | %s%n", what, value);
+    }
+
+    static void row(String what, String format, Object... args) {
+        row(what, String.format(Locale.ROOT, format, args));
+    }
+
+    static double usedHeap() {
+        Runtime rt = Runtime.getRuntime();
+        for (int i = 0; i < 4; i++) {
+            System.gc();
+        }
+        return rt.totalMemory() - rt.freeMemory();
+    }
+
     public static void main(String[] args) {
         int n = Integer.parseInt(args[0]);
         int e = Integer.parseInt(args[1]);
         int repeats = Integer.parseInt(args[2]);
         int side = args.length > 3 ? Integer.parseInt(args[3]) : 8;
+        row("load average at the start (1, 5, 15 min)", String.join(" ", Arrays.copyOf(loadAverage(), 3)));
         Spectrum s = Spectra.harmonicOscillator(3, e);
         Statistics st = Statistics.BOSE;
-        System.out.printf(Locale.ROOT, "3D oscillator, Bose, N = %d, E = %d, %d repeats (median), %d cores%n",
-                n, e, repeats, Runtime.getRuntime().availableProcessors());
+        row("workload", "3D oscillator, Bose, N = %d, E = %d; %d repeats (median); %d cores", n, e, repeats,
+                Runtime.getRuntime().availableProcessors());
 
         // per-prime task time and the driver's CRT + check, measured without Spark
         PrimePlan plan = PrimePlan.of(s, st, n, e, 1);
@@ -87,24 +141,14 @@ public class SparkScaling {
             check.add(seconds(() -> plan.table(s, res)));
             checkRead.add(seconds(() -> readAll(plan.table(s, res))));
         }
-        System.out.printf(Locale.ROOT, "primes: %d required + %d redundant; one prime's residues %.3f s (median of %d); "
-                + "driver eager CRT + check of %d entries (PrimePlan.recombine) %.3f s; redundant-prime check alone "
-                + "(PrimePlan.table, rows rebuilt when read) %.4f s; check + reading every row %.3f s%n",
-                plan.requiredPrimes(), plan.redundantPrimes(), median(perPrime), perPrime.size(), plan.entries(),
-                median(crt), median(check), median(checkRead));
-        // the ceiling on these 2 cores: the same prime tasks in 1 and in 2 plain Java threads (no Spark)
-        double[] primeCeiling = ceiling(repeats, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE));
-        System.out.printf(Locale.ROOT, "CEILING prime tasks in plain threads: 1 thread %.3f s, 2 threads %.3f s, "
-                + "speed-up %.2f; cores obtained (worker CPU time / wall time) %.2f and %.2f%n", primeCeiling[0],
-                primeCeiling[1], primeCeiling[0] / primeCeiling[1], primeCeiling[2], primeCeiling[3]);
-        // and the same for the 2,000-point sweep, cut into the 16 ranges Sweep.run gives local[2]
-        SweepGrid g = trapGrid();
-        int chunks = 16;
-        double[] sweepCeiling = ceiling(repeats, chunks,
-                c -> drain(Sweep.rows(g, g.size() * c / chunks, g.size() * (c + 1) / chunks)));
-        System.out.printf(Locale.ROOT, "CEILING 2,000-point sweep in plain threads (16 ranges from one queue): 1 thread "
-                + "%.3f s, 2 threads %.3f s, speed-up %.2f; cores obtained %.2f and %.2f%n", sweepCeiling[0],
-                sweepCeiling[1], sweepCeiling[0] / sweepCeiling[1], sweepCeiling[2], sweepCeiling[3]);
+        row("primes (required + redundant)", "%d + %d", plan.requiredPrimes(), plan.redundantPrimes());
+        row("one prime's residues, no Spark", "%.3f s (median of %d)", median(perPrime), perPrime.size());
+        row("driver eager CRT + check (PrimePlan.recombine)", "%.3f s for %d entries", median(crt), plan.entries());
+        row("driver redundant-prime check alone (PrimePlan.table)", "%.4f s", median(check));
+        row("driver check + reading every row", "%.3f s", median(checkRead));
+
+        SweepGrid light = trapGrid();
+        SweepGrid work = workGrid();
 
         // labelled table: the spin-resolved dot orbitals (2D oscillator by angular momentum), fermions
         Spectrum dot = Spectra.oscillator2dByAngularMomentum(30);
@@ -121,9 +165,8 @@ public class SparkScaling {
             lCrt.add(seconds(() -> lplan.table(lres)));
             lBig.add(seconds(() -> LabelledCountTable.of(dot, Statistics.FERMI, 24, 30)));
         }
-        System.out.printf(Locale.ROOT, "labelled table (2D dot by m, Fermi, N = 24, E = 30): %d primes; one prime %.3f s; "
-                + "driver CRT + check %.3f s; local BigInteger path %.3f s%n", lplan.primeCount(), median(lPrime),
-                median(lCrt), median(lBig));
+        row("labelled table (2D dot by m, Fermi, N = 24, E = 30)", "%d primes; one prime %.3f s; driver CRT + check "
+                + "%.3f s; local BigInteger path %.3f s", lplan.primeCount(), median(lPrime), median(lCrt), median(lBig));
 
         // lattice: one prime's transfer-matrix sweep of an L x L free Ising g(E, M), to get the update rate
         Model ising = Model.ising(Model.Coupling.FERROMAGNETIC);
@@ -141,85 +184,139 @@ public class SparkScaling {
         }
         TransferMatrix.Cost small = TransferMatrix.estimate(sq, ising, true);
         double rate = small.updates() / median(latPrime);
-        System.out.printf(Locale.ROOT, "lattice %dx%d free Ising g(E, M): %d primes; one prime %.3f s (%.3g updates, %.3g "
-                + "updates/s); driver CRT + checks of %d entries %.4f s%n", side, side, lt.primeCount(), median(latPrime),
-                small.updates(), rate, latRes[0].length, median(latCrt));
+        row(String.format(Locale.ROOT, "lattice %dx%d free Ising g(E, M)", side, side), "%d primes; one prime %.3f s "
+                + "(%.3g updates, %.3g updates/s); driver CRT + checks of %d entries %.4f s", lt.primeCount(),
+                median(latPrime), small.updates(), rate, latRes[0].length, median(latCrt));
 
-        List<Double> local = new ArrayList<>();
-        double[] dist = new double[3];
-        double[] emptyJob = new double[3];
-        double[] sweep = new double[3];
-        double[] labelled = new double[3];
-        double[] lattice = new double[3];
-        double[] enumerated = new double[3];
         // local[2] and local[1] sessions alternate (2, 1, 1, 2, 2, 1, ...), one measurement of each workload per
         // session after a warm-up of each, so a load that drifts during the run biases neither side
         Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
         List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
-        List<List<Double>> d = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> empty = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> w = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> lab = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> lat = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> en = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> sweepCpu = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
-        List<List<Double>> sweepBusy = List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>());
+        String[] names = {"count table", "empty job", "light sweep", "work sweep", "labelled", "lattice", "enumeration"};
+        List<List<List<Double>>> times = runs(names.length);       // [workload][threads] -> runs
+        List<List<List<Double>>> plainTimes = runs(3);              // prime tasks, light sweep, work sweep
+        List<List<List<Double>>> plainCores = runs(3);
         for (int r = 0; r < repeats; r++) {
             for (int threads : r % 2 == 0 ? new int[] {2, 1} : new int[] {1, 2}) {
                 SparkSession spark = Clusters.local(threads);
-                TaskTimes taskTimes = new TaskTimes();
-                spark.sparkContext().addSparkListener(taskTimes);
-                DistributedCountTable.of(spark, s, st, n, e);         // warm-up
-                Sweep.run(spark, trapGrid()).dataset().unpersist();     // warm-up
-                DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE);
-                DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE);
-                DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE);
                 org.apache.spark.api.java.JavaSparkContext jsc =
                         org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
-                if (threads == 2) {
-                    local.add(seconds(() -> CountTable.of(s, st, n, e)));
+                Runnable[] workloads = {
+                    () -> DistributedCountTable.of(spark, s, st, n, e),
+                    // an empty job of as many tasks as the distributed table uses (its primes dealt to the threads)
+                    () -> jsc.parallelize(primeIndices, Math.min(primeIndices.size(), threads)).collect(),
+                    () -> Sweep.run(spark, light),
+                    () -> Sweep.run(spark, work),
+                    () -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE),
+                    () -> DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE),
+                    () -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE),
+                };
+                // the ceilings: the same work in plain Java threads (no Spark), as many as the session has, split
+                // as the Spark tasks split it, measured in the same session so a drifting load meets both alike
+                Runnable[] plain = {
+                    () -> inThreads(threads, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE)),
+                    () -> inThreads(threads, 2, t -> drain(Sweep.taskRows(light, t, 2))),
+                    () -> inThreads(threads, 2, t -> drain(Sweep.taskRows(work, t, 2))),
+                };
+                for (Runnable warm : workloads) {
+                    warm.run();
                 }
-                d.get(threads).add(seconds(() -> DistributedCountTable.of(spark, s, st, n, e)));
-                empty.get(threads).add(seconds(() -> jsc.parallelize(primeIndices, primeIndices.size()).collect()));
-                taskTimes.reset();
-                w.get(threads).add(seconds(() -> Sweep.run(spark, trapGrid()).dataset().unpersist()));
-                sweepCpu.get(threads).add(taskTimes.cpuSeconds() / w.get(threads).get(w.get(threads).size() - 1));
-                sweepBusy.get(threads).add(taskTimes.runSeconds() / w.get(threads).get(w.get(threads).size() - 1));
-                lab.get(threads).add(seconds(() -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30,
-                        ProgressListener.NONE)));
-                lat.get(threads).add(seconds(() -> DistributedLattice.densityOfStates(spark, sq, ising, true,
-                        ProgressListener.NONE)));
-                en.get(threads).add(seconds(() -> DistributedLattice.enumerate(spark, enumLattice, ising, true,
-                        ProgressListener.NONE)));
+                for (Runnable warm : plain) {
+                    warm.run();
+                }
+                for (int w = 0; w < workloads.length; w++) {
+                    times.get(w).get(threads).add(seconds(workloads[w]));
+                }
+                for (int w = 0; w < plain.length; w++) {
+                    double wall = seconds(plain[w]);
+                    plainTimes.get(w).get(threads).add(wall);
+                    plainCores.get(w).get(threads).add(lastCpuSeconds / wall);
+                }
                 spark.stop();
             }
         }
-        for (int threads = 1; threads <= 2; threads++) {
-            dist[threads] = median(d.get(threads));
-            emptyJob[threads] = median(empty.get(threads));
-            sweep[threads] = median(w.get(threads));
-            labelled[threads] = median(lab.get(threads));
-            lattice[threads] = median(lat.get(threads));
-            enumerated[threads] = median(en.get(threads));
+        double[][] med = new double[names.length][3];
+        for (int w = 0; w < names.length; w++) {
+            for (int t = 1; t <= 2; t++) {
+                med[w][t] = median(times.get(w).get(t));
+            }
         }
-        double loc = median(local);
-        System.out.printf(Locale.ROOT, "local CountTable (multi-modular, fork-join on all cores): %.3f s%n", loc);
-        System.out.printf(Locale.ROOT, "distributed CountTable local[2]: %.3f s = %.2f x local; local[1]: %.3f s; "
-                + "speed-up local[1]/local[2] %.2f%n", dist[2], dist[2] / loc, dist[1], dist[1] / dist[2]);
-        System.out.printf(Locale.ROOT, "Spark job of %d no-op tasks (the fixed cost of one distributed table) "
-                + "local[2]: %.3f s, local[1]: %.3f s%n", plan.primeCount(), emptyJob[2], emptyJob[1]);
-        System.out.printf(Locale.ROOT, "2,000-point trap sweep local[2]: %.3f s (%.2f ms per point per core); local[1]: "
-                + "%.3f s; speed-up %.2f%n", sweep[2], 2 * sweep[2] / 2000 * 1e3, sweep[1], sweep[1] / sweep[2]);
-        System.out.printf(Locale.ROOT, "sweep tasks per wall second (Spark task metrics, listener bus lag aside): local[2] "
-                + "run time %.2f, CPU %.2f; local[1] run time %.2f, CPU %.2f (run time near the thread count means the "
-                + "slots ran concurrently; CPU is the cores the machine gave them)%n", median(sweepBusy.get(2)),
-                median(sweepCpu.get(2)), median(sweepBusy.get(1)), median(sweepCpu.get(1)));
-        System.out.printf(Locale.ROOT, "distributed labelled table local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
-                labelled[2], labelled[1], labelled[1] / labelled[2]);
-        System.out.printf(Locale.ROOT, "distributed lattice %dx%d g(E, M) local[2]: %.3f s, local[1]: %.3f s, speed-up %.2f%n",
-                side, side, lattice[2], lattice[1], lattice[1] / lattice[2]);
-        System.out.printf(Locale.ROOT, "prefix enumeration 5x5 free Ising g(E, M) (2^25 configurations) local[2]: %.3f s, "
-                + "local[1]: %.3f s, speed-up %.2f%n", enumerated[2], enumerated[1], enumerated[1] / enumerated[2]);
+        double[][] ceilings = new double[3][];
+        for (int w = 0; w < 3; w++) {
+            ceilings[w] = new double[] {median(plainTimes.get(w).get(1)), median(plainTimes.get(w).get(2)),
+                median(plainCores.get(w).get(1)), median(plainCores.get(w).get(2))};
+        }
+        ceilingRows("prime tasks", ceilings[0]);
+        ceilingRows("light 2,000-point sweep (2 interleaved task shares)", ceilings[1]);
+        ceilingRows("work-dominated 2,000-point sweep (2 task shares)", ceilings[2]);
+        speedUpRow("distributed CountTable", med[0], ceilings[0]);
+        row("empty Spark job of min(" + plan.primeCount() + " primes, threads) tasks", "local[2] %.3f s, local[1] %.3f s",
+                med[1][2], med[1][1]);
+        speedUpRow("light 2,000-point sweep (Sweep.run)", med[2], ceilings[1]);
+        speedUpRow("work-dominated 2,000-point sweep (Sweep.run)", med[3], ceilings[2]);
+        row("sweep cost per point per core, local[2]", "light %.3f ms, work-dominated %.3f ms",
+                2 * med[2][2] / 2000 * 1e3, 2 * med[3][2] / 2000 * 1e3);
+        speedUpRow("distributed labelled table", med[4], null);
+        speedUpRow(String.format(Locale.ROOT, "distributed lattice %dx%d g(E, M)", side, side), med[5], null);
+        speedUpRow("prefix enumeration 5x5 free Ising (2^25 configurations)", med[6], null);
+
+        // the count-table overhead: distributed local[2] vs the local multi-modular path on the same 2 cores, in
+        // alternating pairs in one session, each pair checked bit-identical
+        SparkSession spark = Clusters.local(2);
+        DistributedCountTable.of(spark, s, st, n, e);
+        CountTable.of(s, st, n, e);
+        List<Double> ratios = new ArrayList<>();
+        List<Double> distTimes = new ArrayList<>();
+        List<Double> localTimes = new ArrayList<>();
+        int identical = 0;
+        for (int pair = 0; pair < 5; pair++) {
+            DistributedCountTable[] d = new DistributedCountTable[1];
+            CountTable[] loc = new CountTable[1];
+            double td;
+            double tl;
+            if (pair % 2 == 0) {
+                td = seconds(() -> d[0] = DistributedCountTable.of(spark, s, st, n, e));
+                tl = seconds(() -> loc[0] = CountTable.of(s, st, n, e));
+            } else {
+                tl = seconds(() -> loc[0] = CountTable.of(s, st, n, e));
+                td = seconds(() -> d[0] = DistributedCountTable.of(spark, s, st, n, e));
+            }
+            Optional<String> diff = d[0].firstDifference(loc[0]);
+            if (diff.isPresent()) {
+                throw new IllegalStateException("distributed table differs from the local one: " + diff.get());
+            }
+            identical++;
+            distTimes.add(td);
+            localTimes.add(tl);
+            ratios.add(td / tl);
+        }
+        spark.stop();
+        row("count table local (multi-modular, fork-join, 2 cores)", "median %.3f s (min %.3f, max %.3f)",
+                median(localTimes), Collections.min(localTimes), Collections.max(localTimes));
+        row("count table distributed local[2]", "median %.3f s (min %.3f, max %.3f)",
+                median(distTimes), Collections.min(distTimes), Collections.max(distTimes));
+        row("OVERHEAD distributed / local, 5 alternating pairs", "median %.2fx (min %.2fx, max %.2fx); %d of 5 bit-identical",
+                median(ratios), Collections.min(ratios), Collections.max(ratios), identical);
+        double oneRound = median(perPrime);
+        row("  of which: the redundant prime (one more round of tasks)", "about %.3f s (one prime; %d primes on 2 threads "
+                + "= %d on one of them against %d for the local path's %d primes)", oneRound, plan.primeCount(),
+                (plan.primeCount() + 1) / 2, (plan.requiredPrimes() + 1) / 2, plan.requiredPrimes());
+        row("  of which: an empty job of as many tasks (2)", "%.3f s", med[1][2]);
+        row("  of which: the driver's check", "%.4f s", median(check));
+
+        // bytes a held sweep row takes on the driver (Sweep.BYTES_PER_ROW is the estimate), on notebook 08's grid
+        SparkSession heapSession = Clusters.local(2);
+        SweepGrid nb = notebookGrid();
+        Sweep.run(heapSession, nb);
+        double before = usedHeap();
+        SweepResult held = Sweep.run(heapSession, nb);
+        double after = usedHeap();
+        row("held sweep result on the driver (notebook 08's grid)", "%.0f bytes per row (%d rows; compare the "
+                + "refusal's estimate, Sweep.BYTES_PER_ROW)", (after - before) / held.size(), held.size());
+        if (held.size() != nb.size()) {
+            throw new IllegalStateException("held rows " + held.size());
+        }
+        heapSession.stop();
 
         // on paper: 64 executors, each one core, from the measured rates above
         Lattice big = Lattice.square(16, 16, Boundary.FREE);
@@ -229,11 +326,10 @@ public class SparkScaling {
         int bigEntries = (big.bonds() + 1) * (big.sites() + 1);
         double crtPerEntryPrime2 = median(latCrt) / (latRes[0].length * Math.pow(lt.primeCount(), 2));
         double bigCrt = crtPerEntryPrime2 * bigEntries * Math.pow(bigTasks, 2);
-        System.out.printf(Locale.ROOT, "PROJECTION 16x16 free Ising g(E, M): %d prime tasks (so at most %d of 64 executors "
-                + "busy), one task %.3g updates = %.3g s = %.3g h at the measured rate, peak state vectors %.3g GB per "
-                + "executor; driver CRT of %d entries about %.3g s; wall time on 64 executors about %.3g h%n",
-                bigTasks, Math.min(64, bigTasks), bigCost.updates(), bigTask, bigTask / 3600, bigCost.peakBytes() / 1e9,
-                bigEntries, bigCrt, (Math.ceil(bigTasks / 64.0) * bigTask + bigCrt) / 3600);
+        row("PROJECTION 16x16 free Ising g(E, M) on 64 executors", "%d prime tasks (at most %d executors busy), one "
+                + "task %.3g updates = %.3g h at the measured rate, peak state vectors %.3g GB per executor; driver CRT "
+                + "of %d entries about %.3g s; wall time about %.3g h", bigTasks, Math.min(64, bigTasks), bigCost.updates(),
+                bigTask / 3600, bigCost.peakBytes() / 1e9, bigEntries, bigCrt, (Math.ceil(bigTasks / 64.0) * bigTask + bigCrt) / 3600);
         // on paper, the split that would make it practical (not implemented): evaluate the magnetic fugacity z at
         // sites + 1 distinct points modulo each prime, so each task sweeps polynomials in the energy only, and
         // interpolate in z (Vandermonde, sites + 1 points) on the driver. A z-task is a g(E) sweep without
@@ -243,76 +339,38 @@ public class SparkScaling {
         long zTasks = (long) bigTasks * zPoints;
         double zTask = 2 * eOnly.updates() / rate;
         double interpolation = (double) bigTasks * (big.bonds() + 1) * zPoints * zPoints * 3e-9;
-        System.out.printf(Locale.ROOT, "PROJECTION 16x16 g(E, M) split by magnetic fugacity (not implemented): %d tasks "
-                + "(%d primes x %d z points), one task about %.3g updates = %.3g s, state vectors about %.3g GB per "
-                + "task; interpolation about %.3g s (3 ns per multiply-add, assumed); on 64 executors about %.3g h%n",
-                zTasks, bigTasks, zPoints, 2 * eOnly.updates(), zTask, 2 * eOnly.peakBytes() / 1e9, interpolation,
+        row("PROJECTION same, split by magnetic fugacity (not implemented)", "%d tasks (%d primes x %d z points), one "
+                + "task about %.3g updates = %.3g s, state vectors about %.3g GB per task; interpolation about %.3g s "
+                + "(3 ns per multiply-add, assumed); on 64 executors about %.3g h", zTasks, bigTasks, zPoints,
+                2 * eOnly.updates(), zTask, 2 * eOnly.peakBytes() / 1e9, interpolation,
                 (Math.ceil(zTasks / 64.0) * zTask + interpolation) / 3600);
-        double perPoint = sweep[1] / 2000;
-        System.out.printf(Locale.ROOT, "PROJECTION 10^6-point sweep: %.3g s per point on one core (local[1]), so %.3g s of "
-                + "work; on 64 executors about %.3g s (%.3g min) plus the output write%n", perPoint, perPoint * 1e6,
-                perPoint * 1e6 / 64, perPoint * 1e6 / 64 / 60);
-        System.out.println("load average during the run: " + Arrays.toString(loadAverage()));
+        for (int w = 2; w <= 3; w++) {
+            double perPoint = med[w][1] / 2000;
+            row("PROJECTION 10^6-point " + names[w] + " on 64 executors", "%.3g s per point on one core (local[1]), so "
+                    + "%.3g s of work; about %.3g s (%.3g min) plus the output write (Sweep.writeParquet)", perPoint,
+                    perPoint * 1e6, perPoint * 1e6 / 64, perPoint * 1e6 / 64 / 60);
+        }
+        row("load average at the end (1, 5, 15 min)", String.join(" ", Arrays.copyOf(loadAverage(), 3)));
     }
 
-    /**
-     * job(0 .. tasks-1) in 1 and then in 2 plain threads, one warm-up each, median of {@code repeats}:
-     * {wall 1 thread, wall 2 threads, cores obtained with 1, cores obtained with 2} (cores obtained =
-     * worker CPU time / wall time, which says how much of the machine the run got).
-     */
-    static double[] ceiling(int repeats, int tasks, java.util.function.IntFunction<?> job) {
-        double[] out = new double[4];
-        for (int t = 1; t <= 2; t++) {
-            int threads = t;
-            inThreads(threads, tasks, job);
-            List<Double> wall = new ArrayList<>();
-            List<Double> cores = new ArrayList<>();
-            for (int r = 0; r < repeats; r++) {
-                wall.add(seconds(() -> inThreads(threads, tasks, job)));
-                cores.add(lastCpuSeconds / wall.get(r));
-            }
-            out[t - 1] = median(wall);
-            out[t + 1] = median(cores);
+    static void ceilingRows(String what, double[] c) {
+        row("CEILING " + what + ", plain threads", "1 thread %.3f s, 2 threads %.3f s, speed-up %.2f; cores obtained "
+                + "(worker CPU / wall) %.2f and %.2f", c[0], c[1], c[0] / c[1], c[2], c[3]);
+    }
+
+    /** local[1] vs local[2] times and speed-up, with the plain-thread ceiling of the same run when there is one. */
+    static void speedUpRow(String what, double[] t, double[] ceiling) {
+        String c = ceiling == null ? "" : String.format(Locale.ROOT, " of a possible %.2fx (plain threads)", ceiling[0] / ceiling[1]);
+        row(what, "local[1] %.3f s, local[2] %.3f s, speed-up %.2fx%s", t[1], t[2], t[1] / t[2], c);
+    }
+
+    /** Empty run lists indexed [workload][threads], threads 1 and 2 (index 0 unused). */
+    static List<List<List<Double>>> runs(int workloads) {
+        List<List<List<Double>>> out = new ArrayList<>();
+        for (int w = 0; w < workloads; w++) {
+            out.add(List.of(new ArrayList<>(), new ArrayList<>(), new ArrayList<>()));
         }
         return out;
-    }
-
-    /** Sums Spark's task metrics (run time and CPU time of every finished task) since the last reset. */
-    static final class TaskTimes extends org.apache.spark.scheduler.SparkListener {
-        private final java.util.concurrent.atomic.AtomicLong cpuNanos = new java.util.concurrent.atomic.AtomicLong();
-        private final java.util.concurrent.atomic.AtomicLong runMillis = new java.util.concurrent.atomic.AtomicLong();
-
-        @Override
-        public void onTaskEnd(org.apache.spark.scheduler.SparkListenerTaskEnd end) {
-            if (end.taskMetrics() != null) {
-                cpuNanos.addAndGet(end.taskMetrics().executorCpuTime());
-                runMillis.addAndGet(end.taskMetrics().executorRunTime());
-            }
-        }
-
-        void reset() {
-            cpuNanos.set(0);
-            runMillis.set(0);
-        }
-
-        /** After the job: waits briefly for the listener bus to deliver the last task ends. */
-        double cpuSeconds() {
-            settle();
-            return cpuNanos.get() / 1e9;
-        }
-
-        double runSeconds() {
-            settle();
-            return runMillis.get() / 1e3;
-        }
-
-        private static void settle() {
-            try {
-                Thread.sleep(200);
-            } catch (InterruptedException ex) {
-                Thread.currentThread().interrupt();
-            }
-        }
     }
 
     /** CPU seconds used by the worker threads of the last {@link #inThreads} call. */

@@ -1,6 +1,8 @@
 #!/usr/bin/env bash
 # Measured script for the Spark module (the README performance rows): distributed CountTable vs the
-# local multi-modular path, local[1] vs local[2], and the 2,000-point trap sweep, all in one JVM run.
+# local multi-modular path (5 alternating pairs), local[1] vs local[2] beside the plain-thread ceiling of
+# the same work, a light and a work-dominated 2,000-point trap sweep, all in one JVM run; a plain table,
+# load average first.
 #   toolkit/bench/spark/spark-scaling.sh [N E REPEATS LATTICE_SIDE]      (default 100 600 3 8)
 # Builds toolkit/spark first (mvn -pl toolkit/spark -am package -DskipTests).
 set -euo pipefail

@@ -5,8 +5,10 @@ import org.apache.spark.sql.SparkSession;
 import org.microtally.InvalidInputException;
 
 /**
- * Spark sessions with the toolkit's defaults: no web UI, few shuffle partitions (results here are
- * small), the driver bound to the loopback address in local mode, and Spark's own log level at WARN.
+ * Spark sessions with the toolkit's defaults: no web UI, one shuffle partition per worker thread
+ * ({@code spark.sql.shuffle.partitions} = the session's default parallelism instead of Spark's 200:
+ * results here are small, and every partition is a task), the driver bound to the loopback address in
+ * local mode, and Spark's own log level at WARN.
  *
  * <p>{@link #local(int)} is the embedded default (no cluster needed); {@link #connect(String, String)}
  * takes any master URL ({@code local[*]}, {@code spark://host:7077}, {@code yarn}, ...). When the code
@@ -57,18 +59,29 @@ public final class Clusters {
         SparkSession.Builder b = SparkSession.builder().master(master).appName(appName)
                 .config("spark.ui.enabled", "false")
                 .config("spark.ui.showConsoleProgress", "false")
-                .config("spark.sql.shuffle.partitions", "4")
                 .config("spark.sql.adaptive.enabled", "false");
         if (master.startsWith("local")) {
             b = b.config("spark.driver.host", "127.0.0.1").config("spark.driver.bindAddress", "127.0.0.1");
         }
         SparkSession s = b.getOrCreate();
         s.sparkContext().setLogLevel("WARN");
+        return onePartitionPerThread(s);
+    }
+
+    /**
+     * Sets {@code spark.sql.shuffle.partitions} to the session's default parallelism (its worker threads;
+     * on a cluster the executor cores registered when the session started, at least 2) unless the
+     * submit line or the session's configuration chose a value.
+     */
+    static SparkSession onePartitionPerThread(SparkSession s) {
+        if (!s.sparkContext().getConf().contains("spark.sql.shuffle.partitions")) {
+            s.conf().set("spark.sql.shuffle.partitions", Integer.toString(Math.max(1, s.sparkContext().defaultParallelism())));
+        }
         return s;
     }
 
     /** The session configured by {@code spark-submit} (master and resources from the submit line). */
     public static SparkSession submitted(String appName) {
-        return SparkSession.builder().appName(Objects.requireNonNull(appName, "appName")).getOrCreate();
+        return onePartitionPerThread(SparkSession.builder().appName(Objects.requireNonNull(appName, "appName")).getOrCreate());
     }
 }

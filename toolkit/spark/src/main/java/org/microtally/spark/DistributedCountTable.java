@@ -13,11 +13,12 @@ import org.microtally.spectrum.Spectrum;
 import org.microtally.spectrum.Statistics;
 
 /**
- * The exact table Omega(n, e) of {@link CountTable} computed on Spark: one task per prime of the
- * multi-modular method, Chinese remaindering on the driver. Immutable.
+ * The exact table Omega(n, e) of {@link CountTable} computed on Spark: the primes of the multi-modular
+ * method dealt to one task per worker thread (one task per prime when there are as many threads),
+ * Chinese remaindering on the driver. Immutable.
  *
  * <p><b>Method.</b> {@link PrimePlan} fixes the primes from the proven bound on every entry and adds
- * one redundant prime; each Spark task computes the whole table modulo its prime by the same
+ * one redundant prime; each Spark task computes the whole table modulo each of its primes by the same
  * recursion {@link CountTable} uses (the class notes there give the formula and cost); the driver
  * collects the residues and checks every entry against the redundant prime (Garner's mixed-radix
  * digits over all primes, Knuth, TAOCP Vol. 2, Sec. 4.3.2, in long arithmetic: the residues agree
@@ -95,12 +96,12 @@ public final class DistributedCountTable implements CountGrid {
         return table.row(n);
     }
 
-    /** Primes whose product the bound proves exceeds every entry (one Spark task each). */
+    /** Primes whose product the bound proves exceeds every entry (computed in the Spark tasks). */
     public int requiredPrimes() {
         return requiredPrimes;
     }
 
-    /** Extra primes (one Spark task each) that verified the reconstruction. */
+    /** Extra primes (computed in the Spark tasks) that verified the reconstruction. */
     public int redundantPrimes() {
         return redundantPrimes;
     }

@@ -16,8 +16,8 @@ import org.microtally.lattice.Model;
  * Exact lattice densities of states on Spark, two independent ways (method and sources on
  * {@link LatticeTasks}):
  * <ul>
- *   <li>{@link #densityOfStates}: the transfer matrix, one task per prime, Chinese remaindering and
- *       the redundant-prime and sum g = q^N checks on the driver; entry by entry equal to
+ *   <li>{@link #densityOfStates}: the transfer matrix, the primes dealt to the Spark tasks, Chinese
+ *       remaindering and the redundant-prime and sum g = q^N checks on the driver; entry by entry equal to
  *       {@link org.microtally.lattice.TransferMatrix#count} (tested).</li>
  *   <li>{@link #enumerate}: every configuration, split by the values of the first P sites (q^P
  *       prefixes, P the smallest giving eight prefixes per core), each task a Gray-code walk over the

@@ -3,7 +3,9 @@ package org.microtally.spark;
 import java.util.ArrayList;
 import java.util.Iterator;
 import java.util.List;
+import java.util.Locale;
 import java.util.Objects;
+import java.util.stream.IntStream;
 import org.apache.spark.api.java.JavaRDD;
 import org.apache.spark.api.java.JavaSparkContext;
 import org.apache.spark.sql.Dataset;
@@ -13,7 +15,6 @@ import org.apache.spark.sql.SparkSession;
 import org.apache.spark.sql.types.DataTypes;
 import org.apache.spark.sql.types.StructField;
 import org.apache.spark.sql.types.StructType;
-import org.apache.spark.storage.StorageLevel;
 import org.microtally.InvalidInputException;
 import org.microtally.ProgressListener;
 import org.microtally.ensemble.Canonical;
@@ -65,10 +66,17 @@ public final class Sweep {
         DataTypes.createStructField("warnings", DataTypes.StringType, false),
     });
 
-    /** Estimated bytes one result row takes when held on the driver as Java objects (boxed cells, strings). */
-    static final long BYTES_PER_ROW = 640;
+    /**
+     * Estimated bytes one held result row takes on the driver: the row as Java objects (boxed cells and
+     * strings) plus its copy inside the Dataset view over the held rows. spark-scaling.sh measured 1,940
+     * bytes a row (heap in use after and before, 2,000 rows) on notebook 08's grid, whose rows carry the
+     * cutoff warnings; this leaves about 30% for longer warnings.
+     */
+    static final long BYTES_PER_ROW = 2560;
     /** Fraction of the driver's maximum heap that held results may take. */
     static final double DRIVER_MEMORY_FRACTION = 0.5;
+    /** Most points one task computes (a retried task recomputes them all): large grids get more tasks. */
+    static final long MAX_POINTS_PER_TASK = 100_000;
 
     /** Runs the sweep without progress reports; see {@link #run(SparkSession, SweepGrid, ProgressListener)}. */
     public static SweepResult run(SparkSession spark, SweepGrid grid) {
@@ -76,93 +84,158 @@ public final class Sweep {
     }
 
     /**
-     * Evaluates every grid point on {@code spark} and keeps the result (cached on the executors, spilling
-     * to disk), reporting the finished tasks (stage {@code "sweep tasks"}).
+     * Evaluates every grid point on {@code spark} in one Spark job and holds the rows on the driver, in
+     * point order, reporting the finished tasks (stage {@code "sweep tasks"}). Queries on the result run
+     * over the held rows; nothing is recomputed.
      *
-     * @throws InvalidInputException in local mode (where the executors share the driver's heap) when the
-     *         estimated result, {@link #BYTES_PER_ROW} bytes per point, exceeds half the driver's maximum
-     *         heap; the message gives the estimate
+     * @throws InvalidInputException before any task runs when the grid has more points than
+     *         {@link #driverRowLimit(long)} allows for the driver's maximum heap; the message gives the grid
+     *         size, the estimate and the ways out ({@link #writeParquet}, more heap, a split grid)
      */
     public static SweepResult run(SparkSession spark, SweepGrid grid, ProgressListener progress) {
         Objects.requireNonNull(spark, "spark");
         Objects.requireNonNull(grid, "grid");
-        if (spark.sparkContext().isLocal()) {
-            requireDriverMemory(grid.size(), Runtime.getRuntime().maxMemory(), "run this sweep in local mode");
-        }
-        JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
         long size = grid.size();
-        int parallelism = Math.max(1, jsc.defaultParallelism());
-        // about 250 points per task on large grids, at least 8 tasks per core for progress and balance,
-        // but no task under 8 points (each task has a fixed cost)
-        int tasks = (int) Math.max(1, Math.min((size + 7) / 8,
-                Math.min(100_000, Math.max(8L * parallelism, (size + 249) / 250))));
-        List<long[]> ranges = new ArrayList<>(tasks);
-        for (int i = 0; i < tasks; i++) {
-            ranges.add(new long[] {size * i / tasks, size * (i + 1) / tasks});
+        requireDriverMemory(size, Runtime.getRuntime().maxMemory());
+        JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
+        int tasks = taskCount(size, jsc.defaultParallelism());
+        List<Integer> ids = IntStream.range(0, tasks).boxed().toList();
+        // one job: each task returns its points' rows, the driver puts every row at its point's index
+        List<Row[]> parts = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks",
+                () -> jsc.parallelize(ids, tasks).map(t -> {
+                    List<Row> out = new ArrayList<>();
+                    taskRows(grid, t, tasks).forEachRemaining(out::add);
+                    return out.toArray(new Row[0]);
+                }).collect());
+        Row[] rows = new Row[(int) size];
+        for (Row[] part : parts) {
+            for (Row r : part) {
+                rows[(int) r.getLong(0)] = r;
+            }
         }
-        // the rows are computed and kept as an RDD (the parallel part), and the Dataset is a view over it:
-        // building a columnar cache of the Dataset instead adds a serial step of the order of a small sweep
-        JavaRDD<Row> rows = jsc.parallelize(ranges, tasks).flatMap(r -> rows(grid, r[0], r[1]))
-                .persist(StorageLevel.MEMORY_AND_DISK());
-        long count = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", rows::count);
-        if (count != size) {
-            throw new IllegalStateException("sweep produced " + count + " rows for " + size + " points");
+        for (int i = 0; i < rows.length; i++) {
+            if (rows[i] == null) {
+                throw new IllegalStateException("sweep returned no row for point " + i + " of " + size);
+            }
         }
-        return new SweepResult(spark, spark.createDataFrame(rows, SCHEMA), size);
+        return new SweepResult(spark, List.of(rows));
     }
 
     /**
-     * The rows of points {@code from} (inclusive) to {@code to} (exclusive) of {@code grid}, computed lazily on
-     * the calling thread exactly as one Spark task of {@link #run} computes them (one spectrum build serves
-     * consecutive points with the same spectrum and kT). For a single point's check or a local baseline.
-     *
-     * @throws InvalidInputException for a range outside [0, grid.size()]
+     * Evaluates every grid point on {@code spark} and writes the rows as Parquet files into
+     * {@code directory} in one Spark job, without holding them on the driver (for grids beyond the
+     * driver's memory). Spark's output committer makes the files appear only when the whole job commits
+     * (then with a {@code _SUCCESS} marker); refuses to overwrite an existing directory.
      */
-    public static Iterator<Row> rows(SweepGrid grid, long from, long to) {
+    public static void writeParquet(SparkSession spark, SweepGrid grid, String directory, ProgressListener progress) {
+        Objects.requireNonNull(directory, "directory");
+        Dataset<Row> rows = distributed(spark, grid);
+        int tasks = rows.rdd().getNumPartitions();
+        SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", () -> {
+            SweepResult.writeParquet(rows, directory);
+            return null;
+        });
+    }
+
+    /** As {@link #writeParquet(SparkSession, SweepGrid, String, ProgressListener)}, as CSV files with a header line. */
+    public static void writeCsv(SparkSession spark, SweepGrid grid, String directory, ProgressListener progress) {
+        Objects.requireNonNull(directory, "directory");
+        Dataset<Row> rows = distributed(spark, grid);
+        int tasks = rows.rdd().getNumPartitions();
+        SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", () -> {
+            SweepResult.writeCsv(rows, directory);
+            return null;
+        });
+    }
+
+    /** The rows as a Dataset computed by the tasks when an action runs (not held anywhere). */
+    static Dataset<Row> distributed(SparkSession spark, SweepGrid grid) {
+        Objects.requireNonNull(spark, "spark");
         Objects.requireNonNull(grid, "grid");
-        if (from < 0 || to < from || to > grid.size()) {
-            throw InvalidInputException.of("range of sweep points", "[" + from + ", " + to + ")",
-                    "within [0, " + grid.size() + "]", "");
+        JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
+        int tasks = taskCount(grid.size(), jsc.defaultParallelism());
+        List<Integer> ids = IntStream.range(0, tasks).boxed().toList();
+        JavaRDD<Row> rows = jsc.parallelize(ids, tasks).flatMap(t -> taskRows(grid, t, tasks));
+        return spark.createDataFrame(rows, SCHEMA);
+    }
+
+    /**
+     * Tasks for a grid of {@code size} points: one per worker thread ({@code parallelism}, Spark's default
+     * parallelism), more (a multiple of it) only when a task would exceed {@link #MAX_POINTS_PER_TASK}
+     * points, never more tasks than points.
+     */
+    static int taskCount(long size, int parallelism) {
+        long p = Math.max(1, parallelism);
+        long rounds = Math.max(1, (size + p * MAX_POINTS_PER_TASK - 1) / (p * MAX_POINTS_PER_TASK));
+        return (int) Math.max(1, Math.min(size, Math.min(Integer.MAX_VALUE, p * rounds)));
+    }
+
+    /**
+     * The rows that task {@code task} of {@code tasks} computes, lazily on the calling thread: the grid is
+     * cut into blocks of consecutive points that share spectrum, N and kT (the statistics and ensemble
+     * vary fastest, so one spectrum build serves a block), and the task takes blocks task, task + tasks,
+     * task + 2 tasks, ... in order, so every task gets a like mix of cheap and costly points. For a local
+     * baseline or a single point's check ({@code taskRows(grid, 0, 1)} is every row in point order).
+     *
+     * @throws InvalidInputException for tasks &lt; 1 or task outside [0, tasks)
+     */
+    public static Iterator<Row> taskRows(SweepGrid grid, int task, int tasks) {
+        Objects.requireNonNull(grid, "grid");
+        if (tasks < 1 || task < 0 || task >= tasks) {
+            throw InvalidInputException.of("sweep task", task + " of " + tasks, "tasks >= 1, task in [0, tasks)", "");
         }
+        long block = grid.pointsPerSpectrumBuild();
+        long size = grid.size();
         return new Iterator<Row>() {
-            private long next = from;
-            private SweepPoint last;
-            private Spectrum lastSpectrum;
+            private long blockStart = task * block;
+            private long next = blockStart;
+            private Spectrum blockSpectrum;
 
             @Override
             public boolean hasNext() {
-                return next < to;
+                return next < size;
             }
 
             @Override
             public Row next() {
-                if (next >= to) {
-                    throw new java.util.NoSuchElementException("sweep points end at " + to);
+                if (next >= size) {
+                    throw new java.util.NoSuchElementException("task " + task + " of " + tasks + " has no more points");
                 }
-                SweepPoint p = grid.point(next++);
-                // the ensemble varies fastest: consecutive points often share spectrum and kT, so one build serves
-                if (last == null || last.spectrum() != p.spectrum() || last.kT() != p.kT()) {
-                    lastSpectrum = p.spectrum().build(p.kT());
-                    last = p;
+                SweepPoint p = grid.point(next);
+                if (next == blockStart) {
+                    blockSpectrum = p.spectrum().build(p.kT());
                 }
-                return evaluate(p, lastSpectrum);
+                Row r = evaluate(p, blockSpectrum);
+                next++;
+                if (next == blockStart + block) {
+                    blockStart += (long) tasks * block;
+                    next = blockStart;
+                }
+                return r;
             }
         };
     }
 
     /**
-     * Refuses to hold {@code rows} result rows in a heap of {@code maxHeap} bytes when the estimate
-     * exceeds {@link #DRIVER_MEMORY_FRACTION} of it.
+     * Most result rows the driver holds in a heap of {@code maxHeap} bytes: {@link #DRIVER_MEMORY_FRACTION}
+     * of it at {@link #BYTES_PER_ROW} bytes a row.
      */
-    static void requireDriverMemory(long rows, long maxHeap, String action) {
-        double bytes = (double) rows * BYTES_PER_ROW;
-        double limit = maxHeap * DRIVER_MEMORY_FRACTION;
-        if (bytes > limit) {
-            throw InvalidInputException.of("estimated sweep result held on the driver to " + action,
-                    String.format("%d rows x %d bytes = %.3g MiB", rows, BYTES_PER_ROW, bytes / (1 << 20)),
-                    String.format("at most %.3g MiB (half the driver's maximum heap)", limit / (1 << 20)),
-                    "Write the result to Parquet or CSV, aggregate it with Spark SQL first, split the grid, "
-                            + "run on a cluster, or give the driver more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, install-kernel --heap 4g for the kernel).");
+    static long driverRowLimit(long maxHeap) {
+        return (long) (maxHeap * DRIVER_MEMORY_FRACTION / BYTES_PER_ROW);
+    }
+
+    /** Refuses {@code rows} result rows on the driver beyond {@link #driverRowLimit(long)} of {@code maxHeap}. */
+    static void requireDriverMemory(long rows, long maxHeap) {
+        long limit = driverRowLimit(maxHeap);
+        if (rows > limit) {
+            throw InvalidInputException.of("sweep rows held on the driver",
+                    String.format(Locale.ROOT, "%d grid points, about %d rows x %d bytes = %.3g MiB", rows, rows,
+                            BYTES_PER_ROW, rows * (double) BYTES_PER_ROW / (1 << 20)),
+                    String.format(Locale.ROOT, "at most %d rows (%.3g MiB, half the driver's maximum heap of %.3g MiB)",
+                            limit, limit * (double) BYTES_PER_ROW / (1 << 20), maxHeap / (double) (1 << 20)),
+                    "Write the rows to files instead (Sweep.writeParquet or Sweep.writeCsv, which hold nothing on the "
+                            + "driver; or the sweep job of the job jar), give the driver more heap (-Xmx; MICROTALLY_HEAP=4g "
+                            + "for toolkit/bin/microtally, install-kernel --heap 4g for the kernel), or split the grid.");
         }
     }
 

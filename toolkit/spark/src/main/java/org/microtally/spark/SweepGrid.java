@@ -89,6 +89,14 @@ public final class SweepGrid implements Serializable {
         return (long) spectra.length * particles.length * temperatures.length * kinds.length * ensembles.length;
     }
 
+    /**
+     * Number of consecutive points that share spectrum, N and kT (statistics x ensembles, the fastest
+     * axes), so one spectrum build serves them.
+     */
+    long pointsPerSpectrumBuild() {
+        return (long) kinds.length * ensembles.length;
+    }
+
     /** Point {@code id}, decoded from its index. */
     public SweepPoint point(long id) {
         if (id < 0 || id >= size()) {

@@ -93,8 +93,11 @@ class DistributedCountTableTest {
                     }
                     assertEquals("primes", stage);
                 });
-        long tasks = d.requiredPrimes() + d.redundantPrimes();
-        // common practice, no source: a progress sequence rises to (total, total)
+        // the primes dealt to one task per worker thread (local[2, 2]: two), at most one task per prime
+        long tasks = PrimeTasks.taskCount(d.requiredPrimes() + d.redundantPrimes(), 2);
+        assertEquals(Math.min(2, d.requiredPrimes() + d.redundantPrimes()), tasks);
+        assertEquals(9, PrimeTasks.taskCount(9, 64));
+        // common practice, no source: a progress sequence rises to (total, total), counting finished tasks
         assertTrue(!calls.isEmpty());
         for (int i = 0; i < calls.size(); i++) {
             assertEquals(tasks, calls.get(i)[1]);

@@ -28,8 +28,8 @@ import org.microtally.spectrum.Statistics;
  * (an exception) on any failure.
  */
 public final class LocalClusterFaultDriver {
-    /** The write task that kills its executor on its first attempt. */
-    static final int DOOMED_PARTITION = 3;
+    /** The write task (of two: one per executor core) that kills its executor on its first attempt. */
+    static final int DOOMED_PARTITION = 1;
 
     private LocalClusterFaultDriver() { }
 
@@ -87,7 +87,7 @@ public final class LocalClusterFaultDriver {
                 List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
         SweepResult sweep = Sweep.run(spark, grid);
         Dataset<Row> dying = sweep.dataset().mapPartitions(new HaltOnce(), Encoders.row(Sweep.SCHEMA));
-        new SweepResult(spark, dying, sweep.size()).writeParquet(out.toString());
+        SweepResult.writeParquet(dying, out.toString());
 
         // the checks
         if (removed.get() < 1) {
@@ -109,7 +109,7 @@ public final class LocalClusterFaultDriver {
             throw new IllegalStateException(back.size() + " rows read back for " + grid.size() + " points");
         }
         List<Row> expected = new ArrayList<>();
-        Sweep.rows(grid, 0, grid.size()).forEachRemaining(expected::add);
+        Sweep.taskRows(grid, 0, 1).forEachRemaining(expected::add);
         for (int i = 0; i < expected.size(); i++) {
             Row got = back.get(i);
             Row want = expected.get(i);

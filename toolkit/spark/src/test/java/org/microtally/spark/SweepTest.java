@@ -11,8 +11,13 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.stream.IntStream;
 import java.util.stream.Stream;
 import org.apache.spark.api.java.JavaRDD;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.scheduler.SparkListener;
+import org.apache.spark.scheduler.SparkListenerJobStart;
 import org.apache.spark.sql.Dataset;
 import org.apache.spark.sql.Row;
 import org.apache.spark.sql.SparkSession;
@@ -119,7 +124,7 @@ class SweepTest {
         String pq = dir.resolve("sweep.parquet").toString();
         twoLevel.writeParquet(pq);
         assertTrue(Files.exists(dir.resolve("sweep.parquet/_SUCCESS")));
-        Tabular back = new SweepResult(spark, spark.read().parquet(pq), twoLevel.size());
+        Tabular back = SweepResult.tabular(spark.read().parquet(pq).orderBy("point"));
         // common practice, no source: a round trip through a file format loses no row and changes no value
         assertEquals(twoLevel.columnNames(), back.columnNames());
         assertEquals(twoLevel.rows(), back.rows());
@@ -140,9 +145,9 @@ class SweepTest {
             }
             return r;
         });
-        SweepResult broken = new SweepResult(spark, spark.createDataFrame(failing, Sweep.SCHEMA), twoLevel.size());
+        Dataset<Row> broken = spark.createDataFrame(failing, Sweep.SCHEMA);
         Path out = dir.resolve("broken.parquet");
-        assertThrows(Exception.class, () -> broken.writeParquet(out.toString()));
+        assertThrows(Exception.class, () -> SweepResult.writeParquet(broken, out.toString()));
         // Source: Hadoop FileOutputCommitter protocol (task output under _temporary, moved into place only on
         // job commit, _temporary removed on abort): no _SUCCESS marker and no part file is visible
         if (Files.exists(out)) {
@@ -160,12 +165,114 @@ class SweepTest {
     @Test
     void theDriverRefusesResultsBeyondItsMemoryAndSaysHowLarge() {
         InvalidInputException ex = assertThrows(InvalidInputException.class,
-                () -> Sweep.requireDriverMemory(1_000_000_000L, 1L << 30, "collect it"));
-        // common practice, no source: the refusal states the estimate (10^9 rows x 640 bytes) and the limit
-        assertTrue(ex.getMessage().contains("1000000000 rows x 640 bytes"), ex.getMessage());
-        assertTrue(ex.getMessage().contains("512 MiB"), ex.getMessage());
+                () -> Sweep.requireDriverMemory(1_000_000_000L, 1L << 30));
+        // common practice, no source: the refusal states the grid size, the estimate (10^9 rows x 2560 bytes =
+        // 2.44e6 MiB), the limit (half of 1 GiB at 2560 bytes a row = 209715 rows, by hand) and the ways out
+        String m = ex.getMessage();
+        assertTrue(m.contains("1000000000 grid points") && m.contains("2560 bytes") && m.contains("2.44e+06 MiB"), m);
+        assertTrue(m.contains("at most 209715 rows"), m);
+        assertTrue(m.contains("Sweep.writeParquet") && m.contains("-Xmx") && m.contains("MICROTALLY_HEAP")
+                && m.contains("split the grid"), m);
+        Sweep.requireDriverMemory(209_715L, 1L << 30);   // exactly at the limit: accepted
+        assertThrows(InvalidInputException.class, () -> Sweep.requireDriverMemory(209_716L, 1L << 30));
         assertThrows(InvalidInputException.class, () -> SweepResult.collect(twoLevel.dataset(), 1000));
         assertEquals(twoLevel.size(), SweepResult.collect(twoLevel.dataset(), Runtime.getRuntime().maxMemory()).size());
+    }
+
+    @Test
+    void aSweepBeyondTheDriversMemoryIsRefusedBeforeAnyJobRuns() throws InterruptedException {
+        long limit = Sweep.driverRowLimit(Runtime.getRuntime().maxMemory());
+        int side = (int) Math.ceil(Math.sqrt((limit + 1) / 2.0)) + 1;
+        double[] temps = IntStream.range(0, side).mapToDouble(i -> 1.0 + i).toArray();
+        int[] particles = IntStream.range(1, side + 1).toArray();
+        SweepGrid big = SweepGrid.of(List.of(SpectrumSpec.equallySpaced(2, 1.0)), particles, temps,
+                List.of(Statistics.BOSE), List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
+        assertTrue(big.size() > limit);
+        AtomicInteger jobs = new AtomicInteger();
+        AtomicInteger markerJobs = new AtomicInteger();
+        SparkListener counter = new SparkListener() {
+            @Override
+            public void onJobStart(SparkListenerJobStart start) {
+                String g = start.properties() == null ? null : start.properties().getProperty("spark.jobGroup.id");
+                (("refusal-marker").equals(g) ? markerJobs : jobs).incrementAndGet();
+            }
+        };
+        spark.sparkContext().addSparkListener(counter);
+        try {
+            InvalidInputException ex = assertThrows(InvalidInputException.class, () -> Sweep.run(spark, big));
+            assertTrue(ex.getMessage().contains(big.size() + " grid points"), ex.getMessage());
+            // a marker job after the refusal: the listener sees job starts in order, so once it has seen the
+            // marker it has seen any job the refused run started
+            spark.sparkContext().setJobGroup("refusal-marker", "marker", false);
+            JavaSparkContext.fromSparkContext(spark.sparkContext()).parallelize(List.of(1), 1).count();
+            spark.sparkContext().clearJobGroup();
+            long deadline = System.nanoTime() + 30_000_000_000L;
+            while (markerJobs.get() == 0 && System.nanoTime() < deadline) {
+                Thread.sleep(20);
+            }
+            assertEquals(1, markerJobs.get());
+            // common practice, no source: the refusal comes from the grid size alone, before any Spark job
+            assertEquals(0, jobs.get());
+        } finally {
+            spark.sparkContext().removeSparkListener(counter);
+        }
+    }
+
+    @Test
+    void heldRowsAreIdenticalToPointByPointEvaluationAndToTheDistributedPath() {
+        // notebook 08's kind of grid, small: cutoffs that follow kT, two traps, both statistics and ensembles
+        SweepGrid grid = SweepGrid.of(List.of(SpectrumSpec.oscillatorFollowingKT(new int[] {4, 4, 1}, 12, 6),
+                SpectrumSpec.oscillator(new int[] {3, 3, 1}, 14)), new int[] {2, 5, 9}, new double[] {0.4, 1.1, 2.5, 3.0},
+                List.of(Statistics.BOSE, Statistics.FERMI), List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
+        SweepResult held = Sweep.run(spark, grid);
+        List<Row> distributed = Sweep.distributed(spark, grid).orderBy("point").collectAsList();
+        assertEquals(grid.size(), held.size());
+        assertEquals(grid.size(), distributed.size());
+        List<List<Object>> rows = held.rows();
+        for (int i = 0; i < grid.size(); i++) {
+            // Source: independent computation, each point evaluated alone on the test thread (its own spectrum
+            // build, no task split); every cell bit for bit
+            Row alone = Sweep.evaluate(grid.point(i));
+            for (int c = 0; c < Sweep.SCHEMA.size(); c++) {
+                assertEquals(alone.get(c), rows.get(i).get(c), "point " + i + " column " + Sweep.SCHEMA.fieldNames()[c]);
+                assertEquals(alone.get(c), distributed.get(i).get(c), "point " + i + " column " + Sweep.SCHEMA.fieldNames()[c]);
+            }
+        }
+    }
+
+    @Test
+    void tasksTakeInterleavedBlocksThatCoverEveryPointOnce() {
+        SweepGrid grid = SweepGrid.of(List.of(SpectrumSpec.equallySpaced(3, 1.0)), new int[] {1, 2, 3},
+                new double[] {0.5, 1, 2, 4, 8}, List.of(Statistics.BOSE, Statistics.FERMI),
+                List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
+        // common practice, no source: a partition of the points: each exactly once over the tasks, blocks of the
+        // 4 points (2 statistics x 2 ensembles) that share a spectrum build kept together, blocks dealt in turn
+        for (int tasks : new int[] {1, 2, 3, 7, 60}) {
+            boolean[] seen = new boolean[(int) grid.size()];
+            for (int t = 0; t < tasks; t++) {
+                java.util.Iterator<Row> it = Sweep.taskRows(grid, t, tasks);
+                while (it.hasNext()) {
+                    long id = it.next().getLong(0);
+                    assertFalse(seen[(int) id], "point " + id + " twice");
+                    assertEquals(t, (id / 4) % tasks, "point " + id + " in task " + t + " of " + tasks);
+                    seen[(int) id] = true;
+                }
+            }
+            for (int i = 0; i < seen.length; i++) {
+                assertTrue(seen[i], "point " + i + " missing with " + tasks + " tasks");
+            }
+        }
+        assertEquals(2, Sweep.taskCount(2000, 2));
+        assertEquals(64, Sweep.taskCount(1_000_000, 64));
+        assertEquals(128, Sweep.taskCount(10_000_000, 64));   // 78125 points a task, under the 100000 cap
+        assertEquals(3, Sweep.taskCount(3, 8));
+    }
+
+    @Test
+    void theSessionHasOneShufflePartitionPerWorkerThread() {
+        // common practice, no source: local[2, 2] has two worker threads
+        assertEquals(2, spark.sparkContext().defaultParallelism());
+        assertEquals("2", spark.conf().get("spark.sql.shuffle.partitions"));
     }
 
     @Test
