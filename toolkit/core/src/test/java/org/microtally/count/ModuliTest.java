@@ -37,6 +37,8 @@ class ModuliTest {
             for (int k = 1; k <= all.length; k++) {
                 long[] p = java.util.Arrays.copyOf(all, k);
                 Moduli.Crt crt = new Moduli.Crt(p);
+                // both digit paths: doubles for 50-bit moduli from MIN_PRIMES_IN_DOUBLES on (with a hardware FMA), Shoup else
+                assertEquals(FmaModulus.HARDWARE && p[0] < FmaModulus.LIMIT && k >= Moduli.Crt.MIN_PRIMES_IN_DOUBLES, crt.digitsInDoubles(), "k=" + k);
                 long[][] res = new long[k][60];
                 for (int col = 0; col < 60; col++) {
                     for (int i = 0; i < k; i++) {
@@ -174,6 +176,8 @@ class ModuliTest {
                     }
                 }
                 Moduli.Crt crt = new Moduli.Crt(p);
+                // both digit paths: doubles for 50-bit moduli from MIN_PRIMES_IN_DOUBLES on (with a hardware FMA), Shoup else
+                assertEquals(FmaModulus.HARDWARE && p[0] < FmaModulus.LIMIT && k >= Moduli.Crt.MIN_PRIMES_IN_DOUBLES, crt.digitsInDoubles(), "k=" + k);
                 BigInteger[] got = crt.reconstructAll(res);
                 int from = 37;
                 BigInteger[] part = crt.reconstructRange(res, from, size - from - 5);
