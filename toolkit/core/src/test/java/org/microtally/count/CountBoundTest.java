@@ -29,6 +29,21 @@ class CountBoundTest {
     }
 
     /** ln G(e^u, e^v) - N u - E v. */
+    /**
+     * The bound in bits (with the 2-bit margin) at the best point of a grid over u in [uMin, 0] and
+     * v in [vMin, 0] with steps du, dv: a brute-force minimisation of the same saddle-point function.
+     */
+    private static double gridSearchBits(double[][] c, int[] en, int maxN, int maxE,
+                                         double uMin, double du, double vMin, double dv) {
+        double grid = Double.POSITIVE_INFINITY;
+        for (double u = uMin; u <= 0; u += du) {
+            for (double v = vMin; v <= 0; v += dv) {
+                grid = Math.min(grid, saddle(c, en, maxN, maxE, u, v));
+            }
+        }
+        return Math.max(grid / Math.log(2), 0) + 2;
+    }
+
     private static double saddle(double[][] c, int[] en, int maxN, int maxE, double u, double v) {
         double f = -maxN * u - maxE * v;
         for (int l = 0; l < c.length; l++) {
@@ -62,14 +77,7 @@ class CountBoundTest {
             }
             // Source: Flajolet & Sedgewick, Analytic Combinatorics, Ch. VIII (saddle-point bounds dominate every coefficient)
             assertTrue(largest <= bits + 1, "trial " + trial + ": bound " + bits + " vs " + largest + " bits");
-            double[][] c = coefficients(en, g, st, maxN, maxE);
-            double grid = Double.POSITIVE_INFINITY;
-            for (double u = -12; u <= 0; u += 0.08) {
-                for (double v = -6; v <= 0; v += 0.04) {
-                    grid = Math.min(grid, saddle(c, en, maxN, maxE, u, v));
-                }
-            }
-            double gridBits = Math.max(grid / Math.log(2), 0) + 2;
+            double gridBits = gridSearchBits(coefficients(en, g, st, maxN, maxE), en, maxN, maxE, -12, 0.08, -6, 0.04);
             // Source: independent brute force (grid search of the same saddle-point function)
             assertTrue(bits <= gridBits + 0.01, "trial " + trial + ": Newton " + bits + " vs grid " + gridBits);
         }
@@ -104,14 +112,7 @@ class CountBoundTest {
             // Source: Flajolet & Sedgewick, Analytic Combinatorics, Ch. VIII (saddle-point bounds dominate every
             // coefficient); exact counts from the independent BigInteger recursion
             assertTrue(ExactLog.ln(largest) / Math.log(2) <= bits, what);
-            double[][] coeff = coefficients(en, g, st, maxN, maxE);
-            double grid = Double.POSITIVE_INFINITY;
-            for (double u = -8; u <= 0; u += 0.05) {
-                for (double v = -1.5; v <= 0; v += 0.01) {
-                    grid = Math.min(grid, saddle(coeff, en, maxN, maxE, u, v));
-                }
-            }
-            double gridBits = Math.max(grid / Math.log(2), 0) + 2;
+            double gridBits = gridSearchBits(coefficients(en, g, st, maxN, maxE), en, maxN, maxE, -8, 0.05, -1.5, 0.01);
             // Source: independent brute force (grid search of the same saddle-point function)
             assertTrue(bits <= gridBits + 0.01, what + " vs grid " + gridBits);
         }

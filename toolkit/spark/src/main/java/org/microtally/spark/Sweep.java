@@ -128,22 +128,22 @@ public final class Sweep {
      * (then with a {@code _SUCCESS} marker); refuses to overwrite an existing directory.
      */
     public static void writeParquet(SparkSession spark, SweepGrid grid, String directory, ProgressListener progress) {
-        Objects.requireNonNull(directory, "directory");
-        Dataset<Row> rows = distributed(spark, grid);
-        int tasks = rows.rdd().getNumPartitions();
-        SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", () -> {
-            SweepResult.writeParquet(rows, directory);
-            return null;
-        });
+        write(spark, grid, directory, progress, SweepResult::writeParquet);
     }
 
     /** As {@link #writeParquet(SparkSession, SweepGrid, String, ProgressListener)}, as CSV files with a header line. */
     public static void writeCsv(SparkSession spark, SweepGrid grid, String directory, ProgressListener progress) {
+        write(spark, grid, directory, progress, SweepResult::writeCsv);
+    }
+
+    /** The grid's rows, evaluated by the tasks, written by {@code writer} into {@code directory} in one job. */
+    private static void write(SparkSession spark, SweepGrid grid, String directory, ProgressListener progress,
+                              java.util.function.BiConsumer<Dataset<Row>, String> writer) {
         Objects.requireNonNull(directory, "directory");
         Dataset<Row> rows = distributed(spark, grid);
         int tasks = rows.rdd().getNumPartitions();
         SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks", () -> {
-            SweepResult.writeCsv(rows, directory);
+            writer.accept(rows, directory);
             return null;
         });
     }

@@ -137,6 +137,22 @@ class SweepTest {
     }
 
     @Test
+    void gridWrittenStraightToFilesHoldsTheRowsOfTheHeldSweep(@TempDir Path dir) {
+        SweepGrid grid = SweepGrid.of(List.of(SpectrumSpec.equallySpaced(2, 1.0)), PARTICLES, TEMPERATURES,
+                List.of(Statistics.DISTINGUISHABLE, Statistics.FERMI), List.of(Ensemble.CANONICAL, Ensemble.GRAND_CANONICAL));
+        String pq = dir.resolve("grid.parquet").toString();
+        Sweep.writeParquet(spark, grid, pq, org.microtally.ProgressListener.NONE);
+        Tabular back = SweepResult.tabular(spark.read().parquet(pq).orderBy("point"));
+        // independent route: the same grid evaluated by Sweep.run and held on the driver (rows identical)
+        assertEquals(twoLevel.columnNames(), back.columnNames());
+        assertEquals(twoLevel.rows(), back.rows());
+        String csv = dir.resolve("grid.csv").toString();
+        Sweep.writeCsv(spark, grid, csv, org.microtally.ProgressListener.NONE);
+        // common practice, no source: one CSV line a grid point, with a header
+        assertEquals(twoLevel.size(), spark.read().option("header", "true").csv(csv).count());
+    }
+
+    @Test
     void aFailedWriteLeavesNoPartialOutput(@TempDir Path dir) throws IOException {
         // every attempt of the task holding point 7 fails while the job writes its files
         JavaRDD<Row> failing = twoLevel.dataset().toJavaRDD().map(r -> {
