@@ -268,17 +268,11 @@ final class Moduli {
         }
 
         /**
-         * Index of the highest non-zero mixed-radix (Garner) digit of entry {@code index}, -1 for zero. The
-         * digits are unique, so the entry is below p_0 ... p_(m-1) exactly when this index is below m: with
-         * the redundant primes placed last, that is the consistency check without forming the BigInteger.
+         * {@code top[j]} = the index of the highest non-zero mixed-radix (Garner) digit of entry
+         * {@code from + j}, -1 for zero, for j &lt; count, block by block. The digits are unique, so an entry
+         * is below p_0 ... p_(m-1) exactly when this index is below m: with the redundant primes placed
+         * last, that is the consistency check without forming the BigInteger.
          */
-        int topDigit(long[][] residues, int index) {
-            int[] top = new int[1];
-            topDigits(residues, index, 1, top);
-            return top[0];
-        }
-
-        /** {@code top[j] = topDigit(residues, from + j)} for j &lt; count, block by block. */
         void topDigits(long[][] residues, int from, int count, int[] top) {
             long[] r0 = residues[0];
             for (int b = 0; b < count; b += BLOCK) {

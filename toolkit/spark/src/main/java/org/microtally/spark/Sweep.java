@@ -73,6 +73,9 @@ public final class Sweep {
      * cutoff warnings; this leaves about 30% for longer warnings.
      */
     static final long BYTES_PER_ROW = 2560;
+    /** How a user gives the driver more heap, for the refusals that hold rows on it. */
+    static final String MORE_HEAP = "give the driver more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, "
+            + "install-kernel --heap 4g for the kernel)";
     /** Fraction of the driver's maximum heap that held results may take. */
     static final double DRIVER_MEMORY_FRACTION = 0.5;
     /** Most points one task computes (a retried task recomputes them all): large grids get more tasks. */
@@ -97,12 +100,11 @@ public final class Sweep {
         Objects.requireNonNull(grid, "grid");
         long size = grid.size();
         requireDriverMemory(size, Runtime.getRuntime().maxMemory());
-        JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
-        int tasks = taskCount(size, jsc.defaultParallelism());
-        List<Integer> ids = IntStream.range(0, tasks).boxed().toList();
+        JavaRDD<Integer> ids = taskIds(spark, grid);
+        int tasks = ids.getNumPartitions();
         // one job: each task returns its points' rows, the driver puts every row at its point's index
         List<Row[]> parts = SparkProgress.run(spark.sparkContext(), progress, tasks, "sweep tasks",
-                () -> jsc.parallelize(ids, tasks).map(t -> {
+                () -> ids.map(t -> {
                     List<Row> out = new ArrayList<>();
                     taskRows(grid, t, tasks).forEachRemaining(out::add);
                     return out.toArray(new Row[0]);
@@ -152,11 +154,16 @@ public final class Sweep {
     static Dataset<Row> distributed(SparkSession spark, SweepGrid grid) {
         Objects.requireNonNull(spark, "spark");
         Objects.requireNonNull(grid, "grid");
+        JavaRDD<Integer> ids = taskIds(spark, grid);
+        int tasks = ids.getNumPartitions();
+        return spark.createDataFrame(ids.flatMap(t -> taskRows(grid, t, tasks)), SCHEMA);
+    }
+
+    /** The task indices 0 .. {@link #taskCount} - 1 of the grid on this session, one per partition. */
+    private static JavaRDD<Integer> taskIds(SparkSession spark, SweepGrid grid) {
         JavaSparkContext jsc = JavaSparkContext.fromSparkContext(spark.sparkContext());
         int tasks = taskCount(grid.size(), jsc.defaultParallelism());
-        List<Integer> ids = IntStream.range(0, tasks).boxed().toList();
-        JavaRDD<Row> rows = jsc.parallelize(ids, tasks).flatMap(t -> taskRows(grid, t, tasks));
-        return spark.createDataFrame(rows, SCHEMA);
+        return jsc.parallelize(IntStream.range(0, tasks).boxed().toList(), tasks);
     }
 
     /**
@@ -234,8 +241,7 @@ public final class Sweep {
                     String.format(Locale.ROOT, "at most %d rows (%.3g MiB, half the driver's maximum heap of %.3g MiB)",
                             limit, limit * (double) BYTES_PER_ROW / (1 << 20), maxHeap / (double) (1 << 20)),
                     "Write the rows to files instead (Sweep.writeParquet or Sweep.writeCsv, which hold nothing on the "
-                            + "driver; or the sweep job of the job jar), give the driver more heap (-Xmx; MICROTALLY_HEAP=4g "
-                            + "for toolkit/bin/microtally, install-kernel --heap 4g for the kernel), or split the grid.");
+                            + "driver; or the sweep job of the job jar), " + MORE_HEAP + ", or split the grid.");
         }
     }
 

@@ -117,9 +117,8 @@ public final class SweepResult implements Tabular {
         if (got.size() > limit) {
             throw InvalidInputException.of("rows of a query brought to the driver", "more than " + limit,
                     "at most " + limit + " (half the driver's maximum heap at " + Sweep.BYTES_PER_ROW + " bytes a row)",
-                    "Aggregate the rows with Spark SQL first, write them to files (Dataset.write()), or give the "
-                            + "driver more heap (-Xmx; MICROTALLY_HEAP=4g for toolkit/bin/microtally, "
-                            + "install-kernel --heap 4g for the kernel).");
+                    "Aggregate the rows with Spark SQL first, write them to files (Dataset.write()), or "
+                            + Sweep.MORE_HEAP + ".");
         }
         return cells(got);
     }
