@@ -32,7 +32,8 @@ import org.microtally.spectrum.Statistics;
 /**
  * Measured script (run by spark-scaling.sh, not part of any test run); prints a plain two-column table,
  * the load average first and last. In one JVM: the distributed count table against the local
- * multi-modular path (five alternating pairs in one local[2] session, each checked bit-identical),
+ * multi-modular path (nine alternating pairs after five warm-up pairs in one local[2] session, each
+ * checked bit-identical),
  * local[1] against local[2] for the count table, two 2,000-point trap sweeps, a labelled table, a
  * lattice g(E, M) and a prefix enumeration; the count table's and the sweeps' speed-ups beside the
  * ceiling of the same work in 1 and 2 plain Java threads, measured in the same alternating sessions
@@ -44,11 +45,19 @@ import org.microtally.spectrum.Statistics;
  * both ensembles) with a fixed cutoff of 80 quanta, a few tenths of a second of work on one thread, so
  * Spark's fixed cost per job shows; the work-dominated one has the same traps with N 100..1600, kT
  * 0.6..30 and the cutoff following kT (max(30, 3 kT) quanta: at high kT a coarse cutoff, said in each
- * row's warnings, which does not matter for timing), about 3-4 s of work on one thread. Every time is the
+ * row's warnings, which does not matter for timing), about 3-4 s of work on one thread. Likewise two count
+ * tables: N = 100, E = 600 (the overhead target's size, a few tenths of a second) and a work-dominated
+ * one (N = WORK_N, E = WORK_E, seconds of prime work). Every time is the
  * median of REPEATS runs after one warm-up run; the local[1] and local[2] sessions alternate, one run of
  * each workload per session. Arguments: N E REPEATS [LATTICE_SIDE (default 8)].
  */
 public class SparkScaling {
+    /** Overhead pairs (distributed, local) measured, alternating which goes first, after WARM_PAIRS unmeasured. */
+    static final int PAIRS = 9;
+    static final int WARM_PAIRS = 5;
+    /** The work-dominated count table of the scaling rows (3D oscillator, Bose). */
+    static final int WORK_N = 200;
+    static final int WORK_E = 1100;
     static double median(List<Double> xs) {
         double[] a = xs.stream().mapToDouble(Double::doubleValue).sorted().toArray();
         return a.length % 2 == 1 ? a[a.length / 2] : 0.5 * (a[a.length / 2 - 1] + a[a.length / 2]);
@@ -191,11 +200,15 @@ public class SparkScaling {
         // local[2] and local[1] sessions alternate (2, 1, 1, 2, 2, 1, ...), one measurement of each workload per
         // session after a warm-up of each, so a load that drifts during the run biases neither side
         Lattice enumLattice = Lattice.square(5, 5, Boundary.FREE);
-        List<Integer> primeIndices = IntStream.range(0, plan.primeCount()).boxed().toList();
-        String[] names = {"count table", "empty job", "light sweep", "work sweep", "labelled", "lattice", "enumeration"};
+        // a count table where the prime work dominates Spark's fixed costs, as the work-dominated sweep does
+        Spectrum s2 = Spectra.harmonicOscillator(3, WORK_E);
+        PrimePlan plan2 = PrimePlan.of(s2, st, WORK_N, WORK_E, 1);
+        List<Integer> primeIndices = IntStream.range(0, plan.requiredPrimes()).boxed().toList();
+        String[] names = {"count table", "empty job", "light sweep", "work sweep", "labelled", "lattice", "enumeration",
+            "work table"};
         List<List<List<Double>>> times = runs(names.length);       // [workload][threads] -> runs
-        List<List<List<Double>>> plainTimes = runs(3);              // prime tasks, light sweep, work sweep
-        List<List<List<Double>>> plainCores = runs(3);
+        List<List<List<Double>>> plainTimes = runs(4);              // prime tasks, light sweep, work sweep, work table
+        List<List<List<Double>>> plainCores = runs(4);
         for (int r = 0; r < repeats; r++) {
             for (int threads : r % 2 == 0 ? new int[] {2, 1} : new int[] {1, 2}) {
                 SparkSession spark = Clusters.local(threads);
@@ -203,20 +216,25 @@ public class SparkScaling {
                         org.apache.spark.api.java.JavaSparkContext.fromSparkContext(spark.sparkContext());
                 Runnable[] workloads = {
                     () -> DistributedCountTable.of(spark, s, st, n, e),
-                    // an empty job of as many tasks as the distributed table uses (its primes dealt to the threads)
+                    // an empty job of as many tasks as the distributed table uses (its required primes dealt to the
+                    // threads; the redundant prime is computed on the driver)
                     () -> jsc.parallelize(primeIndices, Math.min(primeIndices.size(), threads)).collect(),
                     () -> Sweep.run(spark, light),
                     () -> Sweep.run(spark, work),
                     () -> DistributedLabelledCounts.table(spark, dot, Statistics.FERMI, 24, 30, ProgressListener.NONE),
                     () -> DistributedLattice.densityOfStates(spark, sq, ising, true, ProgressListener.NONE),
                     () -> DistributedLattice.enumerate(spark, enumLattice, ising, true, ProgressListener.NONE),
+                    () -> DistributedCountTable.of(spark, s2, st, WORK_N, WORK_E),
                 };
                 // the ceilings: the same work in plain Java threads (no Spark), as many as the session has, split
                 // as the Spark tasks split it, measured in the same session so a drifting load meets both alike
                 Runnable[] plain = {
-                    () -> inThreads(threads, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE)),
+                    () -> inThreads(threads, plan.requiredPrimes(), plan.primeCount(),
+                            i -> plan.residues(i, ProgressListener.NONE)),
                     () -> inThreads(threads, 2, t -> drain(Sweep.taskRows(light, t, 2))),
                     () -> inThreads(threads, 2, t -> drain(Sweep.taskRows(work, t, 2))),
+                    () -> inThreads(threads, plan2.requiredPrimes(), plan2.primeCount(),
+                            i -> plan2.residues(i, ProgressListener.NONE)),
                 };
                 for (Runnable warm : workloads) {
                     warm.run();
@@ -241,15 +259,19 @@ public class SparkScaling {
                 med[w][t] = median(times.get(w).get(t));
             }
         }
-        double[][] ceilings = new double[3][];
-        for (int w = 0; w < 3; w++) {
+        double[][] ceilings = new double[4][];
+        for (int w = 0; w < 4; w++) {
             ceilings[w] = new double[] {median(plainTimes.get(w).get(1)), median(plainTimes.get(w).get(2)),
                 median(plainCores.get(w).get(1)), median(plainCores.get(w).get(2))};
         }
         ceilingRows("prime tasks", ceilings[0]);
         ceilingRows("light 2,000-point sweep (2 interleaved task shares)", ceilings[1]);
         ceilingRows("work-dominated 2,000-point sweep (2 task shares)", ceilings[2]);
+        ceilingRows(String.format(Locale.ROOT, "prime tasks of the work-dominated table (N = %d, E = %d)", WORK_N, WORK_E),
+                ceilings[3]);
         speedUpRow("distributed CountTable", med[0], ceilings[0]);
+        speedUpRow(String.format(Locale.ROOT, "work-dominated distributed CountTable (N = %d, E = %d, %d + %d primes)",
+                WORK_N, WORK_E, plan2.requiredPrimes(), plan2.redundantPrimes()), med[7], ceilings[3]);
         row("empty Spark job of min(" + plan.primeCount() + " primes, threads) tasks", "local[2] %.3f s, local[1] %.3f s",
                 med[1][2], med[1][1]);
         speedUpRow("light 2,000-point sweep (Sweep.run)", med[2], ceilings[1]);
@@ -263,13 +285,15 @@ public class SparkScaling {
         // the count-table overhead: distributed local[2] vs the local multi-modular path on the same 2 cores, in
         // alternating pairs in one session, each pair checked bit-identical
         SparkSession spark = Clusters.local(2);
-        DistributedCountTable.of(spark, s, st, n, e);
-        CountTable.of(s, st, n, e);
+        for (int warm = 0; warm < WARM_PAIRS; warm++) {
+            DistributedCountTable.of(spark, s, st, n, e);
+            CountTable.of(s, st, n, e);
+        }
         List<Double> ratios = new ArrayList<>();
         List<Double> distTimes = new ArrayList<>();
         List<Double> localTimes = new ArrayList<>();
         int identical = 0;
-        for (int pair = 0; pair < 5; pair++) {
+        for (int pair = 0; pair < PAIRS; pair++) {
             DistributedCountTable[] d = new DistributedCountTable[1];
             CountTable[] loc = new CountTable[1];
             double td;
@@ -295,13 +319,13 @@ public class SparkScaling {
                 median(localTimes), Collections.min(localTimes), Collections.max(localTimes));
         row("count table distributed local[2]", "median %.3f s (min %.3f, max %.3f)",
                 median(distTimes), Collections.min(distTimes), Collections.max(distTimes));
-        row("OVERHEAD distributed / local, 5 alternating pairs", "median %.2fx (min %.2fx, max %.2fx); %d of 5 bit-identical",
-                median(ratios), Collections.min(ratios), Collections.max(ratios), identical);
-        double oneRound = median(perPrime);
-        row("  of which: the redundant prime (one more round of tasks)", "about %.3f s (one prime; %d primes on 2 threads "
-                + "= %d on one of them against %d for the local path's %d primes)", oneRound, plan.primeCount(),
-                (plan.primeCount() + 1) / 2, (plan.requiredPrimes() + 1) / 2, plan.requiredPrimes());
-        row("  of which: an empty job of as many tasks (2)", "%.3f s", med[1][2]);
+        row("OVERHEAD distributed / local, " + PAIRS + " alternating pairs after " + WARM_PAIRS + " warm-up pairs",
+                "median %.2fx (min %.2fx, max %.2fx); %d of %d bit-identical",
+                median(ratios), Collections.min(ratios), Collections.max(ratios), identical, PAIRS);
+        row("  of which: the redundant prime (on the driver, sharing the 2 cores)", "about %.3f s (half of one prime: "
+                + "%d primes on 2 cores against the local path's %d)", median(perPrime) / 2, plan.primeCount(),
+                plan.requiredPrimes());
+        row("  of which: an empty job of as many tasks (2)", "%.3f s (in the alternating sessions, less warmed up)", med[1][2]);
         row("  of which: the driver's check", "%.4f s", median(check));
 
         // bytes a held sweep row takes on the driver (Sweep.BYTES_PER_ROW is the estimate), on notebook 08's grid
@@ -378,13 +402,28 @@ public class SparkScaling {
 
     /** Runs job(0 .. tasks-1) on {@code threads} plain threads taking the next index from one counter. */
     static void inThreads(int threads, int tasks, java.util.function.IntFunction<?> job) {
+        inThreads(threads, tasks, tasks, job);
+    }
+
+    /**
+     * job(i) for i &lt; tasks on {@code threads} threads taking the next index, and job(i) for tasks &lt;= i &lt;
+     * all on one more thread of its own (the distributed count table's driver-side redundant prime).
+     */
+    static void inThreads(int threads, int tasks, int all, java.util.function.IntFunction<?> job) {
         java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
         java.util.concurrent.atomic.AtomicLong cpuNanos = new java.util.concurrent.atomic.AtomicLong();
-        Thread[] ts = new Thread[threads];
-        for (int t = 0; t < threads; t++) {
+        Thread[] ts = new Thread[threads + (all > tasks ? 1 : 0)];
+        for (int t = 0; t < ts.length; t++) {
+            boolean driver = t == threads;
             ts[t] = new Thread(() -> {
-                for (int i = next.getAndIncrement(); i < tasks; i = next.getAndIncrement()) {
-                    job.apply(i);
+                if (driver) {
+                    for (int i = tasks; i < all; i++) {
+                        job.apply(i);
+                    }
+                } else {
+                    for (int i = next.getAndIncrement(); i < tasks; i = next.getAndIncrement()) {
+                        job.apply(i);
+                    }
                 }
                 cpuNanos.addAndGet(java.lang.management.ManagementFactory.getThreadMXBean().getCurrentThreadCpuTime());
             });

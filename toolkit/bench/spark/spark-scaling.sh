@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Measured script for the Spark module (the README performance rows): distributed CountTable vs the
-# local multi-modular path (5 alternating pairs), local[1] vs local[2] beside the plain-thread ceiling of
+# local multi-modular path (9 alternating pairs after 5 warm-up pairs), local[1] vs local[2] beside the plain-thread ceiling of
 # the same work, a light and a work-dominated 2,000-point trap sweep, all in one JVM run; a plain table,
 # load average first.
 #   toolkit/bench/spark/spark-scaling.sh [N E REPEATS LATTICE_SIDE]      (default 100 600 3 8)

@@ -8,7 +8,10 @@ import org.microtally.InvalidInputException;
  * Spark sessions with the toolkit's defaults: no web UI, one shuffle partition per worker thread
  * ({@code spark.sql.shuffle.partitions} = the session's default parallelism instead of Spark's 200:
  * results here are small, and every partition is a task), the driver bound to the loopback address in
- * local mode, and Spark's own log level at WARN.
+ * local mode, task results up to {@value #DIRECT_RESULT_LIMIT} sent straight to the driver (Spark's default is
+ * 1m: a larger result, such as the 2.4 MB of residues a count-table task returns at N = 100, E = 600, is
+ * first stored in the executor's block manager and then fetched, which cost about 17 ms of a 0.25 s table
+ * here), and Spark's own log level at WARN.
  *
  * <p>{@link #local(int)} is the embedded default (no cluster needed); {@link #connect(String, String)}
  * takes any master URL ({@code local[*]}, {@code spark://host:7077}, {@code yarn}, ...). When the code
@@ -17,6 +20,12 @@ import org.microtally.InvalidInputException;
  */
 public final class Clusters {
     private Clusters() { }
+
+    /**
+     * {@code spark.task.maxDirectResultSize}: task results up to this size go to the driver in the task's
+     * status message (Spark caps it at {@code spark.rpc.message.maxSize}, 128m by default).
+     */
+    static final String DIRECT_RESULT_LIMIT = "64m";
 
     /** A local session with {@code threads} worker threads ({@code local[threads]}). */
     public static SparkSession local(int threads) {
@@ -59,7 +68,8 @@ public final class Clusters {
         SparkSession.Builder b = SparkSession.builder().master(master).appName(appName)
                 .config("spark.ui.enabled", "false")
                 .config("spark.ui.showConsoleProgress", "false")
-                .config("spark.sql.adaptive.enabled", "false");
+                .config("spark.sql.adaptive.enabled", "false")
+                .config("spark.task.maxDirectResultSize", DIRECT_RESULT_LIMIT);
         if (master.startsWith("local")) {
             b = b.config("spark.driver.host", "127.0.0.1").config("spark.driver.bindAddress", "127.0.0.1");
         }

@@ -18,14 +18,18 @@ import org.microtally.spectrum.Statistics;
  * Chinese remaindering on the driver. Immutable.
  *
  * <p><b>Method.</b> {@link PrimePlan} fixes the primes from the proven bound on every entry and adds
- * one redundant prime; each Spark task computes the whole table modulo each of its primes by the same
- * recursion {@link CountTable} uses (the class notes there give the formula and cost); the driver
+ * one redundant prime; each Spark task computes the whole table modulo each of its required primes by the
+ * same recursion {@link CountTable} uses (the class notes there give the formula and cost), and the driver
+ * computes the table modulo the redundant prime by the same code while the tasks run (one prime's working
+ * memory is one residue array, which the driver holds for every prime anyway; so the check is computed
+ * by another process than the residues it checks and adds no round of tasks); the driver
  * collects the residues and checks every entry against the redundant prime (Garner's mixed-radix
  * digits over all primes, Knuth, TAOCP Vol. 2, Sec. 4.3.2, in long arithmetic: the residues agree
  * exactly when the digit of the redundant prime is zero); the entries themselves are rebuilt by Garner's
  * algorithm row by row when first read, by the same code as {@link CountTable} ({@link PrimePlan#table}). A task that fails is retried by Spark (up to
  * {@code spark.task.maxFailures} attempts, or the {@code local[n,attempts]} form); a task that returns
- * a wrong residue makes the check fail and the table is refused with an {@link IllegalStateException}.
+ * a wrong residue (or a driver whose own residue is wrong) makes the check fail and the table is refused
+ * with an {@link IllegalStateException}.
  *
  * <p><b>Accuracy.</b> Exact, entry by entry identical to {@link CountTable#of} (tested by comparing
  * every entry). Cost: the {@link CountTable} work per prime spread over the executors, plus shipping
@@ -68,8 +72,8 @@ public final class DistributedCountTable implements CountGrid {
 
     static DistributedCountTable compute(SparkSession spark, Spectrum spectrum, PrimePlan plan,
                                          ProgressListener progress, TaskFault fault) {
-        long[][] residues = PrimeTasks.run(spark, plan.primeCount(), i -> plan.residues(i, ProgressListener.NONE),
-                "primes", progress, fault);
+        long[][] residues = PrimeTasks.run(spark, plan.primeCount(), plan.redundantPrimes(),
+                i -> plan.residues(i, ProgressListener.NONE), "primes", progress, fault);
         return new DistributedCountTable(plan, plan.table(spectrum, residues));
     }
 
@@ -96,12 +100,12 @@ public final class DistributedCountTable implements CountGrid {
         return table.row(n);
     }
 
-    /** Primes whose product the bound proves exceeds every entry (computed in the Spark tasks). */
+    /** Primes whose product the bound proves exceeds every entry (each computed in a Spark task). */
     public int requiredPrimes() {
         return requiredPrimes;
     }
 
-    /** Extra primes (computed in the Spark tasks) that verified the reconstruction. */
+    /** Extra primes (computed on the driver while the tasks ran) that verified the reconstruction. */
     public int redundantPrimes() {
         return redundantPrimes;
     }

@@ -4,7 +4,10 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.Map;
 import java.util.Optional;
+import java.util.concurrent.ConcurrentHashMap;
+import org.apache.spark.TaskContext;
 import org.apache.spark.sql.SparkSession;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -32,9 +35,10 @@ class FaultToleranceTest {
     @Test
     void aTaskThatThrowsOnItsFirstAttemptIsRetriedAndTheTableIsUnchanged() {
         PrimePlan plan = plan();
-        // every task fails its first attempt; with local[2,2] the job only completes if Spark retried each
+        // every Spark task (the required primes; the redundant one is computed on the driver) fails its first
+        // attempt; with local[2,2] the job only completes if Spark retried each
         TaskFault firstAttemptFails = (task, attempt, result) -> {
-            if (attempt == 0) {
+            if (attempt == 0 && task < plan.requiredPrimes()) {
                 throw new IllegalStateException("injected failure of task " + task + ", attempt 0");
             }
             return result;
@@ -63,6 +67,7 @@ class FaultToleranceTest {
 
     @Test
     void aCorruptedRedundantResidueIsDetectedToo() {
+        // the redundant prime is computed on the driver; the hook corrupts it there
         PrimePlan plan = plan();
         int last = plan.primeCount() - 1;
         TaskFault corruptRedundant = (task, attempt, result) -> {
@@ -74,6 +79,28 @@ class FaultToleranceTest {
         assertThrows(IllegalStateException.class,
                 () -> DistributedCountTable.compute(spark, SPECTRUM, plan, ProgressListener.NONE, corruptRedundant));
         // (common practice, no source: a wrong redundant residue disagrees with the correct reconstruction)
+    }
+
+    /** Where each prime ran, recorded by the hook: index -> true inside a Spark task (same JVM in local mode). */
+    private static final Map<Integer, Boolean> RAN_IN_TASK = new ConcurrentHashMap<>();
+
+    @Test
+    void theRequiredPrimesRunAsSparkTasksAndTheRedundantOneOnTheDriver() {
+        PrimePlan plan = plan();
+        RAN_IN_TASK.clear();
+        TaskFault record = (task, attempt, result) -> {
+            RAN_IN_TASK.put(task, TaskContext.get() != null);
+            return result;
+        };
+        DistributedCountTable d = DistributedCountTable.compute(spark, SPECTRUM, plan, ProgressListener.NONE, record);
+        // common practice, no source: every prime computed once, the required ones in tasks, the check prime not
+        assertEquals(plan.primeCount(), RAN_IN_TASK.size());
+        for (int i = 0; i < plan.primeCount(); i++) {
+            assertEquals(i < plan.requiredPrimes(), RAN_IN_TASK.get(i), "prime " + i);
+        }
+        // Source: independent computation, the local CountTable (every entry compared)
+        Optional<String> diff = d.firstDifference(CountTable.of(SPECTRUM, Statistics.BOSE, 24, 40));
+        assertTrue(diff.isEmpty(), () -> diff.get());
     }
 
     private static long[][] residues(PrimePlan plan) {
