@@ -230,7 +230,7 @@ public final class AccuracyTable {
                     "Aberth-Ehrlich (double) then BigDecimal Newton/Aberth at digits+20, inclusion radius n abs(p/p')",
                     "requested digits, guaranteed (disjoint discs)"),
             row("`DistributedCountTable`",
-                    "CountTable's multi-modular recursion, the primes dealt to one Spark task per worker thread (one task per prime when there are as many threads); Garner CRT on the driver (Knuth TAOCP 2, 4.3.2); one redundant prime checks every entry",
+                    "CountTable's multi-modular recursion, the required primes dealt to one Spark task per worker thread (one task per prime when there are as many threads); Garner CRT on the driver (Knuth TAOCP 2, 4.3.2); one redundant prime, computed on the driver while the tasks run, checks every entry",
                     "exact; entry-by-entry identical to `CountTable` (tested); a corrupted residue is refused (tested)"),
             row("`Sweep`",
                     "one `Canonical` / `GrandCanonical` run per grid point in Spark tasks",
