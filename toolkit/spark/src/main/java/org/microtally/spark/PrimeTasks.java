@@ -98,6 +98,9 @@ final class PrimeTasks {
         try {
             driver.join();
         } catch (CompletionException e) {
+            if (e.getCause() instanceof Error err) {
+                throw err;
+            }
             throw e.getCause() instanceof RuntimeException re ? re : e;
         }
         for (List<Tuple2<Integer, long[]>> part : parts) {

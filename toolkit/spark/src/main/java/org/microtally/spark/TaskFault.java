@@ -3,9 +3,9 @@ package org.microtally.spark;
 import java.io.Serializable;
 
 /**
- * Test hook run inside each Spark task after its result is computed: may throw (to exercise Spark's
- * retries) or alter the result (to exercise the consistency checks). Package-private; production code
- * passes {@link #NONE}.
+ * Test hook run after each prime's result is computed, inside its Spark task (or on the driver for a
+ * prime {@link PrimeTasks} keeps there, with attempt 0): may throw (to exercise Spark's retries) or alter
+ * the result (to exercise the consistency checks). Package-private; production code passes {@link #NONE}.
  */
 @FunctionalInterface
 interface TaskFault extends Serializable {
