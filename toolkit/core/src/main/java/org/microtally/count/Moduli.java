@@ -137,8 +137,10 @@ final class Moduli {
      * are computed prime by prime in loops over the block's entries (independent multiplies the
      * processor overlaps), for the entries whose residues are not all equal (an entry whose residues
      * all equal r is r itself: 0 &lt;= r &lt; every p_i and the representative below the product is
-     * unique); a value of two digits that fits a long skips the limbs. Exact; results do not depend on
-     * the block size.
+     * unique); a value of two digits is a_1 p_0 + a_0 in two limbs, a long when it fits. The limbs reach
+     * BigInteger's byte constructor without leading zero bytes (its zero-skipping loop, whose trip count
+     * changes from entry to entry, cost about 3 ns per entry at 4 primes). Exact; results do not depend
+     * on the block size.
      *
      * <p><b>Digits in doubles.</b> With at least {@link #MIN_PRIMES_IN_DOUBLES} moduli, all below 2^50,
      * and a hardware FMA, the step t = (t - a_j) c_ji mod p_i runs on doubles over the gathered block in
@@ -155,11 +157,14 @@ final class Moduli {
         /**
          * Fewest moduli for which {@link #reconstructRange} computes the digits in doubles (every modulus
          * below 2^50 and a hardware FMA), Shoup multiplies in longs below it: the vector steps save about
-         * 1 ns per entry and prime pair (k (k-1)/2 pairs), against 2k - 1 conversion loops. Measured
-         * (CpuTimeRatios and a pre-touched-heap loop, notes/crtsimd.md): 4 primes no gain or a loss, 5 a
-         * loss of 1-2 ns, 6 a gain of 6 ns (9 %), 8 primes 30-50 ns (7-33 %) per entry.
+         * 1 ns per entry and prime pair (k (k-1)/2 pairs), against 2k - 1 conversion loops. Measured per
+         * entry of a whole 3D-oscillator Bose table (one thread, CPU time, median of 31 rounds after 3 s of
+         * warm-up), on the 2-core AMD EPYC machine with 512-bit vectors of 2026-12-04: 3 primes (30 x 150)
+         * 27.5-28.0 ns either way, 4 primes (40 x 200) 36.6-36.8 against 40.1-41.4 ns, 5 primes (60 x 300)
+         * 52.5-52.6 against 61.3-63.4 ns. An earlier machine with narrower vectors gained nothing at 4 primes
+         * and lost 1-2 ns at 5, and 6 primes gained 9 % there; the digits are the same bits either way.
          */
-        static final int MIN_PRIMES_IN_DOUBLES = 6;
+        static final int MIN_PRIMES_IN_DOUBLES = 4;
 
         /** True when this instance computes Garner's digits in doubles ({@link #MIN_PRIMES_IN_DOUBLES}). */
         boolean digitsInDoubles() {
@@ -311,16 +316,20 @@ final class Moduli {
             if (g == 0) {
                 return 0;
             }
-            for (int i = 0; i < k; i++) {
+            long[] d0 = digits[0];
+            for (int m = 0; m < g; m++) {
+                d0[m] = r0[start + pos[m]];
+            }
+            if (inDoubles) {
+                digitsInDoubles(residues, start, g);
+                return g;
+            }
+            for (int i = 1; i < k; i++) {
                 long[] ri = residues[i];
                 long[] d = digits[i];
                 for (int m = 0; m < g; m++) {
                     d[m] = ri[start + pos[m]];
                 }
-            }
-            if (inDoubles) {
-                digitsInDoubles(g);
-                return g;
             }
             for (int i = 1; i < k; i++) {
                 long pi = p[i];
@@ -343,15 +352,20 @@ final class Moduli {
         }
 
         /**
-         * Garner's digits of the g gathered entries in {@link #digits} (residues in, digits out), for
-         * moduli below 2^50: converted to doubles, {@link #garnerStep} prime pair by prime pair, and back.
+         * Garner's digits of the g entries gathered at {@link #at} (digit 0, the residue itself, already in
+         * {@link #digits}), for moduli below 2^50: the residues gathered straight into doubles,
+         * {@link #garnerStep} prime pair by prime pair, and the digits back into longs.
          */
-        private void digitsInDoubles(int g) {
+        private void digitsInDoubles(long[][] residues, int start, int g) {
             int k = p.length;
+            int[] pos = at;
             toDoubles(digits[0], digitsd[0], g);
             for (int i = 1; i < k; i++) {
                 double[] f = digitsd[i];
-                toDoubles(digits[i], f, g);
+                long[] ri = residues[i];
+                for (int m = 0; m < g; m++) {
+                    f[m] = Double.longBitsToDouble(ri[start + pos[m]] | TWO_TO_52_BITS) - 0x1p52; // as toDoubles
+                }
                 for (int j = 0; j < i; j++) {
                     garnerStep(f, digitsd[j], g, invd[i][j], pd[i], pdInv[i]);
                 }
@@ -424,12 +438,21 @@ final class Moduli {
             if (top == 0) {
                 return BigInteger.valueOf(a0);
             }
-            if (top == 1) { // a_1 p_0 + a_0 < 2^124: a long when it fits in 63 bits
+            if (top == 1) { // a_1 p_0 + a_0 < 2^124, in two unsigned limbs (a_1, p_0 < 2^62: the signed high word is the unsigned one)
                 long a1 = digits[1][m];
                 long lo = a1 * p[0];
-                if (Math.multiplyHigh(a1, p[0]) == 0 && lo >= 0 && lo + a0 >= 0) {
-                    return BigInteger.valueOf(lo + a0);
+                long hi = Math.multiplyHigh(a1, p[0]);
+                long sum = lo + a0;
+                if (Long.compareUnsigned(sum, lo) < 0) {
+                    hi++;
                 }
+                if (hi == 0 && sum >= 0) {
+                    return BigInteger.valueOf(sum);
+                }
+                long[] two = mag;
+                two[0] = sum;
+                two[1] = hi;
+                return ofLimbs(two, 2);
             }
             long[] a = digit;
             for (int i = 0; i <= top; i++) {
@@ -464,11 +487,20 @@ final class Moduli {
                     m[len++] = carry;
                 }
             }
+            return ofLimbs(m, len);
+        }
+
+        /**
+         * The BigInteger of the unsigned limbs {@code limb[0 .. len-1]} (least significant first, the top
+         * one non-zero): written big-endian and handed to the constructor without leading zero bytes.
+         */
+        private BigInteger ofLimbs(long[] limb, int len) {
             byte[] b = bytes;
             for (int l = 0; l < len; l++) {
-                BIG_ENDIAN_LONGS.set(b, 8 * (len - 1 - l), m[l]);
+                BIG_ENDIAN_LONGS.set(b, 8 * (len - 1 - l), limb[l]);
             }
-            return new BigInteger(1, b, 0, 8 * len);
+            int skip = Long.numberOfLeadingZeros(limb[len - 1]) >>> 3;
+            return new BigInteger(1, b, skip, 8 * len - skip);
         }
     }
 }
