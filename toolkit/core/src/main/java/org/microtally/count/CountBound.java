@@ -16,8 +16,9 @@ import org.microtally.exact.ExactLog;
  * e &lt;= E, and is a polynomial, so any x0, q0 is allowed), and bound every n &lt;= N, e &lt;= E at once
  * by ln G - N min(ln x0, 0) - E min(ln q0, 0). That function of (ln x0, ln q0) is convex, and we
  * minimise it by a projected Newton iteration with backtracking (J. Nocedal, S. J. Wright, Numerical
- * Optimization, 2nd ed., Springer 2006, Ch. 3 and 16.7), in about 25 evaluations (23 at N = 40, E = 200; each
- * costs about two products per term, see {@code Saddle}); every
+ * Optimization, 2nd ed., Springer 2006, Ch. 3 and 16.7), in 14 evaluations for the 3D oscillator at
+ * N = 20, 40, 100, 200 and E = 100, 200, 600, 1100 (22-26 before points already evaluated were recognised,
+ * see {@code newton}; each costs about two products per term, see {@code Saddle}); every
  * evaluated point is itself a valid bound and the smallest is kept, so the search quality affects
  * only tightness, never validity. For
  * distinguishable particles the bound is Z1(q0)^n / q0^e &lt;= max(1, Z1(q0)^N) / min(1, q0)^E.
@@ -97,7 +98,7 @@ final class CountBound {
         boolean bose = stats.kind() == Statistics.Kind.BOSE;
         double[] out = new double[top + 1];
         for (int j = 1; j <= top; j++) {
-            out[j] = out[j - 1] + Math.log(bose ? (double) g + j - 1 : (double) g - j + 1) - Math.log(j);
+            out[j] = out[j - 1] + Math.log((bose ? (double) g + j - 1 : (double) g - j + 1) / j);
         }
         return out;
     }
@@ -327,13 +328,18 @@ final class CountBound {
     /**
      * Projected Newton iteration with backtracking on the convex saddle function, from (0, 0), keeping
      * the smallest value seen (each one is a valid bound, so the search affects tightness only).
-     * Variables at 0 whose gradient points out of the quadrant are held there.
+     * Variables at 0 whose gradient points out of the quadrant are held there. A trial point the
+     * projection puts where the function was already evaluated (typically back at (0, 0) while the
+     * first steps halve towards the quadrant's edge: 9 of 23 evaluations at N = 40, E = 200) is judged
+     * by the value it had, and evaluated again only if it would be accepted (its gradient is needed then).
      */
     private static double newton(Saddle f) {
         double u = 0;
         double v = 0;
         f.at(u, v);
         double best = f.value;
+        Seen seen = new Seen();
+        seen.add(u, v, f.value);
         for (int it = 0; it < 60; it++) {
             boolean holdU = u >= 0 && f.gu < 0;
             boolean holdV = v >= 0 && f.gv < 0;
@@ -371,11 +377,18 @@ final class CountBound {
             for (int half = 0; half < 40; half++) {
                 nu = Math.max(-RANGE, Math.min(0, u + step * du));
                 nv = Math.max(-RANGE, Math.min(0, v + step * dv));
+                double accept = start + 1e-4 * step * Math.min(slope, 0);
+                int known = seen.indexOf(nu, nv);
+                if (known >= 0 && !(seen.value[known] <= accept)) {
+                    step *= 0.5; // already evaluated here (and in best): it fails again
+                    continue;
+                }
                 f.at(nu, nv);
+                seen.add(nu, nv, f.value);
                 if (!Double.isNaN(f.value)) {
                     best = Math.min(best, f.value);
                 }
-                if (f.value <= start + 1e-4 * step * Math.min(slope, 0)) {
+                if (f.value <= accept) {
                     moved = true;
                     break;
                 }
@@ -392,6 +405,35 @@ final class CountBound {
             }
         }
         return best;
+    }
+
+    /** The points {@link #newton} evaluated, with their values (NaN kept as NaN). */
+    private static final class Seen {
+        double[] u = new double[32];
+        double[] v = new double[32];
+        double[] value = new double[32];
+        int size;
+
+        void add(double pu, double pv, double pvalue) {
+            if (size == u.length) {
+                u = java.util.Arrays.copyOf(u, 2 * size);
+                v = java.util.Arrays.copyOf(v, 2 * size);
+                value = java.util.Arrays.copyOf(value, 2 * size);
+            }
+            u[size] = pu;
+            v[size] = pv;
+            value[size++] = pvalue;
+        }
+
+        /** The index of the point (pu, pv), exactly equal, or -1. */
+        int indexOf(double pu, double pv) {
+            for (int i = 0; i < size; i++) {
+                if (u[i] == pu && v[i] == pv) {
+                    return i;
+                }
+            }
+            return -1;
+        }
     }
 
     private interface Objective1 {
