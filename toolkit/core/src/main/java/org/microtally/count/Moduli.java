@@ -454,11 +454,43 @@ final class Moduli {
                 two[1] = hi;
                 return ofLimbs(two, 2);
             }
+            if (top == 2) {
+                return threeDigits(digits[2][m], digits[1][m], a0);
+            }
             long[] a = digit;
             for (int i = 0; i <= top; i++) {
                 a[i] = digits[i][m];
             }
             return horner(a, top);
+        }
+
+        /**
+         * (a_2 p_1 + a_1) p_0 + a_0 for digits a_i &lt; p_i &lt; 2^62 in three unsigned limbs: t = a_2 p_1 + a_1
+         * &lt; 2^124 in (th, tl), then t p_0 = tl p_0 + th p_0 2^64 (th &lt; 2^60, so th p_0 &lt; 2^122).
+         */
+        private BigInteger threeDigits(long a2, long a1, long a0) {
+            long q0 = p[0];
+            long tl = a2 * p[1];
+            long th = Math.multiplyHigh(a2, p[1]);
+            long s = tl + a1;
+            th += Long.compareUnsigned(s, tl) < 0 ? 1 : 0;
+            tl = s;
+            long lo0 = tl * q0;
+            long hi0 = Math.multiplyHigh(tl, q0) + ((tl >> 63) & q0); // unsigned high word of tl p_0
+            long lo1 = th * q0;
+            long hi1 = Math.multiplyHigh(th, q0);
+            long limb0 = lo0 + a0;
+            long c0 = Long.compareUnsigned(limb0, lo0) < 0 ? 1 : 0;
+            long limb1 = hi0 + lo1;
+            long c1 = Long.compareUnsigned(limb1, hi0) < 0 ? 1 : 0;
+            long limb1c = limb1 + c0;
+            c1 += Long.compareUnsigned(limb1c, limb1) < 0 ? 1 : 0;
+            long limb2 = hi1 + c1;
+            long[] l = mag;
+            l[0] = limb0;
+            l[1] = limb1c;
+            l[2] = limb2;
+            return ofLimbs(l, limb2 != 0 ? 3 : 2);
         }
 
         /**

@@ -57,8 +57,22 @@ class ModuliTest {
                 }
             }
         }
-        // the short cuts for small values (all residues equal; two Garner digits that fit in a long) and their edges
-        for (long[] all : new long[][] {Moduli.primes(4), Moduli.fmaPrimes(4)}) {
+        // the short cuts for small values (all residues equal; two Garner digits that fit in a long; two and
+        // three digits in limbs) and their edges, at limb boundaries and random inside the three-digit range
+        for (long[] all : new long[][] {Moduli.primes(5), Moduli.fmaPrimes(5)}) {
+            BigInteger two = BigInteger.valueOf(all[0]).multiply(BigInteger.valueOf(all[1]));
+            BigInteger three = two.multiply(BigInteger.valueOf(all[2]));
+            java.util.List<BigInteger> values = new java.util.ArrayList<>(java.util.List.of(BigInteger.ZERO,
+                    BigInteger.valueOf(12345), BigInteger.valueOf(all[0] - 1), BigInteger.valueOf(all[0]),
+                    BigInteger.valueOf(Long.MAX_VALUE), BigInteger.ONE.shiftLeft(63),
+                    BigInteger.ONE.shiftLeft(63).add(BigInteger.valueOf(all[0] - 1)), BigInteger.ONE.shiftLeft(64),
+                    BigInteger.ONE.shiftLeft(100).add(BigInteger.ONE), two.subtract(BigInteger.ONE), two,
+                    BigInteger.ONE.shiftLeft(127), BigInteger.ONE.shiftLeft(128).subtract(BigInteger.ONE),
+                    BigInteger.ONE.shiftLeft(128), three.subtract(BigInteger.ONE), three));
+            Random inRange = new Random(3L);
+            for (int i = 0; i < 64; i++) {
+                values.add(two.add(new BigInteger(three.bitLength() + 8, inRange).mod(three.subtract(two))));
+            }
             for (int k = 1; k <= all.length; k++) {
                 long[] p = java.util.Arrays.copyOf(all, k);
                 BigInteger product = BigInteger.ONE;
@@ -66,11 +80,9 @@ class ModuliTest {
                     product = product.multiply(BigInteger.valueOf(q));
                 }
                 Moduli.Crt crt = new Moduli.Crt(p);
-                BigInteger[] values = {BigInteger.ZERO, BigInteger.valueOf(12345), BigInteger.valueOf(p[0] - 1),
-                    BigInteger.valueOf(p[0]), BigInteger.valueOf(Long.MAX_VALUE), BigInteger.ONE.shiftLeft(63),
-                    BigInteger.ONE.shiftLeft(63).add(BigInteger.valueOf(p[0] - 1)), BigInteger.ONE.shiftLeft(100).add(BigInteger.ONE),
-                    product.subtract(BigInteger.ONE)};
-                for (BigInteger v : values) {
+                java.util.List<BigInteger> cases = new java.util.ArrayList<>(values);
+                cases.add(product.subtract(BigInteger.ONE));
+                for (BigInteger v : cases) {
                     if (v.compareTo(product) >= 0) {
                         continue;
                     }
