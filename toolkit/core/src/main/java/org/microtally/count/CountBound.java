@@ -16,9 +16,9 @@ import org.microtally.exact.ExactLog;
  * e &lt;= E, and is a polynomial, so any x0, q0 is allowed), and bound every n &lt;= N, e &lt;= E at once
  * by ln G - N min(ln x0, 0) - E min(ln q0, 0). That function of (ln x0, ln q0) is convex, and we
  * minimise it by a projected Newton iteration with backtracking (J. Nocedal, S. J. Wright, Numerical
- * Optimization, 2nd ed., Springer 2006, Ch. 3 and 16.7), in 14 evaluations for the 3D oscillator at
- * N = 20, 40, 100, 200 and E = 100, 200, 600, 1100 (22-26 before points already evaluated were recognised,
- * see {@code newton}; each costs about two products per term, see {@code Saddle}); every
+ * Optimization, 2nd ed., Springer 2006, Ch. 3 and 16.7), in 9-11 evaluations for the 3D oscillator at
+ * N = 20-200, E = 100-1100 (8 at N = 1000, E = 50; 14 at N = 5, E = 2000; 14-28 before the step cap and
+ * the known points of {@code newton}; each costs about two products per term, see {@code Saddle}); every
  * evaluated point is itself a valid bound and the smallest is kept, so the search quality affects
  * only tightness, never validity. For
  * distinguishable particles the bound is Z1(q0)^n / q0^e &lt;= max(1, Z1(q0)^N) / min(1, q0)^E.
@@ -45,8 +45,13 @@ final class CountBound {
             double[][] rho = new double[levels][];
             for (int l = 0; l < levels; l++) {
                 int maxJ = CountEngine.maxJ(energy[l], maxN, maxE);
-                lnc[l] = lnCoefficients(stats, deg[l], maxJ);
-                rho[l] = ratios(stats, deg[l], lnc[l]);
+                if (stats.kind() == Statistics.Kind.BOSE || stats.kind() == Statistics.Kind.FERMI) {
+                    rho[l] = ratios(stats, deg[l], maxJ);
+                    lnc[l] = logsFromRatios(rho[l]);
+                } else {
+                    lnc[l] = exactLnCoefficients(stats, deg[l], maxJ);
+                    rho[l] = ratiosFromLogs(lnc[l]);
+                }
             }
             best = newton(new Saddle(lnc, rho, energy, levels, maxN, maxE));
         } else {
@@ -72,54 +77,49 @@ final class CountBound {
     }
 
     /**
-     * ln c_j of {@link LevelSeries#coefficients}: for Bose and Fermi by the ratio recurrence
-     * c_j = c_{j-1} (g + j - 1)/j, resp. (g - j + 1)/j, in double logs; each step adds a few ulp of
-     * the running sum, so ln c_j errs by under 1e-6 for j &lt;= 10^5, and ln G (a sum over levels of
-     * log-sum-exps, each off by at most its largest input error) by far less than the 2-bit margin
-     * added to the bound. Gentile: from the exact series.
+     * rho_j = c_j / c_(j-1) of {@link LevelSeries#coefficients} for 1 &lt;= j &lt;= top (rho_0 unused), top = maxJ
+     * for Bose and min(maxJ, g) for Fermi (the series ends there): (g + j - 1)/j, resp. (g - j + 1)/j,
+     * within half an ulp.
      */
-    private static double[] lnCoefficients(Statistics stats, int g, int maxJ) {
-        int top;
-        switch (stats.kind()) {
-            case BOSE:
-                top = maxJ;
-                break;
-            case FERMI:
-                top = Math.min(maxJ, g);
-                break;
-            default:
-                BigInteger[] c = LevelSeries.coefficients(stats, g, maxJ);
-                double[] out = new double[c.length];
-                for (int j = 0; j < c.length; j++) {
-                    out[j] = ExactLog.ln(c[j]);
-                }
-                return out;
-        }
+    private static double[] ratios(Statistics stats, int g, int maxJ) {
         boolean bose = stats.kind() == Statistics.Kind.BOSE;
-        double[] out = new double[top + 1];
+        int top = bose ? maxJ : Math.min(maxJ, g);
+        double[] r = new double[top + 1];
         for (int j = 1; j <= top; j++) {
-            out[j] = out[j - 1] + Math.log((bose ? (double) g + j - 1 : (double) g - j + 1) / j);
+            r[j] = (bose ? (double) g + j - 1 : (double) g - j + 1) / j;
+        }
+        return r;
+    }
+
+    /**
+     * ln c_j = ln c_(j-1) + ln rho_j from ln c_0 = 0, the ratio recurrence in double logs: each step
+     * adds a few ulp of the running sum, so ln c_j errs by under 1e-6 for j &lt;= 10^5, and ln G (a sum
+     * over levels of log-sum-exps, each off by at most its largest input error) by far less than the
+     * 2-bit margin added to the bound.
+     */
+    private static double[] logsFromRatios(double[] rho) {
+        double[] out = new double[rho.length];
+        for (int j = 1; j < rho.length; j++) {
+            out[j] = out[j - 1] + Math.log(rho[j]);
         }
         return out;
     }
 
-    /**
-     * rho_j = c_j / c_(j-1) for 1 &lt;= j &lt; lnc.length (rho_0 unused): (g + j - 1)/j for Bose,
-     * (g - j + 1)/j for Fermi (within half an ulp), e^(ln c_j - ln c_(j-1)) from the exact series otherwise.
-     */
-    private static double[] ratios(Statistics stats, int g, double[] lnc) {
+    /** ln c_j of {@link LevelSeries#coefficients} from the exact series (statistics other than Bose and Fermi). */
+    private static double[] exactLnCoefficients(Statistics stats, int g, int maxJ) {
+        BigInteger[] c = LevelSeries.coefficients(stats, g, maxJ);
+        double[] out = new double[c.length];
+        for (int j = 0; j < c.length; j++) {
+            out[j] = ExactLog.ln(c[j]);
+        }
+        return out;
+    }
+
+    /** rho_j = e^(ln c_j - ln c_(j-1)) for 1 &lt;= j &lt; lnc.length (rho_0 unused). */
+    private static double[] ratiosFromLogs(double[] lnc) {
         double[] r = new double[lnc.length];
         for (int j = 1; j < r.length; j++) {
-            switch (stats.kind()) {
-                case BOSE:
-                    r[j] = ((double) g + j - 1) / j;
-                    break;
-                case FERMI:
-                    r[j] = ((double) g - j + 1) / j;
-                    break;
-                default:
-                    r[j] = Math.exp(lnc[j] - lnc[j - 1]);
-            }
+            r[j] = Math.exp(lnc[j] - lnc[j - 1]);
         }
         return r;
     }
@@ -330,8 +330,12 @@ final class CountBound {
      * the smallest value seen (each one is a valid bound, so the search affects tightness only).
      * Variables at 0 whose gradient points out of the quadrant are held there. A trial point the
      * projection puts where the function was already evaluated (typically back at (0, 0) while the
-     * first steps halve towards the quadrant's edge: 9 of 23 evaluations at N = 40, E = 200) is judged
+     * first steps halve towards the quadrant's edge: 9 of 23 evaluations at N = 40, E = 200 with the
+     * step capped at 8 from the start) is judged
      * by the value it had, and evaluated again only if it would be accepted (its gradient is needed then).
+     * Steps are capped at length 1 at first and the cap doubles with every accepted step, up to
+     * {@link #MAX_STEP}: a first step capped at 8 lands far out where the function is nearly linear, and the
+     * next ones only halve back. A step that no longer moves the point ends the search.
      */
     private static double newton(Saddle f) {
         double u = 0;
@@ -340,6 +344,7 @@ final class CountBound {
         double best = f.value;
         Seen seen = new Seen();
         seen.add(u, v, f.value);
+        double cap = 1; // the longest step: 1 at first, doubled after every accepted step up to MAX_STEP
         for (int it = 0; it < 60; it++) {
             boolean holdU = u >= 0 && f.gu < 0;
             boolean holdV = v >= 0 && f.gv < 0;
@@ -364,9 +369,9 @@ final class CountBound {
                 }
             }
             double longest = Math.max(Math.abs(du), Math.abs(dv));
-            if (longest > 8) { // no step longer than 8 in ln x or ln q
-                du *= 8 / longest;
-                dv *= 8 / longest;
+            if (longest > cap) { // no step longer than the cap in ln x or ln q
+                du *= cap / longest;
+                dv *= cap / longest;
             }
             double slope = f.gu * du + f.gv * dv;
             double start = f.value;
@@ -377,6 +382,9 @@ final class CountBound {
             for (int half = 0; half < 40; half++) {
                 nu = Math.max(-RANGE, Math.min(0, u + step * du));
                 nv = Math.max(-RANGE, Math.min(0, v + step * dv));
+                if (nu == u && nv == v) {
+                    break; // the step no longer moves the point: converged (not moved, the loop ends)
+                }
                 double accept = start + 1e-4 * step * Math.min(slope, 0);
                 int known = seen.indexOf(nu, nv);
                 if (known >= 0 && !(seen.value[known] <= accept)) {
@@ -400,12 +408,16 @@ final class CountBound {
             double gain = start - f.value;
             u = nu;
             v = nv;
+            cap = Math.min(MAX_STEP, 2 * cap);
             if (gain <= 1e-12 * Math.max(1, Math.abs(start))) {
                 break;
             }
         }
         return best;
     }
+
+    /** The longest Newton step in ln x or ln q. */
+    private static final double MAX_STEP = 8;
 
     /** The points {@link #newton} evaluated, with their values (NaN kept as NaN). */
     private static final class Seen {
