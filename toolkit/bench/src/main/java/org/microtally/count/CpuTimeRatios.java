@@ -109,16 +109,18 @@ public final class CpuTimeRatios {
             double[] crtTime = r[3];
             double[] crtShare = new double[crtTime.length];
             double[] boundShare = new double[crtTime.length];
+            double[] bothShare = new double[crtTime.length];
             for (int i = 0; i < crtTime.length; i++) {
                 crtShare[i] = 100 * crtTime[i] / buildRead[i];
                 boundShare[i] = 100 * bound[i] / buildRead[i];
+                bothShare[i] = crtShare[i] + boundShare[i];
             }
             System.out.printf("count table %dx%d Bose, one thread, %d primes, %d entries, median [min-max] of %d "
                     + "rounds: build %s ms, build + full read %s ms (%s ns per entry); CRT %s ns per entry; "
-                    + "share of build + full read: CRT %s%%, bound %s%% (bound %s ms)%n",
+                    + "share of build + full read: CRT %s%%, bound %s%%, the two together %s%% (bound %s ms)%n",
                     n, e, primes.length, entries, crtTime.length, range(build, 1e-6), range(buildRead, 1e-6),
                     range(buildRead, 1.0 / entries), range(crtTime, 1.0 / entries), range(crtShare, 1),
-                    range(boundShare, 1), range(bound, 1e-6));
+                    range(boundShare, 1), range(bothShare, 1), range(bound, 1e-6));
         }
         System.out.println("load average after the count tables: " + loadAverage());
     }
