@@ -32,7 +32,7 @@ final class SparkKernelSpec {
     static final String NAME = KernelIdentity.SPARK_KERNEL_NAME;
     static final String DISPLAY_NAME = KernelIdentity.SPARK_DISPLAY_NAME;
     static final String OPTION = "--with-spark";
-    static final String CLASSPATH_PROPERTY = "microtally.spark.classpath";
+    static final String CLASSPATH_PROPERTY = org.microtally.notebook.session.KernelIdentity.SPARK_CLASSPATH_PROPERTY;
     static final String OPTIONS_PROPERTY = "microtally.spark.jvmoptions";
     static final String LOG_CONFIG = "-Dlog4j2.configurationFile=classpath:org/microtally/spark/log4j2-quiet.properties";
     /** The folder in the kernelspec directory that holds the copied build outputs. */

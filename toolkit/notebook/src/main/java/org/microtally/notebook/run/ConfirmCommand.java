@@ -45,14 +45,14 @@ public final class ConfirmCommand implements Callable<Integer> {
     CommandLine.Model.CommandSpec spec;
 
     private final PrintStream log;
-    private final Engine.Factory engines;
+    private final java.util.function.Function<String, Engine.Factory> engines; // by the kernelspec name a notebook gives
 
     /** Reports on the process's standard error. */
     public ConfirmCommand() {
-        this(Session.consoleErr(), Session::open);
+        this(Session.consoleErr(), Session::forKernel);
     }
 
-    ConfirmCommand(PrintStream log, Engine.Factory engines) {
+    ConfirmCommand(PrintStream log, java.util.function.Function<String, Engine.Factory> engines) {
         this.log = log;
         this.engines = engines;
     }
@@ -110,7 +110,7 @@ public final class ConfirmCommand implements Callable<Integer> {
         Duration timeout = settings.cellTimeoutFor(saved);
         NotebookExecution.Executed done;
         try (ExitWatch exits = new ExitWatch(log)) {
-            done = new NotebookExecution(file, timeout, settings, new ProgressLine(log, false), exits).run(saved, engines);
+            done = new NotebookExecution(file, timeout, settings, new ProgressLine(log, false), exits).run(saved, engines.apply(saved.kernelName()));
         }
         if (done.failure().isPresent()) {
             log.println("microtally confirm: the rerun failed at " + done.failure().get().describe()

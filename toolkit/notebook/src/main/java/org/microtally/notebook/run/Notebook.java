@@ -228,17 +228,34 @@ final class Notebook {
     }
 
     /**
-     * Prepares the tree for output as an executed notebook: kernel and language metadata, provenance
+     * The kernelspec name in the notebook's metadata ({@code metadata.kernelspec.name}), or the plain
+     * kernel's name when there is none.
+     */
+    String kernelName() {
+        JsonElement md = root.get("metadata");
+        if (md != null && md.isJsonObject() && md.getAsJsonObject().get("kernelspec") instanceof JsonObject ks
+                && ks.get("name") != null && isString(ks.get("name"))) {
+            return ks.get("name").getAsString();
+        }
+        return org.microtally.notebook.session.KernelIdentity.KERNEL_NAME;
+    }
+
+    /**
+     * Prepares the tree for output as an executed notebook: kernel and language metadata (the Spark
+     * kernel's when the notebook names it, else the plain kernel's), provenance
      * ({@code metadata.microtally.provenance}), required
      * fields of every cell, and cell ids where the declared minor version requires them (4.5+).
      */
     void normalize() {
+        boolean spark = org.microtally.notebook.session.KernelIdentity.SPARK_KERNEL_NAME.equals(kernelName());
         JsonObject md = root.has("metadata") && root.get("metadata").isJsonObject()
                 ? root.getAsJsonObject("metadata") : new JsonObject();
         root.add("metadata", md);
         JsonObject kernelspec = new JsonObject();
-        kernelspec.addProperty("name", org.microtally.notebook.session.KernelIdentity.KERNEL_NAME);
-        kernelspec.addProperty("display_name", org.microtally.notebook.session.KernelIdentity.DISPLAY_NAME);
+        kernelspec.addProperty("name", spark ? org.microtally.notebook.session.KernelIdentity.SPARK_KERNEL_NAME
+                : org.microtally.notebook.session.KernelIdentity.KERNEL_NAME);
+        kernelspec.addProperty("display_name", spark ? org.microtally.notebook.session.KernelIdentity.SPARK_DISPLAY_NAME
+                : org.microtally.notebook.session.KernelIdentity.DISPLAY_NAME);
         kernelspec.addProperty("language", org.microtally.notebook.session.KernelIdentity.LANGUAGE);
         md.add("kernelspec", kernelspec);
         JsonObject lang = GSON.toJsonTree(org.microtally.notebook.session.KernelIdentity.languageInfo()).getAsJsonObject();

@@ -41,13 +41,13 @@ public final class NotebookRunner {
     private final RunSettings settings;
     private final PrintStream log;
     private final ProgressLine progress;
-    private final Engine.Factory engines;
+    private final java.util.function.Function<String, Engine.Factory> engines; // by the kernelspec name a notebook gives
 
     NotebookRunner(RunSettings settings, PrintStream log, boolean terminal) {
-        this(settings, log, terminal, Session::open);
+        this(settings, log, terminal, Session::forKernel);
     }
 
-    NotebookRunner(RunSettings settings, PrintStream log, boolean terminal, Engine.Factory engines) {
+    NotebookRunner(RunSettings settings, PrintStream log, boolean terminal, java.util.function.Function<String, Engine.Factory> engines) {
         this.settings = settings;
         this.log = log;
         this.progress = new ProgressLine(log, terminal);
@@ -133,7 +133,7 @@ public final class NotebookRunner {
             return Outcome.BAD_INPUT;
         }
         // execute cell by cell, collecting the outputs
-        NotebookExecution.Executed done = new NotebookExecution(file, timeout, settings, progress, exits).run(input, engines);
+        NotebookExecution.Executed done = new NotebookExecution(file, timeout, settings, progress, exits).run(input, engines.apply(input.kernelName()));
         if (done.failure().isPresent() && !settings.keepGoing()) {
             log.println("microtally: " + file + ": nothing written, the run stopped at a failing cell");
             return new Outcome(done.failure(), false);

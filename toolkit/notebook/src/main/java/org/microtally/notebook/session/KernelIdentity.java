@@ -28,6 +28,11 @@ public final class KernelIdentity {
     public static final String SPARK_KERNEL_NAME = "microtally-spark";
     /** Its display name. */
     public static final String SPARK_DISPLAY_NAME = "microtally \u2014 exact counts on Spark";
+    /**
+     * The system property in which the launcher lists, separated like a class path, the class-path entries
+     * it added for Spark (the Spark module's jar and Spark's jars) when it put Spark on the class path.
+     */
+    public static final String SPARK_CLASSPATH_PROPERTY = "microtally.spark.classpath";
     /** The language name in kernel.json and language_info. */
     public static final String LANGUAGE = "java";
     public static final String MIMETYPE = "text/x-java-source";

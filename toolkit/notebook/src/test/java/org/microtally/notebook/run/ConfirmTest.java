@@ -34,7 +34,7 @@ class ConfirmTest {
     }
 
     int confirm(String... args) {
-        CommandLine cli = Cli.configure(new CommandLine(new ConfirmCommand(log, Session::open)), log, log);
+        CommandLine cli = Cli.configure(new CommandLine(new ConfirmCommand(log, Session::forKernel)), log, log);
         return cli.execute(args);
     }
 

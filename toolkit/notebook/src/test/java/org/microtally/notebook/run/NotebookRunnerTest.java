@@ -141,6 +141,33 @@ class NotebookRunnerTest {
         assertTrue(log().contains("dot-shells.ipynb  cell 4 (3 of 3)  ok  "), log());
     }
 
+    /**
+     * A notebook that names the Spark kernel keeps that kernelspec in its executed copy (so Jupyter and the
+     * runner open it with Spark again), and its cells run; one without a kernelspec gets the plain kernel's.
+     */
+    @Test
+    void theExecutedCopyNamesTheKernelTheNotebookNamed() throws IOException {
+        Path in = tmp.resolve("in");
+        Files.createDirectories(in);
+        String cells = "\"cells\": [{\"cell_type\": \"code\", \"metadata\": {}, \"execution_count\": null, "
+                + "\"outputs\": [], \"source\": [\"6 * 7\"]}]";
+        Path spark = Files.writeString(in.resolve("on-spark.ipynb"), "{\"nbformat\": 4, \"nbformat_minor\": 5, "
+                + "\"metadata\": {\"kernelspec\": {\"name\": \"microtally-spark\", \"display_name\": \"old name\"}}, " + cells + "}");
+        Path plain = Files.writeString(in.resolve("no-kernel.ipynb"), "{\"nbformat\": 4, \"nbformat_minor\": 5, "
+                + "\"metadata\": {}, " + cells + "}");
+        Path out = tmp.resolve("out");
+        assertEquals(0, run(spark.toString(), plain.toString(), "--out", out.toString()), log());
+        JsonObject ks = readJson(out.resolve("on-spark.ipynb")).getAsJsonObject("metadata").getAsJsonObject("kernelspec");
+        assertEquals(org.microtally.notebook.session.KernelIdentity.SPARK_KERNEL_NAME, ks.get("name").getAsString());
+        assertEquals(org.microtally.notebook.session.KernelIdentity.SPARK_DISPLAY_NAME, ks.get("display_name").getAsString());
+        JsonObject nb = readJson(out.resolve("no-kernel.ipynb"));
+        NbformatShape.check(nb);
+        assertEquals(org.microtally.notebook.session.KernelIdentity.KERNEL_NAME,
+                nb.getAsJsonObject("metadata").getAsJsonObject("kernelspec").get("name").getAsString());
+        // Source: arithmetic, 6 * 7 = 42 (common practice, no source)
+        assertEquals("42", Notebook.text(output(nb, 0, 0).getAsJsonObject("data").get("text/plain")));
+    }
+
     @Test
     void expectedFailuresAreRecordedAndTheSessionSurvives() throws IOException {
         Path nbFile = input("expected-faults.ipynb");
