@@ -164,8 +164,8 @@ public final class Session implements Engine {
      * {@link KernelIdentity#SPARK_CLASSPATH_PROPERTY} when it put Spark on the class path for a Spark notebook
      * of the same run). The same as {@link #open} when Spark is not on the class path. Cells also compile
      * faster: JShell's javac searches every class-path entry for each cell's imports, and Spark brings about
-     * 175 jars (the eight single-machine notebooks took 21.1 s headless with them, 15.5 s without, on
-     * 2026-12-04).
+     * 175 jars (the eight single-machine notebooks of a nine-notebook headless run took 21.1 s with them
+     * and 12.7 s without, on 2026-12-04).
      */
     public static Session openWithoutSpark() {
         return new Session(false);
