@@ -159,25 +159,14 @@ public final class Session implements Engine {
     }
 
     /**
-     * Starts a session whose cells compile as under the plain kernel: against the engine class path without
-     * the Spark module and Spark's jars (the entries the launcher lists in
-     * {@link KernelIdentity#SPARK_CLASSPATH_PROPERTY} when it put Spark on the class path for a Spark notebook
-     * of the same run). The same as {@link #open} when Spark is not on the class path. Cells also compile
-     * faster: JShell's javac searches every class-path entry for each cell's imports, and Spark brings about
-     * 175 jars (the eight single-machine notebooks of a nine-notebook headless run took 21.1 s with them
-     * and 12.7 s without, on 2026-12-04).
-     */
-    public static Session openWithoutSpark() {
-        return new Session(false);
-    }
-
-    /**
      * The engines for a notebook whose metadata names the kernelspec {@code kernelName}: {@link #open} for the
-     * Spark kernel ({@link KernelIdentity#SPARK_KERNEL_NAME}), {@link #openWithoutSpark} for any other, so a
-     * notebook compiles as under the kernel it names even when the runner's JVM has Spark for another one.
+     * Spark kernel ({@link KernelIdentity#SPARK_KERNEL_NAME}); for any other, sessions that compile without
+     * the entries the launcher lists in {@link KernelIdentity#SPARK_CLASSPATH_PROPERTY}, as under the plain
+     * kernel, even when the runner's JVM has Spark for another notebook. Their cells also compile faster (the
+     * eight single-machine notebooks of a nine-notebook run: 21.1 s with Spark's 175 jars, 12.7 s without).
      */
     public static Engine.Factory forKernel(String kernelName) {
-        return KernelIdentity.SPARK_KERNEL_NAME.equals(kernelName) ? Session::open : Session::openWithoutSpark;
+        return KernelIdentity.SPARK_KERNEL_NAME.equals(kernelName) ? Session::open : () -> new Session(false);
     }
 
     /** The import statements this session ran at start (toolkit packages that exist, display helpers). */
